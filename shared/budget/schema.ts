@@ -1,0 +1,207 @@
+import { z } from 'zod';
+import { LIMITS } from './limits';
+
+/*
+ * Budget file v1 (format "dubito-budget/1"). Objects are loose: fields this
+ * version does not know are kept, so an export returns them unchanged.
+ */
+
+const finite = (what = 'a number') =>
+  z.number({ error: `must be ${what}` }).refine(Number.isFinite, { message: `must be ${what}` });
+const positive = () => finite().refine((v) => v > 0, { message: 'must be greater than 0' });
+const symbolName = z
+  .string({ error: 'must be a symbol name' })
+  .regex(/^[A-Za-z_][A-Za-z0-9_]*$/, {
+    message: 'must start with a letter or _ and contain only letters, digits and _',
+  });
+const unitText = z.string({ error: 'must be a unit expression such as "mg" or "kg/m^3"' }).max(100);
+
+/** Fields every distribution kind may carry; both act on ν only (GUM G.4.2). */
+const dofOptions = {
+  dof: positive().optional(),
+  relativeUncertaintyOfU: positive().optional(),
+};
+
+const normal = z.looseObject({
+  kind: z.literal('normal'),
+  value: finite(),
+  u: positive().optional(),
+  U: positive().optional(),
+  k: positive().optional(),
+  ...dofOptions,
+});
+const rectangular = z.looseObject({
+  kind: z.literal('rectangular'),
+  value: finite().optional(),
+  halfWidth: positive().optional(),
+  lower: finite().optional(),
+  upper: finite().optional(),
+  ...dofOptions,
+});
+const triangular = z.looseObject({
+  kind: z.literal('triangular'),
+  value: finite(),
+  halfWidth: positive(),
+  ...dofOptions,
+});
+const arcsine = z.looseObject({
+  kind: z.literal('arcsine'),
+  value: finite(),
+  halfWidth: positive(),
+  ...dofOptions,
+});
+const trapezoidal = z.looseObject({
+  kind: z.literal('trapezoidal'),
+  value: finite(),
+  halfWidth: positive(),
+  beta: finite().refine((b) => b >= 0 && b <= 1, { message: 'must lie between 0 and 1' }),
+  ...dofOptions,
+});
+const curvilinearTrapezoidal = z.looseObject({
+  kind: z.literal('curvilinear-trapezoidal'),
+  value: finite(),
+  halfWidth: positive(),
+  halfWidthUncertainty: finite().refine((d) => d >= 0, { message: 'must not be negative' }),
+  ...dofOptions,
+});
+const studentT = z.looseObject({
+  kind: z.literal('student-t'),
+  value: finite(),
+  scale: positive(),
+  dof: positive(),
+  relativeUncertaintyOfU: positive().optional(),
+});
+const observations = z.looseObject({
+  kind: z.literal('observations'),
+  values: z
+    .array(finite(), { error: 'must be a list of numbers' })
+    .min(2, { message: 'needs at least 2 observations' })
+    .max(LIMITS.observations, { message: `allows at most ${LIMITS.observations} observations` }),
+  pooledSd: positive().optional(),
+  pooledDof: positive().optional(),
+  ...dofOptions,
+});
+const constant = z.looseObject({
+  kind: z.literal('constant'),
+  value: finite(),
+  ...dofOptions,
+});
+
+export const DISTRIBUTION_KINDS = [
+  'normal',
+  'rectangular',
+  'triangular',
+  'arcsine',
+  'trapezoidal',
+  'curvilinear-trapezoidal',
+  'student-t',
+  'observations',
+  'constant',
+] as const;
+
+export const distributionSchema = z
+  .discriminatedUnion(
+    'kind',
+    [normal, rectangular, triangular, arcsine, trapezoidal, curvilinearTrapezoidal, studentT, observations, constant],
+    { error: `kind must be one of ${DISTRIBUTION_KINDS.join(', ')}` },
+  )
+  .superRefine((d, ctx) => {
+    const fail = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
+    if (d.kind !== 'student-t' && d.dof !== undefined && d.relativeUncertaintyOfU !== undefined) {
+      fail('relativeUncertaintyOfU', 'give either dof or relativeUncertaintyOfU, not both');
+    }
+    switch (d.kind) {
+      case 'normal':
+        if (d.u !== undefined && (d.U !== undefined || d.k !== undefined)) fail('u', 'give either u, or U with k, not both');
+        else if (d.u === undefined && (d.U === undefined || d.k === undefined)) {
+          fail(d.U === undefined ? 'u' : 'k', 'a normal distribution needs u, or U with its coverage factor k');
+        }
+        break;
+      case 'rectangular': {
+        const byBounds = d.lower !== undefined || d.upper !== undefined;
+        const byWidth = d.value !== undefined || d.halfWidth !== undefined;
+        if (byBounds && byWidth) fail('lower', 'give value with halfWidth, or lower with upper, not both');
+        else if (byBounds) {
+          if (d.lower === undefined) fail('lower', 'is required with upper');
+          else if (d.upper === undefined) fail('upper', 'is required with lower');
+          else if (!(d.lower < d.upper)) fail('upper', 'must be greater than lower');
+        } else if (d.value === undefined) fail('value', 'a rectangular distribution needs value with halfWidth, or lower with upper');
+        else if (d.halfWidth === undefined) fail('halfWidth', 'is required with value');
+        break;
+      }
+      case 'curvilinear-trapezoidal':
+        if (d.halfWidthUncertainty > d.halfWidth) fail('halfWidthUncertainty', 'must not exceed halfWidth');
+        break;
+      case 'observations':
+        if ((d.pooledSd === undefined) !== (d.pooledDof === undefined)) {
+          fail(d.pooledSd === undefined ? 'pooledSd' : 'pooledDof', 'pooledSd and pooledDof go together');
+        }
+        break;
+    }
+  });
+
+export const quantitySchema = z.looseObject({
+  symbol: symbolName,
+  unit: unitText.optional(),
+  description: z.string().max(2000).optional(),
+  distribution: distributionSchema,
+});
+
+export const constantSchema = z.looseObject({
+  symbol: symbolName,
+  value: finite(),
+  unit: unitText.optional(),
+  description: z.string().max(2000).optional(),
+});
+
+export const correlationSchema = z.looseObject({
+  between: z.tuple([symbolName, symbolName], { error: 'must name two input symbols' }),
+  r: finite().refine((r) => r >= -1 && r <= 1, { message: 'must lie between -1 and 1' }),
+});
+
+export const monteCarloSchema = z.looseObject({
+  trials: z
+    .union([
+      z
+        .number({ error: 'must be a whole number of trials or "adaptive"' })
+        .int({ message: 'must be a whole number' })
+        .min(1, { message: 'must be at least 1' })
+        .max(LIMITS.trials, { message: `must not exceed ${LIMITS.trials.toExponential(0)} trials` }),
+      z.literal('adaptive'),
+    ])
+    .optional(),
+  seed: z.union([z.string().max(200), z.number()]).optional(),
+  significantDigits: z.number().int().min(1).max(4).optional(),
+});
+
+export const budgetDocumentSchema = z.looseObject({
+  format: z.literal('dubito-budget/1', { error: 'format must be "dubito-budget/1"' }),
+  title: z.string({ error: 'title must be text' }).min(1, { message: 'title must not be empty' }).max(300),
+  measurand: z.looseObject({
+    symbol: symbolName,
+    unit: unitText.optional(),
+    description: z.string().max(2000).optional(),
+  }),
+  model: z
+    .string({ error: 'model must be text' })
+    .min(1, { message: 'model must not be empty' })
+    .max(LIMITS.modelLength, { message: `model must not exceed ${LIMITS.modelLength} characters` }),
+  constants: z.array(constantSchema).optional(),
+  inputs: z
+    .array(quantitySchema, { error: 'inputs must be a list' })
+    .min(1, { message: 'a budget needs at least one input quantity' })
+    .max(LIMITS.inputs, { message: `a budget allows at most ${LIMITS.inputs} input quantities` }),
+  correlations: z.array(correlationSchema).optional(),
+  coverageProbability: finite()
+    .refine((p) => p > 0 && p < 1, { message: 'must lie strictly between 0 and 1' })
+    .optional(),
+  monteCarlo: monteCarloSchema.optional(),
+});
+
+export type BudgetDocument = z.infer<typeof budgetDocumentSchema>;
+export type InputQuantity = z.infer<typeof quantitySchema>;
+export type BudgetConstant = z.infer<typeof constantSchema>;
+export type Distribution = z.infer<typeof distributionSchema>;
+export type DistributionKind = Distribution['kind'];
+export type DistributionOf<K extends DistributionKind> = Extract<Distribution, { kind: K }>;
+export type Correlation = z.infer<typeof correlationSchema>;
