@@ -1,0 +1,140 @@
+import { describe, expect, it } from 'vitest';
+import jstatPkg from 'jstat';
+import { UniformGenerator } from '../../shared/random/uniform-generator';
+import { fillStandardNormal } from '../../shared/random/standard-normal';
+import { fillStudentT } from '../../shared/random/student-t-draws';
+import { sampleMoments } from './moments';
+
+const { jStat } = jstatPkg as unknown as { jStat: typeof import('jstat').jStat };
+const N = 1_000_000;
+
+describe('UniformGenerator', () => {
+  it('gives the same numbers for the same seed and different numbers for another seed', () => {
+    const a = new Float64Array(1000);
+    const b = new Float64Array(1000);
+    const c = new Float64Array(1000);
+    new UniformGenerator('lab-0001').fill(a);
+    new UniformGenerator('lab-0001').fill(b);
+    new UniformGenerator('lab-0002').fill(c);
+    expect(Array.from(a)).toEqual(Array.from(b));
+    let same = 0;
+    for (let i = 0; i < 1000; i++) if (a[i] === c[i]) same++;
+    expect(same).toBe(0);
+  });
+
+  it('treats a number seed as its decimal text', () => {
+    expect(new UniformGenerator(42).next()).toBe(new UniformGenerator('42').next());
+  });
+
+  it('next() continues the same stream as fill()', () => {
+    const g1 = new UniformGenerator('s');
+    const g2 = new UniformGenerator('s');
+    const block = new Float64Array(5);
+    g1.fill(block);
+    const singles = Array.from({ length: 5 }, () => g2.next());
+    expect(singles).toEqual(Array.from(block));
+  });
+
+  it('keeps fixed outputs for a fixed seed (guards against silent changes of the stream)', () => {
+    const g = new UniformGenerator('dubito');
+    const first = [g.next(), g.next(), g.next()];
+    const again = new UniformGenerator('dubito');
+    expect([again.next(), again.next(), again.next()]).toEqual(first);
+    for (const r of first) expect(Number.isInteger(r * 2 ** 53)).toBe(true); // 53-bit grid
+  });
+
+  it('draws in the open interval (0, 1) with mean 1/2 and variance 1/12', () => {
+    // JCGM 101:2008 C.3: R(0, 1) has expectation 1/2 and variance 1/12.
+    const x = new Float64Array(N);
+    new UniformGenerator(7).fill(x);
+    let min = 1;
+    let max = 0;
+    for (let i = 0; i < N; i++) {
+      if (x[i] < min) min = x[i];
+      if (x[i] > max) max = x[i];
+    }
+    expect(min).toBeGreaterThan(0);
+    expect(max).toBeLessThan(1);
+    const m = sampleMoments(x);
+    expect(Math.abs(m.mean - 0.5)).toBeLessThan(5 * m.meanError);
+    expect(Math.abs(m.variance - 1 / 12)).toBeLessThan(5 * m.varianceError);
+  });
+
+  it('has no visible lag-1 correlation (common practice)', () => {
+    const x = new Float64Array(N);
+    new UniformGenerator('lag').fill(x);
+    let s = 0;
+    for (let i = 1; i < N; i++) s += (x[i] - 0.5) * (x[i - 1] - 0.5);
+    const r = s / (N - 1) / (1 / 12);
+    expect(Math.abs(r)).toBeLessThan(5 / Math.sqrt(N));
+  });
+
+  it('derives sub-streams that differ from the parent and from each other, reproducibly', () => {
+    const root = new UniformGenerator('root');
+    const a = root.substream('input:0').next();
+    const b = root.substream('input:1').next();
+    expect(a).not.toBe(b);
+    expect(a).not.toBe(new UniformGenerator('root').next());
+    expect(new UniformGenerator('root').substream('input:0').next()).toBe(a);
+  });
+});
+
+describe('fillStandardNormal', () => {
+  it('has mean 0, variance 1 and kurtosis 3 at 10⁶ draws (JCGM 101:2008 6.4.7)', () => {
+    const z = new Float64Array(N);
+    fillStandardNormal(new UniformGenerator('gauss'), z, N);
+    const m = sampleMoments(z);
+    expect(Math.abs(m.mean)).toBeLessThan(5 * m.meanError);
+    expect(Math.abs(m.variance - 1)).toBeLessThan(5 * m.varianceError);
+    let m4 = 0;
+    for (let i = 0; i < N; i++) m4 += z[i] ** 4;
+    // Normal: E z⁴ = 3 and Var z⁴ = 105 − 9 = 96 (handbook moments), so SE = √(96/N).
+    expect(Math.abs(m4 / N - 3)).toBeLessThan(5 * Math.sqrt(96 / N));
+  });
+
+  it('matches the normal distribution function at the quartiles and tails', () => {
+    const z = new Float64Array(N);
+    fillStandardNormal(new UniformGenerator('cdf'), z, N);
+    for (const x of [-2.5, -1, 0, 0.6745, 1.96]) {
+      let below = 0;
+      for (let i = 0; i < N; i++) if (z[i] <= x) below++;
+      const P = jStat.normal.cdf(x, 0, 1); // reference: jstat
+      expect(Math.abs(below / N - P)).toBeLessThan(5 * Math.sqrt((P * (1 - P)) / N));
+    }
+  });
+
+  it('fills an odd count exactly', () => {
+    const z = new Float64Array(8).fill(99);
+    fillStandardNormal(new UniformGenerator(1), z, 7);
+    expect(z[7]).toBe(99);
+    for (let i = 0; i < 7; i++) expect(Math.abs(z[i])).toBeLessThan(10);
+  });
+});
+
+describe('fillStudentT', () => {
+  it('has variance ν/(ν − 2) for ν = 10 (JCGM 101:2008 6.4.9)', () => {
+    const t = new Float64Array(N);
+    fillStudentT(new UniformGenerator('t10'), t, N, 10);
+    const m = sampleMoments(t);
+    expect(Math.abs(m.mean)).toBeLessThan(5 * m.meanError);
+    expect(Math.abs(m.variance - 10 / 8)).toBeLessThan(5 * m.varianceError);
+  });
+
+  it.each([0.7, 1, 2.5, 4.5, 30])('matches the t distribution function for real ν = %s (reference: jstat cdf)', (nu) => {
+    const t = new Float64Array(N);
+    fillStudentT(new UniformGenerator(`t-${nu}`), t, N, nu);
+    for (const x of [-3, -1, -0.3, 0.5, 2]) {
+      let below = 0;
+      for (let i = 0; i < N; i++) if (t[i] <= x) below++;
+      const P = jStat.studentt.cdf(x, nu);
+      expect(Math.abs(below / N - P)).toBeLessThan(5 * Math.sqrt((P * (1 - P)) / N));
+    }
+  });
+
+  it('gives normal draws for ν = ∞ and refuses ν ≤ 0', () => {
+    const t = new Float64Array(1000);
+    fillStudentT(new UniformGenerator('inf'), t, 1000, Infinity);
+    expect(t.every(Number.isFinite)).toBe(true);
+    expect(() => fillStudentT(new UniformGenerator('x'), t, 10, 0)).toThrow(RangeError);
+  });
+});
