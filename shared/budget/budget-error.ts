@@ -8,10 +8,18 @@ export class BudgetError extends Error {
     readonly code: BudgetErrorCode,
     message: string,
     readonly field?: string,
+    /** For model errors: the line (1-based), column (1-based) and offending token. */
+    readonly location?: ModelLocation,
   ) {
     super(message);
     this.name = 'BudgetError';
   }
+}
+
+export interface ModelLocation {
+  line: number;
+  column?: number;
+  token?: string;
 }
 
 export type BudgetErrorCode =

@@ -27,8 +27,8 @@ export interface GumResult {
   interval: [number, number];
   standardUncertaintySecondOrder: number | null;
   contributions: Contribution[];
-  /** Intermediate quantities of the model at the estimates. */
-  intermediates: { symbol: string; value: number }[];
+  /** Intermediate quantities of the model at the estimates, in coherent SI units. */
+  intermediates: { symbol: string; value: number; unit: string }[];
 }
 
 export interface HistogramBins {

@@ -1,0 +1,74 @@
+import type { MathNode } from 'mathjs';
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type AnyNode = MathNode & Record<string, any>;
+
+/**
+ * JavaScript for each function a model or its derivatives may contain.
+ * Derivatives bring in sec, csc, cot, sinh, cosh, sign and two-argument log.
+ */
+const FUNCTION_CODE: Record<string, (args: string[]) => string> = {
+  sqrt: (a) => `Math.sqrt(${a[0]})`,
+  exp: (a) => `Math.exp(${a[0]})`,
+  log: (a) => (a.length === 2 ? `(Math.log(${a[0]}) / Math.log(${a[1]}))` : `Math.log(${a[0]})`),
+  log10: (a) => `Math.log10(${a[0]})`,
+  sin: (a) => `Math.sin(${a[0]})`,
+  cos: (a) => `Math.cos(${a[0]})`,
+  tan: (a) => `Math.tan(${a[0]})`,
+  asin: (a) => `Math.asin(${a[0]})`,
+  acos: (a) => `Math.acos(${a[0]})`,
+  atan: (a) => `Math.atan(${a[0]})`,
+  atan2: (a) => `Math.atan2(${a[0]}, ${a[1]})`,
+  abs: (a) => `Math.abs(${a[0]})`,
+  min: (a) => `Math.min(${a.join(', ')})`,
+  max: (a) => `Math.max(${a.join(', ')})`,
+  sec: (a) => `(1 / Math.cos(${a[0]}))`,
+  csc: (a) => `(1 / Math.sin(${a[0]}))`,
+  cot: (a) => `(1 / Math.tan(${a[0]}))`,
+  sinh: (a) => `Math.sinh(${a[0]})`,
+  cosh: (a) => `Math.cosh(${a[0]})`,
+  tanh: (a) => `Math.tanh(${a[0]})`,
+  sign: (a) => `Math.sign(${a[0]})`,
+  square: (a) => `((${a[0]}) * (${a[0]}))`,
+};
+
+const BINARY: Record<string, string> = { add: '+', subtract: '-', multiply: '*', divide: '/' };
+
+export class UnsupportedInCode extends Error {}
+
+/**
+ * Translates an expression tree into a JavaScript expression. `symbol` maps a
+ * model symbol to the JavaScript that reads it. Throws UnsupportedInCode for
+ * a construct with no translation (the caller then falls back to numbers).
+ */
+export function toJavaScript(node: MathNode, symbol: (name: string) => string): string {
+  const n = node as AnyNode;
+  switch (n.type) {
+    case 'ConstantNode': {
+      const v = n.value as number;
+      if (typeof v !== 'number') throw new UnsupportedInCode(`constant ${String(v)}`);
+      return v < 0 || Object.is(v, -0) ? `(${v})` : String(v);
+    }
+    case 'SymbolNode':
+      if (n.name === 'pi') return 'Math.PI';
+      if (n.name === 'e') return 'Math.E';
+      return symbol(n.name);
+    case 'ParenthesisNode':
+      return `(${toJavaScript(n.content, symbol)})`;
+    case 'OperatorNode': {
+      const args = (n.args as MathNode[]).map((a) => toJavaScript(a, symbol));
+      if (n.fn in BINARY && args.length === 2) return `(${args[0]} ${BINARY[n.fn]} ${args[1]})`;
+      if (n.fn === 'unaryMinus') return `(-${args[0]})`;
+      if (n.fn === 'unaryPlus') return args[0];
+      if (n.fn === 'pow') return `Math.pow(${args[0]}, ${args[1]})`;
+      throw new UnsupportedInCode(`operator ${n.op}`);
+    }
+    case 'FunctionNode': {
+      const name = (n.fn as AnyNode).name as string;
+      const code = FUNCTION_CODE[name];
+      if (!code) throw new UnsupportedInCode(`function ${name}`);
+      return code((n.args as MathNode[]).map((a) => toJavaScript(a, symbol)));
+    }
+  }
+  throw new UnsupportedInCode(n.type);
+}

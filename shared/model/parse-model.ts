@@ -1,0 +1,112 @@
+import { parse, type MathNode } from 'mathjs';
+import { BudgetError } from '../budget/budget-error';
+import { LIMITS } from '../budget/limits';
+import { RESERVED_SYMBOLS, assertSafeExpression } from './sandbox';
+
+/** One line of a measurement model: `symbol = expression`. */
+export interface ModelLine {
+  symbol: string;
+  expression: MathNode;
+  /** 1-based line number in the model text. */
+  line: number;
+  text: string;
+}
+
+export interface ParsedModel {
+  /** Intermediate quantities in order, then the measurand as the last line. */
+  lines: ModelLine[];
+  /** Input and constant symbols the model actually uses. */
+  usedSymbols: Set<string>;
+}
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type AnyNode = MathNode & Record<string, any>;
+
+function syntaxError(lineNo: number, text: string, error: Error): BudgetError {
+  // mathjs reports "(char N)" with a 1-based position within the line.
+  const m = /\(char (\d+)\)/.exec(error.message);
+  const column = m ? Number(m[1]) : undefined;
+  const token = column ? text.slice(column - 1, column).trim() || undefined : undefined;
+  const message = error.message.replace(/\s*\(char \d+\)/, '');
+  const where = column ? `, column ${column}` : '';
+  return new BudgetError('model_syntax', `model line ${lineNo}${where}: ${message}`, 'model', { line: lineNo, column, token });
+}
+
+function collectSymbols(node: MathNode, into: Set<string>): void {
+  node.traverse((n, path) => {
+    // a function's own name (path "fn") is not a quantity
+    if (n.type === 'SymbolNode' && path !== 'fn') into.add((n as AnyNode).name);
+  });
+}
+
+/**
+ * Parses the model text: one `name = expression` per line, the last line the
+ * measurand (it may also be a bare expression). `#` starts a comment.
+ * `quantitySymbols` are the inputs and constants of the budget.
+ */
+export function parseModel(text: string, quantitySymbols: ReadonlySet<string>, measurandSymbol: string): ParsedModel {
+  if (text.length > LIMITS.modelLength) {
+    throw new BudgetError('limit', `model: longer than ${LIMITS.modelLength} characters`, 'model');
+  }
+  const defined = new Set<string>([...quantitySymbols, ...RESERVED_SYMBOLS]);
+  const lines: ModelLine[] = [];
+  const usedSymbols = new Set<string>();
+  const rawLines = text.split(/\r?\n/);
+  const contentLines = rawLines
+    .map((raw, i) => ({ raw, lineNo: i + 1, code: raw.replace(/#.*$/, '').trim() }))
+    .filter((l) => l.code.length > 0);
+  if (contentLines.length === 0) throw new BudgetError('model_syntax', 'model: the model has no expression', 'model');
+
+  contentLines.forEach(({ raw, lineNo, code }, index) => {
+    const isLast = index === contentLines.length - 1;
+    let node: AnyNode;
+    try {
+      node = parse(code) as AnyNode;
+    } catch (e) {
+      throw syntaxError(lineNo, raw, e as Error);
+    }
+    let symbol: string;
+    let expression: MathNode;
+    if (node.type === 'AssignmentNode') {
+      const target = node.object as AnyNode;
+      if (target.type !== 'SymbolNode' || node.index) {
+        throw new BudgetError('model_forbidden', `model line ${lineNo}: only a plain name can be assigned ("${target.toString()}")`, 'model', {
+          line: lineNo,
+          token: target.toString(),
+        });
+      }
+      symbol = target.name;
+      expression = node.value;
+      if (isLast && symbol !== measurandSymbol) {
+        throw new BudgetError(
+          'model_syntax',
+          `model line ${lineNo}: the last line assigns "${symbol}", but the measurand is "${measurandSymbol}"`,
+          'model',
+          { line: lineNo, token: symbol },
+        );
+      }
+    } else if (isLast) {
+      symbol = measurandSymbol;
+      expression = node;
+    } else {
+      throw new BudgetError('model_syntax', `model line ${lineNo}: an intermediate line must have the form "name = expression"`, 'model', {
+        line: lineNo,
+      });
+    }
+    if (defined.has(symbol)) {
+      const why = (RESERVED_SYMBOLS as readonly string[]).includes(symbol)
+        ? 'is reserved'
+        : quantitySymbols.has(symbol)
+          ? 'is already an input or a constant'
+          : 'is already defined by an earlier line';
+      throw new BudgetError('duplicate_symbol', `model line ${lineNo}: "${symbol}" ${why}`, 'model', { line: lineNo, token: symbol });
+    }
+    assertSafeExpression(expression, { line: lineNo, isKnown: (name) => defined.has(name) });
+    collectSymbols(expression, usedSymbols);
+    defined.add(symbol);
+    lines.push({ symbol, expression, line: lineNo, text: code });
+  });
+
+  for (const s of [...usedSymbols]) if (!quantitySymbols.has(s)) usedSymbols.delete(s);
+  return { lines, usedSymbols };
+}
