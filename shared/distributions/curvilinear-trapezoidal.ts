@@ -1,0 +1,37 @@
+import type { DistributionRule } from './distribution';
+import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
+
+/**
+ * Rectangular input whose limits are inexactly known: nominal limits
+ * a₋ = x − a, a₊ = x + a, each known only to ±d (JCGM 101:2008 6.4.3).
+ * x = value, u = √(a²/3 + d²/9), ν = ∞ (JCGM 101:2008 6.4.3 with (a₊ − a₋)/2 = a).
+ * Draws (JCGM 101:2008 6.4.3): a_s = (a₋ − d) + 2d·r₁, b_s = (a₋ + a₊) − a_s,
+ * ξ = a_s + (b_s − a_s)·r₂.
+ */
+export const curvilinearTrapezoidalRule: DistributionRule<'curvilinear-trapezoidal'> = {
+  kind: 'curvilinear-trapezoidal',
+  treat(spec) {
+    const a = spec.halfWidth;
+    const d = spec.halfWidthUncertainty;
+    return { estimate: spec.value, standardUncertainty: Math.sqrt((a * a) / 3 + (d * d) / 9), dof: Infinity };
+  },
+  sampler(spec) {
+    const lower = spec.value - spec.halfWidth;
+    const sumOfLimits = 2 * spec.value;
+    const d = spec.halfWidthUncertainty;
+    return {
+      fill(rng, out, n) {
+        rng.fill(out, n);
+        const r2 = uniformScratch();
+        for (let start = 0; start < n; start += UNIFORM_SCRATCH_LENGTH) {
+          const m = Math.min(UNIFORM_SCRATCH_LENGTH, n - start);
+          rng.fill(r2, m);
+          for (let j = 0; j < m; j++) {
+            const as = lower - d + 2 * d * out[start + j];
+            out[start + j] = as + (sumOfLimits - 2 * as) * r2[j];
+          }
+        }
+      },
+    };
+  },
+};

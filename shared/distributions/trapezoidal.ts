@@ -1,0 +1,32 @@
+import type { DistributionRule } from './distribution';
+import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
+
+/**
+ * Symmetric trapezoidal input on [x − a, x + a] with top/base ratio β:
+ * x = value, u = a·√((1 + β²)/6), ν = ∞ (JCGM 101:2008 6.4.4; GUM 4.3.9 note 2).
+ * Draws ξ = a₋ + (a₊ − a₋)/2·[(1 + β)r₁ + (1 − β)r₂] (JCGM 101:2008 6.4.4),
+ * here with (a₊ − a₋)/2 = a.
+ */
+export const trapezoidalRule: DistributionRule<'trapezoidal'> = {
+  kind: 'trapezoidal',
+  treat(spec) {
+    const { halfWidth: a, beta } = spec;
+    return { estimate: spec.value, standardUncertainty: a * Math.sqrt((1 + beta * beta) / 6), dof: Infinity };
+  },
+  sampler(spec) {
+    const lower = spec.value - spec.halfWidth;
+    const wide = spec.halfWidth * (1 + spec.beta);
+    const narrow = spec.halfWidth * (1 - spec.beta);
+    return {
+      fill(rng, out, n) {
+        rng.fill(out, n);
+        const r2 = uniformScratch();
+        for (let start = 0; start < n; start += UNIFORM_SCRATCH_LENGTH) {
+          const m = Math.min(UNIFORM_SCRATCH_LENGTH, n - start);
+          rng.fill(r2, m);
+          for (let j = 0; j < m; j++) out[start + j] = lower + wide * out[start + j] + narrow * r2[j];
+        }
+      },
+    };
+  },
+};

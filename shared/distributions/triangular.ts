@@ -1,0 +1,29 @@
+import type { DistributionRule } from './distribution';
+import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
+
+/**
+ * Symmetric triangular input on [x − a, x + a]: x = value, u = a/√6, ν = ∞
+ * (GUM 4.3.9). Draws ξ = (x − a) + a·(r₁ + r₂), the sum of two uniforms
+ * (JCGM 101:2008 6.4.5: ξ = a₋ + (a₊ − a₋)/2·(r₁ + r₂)).
+ */
+export const triangularRule: DistributionRule<'triangular'> = {
+  kind: 'triangular',
+  treat(spec) {
+    return { estimate: spec.value, standardUncertainty: spec.halfWidth / Math.sqrt(6), dof: Infinity };
+  },
+  sampler(spec) {
+    const lower = spec.value - spec.halfWidth;
+    const a = spec.halfWidth;
+    return {
+      fill(rng, out, n) {
+        rng.fill(out, n);
+        const r2 = uniformScratch();
+        for (let start = 0; start < n; start += UNIFORM_SCRATCH_LENGTH) {
+          const m = Math.min(UNIFORM_SCRATCH_LENGTH, n - start);
+          rng.fill(r2, m);
+          for (let j = 0; j < m; j++) out[start + j] = lower + a * (out[start + j] + r2[j]);
+        }
+      },
+    };
+  },
+};
