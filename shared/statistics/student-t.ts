@@ -1,0 +1,33 @@
+import * as jstatModule from 'jstat';
+
+type JStat = typeof jstatModule.jStat;
+// jstat is CommonJS: bundlers expose `jStat` by name, Node's ESM loader only as `default`.
+const jStat: JStat =
+  (jstatModule as { jStat?: JStat }).jStat ??
+  ((jstatModule as unknown as { default: JStat & { jStat?: JStat } }).default.jStat ??
+    (jstatModule as unknown as { default: JStat }).default);
+
+/** Beyond this ν the t quantile equals the normal one to far better than display precision. */
+const NORMAL_LIMIT_DOF = 1e7;
+
+/**
+ * The p-quantile t_p(ν) of the t-distribution with ν > 0 degrees of freedom
+ * (GUM G.3, Table G.2); the standard normal quantile when ν is ∞ or above 10⁷.
+ */
+export function studentTQuantile(p: number, dof: number): number {
+  if (!(p > 0 && p < 1)) throw new RangeError(`probability must lie strictly between 0 and 1 (got ${p})`);
+  if (!(dof > 0)) throw new RangeError(`degrees of freedom must be greater than 0 (got ${dof})`);
+  if (dof > NORMAL_LIMIT_DOF) return jStat.normal.inv(p, 0, 1);
+  return jStat.studentt.inv(p, dof);
+}
+
+/**
+ * Coverage factor k_p = t_{(1+p)/2}(ν) for a two-sided coverage probability p
+ * (GUM G.3.4, Table G.2), with ν truncated to the next lower integer (GUM G.4.1);
+ * ν below 1 is used as given. ν = ∞ gives the normal factor (1.96 for p = 0.95).
+ */
+export function coverageFactorFor(p: number, dof: number): number {
+  if (!(p > 0 && p < 1)) throw new RangeError(`coverage probability must lie strictly between 0 and 1 (got ${p})`);
+  const nu = dof === Infinity ? Infinity : dof >= 1 ? Math.floor(dof) : dof;
+  return studentTQuantile((1 + p) / 2, nu);
+}
