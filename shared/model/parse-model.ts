@@ -67,12 +67,15 @@ export function parseModel(text: string, quantitySymbols: ReadonlySet<string>, m
     }
     let symbol: string;
     let expression: MathNode;
+    const sandbox = { line: lineNo, isKnown: (name: string) => defined.has(name) };
+    if (node.type === 'FunctionAssignmentNode' || node.type === 'BlockNode') assertSafeExpression(node, sandbox);
     if (node.type === 'AssignmentNode') {
       const target = node.object as AnyNode;
       if (target.type !== 'SymbolNode' || node.index) {
-        throw new BudgetError('model_forbidden', `model line ${lineNo}: only a plain name can be assigned ("${target.toString()}")`, 'model', {
+        const written = `${target.toString()}${node.index ? node.index.toString() : ''}`;
+        throw new BudgetError('model_forbidden', `model line ${lineNo}: only a plain name can be assigned ("${written}")`, 'model', {
           line: lineNo,
-          token: target.toString(),
+          token: written,
         });
       }
       symbol = target.name;
@@ -101,7 +104,7 @@ export function parseModel(text: string, quantitySymbols: ReadonlySet<string>, m
           : 'is already defined by an earlier line';
       throw new BudgetError('duplicate_symbol', `model line ${lineNo}: "${symbol}" ${why}`, 'model', { line: lineNo, token: symbol });
     }
-    assertSafeExpression(expression, { line: lineNo, isKnown: (name) => defined.has(name) });
+    assertSafeExpression(expression, sandbox);
     collectSymbols(expression, usedSymbols);
     defined.add(symbol);
     lines.push({ symbol, expression, line: lineNo, text: code });
