@@ -1,0 +1,66 @@
+import { and, asc, eq, isNull } from 'drizzle-orm';
+import type { Role } from '../../shared/policy/policy';
+import type { DbLike } from '../db/connection';
+import { accountTokens, users } from '../db/schema';
+
+export type UserRow = typeof users.$inferSelect;
+export type TokenKind = 'invitation' | 'password_reset';
+
+export function findUserByEmail(db: DbLike, email: string): UserRow | undefined {
+  return db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
+}
+
+export function findUserById(db: DbLike, id: number): UserRow | undefined {
+  return db.select().from(users).where(eq(users.id, id)).get();
+}
+
+export function listUsers(db: DbLike): UserRow[] {
+  return db.select().from(users).orderBy(asc(users.id)).all();
+}
+
+export function activeUsersWithRole(db: DbLike, roles: Role[]): UserRow[] {
+  return listUsers(db).filter((u) => u.active && u.passwordHash && roles.includes(u.role));
+}
+
+export function insertUser(
+  db: DbLike,
+  u: { email: string; name: string; role: Role; passwordHash: string | null; active?: boolean },
+): UserRow {
+  return db
+    .insert(users)
+    .values({ email: u.email.toLowerCase(), name: u.name, role: u.role, passwordHash: u.passwordHash, active: u.active ?? true, createdAt: Date.now() })
+    .returning()
+    .get();
+}
+
+export function updateUser(
+  db: DbLike,
+  id: number,
+  patch: Partial<Pick<UserRow, 'name' | 'role' | 'active' | 'passwordHash'>>,
+): UserRow | undefined {
+  return db.update(users).set(patch).where(eq(users.id, id)).returning().get();
+}
+
+export function insertToken(db: DbLike, t: { kind: TokenKind; userId: number; tokenHash: string; expiresAt: number }): void {
+  db.insert(accountTokens).values({ ...t, createdAt: Date.now() }).run();
+}
+
+export function findUnusedToken(db: DbLike, tokenHash: string) {
+  return db
+    .select()
+    .from(accountTokens)
+    .where(and(eq(accountTokens.tokenHash, tokenHash), isNull(accountTokens.usedAt)))
+    .get();
+}
+
+export function markTokenUsed(db: DbLike, id: number): void {
+  db.update(accountTokens).set({ usedAt: Date.now() }).where(eq(accountTokens.id, id)).run();
+}
+
+/** Retires the unused tokens of a user (a newer link replaces older ones). */
+export function retireTokens(db: DbLike, userId: number): void {
+  db.update(accountTokens)
+    .set({ usedAt: Date.now() })
+    .where(and(eq(accountTokens.userId, userId), isNull(accountTokens.usedAt)))
+    .run();
+}

@@ -1,0 +1,101 @@
+import type { Request, RequestHandler } from 'express';
+import { z } from 'zod';
+import { ROLES } from '../../shared/policy/policy';
+import { UnauthenticatedError } from '../http/errors';
+import type { SessionUser } from '../http/request-user';
+import { userOf, type RouteTable } from '../http/routes';
+import { parse } from '../http/validate';
+import type { AccountsService } from './accounts-service';
+import type { createPassport } from './auth-setup';
+
+const email = z.email({ message: 'must be an e-mail address' }).max(254).transform((s) => s.toLowerCase());
+const name = z.string().trim().min(1, { message: 'must not be empty' }).max(200);
+const role = z.enum(ROLES, { error: `must be one of ${ROLES.join(', ')}` });
+const password = z.string({ error: 'must be text' }).min(1, { message: 'must not be empty' }).max(1000);
+
+const loginBody = z.strictObject({ email: z.string().max(254), password });
+const resetBody = z.strictObject({ email: z.string().max(254) });
+const completeBody = z.strictObject({ token: z.string().min(10).max(200), password });
+const tokenQuery = z.strictObject({ token: z.string().min(10).max(200) });
+const newUserBody = z.strictObject({ email, name, role, password: password.optional() });
+const inviteBody = z.strictObject({ email, name, role });
+const patchUserBody = z
+  .strictObject({ name: name.optional(), role: role.optional(), active: z.boolean().optional() })
+  .refine((b) => Object.keys(b).length > 0, { message: 'give name, role or active' });
+const idParam = z.strictObject({ id: z.coerce.number().int().positive({ message: 'must be a user id' }) });
+
+function logIn(req: Request, user: SessionUser): Promise<void> {
+  // passport regenerates the session here, so a session id from before sign-in is never reused.
+  return new Promise((resolve, reject) => req.logIn(user, (err) => (err ? reject(err) : resolve())));
+}
+
+export function accountsRoutes(
+  t: RouteTable,
+  deps: { accounts: AccountsService; passport: ReturnType<typeof createPassport>; signInLimiters: RequestHandler[]; resetLimiter: RequestHandler },
+): void {
+  const { accounts, passport } = deps;
+
+  t.add('post', '/api/auth/login', 'public', ...deps.signInLimiters, async (req, res, next) => {
+    parse(loginBody, req.body);
+    const user = await new Promise<SessionUser | false>((resolve, reject) =>
+      passport.authenticate('local', { session: false }, (err: unknown, u: SessionUser | false) => (err ? reject(err) : resolve(u)))(
+        req,
+        res,
+        next,
+      ),
+    );
+    if (!user) throw new UnauthenticatedError('e-mail or password is not correct', 'invalid_credentials');
+    await logIn(req, user);
+    res.json({ user });
+  });
+
+  t.add('post', '/api/auth/logout', 'public', async (req, res) => {
+    const user = req.user;
+    if (user) accounts.recordSignOut(user.id);
+    await new Promise<void>((resolve, reject) => req.logOut((err) => (err ? reject(err) : resolve())));
+    await new Promise<void>((resolve) => (req.session ? req.session.destroy(() => resolve()) : resolve()));
+    res.clearCookie('dubito.sid', { path: '/' });
+    res.status(204).end();
+  });
+
+  t.add('get', '/api/me', 'signed-in', (req, res) => {
+    res.json(userOf(req));
+  });
+
+  t.add('post', '/api/auth/password-reset', 'public', deps.resetLimiter, async (req, res) => {
+    const b = parse(resetBody, req.body);
+    await accounts.requestPasswordReset(b.email);
+    res.status(202).json({ message: 'if the address belongs to an account, a link is on its way' });
+  });
+
+  t.add('get', '/api/auth/token', 'public', deps.resetLimiter, (req, res) => {
+    const q = parse(tokenQuery, req.query);
+    res.json(accounts.inspectToken(q.token));
+  });
+
+  t.add('post', '/api/auth/password-reset/complete', 'public', deps.resetLimiter, async (req, res) => {
+    const b = parse(completeBody, req.body);
+    const user = await accounts.completeToken(b.token, b.password);
+    res.json({ user });
+  });
+
+  t.add('get', '/api/users', 'user.manage', (_req, res) => {
+    res.json(accounts.list());
+  });
+
+  t.add('post', '/api/users', 'user.manage', async (req, res) => {
+    const b = parse(newUserBody, req.body);
+    res.status(201).json(await accounts.create(userOf(req), b));
+  });
+
+  t.add('patch', '/api/users/:id', 'user.manage', (req, res) => {
+    const { id } = parse(idParam, req.params);
+    const b = parse(patchUserBody, req.body);
+    res.json(accounts.update(userOf(req), id, b));
+  });
+
+  t.add('post', '/api/invitations', 'user.manage', async (req, res) => {
+    const b = parse(inviteBody, req.body);
+    res.status(201).json(await accounts.invite(userOf(req), b));
+  });
+}

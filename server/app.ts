@@ -1,0 +1,161 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import { AccountsService } from './accounts/accounts-service';
+import { accountsRoutes } from './accounts/accounts-routes';
+import { createPassport, resetLimiter, signInLimiters } from './accounts/auth-setup';
+import { auditRoutes } from './audit/audit-routes';
+import { AuditService } from './audit/audit-service';
+import { budgetsRoutes } from './budgets/budgets-routes';
+import { BudgetsService } from './budgets/budgets-service';
+import { ComputePool } from './budgets/compute-pool';
+import { loadConfig, type AppConfig } from './config';
+import { openDatabase, type Connection } from './db/connection';
+import { DrizzleSessionStore } from './db/session-store';
+import { putSettingIfAbsent } from './db/settings-repository';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import { sameOriginOnly } from './http/origin-check';
+import { RouteTable, type RouteInfo } from './http/routes';
+import { mailRoutes } from './mail/mail-routes';
+import { MailService } from './mail/mail-service';
+import { reviewsRoutes } from './reviews/reviews-routes';
+import { ReviewsService } from './reviews/reviews-service';
+import { AttachmentsService } from './uploads/attachments-service';
+import { uploadsRoutes } from './uploads/uploads-routes';
+
+export const SESSION_COOKIE = 'dubito.sid';
+
+export interface Services {
+  accounts: AccountsService;
+  budgets: BudgetsService;
+  reviews: ReviewsService;
+  audit: AuditService;
+  attachments: AttachmentsService;
+  mail: MailService;
+}
+
+export interface DubitoApp {
+  app: Express;
+  config: AppConfig;
+  connection: Connection;
+  services: Services;
+  pool: ComputePool;
+  /** Every API route with the access rule it is registered with. */
+  routes: RouteInfo[];
+  close(): Promise<void>;
+}
+
+/** Builds the whole server without listening on a port. */
+export async function createApp(overrides: Partial<AppConfig> = {}): Promise<DubitoApp> {
+  const config = loadConfig(process.env, overrides);
+  const connection = openDatabase(config.dbFile);
+  const { db } = connection;
+  const secret = config.sessionSecret ?? putSettingIfAbsent(db, 'session_secret', randomBytes(32).toString('hex'));
+  const store = new DrizzleSessionStore(db);
+  const mail = await MailService.create(db, { smtpUrl: config.smtpUrl, from: config.mailFrom, log: config.log });
+  const pool = new ComputePool({
+    size: config.computeWorkers,
+    trialsCap: config.trialsCap,
+    timeoutMs: config.computeTimeoutMs,
+    engineModule: config.engineModule,
+    log: config.log,
+  });
+
+  const accounts = new AccountsService({
+    db,
+    mail,
+    publicUrl: config.publicUrl,
+    endSessionsOf: (id) => store.destroyForUser(id),
+    invitationHours: config.invitationHours,
+    resetHours: config.resetHours,
+  });
+  const services: Services = {
+    accounts,
+    budgets: new BudgetsService(db, pool),
+    reviews: new ReviewsService({ db, accounts, mail, publicUrl: config.publicUrl }),
+    audit: new AuditService(db),
+    attachments: new AttachmentsService(db, resolve(config.dataDir)),
+    mail,
+  };
+  const passport = createPassport(accounts);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+  app.use((_req, res, next) => {
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.setHeader('Referrer-Policy', 'same-origin');
+    res.setHeader('X-Frame-Options', 'DENY');
+    next();
+  });
+
+  const api = express.Router();
+  api.use(express.json({ limit: config.jsonLimitBytes }));
+  api.use(
+    session({
+      name: SESSION_COOKIE,
+      store,
+      secret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'strict', secure: config.cookieSecure, maxAge: config.sessionMaxAgeMs, path: '/' },
+    }),
+  );
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(sameOriginOnly(config.allowedOrigins));
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+
+  const table = new RouteTable(api);
+  table.add('get', '/api/health', 'public', (_req, res) => {
+    res.json({ ok: true });
+  });
+  accountsRoutes(table, {
+    accounts,
+    passport,
+    signInLimiters: signInLimiters(config.signIn),
+    resetLimiter: resetLimiter(config.signIn),
+  });
+  budgetsRoutes(table, services.budgets, { importMaxBytes: config.importMaxBytes });
+  reviewsRoutes(table, services.reviews);
+  uploadsRoutes(table, services.attachments, {
+    observationsMaxBytes: config.observationsMaxBytes,
+    attachmentMaxBytes: config.attachmentMaxBytes,
+  });
+  auditRoutes(table, services.audit);
+  mailRoutes(table, mail);
+
+  app.use(api);
+  app.use('/api', apiNotFound);
+
+  if (config.staticDir && existsSync(join(config.staticDir, 'index.html'))) {
+    const dir = resolve(config.staticDir);
+    app.use(express.static(dir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(join(dir, 'index.html')));
+  }
+  app.use(errorHandler(config.log));
+
+  let closed = false;
+  return {
+    app,
+    config,
+    connection,
+    services,
+    pool,
+    routes: table.routes,
+    async close() {
+      if (closed) return;
+      closed = true;
+      store.close();
+      await pool.close();
+      await mail.close();
+      connection.close();
+    },
+  };
+}

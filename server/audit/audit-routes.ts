@@ -1,0 +1,42 @@
+import { z } from 'zod';
+import type { RouteTable } from '../http/routes';
+import { parse } from '../http/validate';
+import type { AuditService } from './audit-service';
+
+const time = z.union([
+  z.coerce.number().int().nonnegative(),
+  z.iso.datetime({ offset: true }).transform((s) => Date.parse(s)),
+]);
+
+const query = z.strictObject({
+  budget: z.coerce.number().int().positive().optional(),
+  actor: z.coerce.number().int().positive().optional(),
+  action: z.string().regex(/^[a-z_]+(\.[a-z_]+)?$/, { message: 'must look like "budget" or "budget.approved"' }).optional(),
+  from: time.optional(),
+  to: time.optional(),
+  format: z.enum(['json', 'csv']).default('json'),
+  limit: z.coerce.number().int().min(1).max(10_000).default(500),
+  offset: z.coerce.number().int().min(0).default(0),
+});
+
+export function auditRoutes(t: RouteTable, audit: AuditService): void {
+  t.add('get', '/api/audit', 'audit.read', (req, res) => {
+    const q = parse(query, req.query);
+    const { events, total } = audit.list({
+      budgetId: q.budget,
+      actorId: q.actor,
+      action: q.action,
+      from: q.from,
+      to: q.to,
+      limit: q.limit,
+      offset: q.offset,
+    });
+    if (q.format === 'csv') {
+      res.type('text/csv; charset=utf-8');
+      res.attachment('dubito-audit.csv');
+      res.send(audit.toCsv(events));
+      return;
+    }
+    res.json({ events, total });
+  });
+}

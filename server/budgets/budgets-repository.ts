@@ -1,0 +1,115 @@
+import { and, asc, desc, eq, like, sql, type SQL } from 'drizzle-orm';
+import type { BudgetStatus } from '../../shared/policy/policy';
+import type { DbLike } from '../db/connection';
+import { budgets, budgetVersions, users } from '../db/schema';
+
+export type BudgetRow = typeof budgets.$inferSelect;
+export type VersionRow = typeof budgetVersions.$inferSelect;
+export type NewVersion = Omit<typeof budgetVersions.$inferInsert, 'id' | 'approvedBy' | 'approvedAt'>;
+
+export interface BudgetFilter {
+  status?: BudgetStatus;
+  ownerId?: number;
+  q?: string;
+  template?: 'true' | 'false' | 'any';
+  limit: number;
+  offset: number;
+}
+
+export function getBudget(db: DbLike, id: number): BudgetRow | undefined {
+  return db.select().from(budgets).where(eq(budgets.id, id)).get();
+}
+
+export function listBudgets(db: DbLike, f: BudgetFilter) {
+  const where: SQL[] = [];
+  if (f.status) where.push(eq(budgets.status, f.status));
+  if (f.ownerId !== undefined) where.push(eq(budgets.ownerId, f.ownerId));
+  if (f.q) where.push(like(budgets.title, `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`));
+  if (f.template !== 'any') where.push(eq(budgets.isTemplate, f.template === 'true'));
+  return db
+    .select({
+      id: budgets.id,
+      title: budgets.title,
+      status: budgets.status,
+      returned: budgets.returned,
+      isTemplate: budgets.isTemplate,
+      ownerId: budgets.ownerId,
+      ownerName: users.name,
+      currentVersion: budgets.currentVersion,
+      approvedVersion: budgets.approvedVersion,
+      createdAt: budgets.createdAt,
+      updatedAt: budgets.updatedAt,
+    })
+    .from(budgets)
+    .innerJoin(users, eq(users.id, budgets.ownerId))
+    .where(where.length ? and(...where) : undefined)
+    .orderBy(desc(budgets.updatedAt), desc(budgets.id))
+    .limit(f.limit)
+    .offset(f.offset)
+    .all();
+}
+
+export function insertBudget(
+  db: DbLike,
+  b: Pick<BudgetRow, 'title' | 'ownerId' | 'isTemplate'> & Partial<Pick<BudgetRow, 'sourceBudgetId' | 'sourceVersion'>>,
+  at: number,
+): BudgetRow {
+  return db
+    .insert(budgets)
+    .values({ ...b, status: 'draft', currentVersion: 0, createdAt: at, updatedAt: at })
+    .returning()
+    .get();
+}
+
+export function updateBudget(
+  db: DbLike,
+  id: number,
+  patch: Partial<Pick<BudgetRow, 'title' | 'status' | 'returned' | 'isTemplate' | 'currentVersion' | 'approvedVersion' | 'updatedAt'>>,
+): void {
+  db.update(budgets).set(patch).where(eq(budgets.id, id)).run();
+}
+
+export function insertVersion(db: DbLike, v: NewVersion): VersionRow {
+  return db.insert(budgetVersions).values(v).returning().get();
+}
+
+export function getVersion(db: DbLike, budgetId: number, number: number): VersionRow | undefined {
+  return db
+    .select()
+    .from(budgetVersions)
+    .where(and(eq(budgetVersions.budgetId, budgetId), eq(budgetVersions.number, number)))
+    .get();
+}
+
+/** Version metadata without the document and result text. */
+export function listVersions(db: DbLike, budgetId: number) {
+  return db
+    .select({
+      number: budgetVersions.number,
+      authorId: budgetVersions.authorId,
+      authorName: users.name,
+      createdAt: budgetVersions.createdAt,
+      note: budgetVersions.note,
+      seed: budgetVersions.seed,
+      engineVersion: budgetVersions.engineVersion,
+      documentSha256: budgetVersions.documentSha256,
+      approvedBy: budgetVersions.approvedBy,
+      approvedAt: budgetVersions.approvedAt,
+    })
+    .from(budgetVersions)
+    .innerJoin(users, eq(users.id, budgetVersions.authorId))
+    .where(eq(budgetVersions.budgetId, budgetId))
+    .orderBy(asc(budgetVersions.number))
+    .all();
+}
+
+export function recordApproval(db: DbLike, budgetId: number, number: number, userId: number, at: number): void {
+  db.update(budgetVersions)
+    .set({ approvedBy: userId, approvedAt: at })
+    .where(and(eq(budgetVersions.budgetId, budgetId), eq(budgetVersions.number, number), sql`${budgetVersions.approvedAt} IS NULL`))
+    .run();
+}
+
+export function countBudgets(db: DbLike): number {
+  return db.select({ n: sql<number>`count(*)` }).from(budgets).get()?.n ?? 0;
+}

@@ -1,0 +1,127 @@
+import type { RequestHandler } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import { parseBudgetFile, serializeBudget } from '../../shared/budget/budget-file';
+import { BUDGET_STATUSES } from '../../shared/policy/policy';
+import { ValidationError } from '../http/errors';
+import { userOf, type RouteTable } from '../http/routes';
+import { parse } from '../http/validate';
+import type { BudgetsService } from './budgets-service';
+
+const id = z.coerce.number({ error: 'must be a budget id' }).int().positive({ message: 'must be a budget id' });
+const versionNumber = z.coerce.number({ error: 'must be a version number' }).int().positive({ message: 'must be a version number' });
+const idParams = z.strictObject({ id });
+const versionParams = z.strictObject({ id, n: versionNumber });
+const note = z.string({ error: 'must be text' }).max(2000, { message: 'must not exceed 2000 characters' });
+const documentField = z.custom<unknown>((v) => typeof v === 'object' && v !== null && !Array.isArray(v), {
+  message: 'must be a budget file object',
+});
+
+const listQuery = z.strictObject({
+  status: z.enum(BUDGET_STATUSES, { error: `must be one of ${BUDGET_STATUSES.join(', ')}` }).optional(),
+  owner: z.coerce.number().int().positive().optional(),
+  q: z.string().max(200).optional(),
+  template: z.enum(['true', 'false', 'any']).default('false'),
+  limit: z.coerce.number().int().min(1).max(1000).default(200),
+  offset: z.coerce.number().int().min(0).default(0),
+});
+const createBody = z.strictObject({ document: documentField, note: note.default(''), template: z.boolean().optional() });
+const saveBody = z.strictObject({ baseVersion: versionNumber, document: documentField, note: note.default('') });
+const patchBody = z.strictObject({ isTemplate: z.boolean({ error: 'must be true or false' }) });
+const diffQuery = z.strictObject({ from: versionNumber, to: versionNumber });
+const cloneBody = z.strictObject({ version: versionNumber.optional(), title: z.string().trim().min(1).max(300).optional() });
+const exportQuery = z.strictObject({ version: versionNumber.optional() });
+const importJson = z.strictObject({ document: documentField, note: note.optional(), template: z.boolean().optional() });
+const importForm = z.strictObject({ note: note.optional(), template: z.enum(['true', 'false']).optional() });
+
+export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { importMaxBytes: number }): void {
+  const importUpload: RequestHandler = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: opts.importMaxBytes, files: 1, fields: 10 },
+  }).single('file');
+
+  t.add('get', '/api/budgets', 'budget.read', (req, res) => {
+    const q = parse(listQuery, req.query);
+    res.json(budgets.list({ status: q.status, ownerId: q.owner, q: q.q, template: q.template, limit: q.limit, offset: q.offset }));
+  });
+
+  t.add('get', '/api/templates', 'budget.read', (_req, res) => {
+    res.json(budgets.list({ template: 'true', limit: 1000, offset: 0 }));
+  });
+
+  t.add('post', '/api/budgets', 'budget.create', async (req, res) => {
+    const b = parse(createBody, req.body);
+    res.status(201).json(await budgets.create(userOf(req), { document: b.document, note: b.note, template: b.template }));
+  });
+
+  t.add('post', '/api/budgets/import', 'budget.create', importUpload, async (req, res) => {
+    let document: unknown;
+    let note: string | undefined;
+    let template: boolean | undefined;
+    if (req.file) {
+      const f = parse(importForm, req.body ?? {});
+      document = parseBudgetFile(req.file.buffer.toString('utf8'));
+      note = f.note;
+      template = f.template === 'true';
+    } else if (req.is('multipart/form-data')) {
+      throw new ValidationError('send the budget file in the "file" field', 'file');
+    } else {
+      const body = req.body as Record<string, unknown> | undefined;
+      if (body && typeof body === 'object' && 'format' in body) document = body;
+      else {
+        const b = parse(importJson, body);
+        document = b.document;
+        note = b.note;
+        template = b.template;
+      }
+    }
+    const r = await budgets.create(userOf(req), { document, note: note ?? 'imported', template }, 'budget.imported');
+    res.status(201).json(r);
+  });
+
+  t.add('get', '/api/budgets/:id', 'budget.read', (req, res) => {
+    res.json(budgets.get(parse(idParams, req.params).id));
+  });
+
+  t.add('put', '/api/budgets/:id', 'budget.edit', async (req, res) => {
+    const { id } = parse(idParams, req.params);
+    const b = parse(saveBody, req.body);
+    res.json(await budgets.save(userOf(req), id, b));
+  });
+
+  t.add('patch', '/api/budgets/:id', 'template.manage', (req, res) => {
+    const { id } = parse(idParams, req.params);
+    const b = parse(patchBody, req.body);
+    res.json(budgets.setTemplate(userOf(req), id, b.isTemplate));
+  });
+
+  t.add('get', '/api/budgets/:id/versions', 'budget.read', (req, res) => {
+    res.json(budgets.versions(parse(idParams, req.params).id));
+  });
+
+  t.add('get', '/api/budgets/:id/versions/:n', 'budget.read', (req, res) => {
+    const p = parse(versionParams, req.params);
+    res.json(budgets.version(p.id, p.n));
+  });
+
+  t.add('get', '/api/budgets/:id/diff', 'budget.read', (req, res) => {
+    const { id } = parse(idParams, req.params);
+    const q = parse(diffQuery, req.query);
+    res.json(budgets.diff(id, q.from, q.to));
+  });
+
+  t.add('post', '/api/budgets/:id/clone', 'budget.clone', async (req, res) => {
+    const { id } = parse(idParams, req.params);
+    const b = parse(cloneBody, req.body ?? {});
+    res.status(201).json(await budgets.clone(userOf(req), id, b));
+  });
+
+  t.add('get', '/api/budgets/:id/export', 'budget.read', (req, res) => {
+    const { id } = parse(idParams, req.params);
+    const q = parse(exportQuery, req.query);
+    const f = budgets.exportFile(id, q.version);
+    res.type('application/json; charset=utf-8');
+    res.attachment(f.fileName);
+    res.send(serializeBudget(f.document));
+  });
+}

@@ -1,0 +1,298 @@
+import { validateBudget } from '../../shared/budget/budget-file';
+import { DEFAULTS } from '../../shared/budget/limits';
+import type { BudgetResult } from '../../shared/budget/result';
+import type { BudgetDocument } from '../../shared/budget/schema';
+import { canEditBudget, isEditableStatus, type BudgetStatus } from '../../shared/policy/policy';
+import { recordAudit } from '../audit/audit-repository';
+import { inTransaction, type Db } from '../db/connection';
+import { ConflictError, ForbiddenError, NotFoundError } from '../http/errors';
+import type { SessionUser } from '../http/request-user';
+import { diffBudgets, type BudgetDiff } from './budget-diff';
+import {
+  getBudget,
+  getVersion,
+  insertBudget,
+  insertVersion,
+  listBudgets,
+  listVersions,
+  updateBudget,
+  type BudgetFilter,
+  type BudgetRow,
+  type VersionRow,
+} from './budgets-repository';
+import { documentSha256 } from './canonical';
+
+/** What the pool does: compute a validated budget off the main thread. */
+export interface Computer {
+  compute(doc: BudgetDocument): Promise<BudgetResult>;
+}
+
+export interface VersionMeta {
+  number: number;
+  authorId: number;
+  createdAt: number;
+  note: string;
+  seed: string;
+  engineVersion: string;
+  documentSha256: string;
+  approvedBy: number | null;
+  approvedAt: number | null;
+}
+
+export interface BudgetSummary {
+  id: number;
+  title: string;
+  status: BudgetStatus;
+  returned: boolean;
+  isTemplate: boolean;
+  ownerId: number;
+  currentVersion: number;
+  approvedVersion: number | null;
+  source: { budgetId: number; version: number | null } | null;
+  createdAt: number;
+  updatedAt: number;
+}
+
+export interface BudgetView extends BudgetSummary {
+  version: VersionMeta;
+  document: BudgetDocument;
+  result: BudgetResult;
+}
+
+function summary(b: BudgetRow): BudgetSummary {
+  return {
+    id: b.id,
+    title: b.title,
+    status: b.status,
+    returned: b.returned,
+    isTemplate: b.isTemplate,
+    ownerId: b.ownerId,
+    currentVersion: b.currentVersion,
+    approvedVersion: b.approvedVersion,
+    source: b.sourceBudgetId ? { budgetId: b.sourceBudgetId, version: b.sourceVersion } : null,
+    createdAt: b.createdAt,
+    updatedAt: b.updatedAt,
+  };
+}
+
+function meta(v: VersionRow): VersionMeta {
+  return {
+    number: v.number,
+    authorId: v.authorId,
+    createdAt: v.createdAt,
+    note: v.note,
+    seed: v.seed,
+    engineVersion: v.engineVersion,
+    documentSha256: v.documentSha256,
+    approvedBy: v.approvedBy,
+    approvedAt: v.approvedAt,
+  };
+}
+
+function slug(title: string): string {
+  return (
+    title
+      .normalize('NFKD')
+      .replace(/[^\w\s-]/g, '')
+      .trim()
+      .toLowerCase()
+      .replace(/[\s_-]+/g, '-')
+      .slice(0, 60) || 'budget'
+  );
+}
+
+interface Computed {
+  document: BudgetDocument;
+  text: string;
+  sha: string;
+  result: BudgetResult;
+}
+
+export class BudgetsService {
+  constructor(
+    private readonly db: Db,
+    private readonly computer: Computer,
+  ) {}
+
+  /** Validates and computes a document; a version is never stored without its result. */
+  private async computeDocument(value: unknown): Promise<Computed> {
+    const document = validateBudget(value);
+    const result = await this.computer.compute(document);
+    return { document, text: JSON.stringify(document), sha: documentSha256(document), result };
+  }
+
+  private versionValues(budgetId: number, number: number, author: SessionUser, note: string, c: Computed, at: number) {
+    return {
+      budgetId,
+      number,
+      authorId: author.id,
+      createdAt: at,
+      note,
+      document: c.text,
+      result: JSON.stringify(c.result),
+      seed: String(c.result.monteCarlo?.seed ?? c.document.monteCarlo?.seed ?? DEFAULTS.seed),
+      engineVersion: c.result.engineVersion,
+      documentSha256: c.sha,
+    };
+  }
+
+  requireBudget(id: number): BudgetRow {
+    const b = getBudget(this.db, id);
+    if (!b) throw new NotFoundError('no such budget');
+    return b;
+  }
+
+  private requireVersion(id: number, n: number): VersionRow {
+    const v = getVersion(this.db, id, n);
+    if (!v) throw new NotFoundError(`budget ${id} has no version ${n}`);
+    return v;
+  }
+
+  list(filter: BudgetFilter) {
+    return listBudgets(this.db, filter);
+  }
+
+  get(id: number): BudgetView {
+    const b = this.requireBudget(id);
+    return this.view(b, this.requireVersion(id, b.currentVersion));
+  }
+
+  private view(b: BudgetRow, v: VersionRow): BudgetView {
+    return {
+      ...summary(b),
+      version: meta(v),
+      document: JSON.parse(v.document) as BudgetDocument,
+      result: JSON.parse(v.result) as BudgetResult,
+    };
+  }
+
+  versions(id: number) {
+    this.requireBudget(id);
+    return listVersions(this.db, id);
+  }
+
+  version(id: number, n: number) {
+    this.requireBudget(id);
+    const v = this.requireVersion(id, n);
+    return { budgetId: id, ...meta(v), document: JSON.parse(v.document) as BudgetDocument, result: JSON.parse(v.result) as BudgetResult };
+  }
+
+  diff(id: number, from: number, to: number): BudgetDiff {
+    this.requireBudget(id);
+    const load = (n: number) => {
+      const v = this.requireVersion(id, n);
+      return { number: n, document: JSON.parse(v.document) as Record<string, unknown>, result: JSON.parse(v.result) as BudgetResult };
+    };
+    return diffBudgets(load(from), load(to));
+  }
+
+  async create(
+    actor: SessionUser,
+    input: { document: unknown; note: string; template?: boolean },
+    action = 'budget.created',
+  ): Promise<{ id: number; version: 1; result: BudgetResult }> {
+    if (input.template && actor.role !== 'admin') throw new ForbiddenError('only admins create templates');
+    const c = await this.computeDocument(input.document);
+    const at = Date.now();
+    const id = inTransaction(this.db, (tx) => {
+      const b = insertBudget(tx, { title: c.document.title, ownerId: actor.id, isTemplate: !!input.template }, at);
+      insertVersion(tx, this.versionValues(b.id, 1, actor, input.note, c, at));
+      updateBudget(tx, b.id, { currentVersion: 1 });
+      recordAudit(tx, {
+        actorId: actor.id,
+        action,
+        budgetId: b.id,
+        versionNumber: 1,
+        at,
+        detail: { title: c.document.title, template: !!input.template, documentSha256: c.sha, note: input.note },
+      });
+      return b.id;
+    });
+    return { id, version: 1, result: c.result };
+  }
+
+  private checkEditable(actor: SessionUser, b: BudgetRow, baseVersion: number): void {
+    if (!canEditBudget(actor, b)) {
+      throw new ForbiddenError(
+        b.isTemplate ? 'only admins edit templates' : actor.role === 'trainee' && b.ownerId === actor.id ? 'trainees edit drafts only' : 'only the owner edits this budget',
+      );
+    }
+    if (!isEditableStatus(b.status)) throw new ConflictError('the budget is in review; it can be edited once approved or returned', 'in_review');
+    if (b.currentVersion !== baseVersion) {
+      throw new ConflictError(`version ${baseVersion} is not the current version (${b.currentVersion}); reload and merge your changes`, 'stale_version', {
+        currentVersion: b.currentVersion,
+      });
+    }
+  }
+
+  /** Saves a new version on top of `baseVersion`; 409 if someone saved in between. Saving an approved budget starts a new draft. */
+  async save(actor: SessionUser, id: number, input: { baseVersion: number; document: unknown; note: string }) {
+    this.checkEditable(actor, this.requireBudget(id), input.baseVersion);
+    const c = await this.computeDocument(input.document);
+    const at = Date.now();
+    const number = inTransaction(this.db, (tx) => {
+      const b = getBudget(tx, id);
+      if (!b) throw new NotFoundError('no such budget');
+      this.checkEditable(actor, b, input.baseVersion);
+      const n = b.currentVersion + 1;
+      insertVersion(tx, this.versionValues(id, n, actor, input.note, c, at));
+      updateBudget(tx, id, { currentVersion: n, title: c.document.title, status: 'draft', updatedAt: at });
+      recordAudit(tx, {
+        actorId: actor.id,
+        action: 'budget.version_saved',
+        budgetId: id,
+        versionNumber: n,
+        at,
+        detail: { statusBefore: b.status, documentSha256: c.sha, note: input.note },
+      });
+      return n;
+    });
+    return { version: number, result: c.result };
+  }
+
+  setTemplate(actor: SessionUser, id: number, isTemplate: boolean): BudgetSummary {
+    return inTransaction(this.db, (tx) => {
+      const b = getBudget(tx, id);
+      if (!b) throw new NotFoundError('no such budget');
+      if (b.isTemplate !== isTemplate) {
+        updateBudget(tx, id, { isTemplate, updatedAt: Date.now() });
+        recordAudit(tx, { actorId: actor.id, action: 'budget.template_changed', budgetId: id, detail: { isTemplate } });
+      }
+      return summary(getBudget(tx, id)!);
+    });
+  }
+
+  /** A new draft owned by the caller, recording where it came from. */
+  async clone(actor: SessionUser, id: number, input: { version?: number; title?: string }): Promise<{ id: number; version: 1 }> {
+    const source = this.requireBudget(id);
+    const n = input.version ?? source.currentVersion;
+    const v = this.requireVersion(id, n);
+    const doc = JSON.parse(v.document) as BudgetDocument;
+    if (input.title) doc.title = input.title;
+    const c = await this.computeDocument(doc);
+    const at = Date.now();
+    const newId = inTransaction(this.db, (tx) => {
+      const b = insertBudget(tx, { title: c.document.title, ownerId: actor.id, isTemplate: false, sourceBudgetId: id, sourceVersion: n }, at);
+      const note = `cloned from ${source.isTemplate ? 'template' : 'budget'} ${id}, version ${n}`;
+      insertVersion(tx, this.versionValues(b.id, 1, actor, note, c, at));
+      updateBudget(tx, b.id, { currentVersion: 1 });
+      recordAudit(tx, {
+        actorId: actor.id,
+        action: 'budget.cloned',
+        budgetId: b.id,
+        versionNumber: 1,
+        at,
+        detail: { sourceBudgetId: id, sourceVersion: n, documentSha256: c.sha },
+      });
+      return b.id;
+    });
+    return { id: newId, version: 1 };
+  }
+
+  exportFile(id: number, n?: number): { fileName: string; document: BudgetDocument } {
+    const b = this.requireBudget(id);
+    const v = this.requireVersion(id, n ?? b.currentVersion);
+    const document = JSON.parse(v.document) as BudgetDocument;
+    return { fileName: `${slug(document.title)}-v${v.number}.json`, document };
+  }
+}

@@ -1,0 +1,87 @@
+import { availableParallelism } from 'node:os';
+import { dirname } from 'node:path';
+import type { SignInLimits } from './accounts/auth-setup';
+import { DEFAULT_ENGINE_MODULE } from './budgets/compute-pool';
+
+export interface AppConfig {
+  /** SQLite file (DUBITO_DB); created with its folder on first start. */
+  dbFile: string;
+  /** Where attachments are stored by hash (DUBITO_DATA_DIR, default: the folder of the database). */
+  dataDir: string;
+  /** Base of the links in e-mails (DUBITO_PUBLIC_URL). */
+  publicUrl: string;
+  /** Origins besides the request's own host that may send state-changing requests (DUBITO_ALLOWED_ORIGINS, comma-separated). */
+  allowedOrigins: string[];
+  /** SMTP server (SMTP_URL); unset: an in-process fake server on loopback fills the outbox. */
+  smtpUrl?: string;
+  mailFrom: string;
+  /** Cookie signing secret (DUBITO_SESSION_SECRET); unset: generated once and kept in the database. */
+  sessionSecret?: string;
+  cookieSecure: boolean;
+  sessionMaxAgeMs: number;
+  trustProxy: boolean | number;
+  /** Upper bound on Monte Carlo trials per saved version (DUBITO_TRIALS_CAP). */
+  trialsCap: number;
+  computeWorkers: number;
+  computeTimeoutMs: number;
+  /** URL of the module exporting computeBudget. */
+  engineModule: string;
+  signIn: SignInLimits;
+  jsonLimitBytes: number;
+  importMaxBytes: number;
+  observationsMaxBytes: number;
+  attachmentMaxBytes: number;
+  invitationHours: number;
+  resetHours: number;
+  /** Built client to serve, with the SPA fallback (start.ts sets it to dist/). */
+  staticDir?: string;
+  log: (msg: string, err?: unknown) => void;
+}
+
+const MB = 1024 * 1024;
+
+function int(v: string | undefined, fallback: number): number {
+  const n = v === undefined || v === '' ? NaN : Number(v);
+  return Number.isInteger(n) && n > 0 ? n : fallback;
+}
+
+export function defaultLog(msg: string, err?: unknown): void {
+  if (err === undefined) console.log(`[dubito] ${msg}`);
+  else console.error(`[dubito] ${msg}:`, err);
+}
+
+/** Configuration from the environment, with explicit overrides (tests pass theirs). */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Partial<AppConfig> = {}): AppConfig {
+  const dbFile = overrides.dbFile ?? env.DUBITO_DB ?? 'data/dubito.sqlite';
+  const port = int(env.PORT, 3000);
+  const production = env.NODE_ENV === 'production';
+  const base: AppConfig = {
+    dbFile,
+    dataDir: env.DUBITO_DATA_DIR ?? dirname(dbFile),
+    publicUrl: (env.DUBITO_PUBLIC_URL ?? `http://localhost:${port}`).replace(/\/+$/, ''),
+    allowedOrigins: (env.DUBITO_ALLOWED_ORIGINS ?? '').split(',').map((s) => s.trim()).filter(Boolean),
+    smtpUrl: env.SMTP_URL || undefined,
+    mailFrom: env.DUBITO_MAIL_FROM ?? 'Dubito <dubito@localhost>',
+    sessionSecret: env.DUBITO_SESSION_SECRET || undefined,
+    cookieSecure: env.DUBITO_COOKIE_SECURE ? env.DUBITO_COOKIE_SECURE === '1' : production,
+    sessionMaxAgeMs: int(env.DUBITO_SESSION_HOURS, 12) * 60 * 60 * 1000,
+    trustProxy: env.DUBITO_TRUST_PROXY ? (/^\d+$/.test(env.DUBITO_TRUST_PROXY) ? Number(env.DUBITO_TRUST_PROXY) : env.DUBITO_TRUST_PROXY === 'true') : false,
+    trialsCap: int(env.DUBITO_TRIALS_CAP, 200_000),
+    computeWorkers: int(env.DUBITO_COMPUTE_WORKERS, Math.max(1, Math.min(2, availableParallelism() - 1))),
+    computeTimeoutMs: int(env.DUBITO_COMPUTE_TIMEOUT_MS, 120_000),
+    engineModule: DEFAULT_ENGINE_MODULE,
+    signIn: {
+      windowMs: 15 * 60 * 1000,
+      perAddress: int(env.DUBITO_SIGNIN_PER_ADDRESS, 30),
+      perAccount: int(env.DUBITO_SIGNIN_PER_ACCOUNT, 5),
+    },
+    jsonLimitBytes: 8 * MB,
+    importMaxBytes: 8 * MB,
+    observationsMaxBytes: 2 * MB,
+    attachmentMaxBytes: 10 * MB,
+    invitationHours: 72,
+    resetHours: 2,
+    log: defaultLog,
+  };
+  return { ...base, ...overrides };
+}

@@ -1,0 +1,46 @@
+import { mkdirSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import Database from 'better-sqlite3';
+import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import type { BaseSQLiteDatabase } from 'drizzle-orm/sqlite-core';
+import type { RunResult } from 'better-sqlite3';
+import * as schema from './schema';
+
+export type Schema = typeof schema;
+export type Db = BetterSQLite3Database<Schema>;
+/** The database or an open transaction: what repositories work on. */
+export type DbLike = BaseSQLiteDatabase<'sync', RunResult, Schema>;
+
+export interface Connection {
+  db: Db;
+  sqlite: Database.Database;
+  close(): void;
+}
+
+const MIGRATIONS = resolve(dirname(fileURLToPath(import.meta.url)), '../../drizzle');
+
+/** Opens (creating if needed) the SQLite file, sets WAL and foreign keys, applies the migrations. */
+export function openDatabase(file: string): Connection {
+  if (file !== ':memory:') mkdirSync(dirname(resolve(file)), { recursive: true });
+  const sqlite = new Database(file);
+  sqlite.pragma('journal_mode = WAL');
+  sqlite.pragma('synchronous = FULL');
+  sqlite.pragma('foreign_keys = ON');
+  sqlite.pragma('busy_timeout = 5000');
+  const db = drizzle({ client: sqlite, schema });
+  migrate(db, { migrationsFolder: MIGRATIONS });
+  return {
+    db,
+    sqlite,
+    close: () => {
+      if (sqlite.open) sqlite.close();
+    },
+  };
+}
+
+/** Runs `fn` in one IMMEDIATE transaction: everything it writes commits together or not at all. */
+export function inTransaction<T>(db: Db, fn: (tx: DbLike) => T): T {
+  return db.transaction((tx) => fn(tx), { behavior: 'immediate' });
+}

@@ -1,0 +1,68 @@
+/** Typed errors of the services; `http/error-handler.ts` maps them to JSON. */
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly field?: string,
+    readonly extra?: Record<string, unknown>,
+  ) {
+    super(message);
+    this.name = new.target.name;
+  }
+}
+
+export class ValidationError extends AppError {
+  constructor(message: string, field?: string, code = 'invalid_input') {
+    super(400, code, message, field);
+  }
+}
+
+export class UnauthenticatedError extends AppError {
+  constructor(message = 'sign in first', code = 'unauthenticated') {
+    super(401, code, message);
+  }
+}
+
+export class ForbiddenError extends AppError {
+  constructor(message = 'your role does not allow this', code = 'forbidden') {
+    super(403, code, message);
+  }
+}
+
+export class NotFoundError extends AppError {
+  constructor(message = 'not found', code = 'not_found') {
+    super(404, code, message);
+  }
+}
+
+export class ConflictError extends AppError {
+  constructor(message: string, code = 'conflict', extra?: Record<string, unknown>) {
+    super(409, code, message, undefined, extra);
+  }
+}
+
+export class PayloadTooLargeError extends AppError {
+  constructor(message: string) {
+    super(413, 'too_large', message);
+  }
+}
+
+export class UnsupportedMediaTypeError extends AppError {
+  constructor(message: string, field?: string) {
+    super(415, 'unsupported_media_type', message, field);
+  }
+}
+
+/** The budget was refused by the engine (422, field names the culprit). */
+export class UnprocessableError extends AppError {
+  constructor(code: string, message: string, field?: string) {
+    super(422, code, message, field);
+  }
+}
+
+export class UnavailableError extends AppError {
+  constructor(message: string, code = 'unavailable') {
+    super(503, code, message);
+  }
+}

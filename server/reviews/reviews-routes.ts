@@ -1,0 +1,47 @@
+import { z } from 'zod';
+import { userOf, type RouteTable } from '../http/routes';
+import { parse } from '../http/validate';
+import type { ReviewsService } from './reviews-service';
+
+const id = z.coerce.number({ error: 'must be a budget id' }).int().positive({ message: 'must be a budget id' });
+const positive = z.coerce.number().int().positive();
+const idParams = z.strictObject({ id });
+const commentParams = z.strictObject({ id, cid: positive });
+const listQuery = z.strictObject({ version: positive.optional() });
+const newComment = z.strictObject({
+  version: z.number({ error: 'must be a version number' }).int().positive(),
+  symbol: z.string().regex(/^[A-Za-z_][A-Za-z0-9_]*$/, { message: 'must be a symbol name' }).nullable().optional(),
+  body: z.string({ error: 'must be text' }).trim().min(1, { message: 'must not be empty' }).max(10_000),
+});
+const patchComment = z.strictObject({ resolved: z.boolean({ error: 'must be true or false' }) });
+const transition = z.strictObject({
+  to: z.enum(['in_review', 'approved', 'draft'], { error: 'must be in_review, approved or draft' }),
+  comment: z.string().max(10_000).optional(),
+  password: z.string().max(1000).optional(),
+});
+
+export function reviewsRoutes(t: RouteTable, reviews: ReviewsService): void {
+  t.add('get', '/api/budgets/:id/comments', 'budget.read', (req, res) => {
+    const { id } = parse(idParams, req.params);
+    const q = parse(listQuery, req.query);
+    res.json(reviews.comments(id, q.version));
+  });
+
+  t.add('post', '/api/budgets/:id/comments', 'comment.create', (req, res) => {
+    const { id } = parse(idParams, req.params);
+    const b = parse(newComment, req.body);
+    res.status(201).json(reviews.addComment(userOf(req), id, b));
+  });
+
+  t.add('patch', '/api/budgets/:id/comments/:cid', 'comment.resolve', (req, res) => {
+    const p = parse(commentParams, req.params);
+    const b = parse(patchComment, req.body);
+    res.json(reviews.resolveComment(userOf(req), p.id, p.cid, b.resolved));
+  });
+
+  t.add('post', '/api/budgets/:id/transitions', 'budget.transition', async (req, res) => {
+    const { id } = parse(idParams, req.params);
+    const b = parse(transition, req.body);
+    res.json(await reviews.transition(userOf(req), id, b));
+  });
+}

@@ -1,0 +1,80 @@
+import Papa from 'papaparse';
+import { LIMITS } from '../../shared/budget/limits';
+import { AppError, ValidationError } from '../http/errors';
+
+export interface RowError {
+  /** 1-based line number in the file. */
+  row: number;
+  message: string;
+}
+
+export interface ObservationsResult {
+  values: number[];
+  column: { index: number; name: string | null };
+  columns: (string | null)[];
+  header: boolean;
+  rows: number;
+  errors: RowError[];
+}
+
+function toNumber(cell: string, delimiter: string): number | null {
+  let s = cell.trim();
+  if (delimiter !== ',' && /^[+-]?\d+,\d+([eE][+-]?\d+)?$/.test(s)) s = s.replace(',', '.');
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s)) return null;
+  const n = Number(s);
+  return Number.isFinite(n) ? n : null;
+}
+
+/**
+ * Reads one column of numbers from CSV text. A first row that is not numeric
+ * is taken as the header. `column` is a header name or a 1-based index; it may
+ * be left out when the file has a single column.
+ */
+export function parseObservations(text: string, column?: string): ObservationsResult {
+  if (text.includes('\u0000')) throw new ValidationError('the file is not text', 'file');
+  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', delimitersToGuess: [',', ';', '\t', '|'] });
+  const rows = parsed.data;
+  if (rows.length === 0) throw new ValidationError('the file has no rows', 'file');
+  const delimiter = parsed.meta.delimiter;
+  const width = Math.max(...rows.map((r) => r.length));
+  const first = rows[0];
+  const header = first.some((c) => c.trim() !== '' && toNumber(c, delimiter) === null);
+  const columns = Array.from({ length: width }, (_, i) => (header ? (first[i]?.trim() ?? null) : null));
+
+  let index: number;
+  if (column === undefined || column === '') {
+    if (width !== 1) {
+      throw new AppError(400, 'choose_column', `the file has ${width} columns; choose one`, 'column', { columns });
+    }
+    index = 0;
+  } else if (/^\d+$/.test(column)) {
+    index = Number(column) - 1;
+    if (index < 0 || index >= width) throw new ValidationError(`column ${column} does not exist (the file has ${width})`, 'column');
+  } else {
+    index = columns.findIndex((c) => c === column);
+    if (index < 0) throw new AppError(400, 'unknown_column', `no column is headed "${column}"`, 'column', { columns });
+  }
+
+  const values: number[] = [];
+  const errors: RowError[] = [];
+  rows.forEach((r, i) => {
+    if (header && i === 0) return;
+    const cell = r[index];
+    const line = i + 1;
+    if (cell === undefined || cell.trim() === '') {
+      errors.push({ row: line, message: 'the cell is empty' });
+      return;
+    }
+    const n = toNumber(cell, delimiter);
+    if (n === null) errors.push({ row: line, message: `"${cell.trim().slice(0, 40)}" is not a number` });
+    else values.push(n);
+  });
+  if (values.length > LIMITS.observations) {
+    throw new ValidationError(`a column may hold at most ${LIMITS.observations} observations`, 'file');
+  }
+  for (const e of parsed.errors.slice(0, 20)) {
+    if (e.row !== undefined) errors.push({ row: e.row + 1, message: e.message });
+  }
+  errors.sort((a, b) => a.row - b.row);
+  return { values, column: { index: index + 1, name: columns[index] ?? null }, columns, header, rows: rows.length - (header ? 1 : 0), errors };
+}
