@@ -1,5 +1,6 @@
 import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
+import { formatAtExponent, roundUncertainty } from '../../shared/gum/rounding';
 import { certificateStatement } from '../../shared/gum/statement';
 
 const g = (x: number | null, digits = 4) => (x === null ? '∞' : Number.isFinite(x) ? x.toPrecision(digits) : String(x));
@@ -36,9 +37,12 @@ export function formatBudgetTable(doc: BudgetDocument, result: BudgetResult): st
   ];
   if (gum.standardUncertaintySecondOrder !== null) lines.push(`u_c with second-order terms = ${g(gum.standardUncertaintySecondOrder, 3)} ${unit}`);
   if (monteCarlo) {
+    // intervals to one digit beyond the two significant digits of u (JCGM 101:2008 7.8 suggests reporting with n_dig digits)
+    const place = roundUncertainty(monteCarlo.standardUncertainty).exponent - 1;
+    const iv = ([lo, hi]: [number, number]) => `[${formatAtExponent(lo, place)}, ${formatAtExponent(hi, place)}]`;
     lines.push(
-      `Monte Carlo (${monteCarlo.trials} trials, seed "${monteCarlo.seed}"): y = ${g(monteCarlo.estimate, 8)}  u = ${g(monteCarlo.standardUncertainty, 3)}  ` +
-        `interval [${g(monteCarlo.interval[0], 6)}, ${g(monteCarlo.interval[1], 6)}]  shortest [${g(monteCarlo.shortestInterval[0], 6)}, ${g(monteCarlo.shortestInterval[1], 6)}]`,
+      `Monte Carlo (${monteCarlo.trials} trials, seed "${monteCarlo.seed}"): y = ${formatAtExponent(monteCarlo.estimate, place)}  u = ${g(monteCarlo.standardUncertainty, 3)}  ` +
+        `interval ${iv(monteCarlo.interval)}  shortest ${iv(monteCarlo.shortestInterval)}`,
     );
   }
   if (validation) {
