@@ -1,0 +1,41 @@
+import { fileURLToPath } from 'node:url';
+import { createApp } from './app';
+import { loadConfig, type AppConfig } from './config';
+import { countBudgets } from './budgets/budgets-repository';
+import { listUsers } from './accounts/accounts-repository';
+import { seedDemo } from './demo-seed';
+
+const EXAMPLES = fileURLToPath(new URL('../examples', import.meta.url));
+
+/** Builds the app, seeds the demo lab into an empty database (unless DUBITO_DEMO=0) and listens on PORT. */
+export async function serve(overrides: Partial<AppConfig> = {}) {
+  const env = process.env;
+  const handle = await createApp(loadConfig(env, overrides));
+  const { config, connection } = handle;
+  const empty = countBudgets(connection.db) === 0 && listUsers(connection.db).length === 0;
+  if (empty && env.DUBITO_DEMO !== '0') {
+    await seedDemo(handle.services, { examplesDir: env.DUBITO_EXAMPLES ?? EXAMPLES, log: config.log });
+  }
+  handle.pool.warm();
+  const port = Number(env.PORT ?? 3000);
+  const host = env.HOST ?? '0.0.0.0';
+  const server = handle.app.listen(port, host, () => config.log(`listening on http://${host === '0.0.0.0' ? 'localhost' : host}:${port} (database ${config.dbFile})`));
+  let stopping = false;
+  const stop = async () => {
+    if (stopping) return;
+    stopping = true;
+    server.close();
+    await handle.close();
+    process.exit(0);
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+  return { handle, server };
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  serve().catch((e) => {
+    console.error('[dubito] could not start:', e);
+    process.exit(1);
+  });
+}
