@@ -11,6 +11,7 @@ import {
   runMonteCarlo,
   type MonteCarloPlan,
   type MonteCarloRun,
+  type PhaseTimer,
 } from '../montecarlo/run-monte-carlo';
 import { validateGumInterval } from '../montecarlo/validation';
 import { RESERVED_SYMBOLS } from '../model/sandbox';
@@ -28,6 +29,8 @@ export interface ComputeOptions {
   trialsCap?: number;
   onProgress?(done: number, total: number): void;
   shouldStop?(): boolean;
+  /** Measures the Monte Carlo phases (benchmarks); absent, no clock is read. */
+  timer?: PhaseTimer;
 }
 
 function assertUniqueSymbols(doc: BudgetDocument): void {
@@ -45,6 +48,14 @@ function assertUniqueSymbols(doc: BudgetDocument): void {
   if (seen.has(doc.measurand.symbol)) {
     throw new BudgetError('duplicate_symbol', `measurand.symbol: "${doc.measurand.symbol}" is already used by ${seen.get(doc.measurand.symbol)}`, 'measurand.symbol');
   }
+}
+
+/**
+ * The fewest trials for which a 100p % coverage interval is meaningful:
+ * J = ⌈100/(1 − p)⌉, the smallest sequence length of JCGM 101:2008 7.9.2.
+ */
+export function minimumTrials(p: number): number {
+  return Math.ceil(100 / (1 - p) - 1e-9);
 }
 
 /** Runs the Monte Carlo method, turning a non-finite model value into a refusal that names it. */
@@ -123,8 +134,16 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
         : undefined,
       evaluateBlock: model.evaluateBlock,
     };
-    const common = { seed, coverageProbability: p, onProgress: options.onProgress, shouldStop: options.shouldStop };
+    const common = { seed, coverageProbability: p, onProgress: options.onProgress, shouldStop: options.shouldStop, timer: options.timer };
     const adaptive = requested === 'adaptive';
+    const minimum = minimumTrials(p);
+    if (!adaptive && requested < minimum) {
+      throw new BudgetError(
+        'limit',
+        `monteCarlo.trials: at least ${minimum} trials are needed for a ${+(p * 100).toFixed(4)} % coverage interval (100/(1 − p), JCGM 101:2008 7.9.2)`,
+        'monteCarlo.trials',
+      );
+    }
     if (!adaptive && requested > cap) warnings.push(`Monte Carlo trials capped at ${cap} (requested ${requested}).`);
     const run = runMethod(() =>
       adaptive

@@ -112,3 +112,11 @@ describe('budget refusals', () => {
     expect(again).toEqual(doc);
   });
 });
+
+describe('Monte Carlo trial limits', () => {
+  it('refuses fewer trials than 100/(1 − p) (JCGM 101:2008 7.9.2: J = 100/(1 − p), 2000 at p = 95 %)', () => {
+    const doc = validateBudget(base());
+    expect(() => computeBudget(doc, { trials: 1999 })).toThrow('monteCarlo.trials: at least 2000 trials');
+    expect(computeBudget(doc, { trials: 2000 }).monteCarlo?.trials).toBe(2000);
+  });
+});
