@@ -116,7 +116,8 @@ export class AccountsService {
       if (id === actor.id && ((patch.role && patch.role !== 'admin') || patch.active === false)) {
         throw new ConflictError('you cannot demote or deactivate your own account', 'self_lockout');
       }
-      const after = updateUser(tx, id, patch)!;
+      const fields = Object.fromEntries(Object.entries(patch).filter(([, v]) => v !== undefined));
+      const after = Object.keys(fields).length ? updateUser(tx, id, fields)! : before;
       const changes: Record<string, { from: unknown; to: unknown }> = {};
       for (const k of ['name', 'role', 'active'] as const) {
         if (patch[k] !== undefined && before[k] !== after[k]) changes[k] = { from: before[k], to: after[k] };

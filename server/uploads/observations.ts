@@ -27,19 +27,19 @@ function toNumber(cell: string, delimiter: string): number | null {
 
 /**
  * Reads one column of numbers from CSV text. A first row that is not numeric
- * is taken as the header. `column` is a header name or a 1-based index; it may
+ * in the chosen column is taken as the header. `column` is a header name or a 1-based index; it may
  * be left out when the file has a single column.
  */
 export function parseObservations(text: string, column?: string): ObservationsResult {
   if (text.includes('\u0000')) throw new ValidationError('the file is not text', 'file');
-  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', delimitersToGuess: [',', ';', '\t', '|'] });
+  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', delimitersToGuess: [';', '\t', '|', ','] });
   const rows = parsed.data;
   if (rows.length === 0) throw new ValidationError('the file has no rows', 'file');
   const delimiter = parsed.meta.delimiter;
   const width = Math.max(...rows.map((r) => r.length));
   const first = rows[0];
-  const header = first.some((c) => c.trim() !== '' && toNumber(c, delimiter) === null);
-  const columns = Array.from({ length: width }, (_, i) => (header ? (first[i]?.trim() ?? null) : null));
+  const looksLikeHeader = first.some((c) => c.trim() !== '' && toNumber(c, delimiter) === null);
+  let columns = Array.from({ length: width }, (_, i) => (looksLikeHeader ? (first[i]?.trim() ?? null) : null));
 
   let index: number;
   if (column === undefined || column === '') {
@@ -55,6 +55,9 @@ export function parseObservations(text: string, column?: string): ObservationsRe
     if (index < 0) throw new AppError(400, 'unknown_column', `no column is headed "${column}"`, 'column', { columns });
   }
 
+  // The first row is a header when the chosen column does not hold a number there.
+  const header = looksLikeHeader && toNumber(first[index] ?? '', delimiter) === null;
+  if (!header) columns = columns.map(() => null);
   const values: number[] = [];
   const errors: RowError[] = [];
   rows.forEach((r, i) => {

@@ -33,7 +33,7 @@ export async function startTestServer(overrides: Partial<AppConfig> = {}): Promi
   const handle = await createApp({
     dbFile: join(dir, 'dubito.sqlite'),
     dataDir: dir,
-    trialsCap: 2_000,
+    trialsCap: 5_000,
     computeWorkers: 1,
     allowedOrigins: [ORIGIN],
     publicUrl: 'http://dubito.test',
@@ -92,7 +92,7 @@ export function sampleDocument(title = 'Length of a test bar', extra: Record<str
       { symbol: 'b', unit: 'mm', distribution: { kind: 'rectangular', value: 0.01, halfWidth: 0.001 } },
       { symbol: 'c', distribution: { kind: 'normal', value: 1, u: 0.01 } },
     ],
-    monteCarlo: { trials: 1000, seed: 'test' },
+    monteCarlo: { trials: 2000, seed: 'test' },
     ...extra,
   };
 }

@@ -1,0 +1,99 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ORIGIN, PASSWORD, sampleDocument, startTestServer, type TestServer } from './helpers';
+
+let s: TestServer;
+
+beforeAll(async () => {
+  s = await startTestServer();
+});
+afterAll(async () => {
+  await s?.stop();
+});
+
+describe('sign-in', () => {
+  it('gives the same answer for an unknown address and a wrong password', async () => {
+    const unknown = await s.anonymous().post('/api/auth/login').send({ email: 'ghost@lab.test', password: 'whatever it is' }).expect(401);
+    const wrong = await s.anonymous().post('/api/auth/login').send({ email: s.users.auditor.email, password: 'not the password' }).expect(401);
+    expect(unknown.body).toEqual(wrong.body);
+  });
+
+  it('sets an httpOnly SameSite=Strict cookie, regenerates the session and destroys it at sign-out', async () => {
+    const a = s.anonymous();
+    await a.get('/api/me').expect(401);
+    const first = await a.post('/api/auth/login').send({ email: s.users.reviewer.email, password: PASSWORD }).expect(200);
+    const cookie = String(first.headers['set-cookie']);
+    expect(cookie).toMatch(/dubito\.sid=/);
+    expect(cookie).toMatch(/HttpOnly/);
+    expect(cookie).toMatch(/SameSite=Strict/);
+    const sid1 = cookie.match(/dubito\.sid=([^;]+)/)![1];
+    const second = await a.post('/api/auth/login').send({ email: s.users.reviewer.email, password: PASSWORD }).expect(200);
+    const sid2 = String(second.headers['set-cookie']).match(/dubito\.sid=([^;]+)/)![1];
+    expect(sid2).not.toBe(sid1);
+    expect((await a.get('/api/me').expect(200)).body).toEqual({ id: s.users.reviewer.id, email: s.users.reviewer.email, name: s.users.reviewer.name, role: 'reviewer' });
+    await a.post('/api/auth/logout').expect(204);
+    await a.get('/api/me').expect(401);
+  });
+
+  it('ends the sessions of a deactivated user', async () => {
+    const a = s.anonymous();
+    const u = await s.services.accounts.create(null, { email: 'leaver@lab.test', name: 'Leaver', role: 'auditor', password: PASSWORD });
+    s.services.accounts.update(s.users.admin, u.id, {}); // no-op patch leaves the session alone
+    await s.services.accounts.authenticate('leaver@lab.test', PASSWORD);
+    const store = s.connection.sqlite;
+    // Sign in through the store-backed session, then deactivate.
+    const login = await fetch(`${s.url}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', origin: ORIGIN },
+      body: JSON.stringify({ email: 'leaver@lab.test', password: PASSWORD }),
+    });
+    expect(login.status).toBe(200);
+    const cookie = login.headers.get('set-cookie')!.split(';')[0];
+    expect((await fetch(`${s.url}/api/me`, { headers: { cookie } })).status).toBe(200);
+    s.services.accounts.update(s.users.admin, u.id, { active: false });
+    expect((await fetch(`${s.url}/api/me`, { headers: { cookie } })).status).toBe(401);
+    expect(store.open).toBe(true);
+    void a;
+  });
+});
+
+describe('cross-origin requests', () => {
+  it('refuses state-changing requests from another origin or with no origin', async () => {
+    const m = s.anonymous();
+    await m.post('/api/auth/login').send({ email: s.users.metrologist.email, password: PASSWORD }).expect(200);
+    const before = (s.connection.sqlite.prepare('SELECT count(*) AS n FROM budgets').get() as { n: number }).n;
+    const evil = await m.post('/api/budgets').set('Origin', 'http://evil.test').send({ document: sampleDocument() }).expect(403);
+    expect(evil.body.error.code).toBe('cross_origin');
+    await m.post('/api/budgets').set('Origin', '').send({ document: sampleDocument() }).expect(403);
+    await m.post('/api/budgets').set('Origin', 'null').send({ document: sampleDocument() }).expect(403);
+    await s.anonymous().post('/api/auth/login').set('Origin', 'http://evil.test').send({ email: s.users.admin.email, password: PASSWORD }).expect(403);
+    const after = (s.connection.sqlite.prepare('SELECT count(*) AS n FROM budgets').get() as { n: number }).n;
+    expect(after).toBe(before);
+    // Same origin by Referer, or the host the request was sent to, is accepted.
+    await m.post('/api/budgets').set('Origin', '').set('Referer', `${ORIGIN}/budgets`).send({ document: sampleDocument() }).expect(201);
+    await m.post('/api/budgets').set('Origin', s.url).send({ document: sampleDocument() }).expect(201);
+    // Reads are not state-changing.
+    await m.get('/api/budgets').set('Origin', 'http://evil.test').expect(200);
+  });
+});
+
+describe('sign-in rate limit', () => {
+  it('limits failed attempts per account, then per address', async () => {
+    const s = await startTestServer({ signIn: { windowMs: 60_000, perAccount: 3, perAddress: 8 } });
+    try {
+    const email = s.users.trainee.email;
+    for (let i = 0; i < 3; i++) await s.anonymous().post('/api/auth/login').send({ email, password: `wrong ${i}` }).expect(401);
+    const blocked = await s.anonymous().post('/api/auth/login').send({ email, password: PASSWORD }).expect(429);
+    expect(blocked.body.error.code).toBe('rate_limited');
+    // Another account from the same address still works until the address limit is reached.
+    await s.anonymous().post('/api/auth/login').send({ email: s.users.metrologist.email, password: PASSWORD }).expect(200);
+    let last = 0;
+    for (let i = 0; i < 6; i++) {
+      last = (await s.anonymous().post('/api/auth/login').send({ email: `nobody${i}@lab.test`, password: 'guess guess' })).status;
+    }
+    expect(last).toBe(429);
+    await s.anonymous().post('/api/auth/login').send({ email: s.users.admin.email, password: PASSWORD }).expect(429);
+      } finally {
+      await s.stop();
+    }
+  });
+});
