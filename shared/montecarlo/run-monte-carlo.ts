@@ -15,6 +15,27 @@ export interface MonteCarloPlan {
   evaluateBlock(columns: Float64Array[], out: Float64Array, offset: number, n: number): void;
 }
 
+/** The phases of a run that `PhaseTimer` measures. */
+export type MonteCarloPhase = 'sample' | 'evaluate' | 'moments' | 'histogram' | 'intervals';
+
+/**
+ * Optional measurement of where a run spends its time (for benchmarks). The
+ * driver adds elapsed `now()` differences to `elapsed`; without a timer it
+ * reads no clock at all.
+ */
+export interface PhaseTimer {
+  /** A clock in milliseconds, e.g. `() => performance.now()`. */
+  now(): number;
+  /** Milliseconds per phase, summed over blocks; the driver adds to what is there. */
+  elapsed: Partial<Record<MonteCarloPhase, number>>;
+}
+
+function addElapsed(timer: PhaseTimer, phase: MonteCarloPhase, since: number): number {
+  const now = timer.now();
+  timer.elapsed[phase] = (timer.elapsed[phase] ?? 0) + (now - since);
+  return now;
+}
+
 export interface MonteCarloOptions {
   trials: number;
   seed: string;
@@ -25,6 +46,7 @@ export interface MonteCarloOptions {
   shouldStop?(): boolean;
   /** Histogram bins (default 100). */
   binCount?: number;
+  timer?: PhaseTimer;
 }
 
 export interface AdaptiveMonteCarloOptions extends Omit<MonteCarloOptions, 'trials'> {
@@ -111,6 +133,7 @@ class TrialGenerator {
     seed: string,
     blockSize: number,
     private readonly shouldStop?: () => boolean,
+    private readonly timer?: PhaseTimer,
   ) {
     if (!(Number.isInteger(blockSize) && blockSize >= 1)) throw new RangeError(`block size must be a whole number ≥ 1 (got ${blockSize})`);
     this.blockSize = blockSize;
@@ -136,18 +159,21 @@ class TrialGenerator {
 
   /** Fills out[offset..offset + count) with model values; trial numbers continue across calls. */
   run(out: Float64Array, offset: number, count: number, onBlock?: (n: number) => void): void {
-    const { plan, columns, streams } = this;
+    const { plan, columns, streams, timer } = this;
     for (let start = 0; start < count; start += this.blockSize) {
       if (this.shouldStop?.()) throw new MonteCarloCancelled(this.done);
       const n = Math.min(this.blockSize, count - start);
+      let since = timer ? timer.now() : 0;
       for (let i = 0; i < columns.length; i++) {
         const sampler = plan.samplers[i];
         if (sampler !== null) sampler.fill(streams[i]!, columns[i], n);
       }
       if (this.correlatedSampler) this.correlatedSampler.fill(this.correlatedStream!, this.correlatedColumns, n);
+      if (timer) since = addElapsed(timer, 'sample', since);
       const at = offset + start;
       plan.evaluateBlock(columns, out, at, n);
       this.checkFinite(out, at, n);
+      if (timer) addElapsed(timer, 'evaluate', since);
       this.done += n;
       onBlock?.(n);
     }
@@ -172,10 +198,14 @@ function checkTrials(trials: number): void {
 }
 
 /** Summary of M model values: estimate and u (7.6), both intervals (7.7), histogram. Reorders `values`. */
-function summarize(values: Float64Array, p: number, binCount?: number) {
+function summarize(values: Float64Array, p: number, binCount?: number, timer?: PhaseTimer) {
+  let since = timer ? timer.now() : 0;
   const { mean, standardDeviation } = meanAndStandardDeviation(values);
+  if (timer) since = addElapsed(timer, 'moments', since);
   const histogram = histogramBins(values, binCount);
+  if (timer) since = addElapsed(timer, 'histogram', since);
   const { symmetric, shortest } = coverageIntervals(values, p);
+  if (timer) addElapsed(timer, 'intervals', since);
   return { estimate: mean, standardUncertainty: standardDeviation, interval: symmetric, shortestInterval: shortest, histogram };
 }
 
@@ -190,10 +220,10 @@ function summarize(values: Float64Array, p: number, binCount?: number) {
 export function runMonteCarlo(plan: MonteCarloPlan, options: MonteCarloOptions): MonteCarloRun {
   const { trials: M, seed, coverageProbability: p } = options;
   checkTrials(M);
-  const generator = new TrialGenerator(plan, seed, Math.min(options.blockSize ?? DEFAULT_BLOCK_SIZE, M), options.shouldStop);
+  const generator = new TrialGenerator(plan, seed, Math.min(options.blockSize ?? DEFAULT_BLOCK_SIZE, M), options.shouldStop, options.timer);
   const values = new Float64Array(M);
   generator.run(values, 0, M, () => options.onProgress?.(generator.done, M));
-  return { trials: M, seed, ...summarize(values, p, options.binCount), values };
+  return { trials: M, seed, ...summarize(values, p, options.binCount, options.timer), values };
 }
 
 /** Standard deviation of the average of h values: s = √(Σ(x_r − x̄)² / (h(h − 1))) (JCGM 101:2008 7.9.4 e). */
@@ -220,7 +250,7 @@ export function runAdaptiveMonteCarlo(plan: MonteCarloPlan, options: AdaptiveMon
   // The small offset keeps binary rounding of 1 − p (e.g. 0.999) from adding one trial.
   const M = Math.min(Math.max(Math.ceil(100 / (1 - p) - 1e-9), 10_000), maxTrials);
   const maxSequences = Math.max(1, Math.floor(maxTrials / M));
-  const generator = new TrialGenerator(plan, seed, Math.min(options.blockSize ?? DEFAULT_BLOCK_SIZE, M), options.shouldStop);
+  const generator = new TrialGenerator(plan, seed, Math.min(options.blockSize ?? DEFAULT_BLOCK_SIZE, M), options.shouldStop, options.timer);
 
   let values = new Float64Array(Math.min(maxSequences, 4) * M);
   const estimates: number[] = [];
@@ -278,7 +308,7 @@ export function runAdaptiveMonteCarlo(plan: MonteCarloPlan, options: AdaptiveMon
   return {
     trials: h * M,
     seed,
-    ...summarize(used, p, options.binCount),
+    ...summarize(used, p, options.binCount, options.timer),
     values: used,
     adaptive: { sequenceLength: M, sequences: h, tolerance, spread, stabilized },
   };

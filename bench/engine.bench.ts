@@ -1,0 +1,224 @@
+/*
+ * Engine benchmark (npm run bench). Measures through the public engine API:
+ *   1. the JCGM 101:2008 9.3 mass model at 10⁶ trials: time per phase and trials/s;
+ *   2. the same model at 10⁷ trials with peak memory;
+ *   3. a GUF recompute (no Monte Carlo) of a generated 50-input budget;
+ *   4. the same 9.3 model as a vectorised numpy script, for the ratio Dubito/numpy.
+ * Prints a table and PASS/MISS per target; never exits with an error for a MISS.
+ */
+import { spawnSync } from 'node:child_process';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { validateBudget } from '../shared/budget/budget-file';
+import type { BudgetDocument } from '../shared/budget/schema';
+import { computeBudget } from '../shared/compute/compute-budget';
+import { compileModel } from '../shared/model/compile-model';
+import type { MonteCarloPhase, PhaseTimer } from '../shared/montecarlo/run-monte-carlo';
+
+const here = dirname(fileURLToPath(import.meta.url));
+const RUNS = 7;
+const WARM_UPS = 2;
+
+/** JCGM 101:2008 9.3: calibration of a 100 g weight (same budget as the reference test). */
+const mass = validateBudget({
+  format: 'dubito-budget/1',
+  title: 'Mass calibration, JCGM 101:2008 9.3',
+  measurand: { symbol: 'dm', unit: 'mg' },
+  model: 'dm = (mRc + dmRc) * (1 + (rho_a - rho_a0) * (1/rho_W - 1/rho_R)) - m_nom',
+  constants: [
+    { symbol: 'rho_a0', value: 1.2, unit: 'kg/m^3' },
+    { symbol: 'm_nom', value: 100000, unit: 'mg' },
+  ],
+  inputs: [
+    { symbol: 'mRc', unit: 'mg', distribution: { kind: 'normal', value: 100000, u: 0.05 } },
+    { symbol: 'dmRc', unit: 'mg', distribution: { kind: 'normal', value: 1.234, u: 0.02 } },
+    { symbol: 'rho_a', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 1.1, upper: 1.3 } },
+    { symbol: 'rho_W', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 7000, upper: 9000 } },
+    { symbol: 'rho_R', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 7950, upper: 8050 } },
+  ],
+  monteCarlo: { trials: 1000000, seed: 'bench-9.3' },
+});
+
+const median = (xs: number[]) => {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+};
+const mib = (bytes: number) => bytes / 2 ** 20;
+const fmt = (x: number, digits = 2) => x.toFixed(digits);
+
+function compileTime(doc: BudgetDocument): number {
+  const spec = {
+    model: doc.model,
+    measurand: doc.measurand,
+    inputs: doc.inputs.map((q) => ({ symbol: q.symbol, unit: q.unit })),
+    constants: (doc.constants ?? []).map((c) => ({ symbol: c.symbol, unit: c.unit, value: c.value })),
+  };
+  compileModel(spec); // warm-up: mathjs parse/derivative code paths
+  const times: number[] = [];
+  for (let r = 0; r < 5; r++) {
+    const t0 = performance.now();
+    compileModel(spec);
+    times.push(performance.now() - t0);
+  }
+  return median(times);
+}
+
+const PHASES: MonteCarloPhase[] = ['sample', 'evaluate', 'moments', 'histogram', 'intervals'];
+
+function monteCarloAtMillion() {
+  const trials = 1_000_000;
+  for (let w = 0; w < WARM_UPS; w++) computeBudget(mass, { trials });
+  const totals: number[] = [];
+  const phases: Record<MonteCarloPhase, number[]> = { sample: [], evaluate: [], moments: [], histogram: [], intervals: [] };
+  let result = computeBudget(mass, { trials });
+  for (let r = 0; r < RUNS; r++) {
+    const t0 = performance.now();
+    result = computeBudget(mass, { trials });
+    totals.push(performance.now() - t0);
+  }
+  // Phase times in separate runs, so the clock reads do not enter the totals.
+  for (let r = 0; r < RUNS; r++) {
+    const timer: PhaseTimer = { now: () => performance.now(), elapsed: {} };
+    computeBudget(mass, { trials, timer });
+    for (const p of PHASES) phases[p].push(timer.elapsed[p] ?? 0);
+  }
+  return { trials, total: median(totals), phases: Object.fromEntries(PHASES.map((p) => [p, median(phases[p])])) as Record<MonteCarloPhase, number>, result };
+}
+
+function monteCarloAtTenMillion() {
+  const trials = 10_000_000;
+  (globalThis as { gc?: () => void }).gc?.();
+  const before = process.memoryUsage();
+  let peakRss = before.rss;
+  let peakHeapAndBuffers = before.heapUsed + before.arrayBuffers;
+  const sample = () => {
+    const m = process.memoryUsage();
+    if (m.rss > peakRss) peakRss = m.rss;
+    if (m.heapUsed + m.arrayBuffers > peakHeapAndBuffers) peakHeapAndBuffers = m.heapUsed + m.arrayBuffers;
+  };
+  let blocks = 0;
+  const t0 = performance.now();
+  const result = computeBudget(mass, {
+    trials,
+    // Memory read every 16th block (≈ every 5·10⁵ trials): often enough to see the peak, rarely enough not to cost.
+    onProgress: () => {
+      if (++blocks % 16 === 0) sample();
+    },
+  });
+  const ms = performance.now() - t0;
+  sample();
+  return { trials, ms, peakRss, peakHeapAndBuffers, baseRss: before.rss, result };
+}
+
+/** A generated budget of n inputs: y = Σ_k x_{2k−1}·x_{2k} / (1 + x_{2k}²)-like product terms, mixed kinds. */
+function generatedBudget(n: number, shift: number): BudgetDocument {
+  const inputs = Array.from({ length: n }, (_, i) => {
+    const symbol = `x${i + 1}`;
+    const value = 1 + i / 10 + shift;
+    return i % 3 === 2
+      ? { symbol, distribution: { kind: 'rectangular' as const, value, halfWidth: 0.05 } }
+      : { symbol, distribution: { kind: 'normal' as const, value, u: 0.01 + i / 1000 } };
+  });
+  const terms: string[] = [];
+  for (let i = 1; i < n; i += 2) terms.push(`x${i} * x${i + 1} / (1 + x${i + 1}^2)`);
+  return validateBudget({
+    format: 'dubito-budget/1',
+    title: `Generated ${n}-input budget`,
+    measurand: { symbol: 'y' },
+    model: `y = ${terms.join(' + ')}`,
+    inputs,
+  });
+}
+
+function gufRecompute() {
+  const n = 50;
+  const docs = Array.from({ length: 21 }, (_, r) => generatedBudget(n, r * 0.001));
+  const t0 = performance.now();
+  computeBudget(docs[0], { monteCarlo: false }); // compiles the model once (then cached)
+  const first = performance.now() - t0;
+  for (let w = 1; w <= 5; w++) computeBudget(docs[w], { monteCarlo: false });
+  const times: number[] = [];
+  for (let r = 6; r < docs.length; r++) {
+    const t = performance.now();
+    computeBudget(docs[r], { monteCarlo: false });
+    times.push(performance.now() - t);
+  }
+  return { inputs: n, first, recompute: median(times) };
+}
+
+function findPython(): string | null {
+  for (const exe of [process.env.PYTHON, 'python3', '/usr/bin/python3', 'python'].filter(Boolean) as string[]) {
+    const probe = spawnSync(exe, ['-c', 'import numpy'], { stdio: 'ignore' });
+    if (probe.status === 0) return exe;
+  }
+  return null;
+}
+
+function numpyRun(trials: number) {
+  const python = findPython();
+  if (!python) return { skipped: 'no python3 that can import numpy was found: the numpy comparison is skipped' };
+  const run = spawnSync(python, [join(here, 'mass_numpy.py'), '--trials', String(trials), '--runs', '5'], { encoding: 'utf8' });
+  if (run.status !== 0) return { skipped: `the numpy script failed: ${run.stderr.trim().split('\n').pop()}` };
+  const parsed = JSON.parse(run.stdout) as {
+    numpy: string;
+    seconds: Record<MonteCarloPhase | 'total', number>;
+    result: { estimate: number; standardUncertainty: number; interval: [number, number]; shortestInterval: [number, number] };
+  };
+  return { python, ...parsed };
+}
+
+const verdict = (ok: boolean) => (ok ? 'PASS' : 'MISS');
+
+function main() {
+  console.log(`Dubito engine benchmark — Node ${process.version}, ${RUNS} runs (median) after ${WARM_UPS} warm-ups\n`);
+  const compileMs = compileTime(mass);
+  const million = monteCarloAtMillion();
+  const np = numpyRun(million.trials);
+  const ten = monteCarloAtTenMillion();
+  const guf = gufRecompute();
+
+  const mc = million.result.monteCarlo!;
+  const phaseSum = PHASES.reduce((s, p) => s + million.phases[p], 0);
+  console.log('JCGM 101:2008 9.3 mass model, 10⁶ trials');
+  console.log('| phase      | Dubito ms | numpy ms |');
+  console.log('| ---------- | --------: | -------: |');
+  const npSeconds = 'seconds' in np ? np.seconds : null;
+  console.log(`| compile    | ${fmt(compileMs).padStart(9)} | ${'—'.padStart(8)} |`);
+  for (const p of PHASES) {
+    console.log(`| ${p.padEnd(10)} | ${fmt(million.phases[p]).padStart(9)} | ${(npSeconds ? fmt(npSeconds[p] * 1000) : '—').padStart(8)} |`);
+  }
+  console.log(`| sum        | ${fmt(phaseSum).padStart(9)} | ${(npSeconds ? fmt(npSeconds.total * 1000) : '—').padStart(8)} |`);
+  console.log(`| computeBudget total (GUF + MCM) | ${fmt(million.total)} ms | ${fmt(million.trials / (million.total / 1000) / 1e6)} M trials/s |`);
+  console.log(
+    `  result: y = ${mc.estimate.toFixed(5)} mg, u = ${mc.standardUncertainty.toFixed(5)} mg, symmetric [${mc.interval.map((v) => v.toFixed(4)).join(', ')}], ` +
+      `shortest [${mc.shortestInterval.map((v) => v.toFixed(4)).join(', ')}] mg`,
+  );
+  if ('skipped' in np) console.log(`  numpy: ${np.skipped}`);
+  else {
+    console.log(
+      `  numpy ${np.numpy} (${np.python}): y = ${np.result.estimate.toFixed(5)} mg, u = ${np.result.standardUncertainty.toFixed(5)} mg, ` +
+        `symmetric [${np.result.interval.map((v) => v.toFixed(4)).join(', ')}], shortest [${np.result.shortestInterval.map((v) => v.toFixed(4)).join(', ')}] mg`,
+    );
+  }
+
+  console.log('\nJCGM 101:2008 9.3 mass model, 10⁷ trials');
+  console.log(`  time ${fmt(ten.ms, 0)} ms (${fmt(ten.trials / (ten.ms / 1000) / 1e6)} M trials/s); peak rss ${fmt(mib(ten.peakRss), 0)} MiB (before the run ${fmt(mib(ten.baseRss), 0)} MiB); peak heap + array buffers ${fmt(mib(ten.peakHeapAndBuffers), 0)} MiB`);
+  console.log(`  result: y = ${ten.result.monteCarlo!.estimate.toFixed(5)} mg, u = ${ten.result.monteCarlo!.standardUncertainty.toFixed(5)} mg`);
+
+  console.log(`\nGUF recompute, generated ${guf.inputs}-input budget (monteCarlo: false)`);
+  console.log(`  first compute (compiles the model) ${fmt(guf.first, 1)} ms; recompute with changed estimates ${fmt(guf.recompute, 3)} ms (median of 15)`);
+
+  console.log('\nTargets');
+  console.log('| target | measured | verdict |');
+  console.log('| --- | --- | --- |');
+  if ('skipped' in np) console.log(`| MCM 10⁶ ≤ 0.5 × numpy | ${fmt(million.total)} ms, numpy skipped | — |`);
+  else {
+    const ratio = million.total / (np.seconds.total * 1000);
+    console.log(`| MCM 10⁶ ≤ 0.5 × numpy | ${fmt(million.total)} ms / ${fmt(np.seconds.total * 1000)} ms = ${fmt(ratio, 3)} | ${verdict(ratio <= 0.5)} |`);
+  }
+  console.log(`| 10⁷ trials, memory well under 1 GB (< 512 MiB rss) | ${fmt(mib(ten.peakRss), 0)} MiB | ${verdict(ten.peakRss < 512 * 2 ** 20)} |`);
+  console.log(`| GUF recompute of 50 inputs < 2 ms | ${fmt(guf.recompute, 3)} ms | ${verdict(guf.recompute < 2)} |`);
+}
+
+main();
