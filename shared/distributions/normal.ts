@@ -1,5 +1,5 @@
 import type { DistributionRule } from './distribution';
-import { fillStandardNormal } from '../random/standard-normal';
+import { fillNormal } from '../random/ziggurat-normal';
 
 /**
  * Gaussian input: x = value, u = u or U/k (GUM 4.3.4), ν = ∞ unless `dof` is
@@ -16,8 +16,7 @@ export const normalRule: DistributionRule<'normal'> = {
     const u = normalStandardUncertainty(spec);
     return {
       fill(rng, out, n) {
-        fillStandardNormal(rng, out, n);
-        for (let i = 0; i < n; i++) out[i] = mean + u * out[i];
+        fillNormal(rng, out, n, mean, u);
       },
     };
   },

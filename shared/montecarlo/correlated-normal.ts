@@ -1,5 +1,5 @@
 import type { UniformGenerator } from '../random/uniform-generator';
-import { fillStandardNormal } from '../random/standard-normal';
+import { fillStandardNormal } from '../random/ziggurat-normal';
 import { choleskyFactor } from '../statistics/cholesky';
 
 /** A group of inputs drawn jointly from a multivariate Gaussian. */

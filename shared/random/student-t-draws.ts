@@ -1,6 +1,6 @@
 import type { UniformGenerator } from './uniform-generator';
 import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from './uniform-scratch';
-import { fillStandardNormal } from './standard-normal';
+import { fillStandardNormal } from './ziggurat-normal';
 
 /**
  * Fills out[0..n) with independent draws from the standard t-distribution

@@ -51,6 +51,35 @@ export class UniformGenerator {
     return this.single[0];
   }
 
+  /**
+   * Fills out[0..n) with raw 32-bit outputs of xoshiro128** (as signed
+   * integers), for samplers that build their own numbers from bits. Advances
+   * the same stream as `fill`: one uniform of `fill` is two raw outputs.
+   */
+  fillRaw(out: Int32Array, n: number = out.length): void {
+    let s0 = this.s0;
+    let s1 = this.s1;
+    let s2 = this.s2;
+    let s3 = this.s3;
+    let t = 0;
+    let r = 0;
+    for (let i = 0; i < n; i++) {
+      t = s1 << 9;
+      r = Math.imul(s1, 5);
+      out[i] = Math.imul((r << 7) | (r >>> 25), 9);
+      s2 ^= s0;
+      s3 ^= s1;
+      s1 ^= s2;
+      s0 ^= s3;
+      s2 ^= t;
+      s3 = (s3 << 11) | (s3 >>> 21);
+    }
+    this.s0 = s0;
+    this.s1 = s1;
+    this.s2 = s2;
+    this.s3 = s3;
+  }
+
   /** Fills out[0..n) (n defaults to out.length) with uniforms in (0, 1). */
   fill(out: Float64Array, n: number = out.length): void {
     // State in locals: about three times faster than reading and writing fields per draw.

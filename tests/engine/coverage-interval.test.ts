@@ -9,7 +9,7 @@ import {
 import { histogramBins } from '../../shared/montecarlo/histogram';
 import { meanAndStandardDeviation } from '../../shared/montecarlo/summary';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
-import { fillStandardNormal } from '../../shared/random/standard-normal';
+import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
 
 /** Reference by full sort, straight from the wording of JCGM 101:2008 7.7.1–7.7.3 (1-based ranks). */
 function byFullSort(values: Float64Array, p: number): { symmetric: [number, number]; shortest: [number, number] } {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import jstatPkg from 'jstat';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
-import { fillStandardNormal } from '../../shared/random/standard-normal';
+import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
 import { fillStudentT } from '../../shared/random/student-t-draws';
 import { sampleMoments } from './moments';
 
