@@ -1,9 +1,14 @@
+import { sortFloat64 } from './radix-sort';
+
 /*
  * Coverage intervals from M model values (JCGM 101:2008 7.7). Only the order
- * statistics y_(r), y_(r+q) are needed, so instead of sorting all M values the
- * array is partitioned by quickselect and only the two tails of M − q values
- * each are sorted. The functions REORDER `values` IN PLACE (the multiset of
- * values is unchanged, so mean, u and histogram are not affected).
+ * statistics y_(1..M−q) and y_(q+1..M) are needed, so instead of sorting all
+ * M values the two tails are found and only they are sorted. Usually one
+ * counting pass over fine buckets finds the tails and a second, branch-free
+ * pass copies them out; `values` is then left as it is. When the values are
+ * too concentrated for the buckets, `values` is partitioned by quickselect
+ * instead, which REORDERS it IN PLACE (the multiset of values is unchanged,
+ * so mean, u and histogram are not affected).
  */
 
 /**
@@ -81,53 +86,124 @@ export function quickselect(a: Float64Array, k: number, lo = 0, hi = a.length - 
   }
 }
 
-/**
- * Puts the lowest `tail` and highest `tail` values of `values` at its two ends,
- * each sorted ascending; the middle is left partitioned but unsorted.
- */
-function sortTails(values: Float64Array, tail: number): void {
-  const M = values.length;
-  if (2 * tail >= M) {
-    values.sort();
-    return;
-  }
-  quickselect(values, tail - 1, 0, M - 1);
-  quickselect(values, M - tail, tail, M - 1);
-  values.subarray(0, tail).sort();
-  values.subarray(M - tail, M).sort();
+/** The lowest and highest order statistics: y_(k) = low[k − 1] for k ≤ low.length, y_(k) = high[k − 1 − (M − high.length)] for k > M − high.length. */
+interface Tails {
+  low: Float64Array;
+  high: Float64Array;
+  M: number;
 }
 
-/** r* in 1..M−q minimising y_(r+q) − y_(r), with the tails sorted (JCGM 101:2008 7.7.3). */
-function shortestFromSortedTails(values: Float64Array, q: number): [number, number] {
+/** y_(k), 1-based, for k in one of the two tails. */
+function orderStatistic(t: Tails, k: number): number {
+  return k <= t.low.length ? t.low[k - 1] : t.high[k - 1 - (t.M - t.high.length)];
+}
+
+const BUCKETS = 1 << 12;
+
+/**
+ * The lowest and highest `tail` (or a few more) values, each sorted, by
+ * counting the values in 4096 equal buckets between min and max; null when a
+ * tail's buckets hold far more than `tail` values (a very concentrated
+ * distribution). `values` is not changed.
+ */
+function tailsByBuckets(values: Float64Array, tail: number): Tails | null {
   const M = values.length;
-  let best = 0;
+  let min = Infinity;
+  let max = -Infinity;
+  for (let r = 0; r < M; r++) {
+    const y = values[r];
+    if (y < min) min = y;
+    if (y > max) max = y;
+  }
+  const scale = BUCKETS / (max - min);
+  if (!(scale > 0 && scale < Infinity)) return null;
+  // (y − min)·scale ≤ BUCKETS after rounding, hence one extra bucket.
+  const counts = new Int32Array(BUCKETS + 1);
+  for (let r = 0; r < M; r++) counts[((values[r] - min) * scale) | 0]++;
+  let lowBucket = 0;
+  let lowCount = counts[0];
+  while (lowCount < tail) lowCount += counts[++lowBucket];
+  let highBucket = BUCKETS;
+  let highCount = counts[BUCKETS];
+  while (highCount < tail) highCount += counts[--highBucket];
+  const limit = 2 * tail + (M >> 6);
+  if (lowCount > limit || highCount > limit || lowBucket >= highBucket) return null;
+  // Each value is written to both buffers and the write kept (index advanced) only if it belongs: no branches.
+  const low = new Float64Array(lowCount + 1);
+  const high = new Float64Array(highCount + 1);
+  let nLow = 0;
+  let nHigh = 0;
+  for (let r = 0; r < M; r++) {
+    const y = values[r];
+    const b = ((y - min) * scale) | 0;
+    low[nLow] = y;
+    nLow += 1 - ((lowBucket - b) >>> 31);
+    high[nHigh] = y;
+    nHigh += 1 - ((b - highBucket) >>> 31);
+  }
+  const lowTail = low.subarray(0, lowCount);
+  const highTail = high.subarray(0, highCount);
+  sortFloat64(lowTail);
+  sortFloat64(highTail);
+  return { low: lowTail, high: highTail, M };
+}
+
+/**
+ * The lowest and highest `tail` values by quickselect: they end up at the two
+ * ends of `values`, each sorted; the middle is left partitioned but unsorted.
+ */
+function tailsBySelection(values: Float64Array, tail: number): Tails {
+  const M = values.length;
+  quickselect(values, tail - 1, 0, M - 1);
+  quickselect(values, M - tail, tail, M - 1);
+  const low = values.subarray(0, tail);
+  const high = values.subarray(M - tail, M);
+  sortFloat64(low);
+  sortFloat64(high);
+  return { low, high, M };
+}
+
+/** Both tails of M − q values each (the whole array sorted when they overlap). */
+function tailsOf(values: Float64Array, q: number): Tails {
+  const M = values.length;
+  const tail = M - q;
+  if (2 * tail >= M) {
+    sortFloat64(values);
+    return { low: values, high: values, M };
+  }
+  return tailsByBuckets(values, tail) ?? tailsBySelection(values, tail);
+}
+
+/** r* in 1..M−q minimising y_(r+q) − y_(r) (JCGM 101:2008 7.7.3); the first such r on ties. */
+function shortestFromTails(t: Tails, q: number): [number, number] {
+  let best = 1;
   let bestLength = Infinity;
-  for (let r = 0; r < M - q; r++) {
-    const length = values[r + q] - values[r];
+  for (let r = 1; r <= t.M - q; r++) {
+    const length = orderStatistic(t, r + q) - orderStatistic(t, r);
     if (length < bestLength) {
       bestLength = length;
       best = r;
     }
   }
-  return [values[best], values[best + q]];
+  return [orderStatistic(t, best), orderStatistic(t, best + q)];
 }
 
-function symmetricFromSortedTails(values: Float64Array, q: number): [number, number] {
-  const r = symmetricRank(values.length, q);
-  return [values[r - 1], values[r - 1 + q]];
+function symmetricFromTails(t: Tails, q: number): [number, number] {
+  const r = symmetricRank(t.M, q);
+  return [orderStatistic(t, r), orderStatistic(t, r + q)];
 }
 
 /**
  * Both coverage intervals for coverage probability p from M model values
  * (JCGM 101:2008 7.7): with y_(1) ≤ … ≤ y_(M), the interval is [y_(r), y_(r+q)];
  * symmetric: r = (M − q)/2 or (M − q + 1)/2 (7.7.2); shortest: the r* that
- * minimises y_(r+q) − y_(r) (7.7.3). Reorders `values` in place.
- * Cost: two quickselects plus sorting 2·(M − q) values.
+ * minimises y_(r+q) − y_(r) (7.7.3). May reorder `values` in place.
+ * Cost: two or three passes over the M values plus sorting 2·(M − q) values.
  */
 export function coverageIntervals(values: Float64Array, p: number): { symmetric: [number, number]; shortest: [number, number] } {
   const q = checkArguments(values.length, p);
-  sortTails(values, values.length - q);
-  return { symmetric: symmetricFromSortedTails(values, q), shortest: shortestFromSortedTails(values, q) };
+  const tails = tailsOf(values, q);
+  return { symmetric: symmetricFromTails(tails, q), shortest: shortestFromTails(tails, q) };
 }
 
 /** Probabilistically symmetric 100p % coverage interval (JCGM 101:2008 7.7.2). Reorders `values` in place. */
@@ -141,9 +217,8 @@ export function probabilisticallySymmetricInterval(values: Float64Array, p: numb
   return [values[r - 1], values[r - 1 + q]];
 }
 
-/** Shortest 100p % coverage interval (JCGM 101:2008 7.7.3). Reorders `values` in place. */
+/** Shortest 100p % coverage interval (JCGM 101:2008 7.7.3). May reorder `values` in place. */
 export function shortestInterval(values: Float64Array, p: number): [number, number] {
   const q = checkArguments(values.length, p);
-  sortTails(values, values.length - q);
-  return shortestFromSortedTails(values, q);
+  return shortestFromTails(tailsOf(values, q), q);
 }

@@ -1,0 +1,74 @@
+/*
+ * Ascending sort of doubles by least-significant-digit radix sort on their
+ * 64-bit patterns: no comparisons, so no mispredicted branches, which make a
+ * comparison sort of random model values several times slower.
+ */
+
+const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
+/** Below this length the built-in sort is as fast and needs no buffers. */
+const SMALL = 1024;
+/** Six digits of 11, 11 and 10 bits over the low word, then the high word. */
+const PASSES: readonly (readonly [word: 0 | 1, shift: number, bits: number])[] = [
+  [0, 0, 11],
+  [0, 11, 11],
+  [0, 22, 10],
+  [1, 0, 11],
+  [1, 11, 11],
+  [1, 22, 10],
+];
+
+/**
+ * Sorts `values` ascending in place (the order of Float64Array.prototype.sort
+ * for finite values; NaN is not expected). Each double becomes an unsigned
+ * 64-bit key that orders like the number: a positive value gets its sign bit
+ * set, a negative value has all bits inverted. Passes whose digit is the same
+ * for every key (e.g. sign and exponent of values in a narrow range) are skipped.
+ * Cost: O(n) time, 16·n bytes of buffers.
+ */
+export function sortFloat64(values: Float64Array): void {
+  const n = values.length;
+  if (n < SMALL) {
+    values.sort();
+    return;
+  }
+  const words = new Uint32Array(values.buffer, values.byteOffset, 2 * n);
+  const L = LITTLE_ENDIAN ? 0 : 1;
+  const H = 1 - L;
+  let hi = new Uint32Array(n);
+  let lo = new Uint32Array(n);
+  let hiNext = new Uint32Array(n);
+  let loNext = new Uint32Array(n);
+  for (let i = 0; i < n; i++) {
+    const h = words[2 * i + H];
+    const negative = h >> 31; // −1 for a negative value, else 0
+    hi[i] = h ^ (negative | 0x80000000);
+    lo[i] = words[2 * i + L] ^ negative;
+  }
+  const counts = new Int32Array(1 << 11);
+  for (const [word, shift, bits] of PASSES) {
+    const mask = (1 << bits) - 1;
+    const keys = word === 0 ? lo : hi;
+    counts.fill(0);
+    for (let i = 0; i < n; i++) counts[(keys[i] >>> shift) & mask]++;
+    if (counts[(keys[0] >>> shift) & mask] === n) continue;
+    let sum = 0;
+    for (let d = 0; d <= mask; d++) {
+      const c = counts[d];
+      counts[d] = sum;
+      sum += c;
+    }
+    for (let i = 0; i < n; i++) {
+      const at = counts[(keys[i] >>> shift) & mask]++;
+      hiNext[at] = hi[i];
+      loNext[at] = lo[i];
+    }
+    [hi, hiNext] = [hiNext, hi];
+    [lo, loNext] = [loNext, lo];
+  }
+  for (let i = 0; i < n; i++) {
+    const h = hi[i];
+    const positive = h >> 31; // −1 when the key's top bit is set (a positive value)
+    words[2 * i + H] = h ^ (~positive | 0x80000000);
+    words[2 * i + L] = lo[i] ^ ~positive;
+  }
+}
