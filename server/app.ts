@@ -100,7 +100,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
       secret,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      rolling: false,
       cookie: { httpOnly: true, sameSite: 'strict', secure: config.cookieSecure, maxAge: config.sessionMaxAgeMs, path: '/' },
     }),
   );

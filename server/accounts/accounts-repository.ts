@@ -1,6 +1,7 @@
-import { and, asc, eq, isNull } from 'drizzle-orm';
+import { and, asc, eq, isNull, sql } from 'drizzle-orm';
 import type { Role } from '../../shared/policy/policy';
 import type { DbLike } from '../db/connection';
+import { prepared } from '../db/prepared';
 import { accountTokens, users } from '../db/schema';
 
 export type UserRow = typeof users.$inferSelect;
@@ -11,7 +12,7 @@ export function findUserByEmail(db: DbLike, email: string): UserRow | undefined 
 }
 
 export function findUserById(db: DbLike, id: number): UserRow | undefined {
-  return db.select().from(users).where(eq(users.id, id)).get();
+  return prepared(db, 'user.byId', () => db.select().from(users).where(eq(users.id, sql.placeholder('id'))).prepare()).get({ id });
 }
 
 export function listUsers(db: DbLike): UserRow[] {

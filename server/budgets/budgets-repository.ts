@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, like, sql, type SQL } from 'drizzle-orm';
 import type { BudgetStatus } from '../../shared/policy/policy';
 import type { DbLike } from '../db/connection';
+import { prepared } from '../db/prepared';
 import { budgets, budgetVersions, users } from '../db/schema';
 
 export type BudgetRow = typeof budgets.$inferSelect;
@@ -17,7 +18,9 @@ export interface BudgetFilter {
 }
 
 export function getBudget(db: DbLike, id: number): BudgetRow | undefined {
-  return db.select().from(budgets).where(eq(budgets.id, id)).get();
+  return prepared(db, 'budget.byId', () =>
+    db.select().from(budgets).where(eq(budgets.id, sql.placeholder('id'))).prepare(),
+  ).get({ id });
 }
 
 export function listBudgets(db: DbLike, f: BudgetFilter) {
@@ -74,11 +77,13 @@ export function insertVersion(db: DbLike, v: NewVersion): VersionRow {
 }
 
 export function getVersion(db: DbLike, budgetId: number, number: number): VersionRow | undefined {
-  return db
-    .select()
-    .from(budgetVersions)
-    .where(and(eq(budgetVersions.budgetId, budgetId), eq(budgetVersions.number, number)))
-    .get();
+  return prepared(db, 'version.byNumber', () =>
+    db
+      .select()
+      .from(budgetVersions)
+      .where(and(eq(budgetVersions.budgetId, sql.placeholder('budgetId')), eq(budgetVersions.number, sql.placeholder('number'))))
+      .prepare(),
+  ).get({ budgetId, number });
 }
 
 /** Version metadata without the document and result text. */

@@ -80,7 +80,7 @@ export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { im
   });
 
   t.add('get', '/api/budgets/:id', 'budget.read', (req, res) => {
-    res.json(budgets.get(parse(idParams, req.params).id));
+    res.type('application/json').send(budgets.getJson(parse(idParams, req.params).id));
   });
 
   t.add('put', '/api/budgets/:id', 'budget.edit', async (req, res) => {

@@ -157,6 +157,17 @@ export class BudgetsService {
     return this.view(b, this.requireVersion(id, b.currentVersion));
   }
 
+  /**
+   * The same view as `get`, as JSON text: the stored document and result are
+   * spliced in as they are, without parsing them (the hot read path).
+   */
+  getJson(id: number): string {
+    const b = this.requireBudget(id);
+    const v = this.requireVersion(id, b.currentVersion);
+    const head = JSON.stringify({ ...summary(b), version: meta(v) });
+    return `${head.slice(0, -1)},"document":${v.document},"result":${v.result}}`;
+  }
+
   private view(b: BudgetRow, v: VersionRow): BudgetView {
     return {
       ...summary(b),

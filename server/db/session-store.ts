@@ -1,6 +1,7 @@
-import { eq, lt } from 'drizzle-orm';
+import { eq, lt, sql } from 'drizzle-orm';
 import session from 'express-session';
 import type { Db } from './connection';
+import { prepared } from './prepared';
 import { httpSessions } from './schema';
 
 const DAY = 24 * 60 * 60 * 1000;
@@ -8,6 +9,9 @@ const DAY = 24 * 60 * 60 * 1000;
 /** express-session store over the `http_sessions` table; expired rows are swept on an unref'd timer. */
 export class DrizzleSessionStore extends session.Store {
   private timer: NodeJS.Timeout;
+  /** When each session was last written, so a busy client does not cost a disk write per request. */
+  private written = new Map<string, number>();
+  private readonly touchEveryMs = 60_000;
 
   constructor(
     private readonly db: Db,
@@ -25,7 +29,9 @@ export class DrizzleSessionStore extends session.Store {
 
   override get(sid: string, cb: (err: unknown, session?: session.SessionData | null) => void): void {
     try {
-      const row = this.db.select().from(httpSessions).where(eq(httpSessions.sid, sid)).get();
+      const row = prepared(this.db, 'session.bySid', () =>
+        this.db.select().from(httpSessions).where(eq(httpSessions.sid, sql.placeholder('sid'))).prepare(),
+      ).get({ sid });
       if (!row || row.expiresAt <= Date.now()) return cb(null, null);
       cb(null, JSON.parse(row.data) as session.SessionData);
     } catch (e) {
@@ -42,6 +48,7 @@ export class DrizzleSessionStore extends session.Store {
         .values({ sid, data, expiresAt })
         .onConflictDoUpdate({ target: httpSessions.sid, set: { data, expiresAt } })
         .run();
+      this.written.set(sid, Date.now());
       cb?.();
     } catch (e) {
       cb?.(e);
@@ -51,6 +58,7 @@ export class DrizzleSessionStore extends session.Store {
   override destroy(sid: string, cb?: (err?: unknown) => void): void {
     try {
       this.db.delete(httpSessions).where(eq(httpSessions.sid, sid)).run();
+      this.written.delete(sid);
       cb?.();
     } catch (e) {
       cb?.(e);
@@ -59,7 +67,11 @@ export class DrizzleSessionStore extends session.Store {
 
   override touch(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void): void {
     try {
-      this.db.update(httpSessions).set({ expiresAt: this.expiry(sess) }).where(eq(httpSessions.sid, sid)).run();
+      const last = this.written.get(sid);
+      if (last === undefined || Date.now() - last >= this.touchEveryMs) {
+        this.db.update(httpSessions).set({ expiresAt: this.expiry(sess) }).where(eq(httpSessions.sid, sid)).run();
+        this.written.set(sid, Date.now());
+      }
       cb?.();
     } catch (e) {
       cb?.(e);
@@ -80,6 +92,8 @@ export class DrizzleSessionStore extends session.Store {
   }
 
   sweep(): void {
+    const cutoff = Date.now() - this.touchEveryMs;
+    for (const [sid, at] of this.written) if (at < cutoff) this.written.delete(sid);
     try {
       this.db.delete(httpSessions).where(lt(httpSessions.expiresAt, Date.now())).run();
     } catch {
