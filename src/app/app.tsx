@@ -1,0 +1,134 @@
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams } from 'react-router-dom';
+import { SignInPage } from '../features/auth/components/SignInPage';
+import type { Me } from '../features/auth/api/auth';
+import { BudgetsListPage } from '../features/budgets/components/BudgetsListPage';
+import { EditorPage } from '../features/editor/components/EditorPage';
+import { MonteCarloPanel } from '../features/monte-carlo/components/MonteCarloPanel';
+import { VersionsPage } from '../features/versions/components/VersionsPage';
+import { ApiError } from './http';
+import { AppShell, NotFound, Placeholder, RequireAction, RequireSignIn } from './shell';
+import { ToastProvider } from './ui/toasts';
+import { useOutletContext } from 'react-router-dom';
+
+const queryClient = new QueryClient({
+  defaultOptions: {
+    queries: {
+      staleTime: 15_000,
+      refetchOnWindowFocus: false,
+      retry: (count, e) => !(e instanceof ApiError && e.status >= 400 && e.status < 500) && count < 2,
+    },
+  },
+});
+
+function useMeFromShell(): Me {
+  return useOutletContext<Me>();
+}
+
+function SignedIn() {
+  return (
+    <RequireSignIn>
+      {(me) => (
+        <AppShellWithContext me={me} />
+      )}
+    </RequireSignIn>
+  );
+}
+
+function AppShellWithContext({ me }: { me: Me }) {
+  return <AppShell me={me} outlet={<Outlet context={me} />} />;
+}
+
+function BudgetsRoute() {
+  const me = useMeFromShell();
+  return <BudgetsListPage role={me.role} />;
+}
+
+function EditorRoute() {
+  const me = useMeFromShell();
+  const { id, n } = useParams();
+  const budgetId = id && id !== 'new' ? Number(id) : undefined;
+  return (
+    <EditorPage
+      key={`${id}-${n ?? 'current'}`}
+      me={me}
+      budgetId={budgetId}
+      versionNumber={n ? Number(n) : undefined}
+      renderMonteCarlo={(props) => <MonteCarloPanel {...props} />}
+    />
+  );
+}
+
+function VersionsRoute() {
+  const me = useMeFromShell();
+  const { id } = useParams();
+  return <VersionsPage me={me} budgetId={Number(id)} />;
+}
+
+function Guarded({ action, children }: { action: Parameters<typeof RequireAction>[0]['action']; children: React.ReactNode }) {
+  const me = useMeFromShell();
+  return (
+    <RequireAction me={me} action={action}>
+      {children}
+    </RequireAction>
+  );
+}
+
+const router = createBrowserRouter([
+  { path: '/sign-in', element: <SignInPage /> },
+  {
+    path: '/',
+    element: <SignedIn />,
+    children: [
+      { index: true, element: <Navigate to="/budgets" replace /> },
+      { path: 'budgets', element: <BudgetsRoute /> },
+      { path: 'budgets/new', element: <Guarded action="budget.create"><EditorRoute /></Guarded> },
+      { path: 'budgets/:id', element: <EditorRoute /> },
+      { path: 'budgets/:id/versions', element: <VersionsRoute /> },
+      { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
+      {
+        path: 'templates',
+        element: (
+          <Guarded action="budget.read">
+            <Placeholder title="Templates">The template gallery comes in the next part: templates will be cloned into new drafts that record their source.</Placeholder>
+          </Guarded>
+        ),
+      },
+      {
+        path: 'audit',
+        element: (
+          <Guarded action="audit.read">
+            <Placeholder title="Audit trail">The filterable audit table with CSV export comes in the next part.</Placeholder>
+          </Guarded>
+        ),
+      },
+      {
+        path: 'admin/users',
+        element: (
+          <Guarded action="user.manage">
+            <Placeholder title="Users and roles">User management and invitations come in the next part.</Placeholder>
+          </Guarded>
+        ),
+      },
+      {
+        path: 'admin/mail',
+        element: (
+          <Guarded action="mail.read">
+            <Placeholder title="Mailbox">The mail held by the local mail server will be listed here in the next part.</Placeholder>
+          </Guarded>
+        ),
+      },
+      { path: '*', element: <NotFound /> },
+    ],
+  },
+]);
+
+export function App() {
+  return (
+    <QueryClientProvider client={queryClient}>
+      <ToastProvider>
+        <RouterProvider router={router} />
+      </ToastProvider>
+    </QueryClientProvider>
+  );
+}

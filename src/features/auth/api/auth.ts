@@ -1,0 +1,52 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api, ApiError } from '../../../app/http';
+import type { Role } from '../../../../shared/policy/policy';
+
+export interface Me {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+}
+
+/** The signed-in user, or null when signed out (401). */
+export const meQuery = () =>
+  queryOptions({
+    queryKey: ['me'],
+    queryFn: async (): Promise<Me | null> => {
+      try {
+        return await api<Me>('/api/me');
+      } catch (e) {
+        if (e instanceof ApiError && e.status === 401) return null;
+        throw e;
+      }
+    },
+    staleTime: 60_000,
+    retry: false,
+  });
+
+export function useMe() {
+  return useQuery(meQuery());
+}
+
+export function useSignIn() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: { email: string; password: string }) => api<{ user: Me }>('/api/auth/login', { method: 'POST', json: body }),
+    onSuccess: (r) => {
+      qc.clear();
+      qc.setQueryData(meQuery().queryKey, r.user);
+    },
+  });
+}
+
+export function useSignOut() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api<void>('/api/auth/logout', { method: 'POST' }),
+    onSettled: () => {
+      qc.clear();
+      qc.setQueryData(meQuery().queryKey, null);
+    },
+  });
+}

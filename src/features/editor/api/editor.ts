@@ -1,0 +1,126 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../app/http';
+import type { BudgetResult } from '../../../../shared/budget/result';
+import type { BudgetDocument } from '../../../../shared/budget/schema';
+import type { BudgetStatus } from '../../../../shared/policy/policy';
+
+export interface VersionMeta {
+  number: number;
+  authorId: number;
+  createdAt: number;
+  note: string;
+  seed: string;
+  engineVersion: string;
+  documentSha256: string;
+  approvedBy: number | null;
+  approvedAt: number | null;
+}
+
+export interface BudgetView {
+  id: number;
+  title: string;
+  status: BudgetStatus;
+  returned: boolean;
+  isTemplate: boolean;
+  ownerId: number;
+  currentVersion: number;
+  approvedVersion: number | null;
+  source: { budgetId: number; version: number | null } | null;
+  createdAt: number;
+  updatedAt: number;
+  version: VersionMeta;
+  document: BudgetDocument;
+  result: BudgetResult;
+}
+
+export interface VersionView extends VersionMeta {
+  budgetId: number;
+  document: BudgetDocument;
+  result: BudgetResult;
+}
+
+export interface VersionListItem extends VersionMeta {
+  authorName: string;
+}
+
+export const budgetQuery = (id: number) =>
+  queryOptions({
+    queryKey: ['budgets', id],
+    queryFn: () => api<BudgetView>(`/api/budgets/${id}`),
+  });
+
+export const budgetVersionQuery = (id: number, n: number) =>
+  queryOptions({
+    queryKey: ['budgets', id, 'versions', n],
+    queryFn: () => api<VersionView>(`/api/budgets/${id}/versions/${n}`),
+    staleTime: Infinity,
+  });
+
+export const editorVersionsQuery = (id: number) =>
+  queryOptions({
+    queryKey: ['budgets', id, 'versions'],
+    queryFn: () => api<VersionListItem[]>(`/api/budgets/${id}/versions`),
+  });
+
+export function useBudget(id: number | undefined) {
+  return useQuery({ ...budgetQuery(id ?? 0), enabled: id !== undefined });
+}
+
+export function useBudgetVersion(id: number | undefined, n: number | undefined) {
+  return useQuery({ ...budgetVersionQuery(id ?? 0, n ?? 0), enabled: id !== undefined && n !== undefined });
+}
+
+export type SaveInput =
+  | { kind: 'create'; document: BudgetDocument; note: string }
+  | { kind: 'update'; id: number; baseVersion: number; document: BudgetDocument; note: string };
+
+export interface SaveOutput {
+  id: number;
+  version: number;
+  result: BudgetResult;
+}
+
+export function useSaveBudget() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: SaveInput): Promise<SaveOutput> => {
+      if (input.kind === 'create') {
+        const r = await api<{ id: number; version: number; result: BudgetResult }>('/api/budgets', {
+          method: 'POST',
+          json: { document: input.document, note: input.note },
+        });
+        return r;
+      }
+      const r = await api<{ version: number; result: BudgetResult }>(`/api/budgets/${input.id}`, {
+        method: 'PUT',
+        json: { baseVersion: input.baseVersion, document: input.document, note: input.note },
+      });
+      return { id: input.id, ...r };
+    },
+    onSuccess: (r) => {
+      qc.invalidateQueries({ queryKey: ['budgets', 'list'] });
+      qc.invalidateQueries({ queryKey: ['budgets', r.id] });
+    },
+  });
+}
+
+export interface ObservationsUpload {
+  values: number[];
+  column: { index: number; name: string | null };
+  columns: (string | null)[];
+  header: boolean;
+  rows: number;
+  errors: { row: number; message: string }[];
+}
+
+/** Sends a CSV file to the server, which reads one column of numbers (and reports the rows it could not read). */
+export function useUploadObservations() {
+  return useMutation({
+    mutationFn: ({ file, column }: { file: File; column?: string }) => {
+      const form = new FormData();
+      if (column) form.set('column', column);
+      form.set('file', file);
+      return api<ObservationsUpload>('/api/uploads/observations', { method: 'POST', body: form });
+    },
+  });
+}

@@ -1,0 +1,101 @@
+import type { Correlation, InputQuantity } from '../../../../shared/budget/schema';
+import { Button, Field, NumberInput, Select } from '../../../app/ui/controls';
+import { plainMessage, problemsUnder, type Problem } from '../live';
+
+export function CorrelationsEditor({
+  correlations,
+  inputs,
+  onChange,
+  problems,
+  readOnly,
+}: {
+  correlations: Correlation[];
+  inputs: InputQuantity[];
+  onChange(next: Correlation[]): void;
+  problems: Problem[];
+  readOnly?: boolean;
+}) {
+  const symbols = inputs.map((q) => q.symbol).filter(Boolean);
+  const matrixProblem = problems.find((p) => p.field === 'correlations');
+  const set = (i: number, c: Correlation) => onChange(correlations.map((x, j) => (j === i ? c : x)));
+  return (
+    <div className="flex flex-col gap-2">
+      {correlations.length === 0 ? (
+        <p className="text-sm text-stone-600">All inputs are taken as uncorrelated. Add a pair where two inputs share a cause (same reference, same thermometer).</p>
+      ) : (
+        <ul className="flex flex-col gap-2">
+          {correlations.map((c, i) => {
+            const mine = problemsUnder(problems, `correlations[${i}]`);
+            const betweenError = mine.find((p) => p.field.endsWith('.between'));
+            const rError = mine.find((p) => p.field.endsWith('.r'));
+            const other = mine.filter((p) => p !== betweenError && p !== rError);
+            return (
+              <li key={i} className={`grid grid-cols-[1fr_1fr_8rem_auto] items-start gap-2 rounded-md border p-2 ${mine.length ? 'border-caution-500' : 'border-stone-200'}`}>
+                {[0, 1].map((side) => (
+                  <Field key={side} label={side === 0 ? 'Input' : 'with'} error={side === 0 && betweenError ? plainMessage(betweenError) : null}>
+                    {(p) => (
+                      <Select
+                        {...p}
+                        disabled={readOnly}
+                        className="num"
+                        value={c.between[side]}
+                        onChange={(e) => {
+                          const between: [string, string] = [...c.between];
+                          between[side] = e.target.value;
+                          set(i, { ...c, between });
+                        }}
+                      >
+                        {!symbols.includes(c.between[side]) ? <option value={c.between[side]}>{c.between[side] || '—'}</option> : null}
+                        {symbols.map((s) => (
+                          <option key={s} value={s}>
+                            {s}
+                          </option>
+                        ))}
+                      </Select>
+                    )}
+                  </Field>
+                ))}
+                <Field label="r" error={rError ? plainMessage(rError) : null}>
+                  {(p) => <NumberInput {...p} readOnly={readOnly} value={c.r} onValue={(v) => set(i, { ...c, r: v as number })} />}
+                </Field>
+                {!readOnly ? (
+                  <Button size="sm" variant="ghost" className="mt-5" onClick={() => onChange(correlations.filter((_, j) => j !== i))} aria-label={`Remove correlation ${c.between.join(' and ')}`}>
+                    Remove
+                  </Button>
+                ) : (
+                  <span />
+                )}
+                {other.map((p, k) => (
+                  <p key={k} role="alert" className="col-span-4 text-xs font-medium text-caution-700">
+                    {plainMessage(p)}
+                  </p>
+                ))}
+              </li>
+            );
+          })}
+        </ul>
+      )}
+      {matrixProblem ? (
+        <p role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+          <span className="font-semibold">Correlations: </span>
+          {plainMessage(matrixProblem)}. Lower one of these coefficients, or check that they describe the same shared effect.
+        </p>
+      ) : null}
+      {!readOnly ? (
+        <div>
+          <Button
+            disabled={symbols.length < 2}
+            onClick={() => {
+              const normals = inputs.filter((q) => q.distribution.kind === 'normal').map((q) => q.symbol);
+              const pool = normals.length >= 2 ? normals : symbols;
+              onChange([...correlations, { between: [pool[0], pool[1]], r: 0.5 }]);
+            }}
+          >
+            + Add correlated pair
+          </Button>
+          <span className="ml-2 text-xs text-stone-600">Only inputs with a normal distribution can be correlated.</span>
+        </div>
+      ) : null}
+    </div>
+  );
+}

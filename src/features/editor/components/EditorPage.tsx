@@ -1,0 +1,500 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { Link, useBlocker, useNavigate } from 'react-router-dom';
+import type { BudgetResult, GumResult } from '../../../../shared/budget/result';
+import type { BudgetDocument, InputQuantity } from '../../../../shared/budget/schema';
+import { addPhysicalConstant } from '../../../../shared/constants/add-constant';
+import { canEditBudget, can, isEditableStatus } from '../../../../shared/policy/policy';
+import { ApiError, errorMessage } from '../../../app/http';
+import { Button, ErrorNote, Field, NumberInput, Spinner, TextInput } from '../../../app/ui/controls';
+import { formatDateTime } from '../../../app/ui/numbers';
+import { StatusBadge } from '../../../app/ui/status-badge';
+import { useToast } from '../../../app/ui/toasts';
+import { formatUnit } from '../../../app/ui/units';
+import { budgetQuery, useBudget, useBudgetVersion, useSaveBudget, type BudgetView } from '../api/editor';
+import { clearDraft, loadDraft, storeDraft, type StoredDraft } from '../draft-storage';
+import { explainInput, explainResult, type Selection } from '../explain';
+import { problemAt, useLiveResult } from '../live';
+import { BudgetTable, SharesChart } from './BudgetTable';
+import { ConstantsSection } from './ConstantsSection';
+import { CorrelationsEditor } from './CorrelationsEditor';
+import { ExplainPanel } from './ExplainPanel';
+import { InputsList, type KeyedInput } from './InputsList';
+import { ModelEditor } from './ModelEditor';
+import { ResultCard } from './ResultCard';
+import { ConflictDialog, LeaveDialog, SaveDialog } from './SaveDialogs';
+
+interface Me {
+  id: number;
+  role: Parameters<typeof can>[0] & string;
+  name: string;
+}
+
+/** What the editor hands to the Monte Carlo panel (composed by the app). */
+export interface MonteCarloSlotProps {
+  document: BudgetDocument | null;
+  gum: GumResult | null;
+  measurand: { symbol: string; unit?: string };
+  stored: { result: BudgetResult; label: string } | null;
+  settings: BudgetDocument['monteCarlo'];
+  onSettings(next: BudgetDocument['monteCarlo']): void;
+  readOnly: boolean;
+}
+
+let keySeq = 0;
+const newKey = () => `q${++keySeq}`;
+
+function newDocument(): BudgetDocument {
+  return {
+    format: 'dubito-budget/1',
+    title: 'New budget',
+    measurand: { symbol: 'y', unit: undefined, description: '' },
+    model: 'y = x1 + x2',
+    inputs: [
+      { symbol: 'x1', description: 'first input quantity', distribution: { kind: 'normal', value: 1, u: 0.01 } },
+      { symbol: 'x2', description: 'second input quantity', distribution: { kind: 'rectangular', value: 0, halfWidth: 0.01 } },
+    ],
+    coverageProbability: 0.95,
+    monteCarlo: { trials: 200000, seed: `dubito-${Math.random().toString(36).slice(2, 8)}` },
+  };
+}
+
+function Section({ id, title, children, actions, description }: { id: string; title: string; children: ReactNode; actions?: ReactNode; description?: ReactNode }) {
+  return (
+    <section aria-labelledby={`${id}-h`} className="rounded-lg border border-stone-200 bg-stone-50/60 p-4">
+      <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
+        <div>
+          <h2 id={`${id}-h`} className="text-base font-semibold text-stone-900">
+            {title}
+          </h2>
+          {description ? <p className="text-xs text-stone-600">{description}</p> : null}
+        </div>
+        {actions}
+      </div>
+      {children}
+    </section>
+  );
+}
+
+export function EditorPage({
+  me,
+  budgetId,
+  versionNumber,
+  renderMonteCarlo,
+}: {
+  me: Me;
+  budgetId?: number;
+  versionNumber?: number;
+  renderMonteCarlo(props: MonteCarloSlotProps): ReactNode;
+}) {
+  const budget = useBudget(budgetId);
+  const version = useBudgetVersion(budgetId, versionNumber);
+  const loaded: BudgetView | undefined = budget.data;
+
+  if (budgetId !== undefined && (budget.isPending || (versionNumber !== undefined && version.isPending))) {
+    return (
+      <div className="p-8">
+        <Spinner label="Loading the budget" />
+      </div>
+    );
+  }
+  if (budget.isError || version.isError) {
+    const e = budget.error ?? version.error;
+    return (
+      <div className="mx-auto max-w-xl p-8">
+        <ErrorNote title={e instanceof ApiError && e.status === 404 ? 'No such budget or version' : 'The budget could not be loaded'}>{errorMessage(e)}</ErrorNote>
+        <Link to="/budgets" className="mt-3 inline-block text-sm text-accent-700 underline">
+          Back to the budgets
+        </Link>
+      </div>
+    );
+  }
+  const viewingOld = versionNumber !== undefined && loaded && versionNumber !== loaded.currentVersion;
+  const start = viewingOld && version.data ? { document: version.data.document, result: version.data.result, version: version.data.number } : loaded ? { document: loaded.document, result: loaded.result, version: loaded.currentVersion } : null;
+  return <Editor me={me} budgetId={budgetId} view={loaded ?? null} start={start} viewingOld={!!viewingOld} renderMonteCarlo={renderMonteCarlo} />;
+}
+
+function Editor({
+  me,
+  budgetId,
+  view,
+  start,
+  viewingOld,
+  renderMonteCarlo,
+}: {
+  me: Me;
+  budgetId?: number;
+  view: BudgetView | null;
+  start: { document: BudgetDocument; result: BudgetResult; version: number } | null;
+  viewingOld: boolean;
+  renderMonteCarlo(props: MonteCarloSlotProps): ReactNode;
+}) {
+  const initialDoc = useMemo(() => start?.document ?? newDocument(), [start?.document]);
+  const [doc, setDocState] = useState<BudgetDocument>(initialDoc);
+  const [keys, setKeys] = useState<string[]>(() => initialDoc.inputs.map(newKey));
+  const [baseline, setBaseline] = useState(() => (start ? JSON.stringify(start.document) : ''));
+  const [baseVersion, setBaseVersion] = useState(start?.version ?? 0);
+  const [openKeys, setOpenKeys] = useState<Set<string>>(() => new Set(budgetId === undefined ? keys.slice(0, 1) : []));
+  const [selection, setSelection] = useState<Selection | null>(null);
+  const [saveOpen, setSaveOpen] = useState(false);
+  const [saveError, setSaveError] = useState<string | null>(null);
+  const [conflict, setConflict] = useState<{ currentVersion: number } | null>(null);
+  const [unlocked, setUnlocked] = useState(false);
+  const [offered, setOffered] = useState<StoredDraft | null>(() => {
+    if (viewingOld) return null;
+    const d = loadDraft(budgetId);
+    if (!d) return null;
+    return JSON.stringify(d.document) !== JSON.stringify(initialDoc) ? d : null;
+  });
+  const lastNote = useRef('');
+  const allowLeave = useRef(false);
+  const navigate = useNavigate();
+  const toast = useToast();
+  const qc = useQueryClient();
+  const save = useSaveBudget();
+
+  const live = useLiveResult(doc);
+  const dirty = baseline === '' ? true : JSON.stringify(doc) !== baseline;
+  const isNew = budgetId === undefined;
+
+  const facts = view ? { ownerId: view.ownerId, status: view.status, isTemplate: view.isTemplate } : null;
+  const mayEdit = isNew ? can(me.role, 'budget.create') : !!facts && canEditBudget(me, facts);
+  const statusAllows = !facts || isEditableStatus(facts.status);
+  const approvedLock = facts?.status === 'approved' && !unlocked;
+  const readOnly = viewingOld || !mayEdit || !statusAllows || approvedLock;
+
+  const setDoc = useCallback((fn: (d: BudgetDocument) => BudgetDocument) => setDocState((d) => fn(d)), []);
+  const items: KeyedInput[] = doc.inputs.map((input, i) => ({ key: keys[i] ?? `missing${i}`, input }));
+  const setItems = (next: KeyedInput[]) => {
+    setKeys(next.map((i) => i.key));
+    setDoc((d) => ({ ...d, inputs: next.map((i) => i.input) }));
+  };
+
+  // keep the draft in this browser until it is saved
+  useEffect(() => {
+    if (readOnly || !dirty || offered) return;
+    const t = setTimeout(() => storeDraft(budgetId, { document: doc, baseVersion, savedAt: Date.now() }), 300);
+    return () => clearTimeout(t);
+  }, [doc, dirty, readOnly, budgetId, baseVersion, offered]);
+
+  useEffect(() => {
+    if (!dirty || readOnly) return;
+    const h = (e: BeforeUnloadEvent) => {
+      e.preventDefault();
+    };
+    window.addEventListener('beforeunload', h);
+    return () => window.removeEventListener('beforeunload', h);
+  }, [dirty, readOnly]);
+
+  const blocker = useBlocker(({ currentLocation, nextLocation }) => !readOnly && dirty && !allowLeave.current && currentLocation.pathname !== nextLocation.pathname);
+
+  const doSave = (note: string, base: number) => {
+    lastNote.current = note;
+    setSaveError(null);
+    const document = JSON.parse(JSON.stringify(doc)) as BudgetDocument;
+    save.mutate(isNew ? { kind: 'create', document, note } : { kind: 'update', id: budgetId!, baseVersion: base, document, note }, {
+      onSuccess: (r) => {
+        clearDraft(budgetId);
+        setBaseline(JSON.stringify(document));
+        setBaseVersion(r.version);
+        setSaveOpen(false);
+        setConflict(null);
+        setUnlocked(false);
+        toast(`Saved as version ${r.version}.`);
+        if (isNew) {
+          allowLeave.current = true;
+          navigate(`/budgets/${r.id}`, { replace: true });
+        }
+      },
+      onError: (e) => {
+        if (e instanceof ApiError && e.status === 409 && e.code === 'stale_version') {
+          const current = Number((e.body?.error as { currentVersion?: number } | undefined)?.currentVersion ?? (e.body as { currentVersion?: number } | undefined)?.currentVersion);
+          setSaveOpen(false);
+          setConflict({ currentVersion: Number.isFinite(current) ? current : base + 1 });
+          return;
+        }
+        setSaveError(e instanceof ApiError && e.status === 422 ? `The server refused the budget: ${e.message}` : errorMessage(e));
+        if (!saveOpen) toast(`Not saved: ${errorMessage(e)}`, 'error');
+      },
+    });
+  };
+
+  useEffect(() => {
+    const h = (e: KeyboardEvent) => {
+      if ((e.ctrlKey || e.metaKey) && e.key.toLowerCase() === 's') {
+        e.preventDefault();
+        if (!readOnly && live.result) setSaveOpen(true);
+      }
+    };
+    window.addEventListener('keydown', h);
+    return () => window.removeEventListener('keydown', h);
+  }, [readOnly, live.result]);
+
+  const reloadCurrent = async () => {
+    if (!budgetId) return;
+    const fresh = await qc.fetchQuery({ ...budgetQuery(budgetId), staleTime: 0 });
+    clearDraft(budgetId);
+    setDocState(fresh.document);
+    setKeys(fresh.document.inputs.map(newKey));
+    setBaseline(JSON.stringify(fresh.document));
+    setBaseVersion(fresh.currentVersion);
+    setConflict(null);
+    toast(`Loaded version ${fresh.currentVersion}.`, 'info');
+  };
+
+  const explanation = useMemo(() => {
+    if (!selection || !live.result) return null;
+    if (selection.type === 'result') return explainResult(live.result, selection.item, doc.model, (doc.correlations ?? []).some((c) => c.r !== 0));
+    const q = doc.inputs.find((x) => x.symbol === selection.symbol);
+    return q ? explainInput(live.result, q, live.result.measurand.unit) : null;
+  }, [selection, live.result, doc]);
+
+  const modelProblem = live.problems.find((p) => p.field === 'model') ?? null;
+  const generalProblems = live.problems.filter((p) => !p.field || p.field === 'monteCarlo' || p.field.startsWith('coverageProbability') || p.field === 'inputs' || p.field === 'title');
+  const selectedSymbol = selection?.type === 'input' ? selection.symbol : undefined;
+
+  const addInput = () => {
+    const used = new Set(doc.inputs.map((q) => q.symbol));
+    let n = doc.inputs.length + 1;
+    while (used.has(`x${n}`)) n++;
+    const key = newKey();
+    const q: InputQuantity = { symbol: `x${n}`, distribution: { kind: 'normal', value: 0, u: 1 } };
+    setKeys((k) => [...k, key]);
+    setDoc((d) => ({ ...d, inputs: [...d.inputs, q] }));
+    setOpenKeys((s) => new Set(s).add(key));
+  };
+
+  const status = view ? <StatusBadge status={view.status} returned={view.returned} /> : <StatusBadge status="draft" />;
+
+  return (
+    <div className="mx-auto grid max-w-[1600px] grid-cols-1 gap-5 px-4 py-4 lg:grid-cols-[minmax(0,1fr)_360px] lg:px-6">
+      <div className="flex min-w-0 flex-col gap-4">
+        <header className="flex flex-col gap-2">
+          <nav aria-label="Breadcrumb" className="text-xs text-stone-600">
+            <Link to="/budgets" className="hover:text-accent-700 hover:underline">
+              Budgets
+            </Link>{' '}
+            / {isNew ? 'new budget' : `budget ${budgetId}`}
+          </nav>
+          <div className="flex flex-wrap items-center gap-3">
+            <label htmlFor="budget-title" className="sr-only">
+              Title
+            </label>
+            <input
+              id="budget-title"
+              value={doc.title}
+              readOnly={readOnly}
+              onChange={(e) => setDoc((d) => ({ ...d, title: e.target.value }))}
+              aria-invalid={!!problemAt(live.problems, 'title')}
+              className="min-w-0 flex-1 rounded-md border border-transparent bg-transparent px-1 py-0.5 text-xl font-semibold tracking-tight text-stone-900 hover:border-stone-300 focus:border-stone-300 aria-[invalid=true]:border-caution-500"
+            />
+            {status}
+            {!isNew ? (
+              <Link to={`/budgets/${budgetId}/versions`} className="num text-sm text-stone-700 hover:text-accent-700 hover:underline">
+                {viewingOld ? `v${baseVersion} of ${view?.currentVersion}` : `v${baseVersion}`}
+              </Link>
+            ) : null}
+            {dirty && !readOnly ? <span className="rounded bg-caution-50 px-2 py-0.5 text-xs font-medium text-caution-700">● unsaved changes</span> : null}
+          </div>
+          {problemAt(live.problems, 'title') ? <p className="text-xs text-caution-700">Title: {problemAt(live.problems, 'title')}</p> : null}
+          <div className="flex flex-wrap gap-2">
+            {!readOnly ? (
+              <Button variant="primary" onClick={() => setSaveOpen(true)} disabled={!live.result || !dirty || save.isPending} title={!live.result ? 'Fix the problems shown first' : !dirty ? 'Nothing to save' : 'Save a new version (Ctrl+S)'}>
+                {save.isPending ? 'Saving…' : 'Save version…'}
+              </Button>
+            ) : null}
+            {approvedLock && mayEdit && !viewingOld ? (
+              <Button variant="primary" onClick={() => setUnlocked(true)}>
+                Edit as a new draft
+              </Button>
+            ) : null}
+            {!isNew ? (
+              <>
+                <Button onClick={() => navigate(`/budgets/${budgetId}/versions`)}>Versions</Button>
+                <a href={`/api/budgets/${budgetId}/export?version=${baseVersion}`} download className="inline-flex items-center rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm font-medium text-stone-800 hover:bg-stone-100">
+                  Export file
+                </a>
+              </>
+            ) : null}
+          </div>
+        </header>
+
+        {offered ? (
+          <div role="status" className="flex flex-wrap items-center gap-3 rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+            <span className="flex-1">
+              An unsaved draft from {formatDateTime(offered.savedAt)} is kept in this browser
+              {offered.baseVersion && view && offered.baseVersion < view.currentVersion ? ` (started from version ${offered.baseVersion}; the budget is now at version ${view.currentVersion})` : ''}.
+            </span>
+            <Button
+              size="sm"
+              variant="primary"
+              onClick={() => {
+                setDocState(offered.document);
+                setKeys(offered.document.inputs.map(newKey));
+                if (offered.baseVersion) setBaseVersion(offered.baseVersion);
+                if (view?.status === 'approved') setUnlocked(true);
+                setOffered(null);
+              }}
+            >
+              Restore the draft
+            </Button>
+            <Button
+              size="sm"
+              onClick={() => {
+                clearDraft(budgetId);
+                setOffered(null);
+              }}
+            >
+              Discard it
+            </Button>
+          </div>
+        ) : null}
+        {viewingOld ? (
+          <p className="rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm text-stone-800">
+            You are looking at version {baseVersion}, read-only. <Link to={`/budgets/${budgetId}`} className="font-medium text-accent-700 underline">Open the current version</Link>.
+          </p>
+        ) : facts && facts.status === 'in_review' ? (
+          <p className="rounded-md border border-accent-600 bg-accent-50 px-3 py-2 text-sm text-accent-700">This budget is in review: it is read-only until it is approved or returned.</p>
+        ) : approvedLock ? (
+          <p className="rounded-md border border-accent-700 bg-accent-50 px-3 py-2 text-sm text-accent-700">
+            ✓ Version {view?.approvedVersion ?? baseVersion} is approved and cannot change.{mayEdit ? ' Editing starts a new draft version; the approved one stays on record.' : ''}
+          </p>
+        ) : !mayEdit && !isNew ? (
+          <p className="rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm text-stone-800">Read-only: only the owner{me.role === 'trainee' ? ' (and only while it is a draft)' : ''} can change this budget.</p>
+        ) : null}
+
+        <Section id="measurand" title="Measurand" description="The quantity the budget determines.">
+          <div className="grid gap-3 md:grid-cols-[8rem_8rem_1fr_9rem]">
+            <Field label="Symbol" error={problemAt(live.problems, 'measurand.symbol')}>
+              {(p) => <TextInput {...p} readOnly={readOnly} className="num" value={doc.measurand.symbol} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, symbol: e.target.value } }))} />}
+            </Field>
+            <Field label="Unit" error={problemAt(live.problems, 'measurand.unit')} hint={doc.measurand.unit ? `shown as ${formatUnit(doc.measurand.unit) || 'dimensionless'}` : 'e.g. mm'}>
+              {(p) => (
+                <TextInput {...p} readOnly={readOnly} className="num" value={doc.measurand.unit ?? ''} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, unit: e.target.value || undefined } }))} />
+              )}
+            </Field>
+            <Field label="Description" error={problemAt(live.problems, 'measurand.description')}>
+              {(p) => (
+                <TextInput {...p} readOnly={readOnly} value={doc.measurand.description ?? ''} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, description: e.target.value || undefined } }))} />
+              )}
+            </Field>
+            <Field label="Coverage probability p" error={problemAt(live.problems, 'coverageProbability')}>
+              {(p) => <NumberInput {...p} readOnly={readOnly} value={doc.coverageProbability ?? 0.95} onValue={(v) => setDoc((d) => ({ ...d, coverageProbability: v }))} />}
+            </Field>
+          </div>
+        </Section>
+
+        <Section id="model" title="Model">
+          <ModelEditor value={doc.model} readOnly={readOnly} problem={modelProblem} onChange={(model) => setDoc((d) => ({ ...d, model }))} />
+        </Section>
+
+        <Section id="inputs" title={`Input quantities (${doc.inputs.length})`} description="Drag the handle, or focus it and press space and the arrow keys, to change the order.">
+          <InputsList
+            items={items}
+            onItems={setItems}
+            problems={live.problems}
+            openKeys={openKeys}
+            onToggle={(k) =>
+              setOpenKeys((s) => {
+                const n = new Set(s);
+                if (n.has(k)) n.delete(k);
+                else n.add(k);
+                return n;
+              })
+            }
+            readOnly={readOnly}
+            canUpload={can(me.role, 'observations.upload')}
+            selectedSymbol={selectedSymbol}
+            onAdd={addInput}
+          />
+        </Section>
+
+        <div className="grid gap-4 xl:grid-cols-2">
+          <Section id="constants" title="Constants">
+            <ConstantsSection
+              constants={doc.constants ?? []}
+              problems={live.problems}
+              readOnly={readOnly}
+              onChange={(constants) => setDoc((d) => ({ ...d, constants: constants.length ? constants : undefined }))}
+              onPick={(c, asInput) => {
+                const next = addPhysicalConstant(doc, c, asInput);
+                if (next.inputs.length > doc.inputs.length) setKeys((k) => [...k, newKey()]);
+                setDocState(next);
+                toast(`Added ${c.symbol} (${c.name}) ${asInput ? 'as an input with its standard uncertainty' : 'as a constant'}. Use it in the model.`, 'info');
+              }}
+            />
+          </Section>
+          <Section id="correlations" title="Correlations">
+            <CorrelationsEditor
+              correlations={doc.correlations ?? []}
+              inputs={doc.inputs}
+              problems={live.problems}
+              readOnly={readOnly}
+              onChange={(correlations) => setDoc((d) => ({ ...d, correlations: correlations.length ? correlations : undefined }))}
+            />
+          </Section>
+        </div>
+
+        {generalProblems.length ? (
+          <ErrorNote title="The budget cannot be computed yet">
+            <ul className="ml-4 list-disc">
+              {generalProblems.map((p, i) => (
+                <li key={i}>{p.message}</li>
+              ))}
+            </ul>
+          </ErrorNote>
+        ) : null}
+
+        <Section id="budget" title="Uncertainty budget" description="Recomputed on every edit. Select a row to see how its numbers were obtained.">
+          {live.result ? (
+            <div className="grid gap-3 2xl:grid-cols-[minmax(0,1fr)_300px]">
+              <BudgetTable result={live.result} inputs={doc.inputs} selected={selectedSymbol} onSelect={(symbol) => setSelection({ type: 'input', symbol })} />
+              <SharesChart result={live.result} selected={selectedSymbol} onSelect={(symbol) => setSelection({ type: 'input', symbol })} />
+            </div>
+          ) : (
+            <p className="text-sm text-stone-600">The table appears as soon as the budget has no problems. Each problem is shown beside its field.</p>
+          )}
+        </Section>
+
+        {renderMonteCarlo({
+          document: live.valid,
+          gum: live.result?.gum ?? null,
+          measurand: { symbol: doc.measurand.symbol, unit: live.result?.measurand.unit ?? doc.measurand.unit },
+          stored: start && !dirty ? { result: start.result, label: `stored with version ${start.version}` } : null,
+          settings: doc.monteCarlo,
+          onSettings: (monteCarlo) => setDoc((d) => ({ ...d, monteCarlo })),
+          readOnly,
+        })}
+      </div>
+
+      <aside className="flex flex-col gap-3 lg:sticky lg:top-16 lg:max-h-[calc(100vh-5rem)] lg:self-start lg:overflow-y-auto" aria-label="Result and explanations">
+        <ResultCard
+          result={live.result}
+          stale={live.stale}
+          move={live.move}
+          problemsCount={live.problems.length}
+          selected={selection?.type === 'result' ? selection.item : undefined}
+          onSelect={(item) => setSelection({ type: 'result', item })}
+        />
+        <ExplainPanel explanation={explanation} onClose={() => setSelection(null)} />
+      </aside>
+
+      <SaveDialog open={saveOpen} onClose={() => setSaveOpen(false)} onSave={(note) => doSave(note, baseVersion)} saving={save.isPending} isNew={isNew} error={saveError} />
+      {conflict && budgetId ? (
+        <ConflictDialog
+          budgetId={budgetId}
+          baseVersion={baseVersion}
+          currentVersion={conflict.currentVersion}
+          saving={save.isPending}
+          onClose={() => setConflict(null)}
+          onReload={reloadCurrent}
+          onSaveOnTop={() => {
+            setBaseVersion(conflict.currentVersion);
+            doSave(lastNote.current || 'saved on top of a newer version', conflict.currentVersion);
+          }}
+        />
+      ) : null}
+      <LeaveDialog open={blocker.state === 'blocked'} onStay={() => blocker.reset?.()} onLeave={() => blocker.proceed?.()} />
+    </div>
+  );
+}

@@ -1,0 +1,327 @@
+import { useState } from 'react';
+import { DISTRIBUTION_KINDS, type Distribution, type DistributionKind, type InputQuantity } from '../../../../shared/budget/schema';
+import { coverageFactorFor } from '../../../../shared/statistics/student-t';
+import { Field, NumberInput, Select, TextInput } from '../../../app/ui/controls';
+import { formatSignificant } from '../../../app/ui/numbers';
+import { formatUnit } from '../../../app/ui/units';
+import { problemAt, type Problem } from '../live';
+import { convertKind, KIND_LABELS } from './kinds';
+import { ObservationsHelper } from './ObservationsHelper';
+
+type NormalMode = 'u' | 'Uk' | 'Up';
+type RectMode = 'tolerance' | 'limits' | 'resolution';
+
+/* eslint-disable @typescript-eslint/no-explicit-any */
+type AnyDist = Distribution & Record<string, any>;
+
+export function InputForm({
+  input,
+  index,
+  problems,
+  onChange,
+  readOnly,
+  canUpload,
+}: {
+  input: InputQuantity;
+  index: number;
+  problems: Problem[];
+  onChange(next: InputQuantity): void;
+  readOnly?: boolean;
+  canUpload: boolean;
+}) {
+  const base = `inputs[${index}]`;
+  const err = (f: string) => problemAt(problems, `${base}.${f}`);
+  const d = input.distribution as AnyDist;
+  const setDist = (patch: Record<string, unknown>) => {
+    const next: Record<string, unknown> = { ...d, ...patch };
+    for (const k of Object.keys(next)) if (next[k] === undefined) delete next[k];
+    onChange({ ...input, distribution: next as Distribution });
+  };
+  const unit = formatUnit(input.unit);
+  const unitSuffix = unit ? ` (${unit})` : '';
+
+  const [normalMode, setNormalMode] = useState<NormalMode>(d.kind === 'normal' && d.u === undefined ? (d.dof !== undefined ? 'Up' : 'Uk') : 'u');
+  const [p, setP] = useState<number | undefined>(0.95);
+  const [rectMode, setRectMode] = useState<RectMode>(d.kind === 'rectangular' && d.lower !== undefined ? 'limits' : 'tolerance');
+  const [dofMode, setDofMode] = useState<'inf' | 'direct' | 'reliability'>(d.relativeUncertaintyOfU !== undefined ? 'reliability' : d.dof !== undefined ? 'direct' : 'inf');
+
+  const num = (label: string, field: string, hint?: string, value?: number, onValue?: (v: number | undefined) => void) => (
+    <Field label={label} error={err(`distribution.${field}`)} hint={hint}>
+      {(fp) => (
+        <NumberInput
+          {...fp}
+          readOnly={readOnly}
+          value={value !== undefined ? value : (d[field] as number | undefined)}
+          onValue={onValue ?? ((v) => setDist({ [field]: v }))}
+        />
+      )}
+    </Field>
+  );
+
+  const kFromP = (nu: number | undefined, prob: number | undefined) => {
+    if (!(prob !== undefined && prob > 0 && prob < 1)) return undefined;
+    const dof = nu !== undefined && nu > 0 ? nu : Infinity;
+    return Number(coverageFactorFor(prob, dof).toFixed(4));
+  };
+
+  const kindFields = () => {
+    switch (d.kind) {
+      case 'normal':
+        return (
+          <>
+            <Field label="Given as" className="md:col-span-3">
+              {(fp) => (
+                <Select
+                  {...fp}
+                  disabled={readOnly}
+                  value={normalMode}
+                  onChange={(e) => {
+                    const mode = e.target.value as NormalMode;
+                    setNormalMode(mode);
+                    if (mode === 'u') setDist({ u: d.u ?? (d.U && d.k ? Number((d.U / d.k).toPrecision(6)) : undefined), U: undefined, k: undefined });
+                    else if (mode === 'Uk') setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: d.k ?? 2, u: undefined });
+                    else {
+                      const nu = d.dof ?? 10;
+                      setDofMode('direct');
+                      setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: kFromP(nu, p), dof: nu, u: undefined, relativeUncertaintyOfU: undefined });
+                    }
+                  }}
+                >
+                  <option value="u">a standard uncertainty u</option>
+                  <option value="Uk">a certificate: expanded uncertainty U with coverage factor k</option>
+                  <option value="Up">a certificate: U at coverage probability p with ν degrees of freedom</option>
+                </Select>
+              )}
+            </Field>
+            {num(`Value${unitSuffix}`, 'value')}
+            {normalMode === 'u' ? num(`Standard uncertainty u${unitSuffix}`, 'u') : null}
+            {normalMode === 'Uk' ? (
+              <>
+                {num(`Expanded uncertainty U${unitSuffix}`, 'U')}
+                {num('Coverage factor k', 'k', d.U && d.k ? `u = U/k = ${formatSignificant(d.U / d.k, 3)} ${unit}` : undefined)}
+              </>
+            ) : null}
+            {normalMode === 'Up' ? (
+              <>
+                {num(`Expanded uncertainty U${unitSuffix}`, 'U')}
+                <Field label="Coverage probability p" hint="e.g. 0.95">
+                  {(fp) => (
+                    <NumberInput
+                      {...fp}
+                      readOnly={readOnly}
+                      value={p}
+                      onValue={(v) => {
+                        setP(v);
+                        setDist({ k: kFromP(d.dof, v) });
+                      }}
+                    />
+                  )}
+                </Field>
+                {num('Degrees of freedom ν', 'dof', d.k ? `k = t_p(ν) = ${d.k.toFixed(3)} (GUM G.3.4)` : undefined, undefined, (v) => setDist({ dof: v, k: kFromP(v, p) }))}
+              </>
+            ) : null}
+          </>
+        );
+      case 'rectangular':
+        return (
+          <>
+            <Field label="Given as" className="md:col-span-3">
+              {(fp) => (
+                <Select
+                  {...fp}
+                  disabled={readOnly}
+                  value={rectMode}
+                  onChange={(e) => {
+                    const mode = e.target.value as RectMode;
+                    setRectMode(mode);
+                    if (mode === 'limits') {
+                      const v = d.value ?? 0;
+                      const a = d.halfWidth ?? 1;
+                      setDist({ lower: v - a, upper: v + a, value: undefined, halfWidth: undefined });
+                    } else if (d.lower !== undefined || d.upper !== undefined) {
+                      const lo = d.lower ?? 0;
+                      const hi = d.upper ?? lo;
+                      setDist({ value: (lo + hi) / 2, halfWidth: (hi - lo) / 2 || 1, lower: undefined, upper: undefined });
+                    }
+                  }}
+                >
+                  <option value="tolerance">a tolerance ± a around a value</option>
+                  <option value="limits">lower and upper limits</option>
+                  <option value="resolution">the resolution of an indicating instrument</option>
+                </Select>
+              )}
+            </Field>
+            {rectMode === 'limits' ? (
+              <>
+                {num(`Lower limit a₋${unitSuffix}`, 'lower')}
+                {num(`Upper limit a₊${unitSuffix}`, 'upper')}
+              </>
+            ) : rectMode === 'tolerance' ? (
+              <>
+                {num(`Value${unitSuffix}`, 'value')}
+                {num(`Half-width a${unitSuffix}`, 'halfWidth', d.halfWidth ? `u = a/√3 = ${formatSignificant(d.halfWidth / Math.sqrt(3), 3)} ${unit}` : undefined)}
+              </>
+            ) : (
+              <>
+                {num(`Correction value${unitSuffix}`, 'value', 'usually 0')}
+                {num(
+                  `Resolution δ (digit step)${unitSuffix}`,
+                  'halfWidth',
+                  d.halfWidth ? `a = δ/2, u = δ/(2√3) = ${formatSignificant(d.halfWidth / Math.sqrt(3), 3)} ${unit} (GUM F.2.2.1)` : 'the smallest step of the display',
+                  d.halfWidth !== undefined ? Number((d.halfWidth * 2).toPrecision(12)) : undefined,
+                  (v) => setDist({ halfWidth: v === undefined ? undefined : v / 2 }),
+                )}
+              </>
+            )}
+          </>
+        );
+      case 'triangular':
+      case 'arcsine':
+        return (
+          <>
+            {num(`Value${unitSuffix}`, 'value')}
+            {num(`Half-width a${unitSuffix}`, 'halfWidth')}
+          </>
+        );
+      case 'trapezoidal':
+        return (
+          <>
+            {num(`Value${unitSuffix}`, 'value')}
+            {num(`Half-width a${unitSuffix}`, 'halfWidth')}
+            {num('β (top to base ratio, 0 to 1)', 'beta')}
+          </>
+        );
+      case 'curvilinear-trapezoidal':
+        return (
+          <>
+            {num(`Value${unitSuffix}`, 'value')}
+            {num(`Half-width a${unitSuffix}`, 'halfWidth')}
+            {num(`Uncertainty of the half-width d${unitSuffix}`, 'halfWidthUncertainty')}
+          </>
+        );
+      case 'student-t':
+        return (
+          <>
+            {num(`Value${unitSuffix}`, 'value')}
+            {num(`Scale s${unitSuffix}`, 'scale')}
+            {num('Degrees of freedom ν', 'dof')}
+          </>
+        );
+      case 'constant':
+        return num(`Value${unitSuffix}`, 'value');
+      case 'observations':
+        return (
+          <div className="md:col-span-3">
+            <ObservationsHelper
+              spec={d}
+              unit={input.unit}
+              readOnly={readOnly}
+              canUpload={canUpload}
+              error={err('distribution.values')}
+              onValues={(values) => setDist({ values })}
+            />
+          </div>
+        );
+    }
+  };
+
+  const showDof = d.kind !== 'student-t' && d.kind !== 'constant' && !(d.kind === 'normal' && normalMode === 'Up');
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="grid gap-3 md:grid-cols-[1fr_1fr_2fr]">
+        <Field label="Symbol" error={err('symbol')}>
+          {(fp) => <TextInput {...fp} readOnly={readOnly} className="num" value={input.symbol} onChange={(e) => onChange({ ...input, symbol: e.target.value })} />}
+        </Field>
+        <Field label="Unit" error={err('unit')} hint={input.unit ? `shown as ${formatUnit(input.unit) || 'dimensionless'}` : 'e.g. mm, um, degC, kg/m^3; empty = dimensionless'}>
+          {(fp) => (
+            <TextInput {...fp} readOnly={readOnly} className="num" value={input.unit ?? ''} onChange={(e) => onChange({ ...input, unit: e.target.value || undefined })} />
+          )}
+        </Field>
+        <Field label="Description" error={err('description')}>
+          {(fp) => (
+            <TextInput
+              {...fp}
+              readOnly={readOnly}
+              value={input.description ?? ''}
+              placeholder="what this quantity is and where its value comes from"
+              onChange={(e) => onChange({ ...input, description: e.target.value || undefined })}
+            />
+          )}
+        </Field>
+      </div>
+      <div className="grid gap-3 md:grid-cols-3">
+        <Field label="Distribution" error={err('distribution.kind')} className="md:col-span-3">
+          {(fp) => (
+            <Select
+              {...fp}
+              disabled={readOnly}
+              value={d.kind}
+              onChange={(e) => {
+                const kind = e.target.value as DistributionKind;
+                setNormalMode('u');
+                setRectMode('tolerance');
+                onChange({ ...input, distribution: convertKind(input.distribution, kind) });
+              }}
+            >
+              {DISTRIBUTION_KINDS.map((k) => (
+                <option key={k} value={k}>
+                  {KIND_LABELS[k]}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        {kindFields()}
+      </div>
+      {showDof ? (
+        <fieldset className="grid gap-3 rounded-md border border-stone-200 p-3 md:grid-cols-3">
+          <legend className="px-1 text-xs font-medium text-stone-700">Degrees of freedom νᵢ</legend>
+          <Field label="ν from" error={err('distribution.relativeUncertaintyOfU')}>
+            {(fp) => (
+              <Select
+                {...fp}
+                disabled={readOnly}
+                value={dofMode}
+                onChange={(e) => {
+                  const m = e.target.value as typeof dofMode;
+                  setDofMode(m);
+                  if (m === 'inf') setDist({ dof: undefined, relativeUncertaintyOfU: undefined });
+                  if (m === 'direct') setDist({ relativeUncertaintyOfU: undefined, dof: d.dof ?? (d.kind === 'observations' ? undefined : 50) });
+                  if (m === 'reliability') setDist({ dof: undefined, relativeUncertaintyOfU: d.relativeUncertaintyOfU ?? 0.1 });
+                }}
+              >
+                <option value="inf">{d.kind === 'observations' ? 'n − 1 (default)' : '∞: u is known well (default)'}</option>
+                <option value="direct">a value given directly</option>
+                <option value="reliability">the reliability of u (Δu/u)</option>
+              </Select>
+            )}
+          </Field>
+          {dofMode === 'direct' ? num('νᵢ', 'dof') : null}
+          {dofMode === 'reliability' ? (
+            <Field
+              label="Relative uncertainty of u, Δu/u (%)"
+              error={err('distribution.relativeUncertaintyOfU')}
+              hint={d.relativeUncertaintyOfU ? `ν = ½·(Δu/u)⁻² = ${formatSignificant(0.5 / d.relativeUncertaintyOfU ** 2, 3)} (GUM G.4.2)` : 'e.g. 10 % gives ν = 50'}
+            >
+              {(fp) => (
+                <NumberInput
+                  {...fp}
+                  readOnly={readOnly}
+                  value={d.relativeUncertaintyOfU !== undefined ? Number((d.relativeUncertaintyOfU * 100).toPrecision(10)) : undefined}
+                  onValue={(v) => setDist({ relativeUncertaintyOfU: v === undefined ? undefined : v / 100 })}
+                />
+              )}
+            </Field>
+          ) : null}
+        </fieldset>
+      ) : null}
+      {problems
+        .filter((pr) => !pr.field.startsWith(`${base}.`) || !/\.(symbol|unit|description|distribution\.\w+)$/.test(pr.field))
+        .map((pr, i) => (
+          <p key={i} role="alert" className="text-xs font-medium text-caution-700">
+            {pr.message}
+          </p>
+        ))}
+    </div>
+  );
+}

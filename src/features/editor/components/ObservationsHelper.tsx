@@ -1,0 +1,185 @@
+import Papa from 'papaparse';
+import { useMemo, useRef, useState } from 'react';
+import type { DistributionOf } from '../../../../shared/budget/schema';
+import { arithmeticMean, experimentalStandardDeviation } from '../../../../shared/distributions/type-a';
+import { errorMessage, ApiError } from '../../../app/http';
+import { Button, Field, Select, TextArea } from '../../../app/ui/controls';
+import { formatCount, formatSignificant } from '../../../app/ui/numbers';
+import { formatUnit } from '../../../app/ui/units';
+import { useUploadObservations } from '../api/editor';
+
+/** Reads numbers from pasted spreadsheet cells: one per line or separated by tabs, semicolons or commas (decimal comma accepted). */
+export function parsePasted(text: string): { values: number[]; bad: string[] } {
+  const parsed = Papa.parse<string[]>(text.trim(), { delimitersToGuess: ['\t', ';', ',', ' '], skipEmptyLines: 'greedy' });
+  const delimiter = parsed.meta.delimiter;
+  const values: number[] = [];
+  const bad: string[] = [];
+  for (const row of parsed.data) {
+    for (const cell of row) {
+      let s = cell.trim().replace(/[\u202f\u2009 ]/g, '').replace('\u2212', '-');
+      if (s === '') continue;
+      if (delimiter !== ',' && /^[+-]?\d+,\d+([eE][+-]?\d+)?$/.test(s)) s = s.replace(',', '.');
+      const n = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s) ? Number(s) : NaN;
+      if (Number.isFinite(n)) values.push(n);
+      else bad.push(cell.trim());
+    }
+  }
+  // a header cell at the top is not an error
+  if (bad.length === 1 && values.length > 0 && !/\d/.test(bad[0])) bad.length = 0;
+  return { values, bad };
+}
+
+/** A strip plot of the observations: one tick per value, the mean and ± s marked. */
+function StripPlot({ values, mean, s, unit }: { values: number[]; mean: number; s: number; unit?: string }) {
+  const min = Math.min(...values, mean - s);
+  const max = Math.max(...values, mean + s);
+  const span = max - min || Math.abs(mean) || 1;
+  const x = (v: number) => 8 + ((v - min) / span) * 284;
+  return (
+    <svg viewBox="0 0 300 44" className="h-11 w-full max-w-sm" role="img" aria-label={`Strip plot of ${values.length} observations, mean ${formatSignificant(mean, 6)} ${formatUnit(unit)}`}>
+      <line x1={8} x2={292} y1={24} y2={24} stroke="#d6d3d1" />
+      <rect x={x(mean - s)} y={14} width={Math.max(1, x(mean + s) - x(mean - s))} height={20} fill="#d5eaea" />
+      {values.map((v, i) => (
+        <line key={i} x1={x(v)} x2={x(v)} y1={16} y2={32} stroke="#44403c" strokeWidth={1.5} opacity={0.75} />
+      ))}
+      <line x1={x(mean)} x2={x(mean)} y1={8} y2={40} stroke="#176464" strokeWidth={2} />
+      <text x={x(mean)} y={7} textAnchor="middle" fontSize={8} fill="#114f4f">
+        mean
+      </text>
+    </svg>
+  );
+}
+
+export function ObservationsHelper({
+  spec,
+  unit,
+  onValues,
+  readOnly,
+  canUpload,
+  error,
+}: {
+  spec: DistributionOf<'observations'>;
+  unit?: string;
+  onValues(values: number[]): void;
+  readOnly?: boolean;
+  canUpload: boolean;
+  error?: string | null;
+}) {
+  const values = Array.isArray(spec.values) ? spec.values.filter((v) => Number.isFinite(v)) : [];
+  const [text, setText] = useState(() => values.join('\n'));
+  const [bad, setBad] = useState<string[]>([]);
+  const [upload, setUpload] = useState<{ name: string; columns: (string | null)[]; file: File } | null>(null);
+  const [rowErrors, setRowErrors] = useState<{ row: number; message: string }[]>([]);
+  const fileRef = useRef<HTMLInputElement>(null);
+  const send = useUploadObservations();
+
+  const stats = useMemo(() => {
+    if (values.length < 2) return null;
+    const mean = arithmeticMean(values);
+    const s = experimentalStandardDeviation(values);
+    return { n: values.length, mean, s, sm: s / Math.sqrt(values.length) };
+  }, [values]);
+
+  const applyText = (t: string) => {
+    setText(t);
+    const r = parsePasted(t);
+    setBad(r.bad);
+    onValues(r.values);
+  };
+
+  const sendFile = (file: File, column?: string) => {
+    send.mutate(
+      { file, column },
+      {
+        onSuccess: (r) => {
+          setUpload(null);
+          setRowErrors(r.errors);
+          setText(r.values.join('\n'));
+          setBad([]);
+          onValues(r.values);
+        },
+        onError: (e) => {
+          const cols = e instanceof ApiError ? ((e.body?.error as { columns?: (string | null)[] } | undefined)?.columns ?? null) : null;
+          if (cols && e instanceof ApiError && (e.code === 'choose_column' || e.code === 'unknown_column')) setUpload({ name: file.name, columns: cols, file });
+        },
+      },
+    );
+  };
+
+  const u = formatUnit(unit);
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="grid gap-3 md:grid-cols-[1fr_1fr]">
+        <Field label="Observations (paste a column from a spreadsheet)" error={error ?? (bad.length ? `Not read as numbers: ${bad.slice(0, 4).join(', ')}${bad.length > 4 ? '…' : ''}` : null)} hint="One value per line, or separated by tabs or semicolons; a decimal comma is accepted.">
+          {(p) => <TextArea {...p} rows={6} className="num" value={text} readOnly={readOnly} onChange={(e) => applyText(e.target.value)} />}
+        </Field>
+        <div className="flex flex-col gap-2 text-sm">
+          {stats ? (
+            <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5">
+              <dt className="text-stone-600">n</dt>
+              <dd className="num">{formatCount(stats.n)}</dd>
+              <dt className="text-stone-600">mean q̄</dt>
+              <dd className="num">
+                {formatSignificant(stats.mean, 7)} {u}
+              </dd>
+              <dt className="text-stone-600">s(q)</dt>
+              <dd className="num">
+                {formatSignificant(stats.s, 3)} {u}
+              </dd>
+              <dt className="text-stone-600">s(q̄) = s/√n</dt>
+              <dd className="num">
+                {formatSignificant(stats.sm, 3)} {u}
+              </dd>
+              <dt className="text-stone-600">ν = n − 1</dt>
+              <dd className="num">{stats.n - 1}</dd>
+            </dl>
+          ) : (
+            <p className="text-stone-600">Enter at least two observations to see n, the mean, s and s/√n.</p>
+          )}
+          {stats ? <StripPlot values={values} mean={stats.mean} s={stats.s} unit={unit} /> : null}
+          {canUpload && !readOnly ? (
+            <div className="flex flex-wrap items-center gap-2">
+              <input
+                ref={fileRef}
+                type="file"
+                accept=".csv,.txt,.tsv,text/csv,text/plain"
+                className="sr-only"
+                tabIndex={-1}
+                aria-label="CSV file of observations"
+                onChange={(e) => {
+                  const f = e.target.files?.[0];
+                  e.target.value = '';
+                  if (f) sendFile(f);
+                }}
+              />
+              <Button size="sm" onClick={() => fileRef.current?.click()} disabled={send.isPending}>
+                {send.isPending ? 'Reading…' : 'Upload CSV…'}
+              </Button>
+              {send.isError && !upload ? <span role="alert" className="text-xs text-caution-700">{errorMessage(send.error)}</span> : null}
+            </div>
+          ) : null}
+          {upload ? (
+            <Field label={`“${upload.name}” has several columns: choose one`}>
+              {(p) => (
+                <Select {...p} defaultValue="" onChange={(e) => e.target.value && sendFile(upload.file, e.target.value)}>
+                  <option value="">Choose a column…</option>
+                  {upload.columns.map((c, i) => (
+                    <option key={i} value={c ?? String(i + 1)}>
+                      {c ?? `Column ${i + 1}`}
+                    </option>
+                  ))}
+                </Select>
+              )}
+            </Field>
+          ) : null}
+          {rowErrors.length ? (
+            <p className="text-xs text-caution-700">
+              {rowErrors.length} row{rowErrors.length > 1 ? 's' : ''} skipped: {rowErrors.slice(0, 3).map((r) => `row ${r.row} (${r.message})`).join('; ')}
+              {rowErrors.length > 3 ? '…' : ''}
+            </p>
+          ) : null}
+        </div>
+      </div>
+    </div>
+  );
+}

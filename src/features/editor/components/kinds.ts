@@ -1,0 +1,65 @@
+import type { Distribution, DistributionKind } from '../../../../shared/budget/schema';
+import { gumTreatment } from '../../../../shared/distributions/registry';
+
+export const KIND_LABELS: Record<DistributionKind, string> = {
+  normal: 'Normal (Gaussian)',
+  rectangular: 'Rectangular (uniform)',
+  triangular: 'Triangular',
+  arcsine: 'Arcsine (U-shaped)',
+  trapezoidal: 'Trapezoidal',
+  'curvilinear-trapezoidal': 'Curvilinear trapezoidal',
+  'student-t': 'Student t (scaled, shifted)',
+  observations: 'Repeated observations (Type A)',
+  constant: 'Exact value (no uncertainty)',
+};
+
+export const KIND_SHORT: Record<DistributionKind, string> = {
+  normal: 'normal',
+  rectangular: 'rectangular',
+  triangular: 'triangular',
+  arcsine: 'arcsine',
+  trapezoidal: 'trapezoidal',
+  'curvilinear-trapezoidal': 'curv. trapezoidal',
+  'student-t': 'Student t',
+  observations: 'Type A, n obs.',
+  constant: 'exact',
+};
+
+/** Treatment of a draft distribution, or null while it is incomplete. */
+export function tryTreatment(d: Distribution): { estimate: number; standardUncertainty: number; dof: number } | null {
+  try {
+    const t = gumTreatment(d);
+    return Number.isFinite(t.estimate) && Number.isFinite(t.standardUncertainty) ? t : null;
+  } catch {
+    return null;
+  }
+}
+
+/** A new distribution of another kind that keeps the estimate and, where it can, the standard uncertainty. */
+export function convertKind(d: Distribution, kind: DistributionKind): Distribution {
+  const t = tryTreatment(d);
+  const value = t?.estimate ?? ('value' in d && typeof d.value === 'number' ? d.value : 0);
+  const u = t && t.standardUncertainty > 0 ? t.standardUncertainty : 1;
+  const keep = { ...(d.dof !== undefined && kind !== 'student-t' ? { dof: d.dof } : {}), ...(d.relativeUncertaintyOfU !== undefined ? { relativeUncertaintyOfU: d.relativeUncertaintyOfU } : {}) };
+  const r = (x: number) => Number(x.toPrecision(6));
+  switch (kind) {
+    case 'normal':
+      return { kind, value, u: r(u), ...keep };
+    case 'rectangular':
+      return { kind, value, halfWidth: r(u * Math.sqrt(3)), ...keep };
+    case 'triangular':
+      return { kind, value, halfWidth: r(u * Math.sqrt(6)), ...keep };
+    case 'arcsine':
+      return { kind, value, halfWidth: r(u * Math.SQRT2), ...keep };
+    case 'trapezoidal':
+      return { kind, value, halfWidth: r(u * Math.sqrt(6 / 1.25)), beta: 0.5, ...keep };
+    case 'curvilinear-trapezoidal':
+      return { kind, value, halfWidth: r(u * Math.sqrt(3)), halfWidthUncertainty: 0, ...keep };
+    case 'student-t':
+      return { kind, value, scale: r(u), dof: t && Number.isFinite(t.dof) ? t.dof : 10 };
+    case 'observations':
+      return { kind, values: d.kind === 'observations' ? d.values : [value, value], ...keep };
+    case 'constant':
+      return { kind, value };
+  }
+}

@@ -1,0 +1,215 @@
+import { lazy, Suspense, useState } from 'react';
+import type { BudgetResult, GumResult } from '../../../../shared/budget/result';
+import type { BudgetDocument } from '../../../../shared/budget/schema';
+import { Button, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
+import { formatCount, formatSignificant, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
+import { Unit } from '../../../app/ui/quantity';
+import { formatUnit } from '../../../app/ui/units';
+import { useMonteCarloRun } from '../api/use-monte-carlo';
+
+const HistogramPlot = lazy(() => import('./HistogramPlot'));
+
+const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000];
+const BROWSER_CAP = 5_000_000;
+
+export interface MonteCarloPanelProps {
+  document: BudgetDocument | null;
+  gum: GumResult | null;
+  measurand: { symbol: string; unit?: string };
+  stored: { result: BudgetResult; label: string } | null;
+  settings: BudgetDocument['monteCarlo'];
+  onSettings(next: BudgetDocument['monteCarlo']): void;
+  readOnly: boolean;
+}
+
+function seconds(ms: number): string {
+  if (ms < 1000) return `${Math.round(ms)} ms`;
+  return `${(ms / 1000).toFixed(ms < 10_000 ? 1 : 0)} s`;
+}
+
+function Verdict({ result, unit }: { result: BudgetResult; unit: string }) {
+  const v = result.validation;
+  if (!v) return null;
+  const d = (x: number) => `${formatSignificant(x, 2)}${unit ? ` ${unit}` : ''}`;
+  const ends = [v.dLow > v.tolerance ? 'lower' : null, v.dHigh > v.tolerance ? 'upper' : null].filter(Boolean);
+  return v.passed ? (
+    <p className="rounded-md border border-accent-600 bg-accent-50 px-3 py-2 text-sm text-accent-700">
+      <span className="font-semibold">✓ The GUM result is validated.</span> Both ends of the GUM interval lie within δ = {d(v.tolerance)} of the Monte Carlo interval (d
+      <sub>low</sub> = {d(v.dLow)}, d<sub>high</sub> = {d(v.dHigh)}; δ is half a unit in the {v.significantDigits === 1 ? 'first' : `${v.significantDigits}nd`} significant digit of u(y)). JCGM 101:2008 clause 8.
+    </p>
+  ) : (
+    <p className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+      <span className="font-semibold">⚠ The GUM result is not validated.</span> At the {ends.join(' and ')} end{ends.length > 1 ? 's' : ''} the GUM interval differs from the Monte Carlo interval by more than δ = {d(v.tolerance)} (d
+      <sub>low</sub> = {d(v.dLow)}, d<sub>high</sub> = {d(v.dHigh)}). Report the Monte Carlo interval, or look for a non-linear model or a dominant non-Gaussian input. JCGM 101:2008 clause 8.
+    </p>
+  );
+}
+
+function Comparison({ result, unit }: { result: BudgetResult; unit?: string }) {
+  const g = result.gum;
+  const mc = result.monteCarlo!;
+  const u = mc.standardUncertainty;
+  const f = (x: number) => formatWithUncertainty(x, u);
+  return (
+    <table className="w-full text-sm">
+      <caption className="sr-only">GUM and Monte Carlo results side by side</caption>
+      <thead className="text-xs text-stone-700">
+        <tr>
+          <th className="py-1 text-left font-semibold"></th>
+          <th className="py-1 text-right font-semibold">GUM</th>
+          <th className="py-1 text-right font-semibold">Monte Carlo</th>
+        </tr>
+      </thead>
+      <tbody className="num">
+        <tr className="border-t border-stone-100">
+          <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">estimate y</th>
+          <td className="py-1 text-right">{f(g.estimate)}</td>
+          <td className="py-1 text-right">{f(mc.estimate)}</td>
+        </tr>
+        <tr className="border-t border-stone-100">
+          <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">standard uncertainty u(y)</th>
+          <td className="py-1 text-right">{formatUncertainty(g.standardUncertainty)}</td>
+          <td className="py-1 text-right">{formatUncertainty(mc.standardUncertainty)}</td>
+        </tr>
+        <tr className="border-t border-stone-100">
+          <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">coverage interval ({+(g.coverageProbability * 100).toFixed(2)} %)</th>
+          <td className="py-1 text-right">
+            [{f(g.interval[0])}, {f(g.interval[1])}]
+          </td>
+          <td className="py-1 text-right">
+            [{f(mc.interval[0])}, {f(mc.interval[1])}]
+          </td>
+        </tr>
+        <tr className="border-t border-stone-100">
+          <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">shortest interval</th>
+          <td className="py-1 text-right text-stone-500">—</td>
+          <td className="py-1 text-right">
+            [{f(mc.shortestInterval[0])}, {f(mc.shortestInterval[1])}]
+          </td>
+        </tr>
+      </tbody>
+      <tfoot>
+        <tr>
+          <td colSpan={3} className="pt-1 text-xs text-stone-600">
+            All values in <Unit u={unit} /> {formatUnit(unit) ? '' : '(dimensionless)'}
+          </td>
+        </tr>
+      </tfoot>
+    </table>
+  );
+}
+
+export function MonteCarloPanel({ document, gum, measurand, stored, settings, onSettings, readOnly }: MonteCarloPanelProps) {
+  const { state, run, cancel } = useMonteCarloRun();
+  const [localTrials, setLocalTrials] = useState<number | 'adaptive'>(() => {
+    const t = settings?.trials;
+    return t === 'adaptive' ? 'adaptive' : typeof t === 'number' ? Math.min(t, BROWSER_CAP) : 200_000;
+  });
+  const [localSeed, setLocalSeed] = useState(() => String(settings?.seed ?? 'dubito'));
+  const trials = readOnly ? localTrials : settings?.trials === 'adaptive' ? 'adaptive' : typeof settings?.trials === 'number' ? settings.trials : localTrials;
+  const seed = readOnly ? localSeed : String(settings?.seed ?? localSeed);
+  const unit = formatUnit(measurand.unit);
+
+  const shown = state.phase === 'done' ? { result: state.result, label: `run in this browser in ${seconds(state.ms)}` } : state.phase === 'idle' ? stored : null;
+  const mc = shown?.result.monteCarlo ?? null;
+  const running = state.phase === 'running';
+  const elapsed = running ? performance.now() - state.startedAt : 0;
+  const left = running && state.done > 0 ? (elapsed / state.done) * (state.total - state.done) : null;
+
+  const setTrials = (t: number | 'adaptive') => {
+    setLocalTrials(t);
+    if (!readOnly) onSettings({ ...(settings ?? {}), trials: t });
+  };
+  const setSeed = (s: string) => {
+    setLocalSeed(s);
+    if (!readOnly) onSettings({ ...(settings ?? {}), seed: s });
+  };
+  const choices = typeof trials === 'number' && !TRIAL_CHOICES.includes(trials) ? [...TRIAL_CHOICES, trials].sort((a, b) => a - b) : TRIAL_CHOICES;
+
+  return (
+    <section aria-labelledby="mc-h" className="rounded-lg border border-stone-200 bg-stone-50/60 p-4">
+      <div className="mb-3">
+        <h2 id="mc-h" className="text-base font-semibold text-stone-900">
+          Monte Carlo method
+        </h2>
+        <p className="text-xs text-stone-600">Propagation of distributions (JCGM 101:2008), run in the background of this page; the same seed and trials give the same numbers.</p>
+      </div>
+      <div className="grid items-end gap-3 md:grid-cols-[12rem_1fr_auto]">
+        <Field label="Trials M">
+          {(p) => (
+            <Select {...p} value={String(trials)} disabled={running} onChange={(e) => setTrials(e.target.value === 'adaptive' ? 'adaptive' : Number(e.target.value))}>
+              {choices.map((t) => (
+                <option key={t} value={t} disabled={t > BROWSER_CAP}>
+                  {formatCount(t)}
+                </option>
+              ))}
+              <option value="adaptive">adaptive (JCGM 101 7.9)</option>
+            </Select>
+          )}
+        </Field>
+        <Field label="Seed" hint="Any text; keep it to reproduce a run.">
+          {(p) => <TextInput {...p} className="num" value={seed} disabled={running} onChange={(e) => setSeed(e.target.value)} />}
+        </Field>
+        <div className="flex gap-2">
+          {running ? (
+            <Button variant="danger" onClick={cancel}>
+              Cancel
+            </Button>
+          ) : (
+            <Button variant="primary" disabled={!document} onClick={() => document && run(document, trials, seed, BROWSER_CAP)} title={document ? undefined : 'Fix the problems of the budget first'}>
+              Run Monte Carlo
+            </Button>
+          )}
+        </div>
+      </div>
+
+      {running ? (
+        <div className="mt-3" aria-live="polite">
+          <div className="flex justify-between text-xs text-stone-700">
+            <span className="num">
+              {formatCount(state.done)} of {formatCount(state.total)} trials{state.trials === 'adaptive' ? ' (at most)' : ''}
+            </span>
+            <span>{left !== null ? `about ${seconds(left)} left` : 'starting…'}</span>
+          </div>
+          <div role="progressbar" aria-label="Monte Carlo progress" aria-valuemin={0} aria-valuemax={state.total} aria-valuenow={state.done} className="mt-1 h-2 overflow-hidden rounded-full bg-stone-200">
+            <div className="h-2 rounded-full bg-accent-600 transition-[width]" style={{ width: `${(state.done / Math.max(1, state.total)) * 100}%` }} />
+          </div>
+        </div>
+      ) : null}
+      {state.phase === 'cancelled' ? <p className="mt-3 text-sm text-stone-700">Stopped after {formatCount(state.done)} trials; nothing was kept. Run again to get a result.</p> : null}
+      {state.phase === 'error' ? (
+        <p role="alert" className="mt-3 rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+          {state.message}
+        </p>
+      ) : null}
+
+      {shown && mc ? (
+        <div className="mt-4 flex flex-col gap-3">
+          <p className="text-xs text-stone-600">
+            <span className="num">{formatCount(mc.trials)}</span> trials{mc.adaptive ? ' (adaptive)' : ''}, seed <span className="num rounded bg-white px-1 text-stone-800">{mc.seed}</span> — {shown.label}
+            {gum && shown === stored ? '' : ''}
+          </p>
+          <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+            <div className="rounded-md border border-stone-200 bg-white p-2">
+              <Suspense fallback={<div className="flex h-[300px] items-center justify-center"><Spinner label="Loading the chart" /></div>}>
+                <HistogramPlot
+                  histogram={mc.histogram}
+                  trials={mc.trials}
+                  gum={{ estimate: shown.result.gum.estimate, standardUncertainty: shown.result.gum.standardUncertainty, interval: shown.result.gum.interval }}
+                  mcInterval={mc.interval}
+                  axisTitle={`${measurand.symbol}${unit ? ` / ${unit}` : ''}`}
+                />
+              </Suspense>
+            </div>
+            <div className="flex flex-col gap-3">
+              <Comparison result={shown.result} unit={measurand.unit} />
+              <Verdict result={shown.result} unit={unit} />
+            </div>
+          </div>
+        </div>
+      ) : !running && state.phase !== 'error' ? (
+        <p className="mt-3 text-sm text-stone-600">No Monte Carlo result yet for these inputs. Run it to compare the distribution of the measurand with the GUM result.</p>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,89 @@
+import { Link } from 'react-router-dom';
+import type { Role } from '../../../../shared/policy/policy';
+import { errorMessage } from '../../../app/http';
+import { EmptyState, ErrorNote, Spinner } from '../../../app/ui/controls';
+import { formatDateTime } from '../../../app/ui/numbers';
+import { StatusBadge } from '../../../app/ui/status-badge';
+import { useBudgetHeader, useVersions } from '../api/versions';
+
+export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; budgetId: number }) {
+  const versions = useVersions(budgetId);
+  const budget = useBudgetHeader(budgetId);
+  const b = budget.data;
+  return (
+    <div className="mx-auto flex max-w-5xl flex-col gap-4 px-6 py-6">
+      <nav aria-label="Breadcrumb" className="text-xs text-stone-600">
+        <Link to="/budgets" className="hover:text-accent-700 hover:underline">
+          Budgets
+        </Link>{' '}
+        /{' '}
+        <Link to={`/budgets/${budgetId}`} className="hover:text-accent-700 hover:underline">
+          {b?.title ?? `budget ${budgetId}`}
+        </Link>{' '}
+        / versions
+      </nav>
+      <div className="flex flex-wrap items-center gap-3">
+        <h1 className="text-2xl font-semibold tracking-tight">Version history</h1>
+        {b ? <StatusBadge status={b.status} returned={b.returned} /> : null}
+      </div>
+      <p className="text-sm text-stone-600">Every save creates a version; versions never change. Approved versions are marked.</p>
+      {versions.isPending ? (
+        <Spinner label="Loading versions" />
+      ) : versions.isError ? (
+        <ErrorNote title="The versions could not be loaded">{errorMessage(versions.error)}</ErrorNote>
+      ) : versions.data.length === 0 ? (
+        <EmptyState title="No versions" />
+      ) : (
+        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
+          <table className="w-full text-left text-sm">
+            <caption className="sr-only">Versions of the budget, newest first</caption>
+            <thead className="border-b border-stone-200 bg-stone-50 text-xs text-stone-700">
+              <tr>
+                <th scope="col" className="px-3 py-2 text-right font-semibold">Version</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Saved</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Author</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Change note</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Status</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Seed</th>
+                <th scope="col" className="px-3 py-2 font-semibold"><span className="sr-only">Actions</span></th>
+              </tr>
+            </thead>
+            <tbody>
+              {[...versions.data].reverse().map((v) => {
+                const current = b?.currentVersion === v.number;
+                return (
+                  <tr key={v.number} className={`border-b border-stone-100 last:border-0 ${current ? 'bg-stone-50' : ''}`}>
+                    <td className="num px-3 py-2 text-right font-semibold">v{v.number}</td>
+                    <td className="whitespace-nowrap px-3 py-2 text-stone-700">{formatDateTime(v.createdAt)}</td>
+                    <td className="px-3 py-2">{v.authorName}</td>
+                    <td className="px-3 py-2 text-stone-800">{v.note || <span className="text-stone-500">no note</span>}</td>
+                    <td className="px-3 py-2">
+                      <div className="flex flex-wrap gap-1">
+                        {v.approvedAt ? (
+                          <span title={`approved ${formatDateTime(v.approvedAt)}`}>
+                            <StatusBadge status="approved" />
+                          </span>
+                        ) : null}
+                        {current ? <span className="rounded-full border border-stone-300 px-2 py-0.5 text-xs text-stone-700">current</span> : null}
+                      </div>
+                    </td>
+                    <td className="num px-3 py-2 text-xs text-stone-700">{v.seed}</td>
+                    <td className="whitespace-nowrap px-3 py-2 text-right">
+                      <Link to={current ? `/budgets/${budgetId}` : `/budgets/${budgetId}/versions/${v.number}`} className="text-accent-700 hover:underline">
+                        Open
+                      </Link>
+                      <span className="mx-1 text-stone-400">·</span>
+                      <a href={`/api/budgets/${budgetId}/export?version=${v.number}`} download className="text-accent-700 hover:underline">
+                        Export
+                      </a>
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}
