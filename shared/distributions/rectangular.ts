@@ -16,8 +16,7 @@ export const rectangularRule: DistributionRule<'rectangular'> = {
     const width = upper - lower;
     return {
       fill(rng, out, n) {
-        rng.fill(out, n);
-        for (let i = 0; i < n; i++) out[i] = lower + width * out[i];
+        rng.fill(out, n, lower, width);
       },
     };
   },

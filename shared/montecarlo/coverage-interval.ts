@@ -1,4 +1,4 @@
-import { sortFloat64 } from './radix-sort';
+import { sortFloat64 } from './sort-float64';
 
 /*
  * Coverage intervals from M model values (JCGM 101:2008 7.7). Only the order
@@ -106,14 +106,17 @@ const BUCKETS = 1 << 12;
  * tail's buckets hold far more than `tail` values (a very concentrated
  * distribution). `values` is not changed.
  */
-function tailsByBuckets(values: Float64Array, tail: number): Tails | null {
+function tailsByBuckets(values: Float64Array, tail: number, range?: { min: number; max: number }): Tails | null {
   const M = values.length;
   let min = Infinity;
   let max = -Infinity;
-  for (let r = 0; r < M; r++) {
-    const y = values[r];
-    if (y < min) min = y;
-    if (y > max) max = y;
+  if (range) ({ min, max } = range);
+  else {
+    for (let r = 0; r < M; r++) {
+      const y = values[r];
+      if (y < min) min = y;
+      if (y > max) max = y;
+    }
   }
   const scale = BUCKETS / (max - min);
   if (!(scale > 0 && scale < Infinity)) return null;
@@ -164,14 +167,14 @@ function tailsBySelection(values: Float64Array, tail: number): Tails {
 }
 
 /** Both tails of M − q values each (the whole array sorted when they overlap). */
-function tailsOf(values: Float64Array, q: number): Tails {
+function tailsOf(values: Float64Array, q: number, range?: { min: number; max: number }): Tails {
   const M = values.length;
   const tail = M - q;
   if (2 * tail >= M) {
     sortFloat64(values);
     return { low: values, high: values, M };
   }
-  return tailsByBuckets(values, tail) ?? tailsBySelection(values, tail);
+  return tailsByBuckets(values, tail, range) ?? tailsBySelection(values, tail);
 }
 
 /** r* in 1..M−q minimising y_(r+q) − y_(r) (JCGM 101:2008 7.7.3); the first such r on ties. */
@@ -198,11 +201,16 @@ function symmetricFromTails(t: Tails, q: number): [number, number] {
  * (JCGM 101:2008 7.7): with y_(1) ≤ … ≤ y_(M), the interval is [y_(r), y_(r+q)];
  * symmetric: r = (M − q)/2 or (M − q + 1)/2 (7.7.2); shortest: the r* that
  * minimises y_(r+q) − y_(r) (7.7.3). May reorder `values` in place.
+ * `range` passes min and max when the caller has them already.
  * Cost: two or three passes over the M values plus sorting 2·(M − q) values.
  */
-export function coverageIntervals(values: Float64Array, p: number): { symmetric: [number, number]; shortest: [number, number] } {
+export function coverageIntervals(
+  values: Float64Array,
+  p: number,
+  range?: { min: number; max: number },
+): { symmetric: [number, number]; shortest: [number, number] } {
   const q = checkArguments(values.length, p);
-  const tails = tailsOf(values, q);
+  const tails = tailsOf(values, q, range);
   return { symmetric: symmetricFromTails(tails, q), shortest: shortestFromTails(tails, q) };
 }
 

@@ -200,11 +200,12 @@ function checkTrials(trials: number): void {
 /** Summary of M model values: estimate and u (7.6), both intervals (7.7), histogram. Reorders `values`. */
 function summarize(values: Float64Array, p: number, binCount?: number, timer?: PhaseTimer) {
   let since = timer ? timer.now() : 0;
-  const { mean, standardDeviation } = meanAndStandardDeviation(values);
+  const { mean, standardDeviation, min, max } = meanAndStandardDeviation(values);
   if (timer) since = addElapsed(timer, 'moments', since);
-  const histogram = histogramBins(values, binCount);
+  const range = { min, max };
+  const histogram = histogramBins(values, binCount, range);
   if (timer) since = addElapsed(timer, 'histogram', since);
-  const { symmetric, shortest } = coverageIntervals(values, p);
+  const { symmetric, shortest } = coverageIntervals(values, p, range);
   if (timer) addElapsed(timer, 'intervals', since);
   return { estimate: mean, standardUncertainty: standardDeviation, interval: symmetric, shortestInterval: shortest, histogram };
 }

@@ -1,7 +1,9 @@
 /*
- * Ascending sort of doubles by least-significant-digit radix sort on their
- * 64-bit patterns: no comparisons, so no mispredicted branches, which make a
- * comparison sort of random model values several times slower.
+ * Ascending sort of doubles without comparison sorting, whose mispredicted
+ * branches make it several times slower on random model values: a bucket
+ * sort over n equal buckets between min and max (model values have smooth
+ * densities, so buckets hold a few values each), and, when some bucket is
+ * crowded, a least-significant-digit radix sort on the 64-bit patterns.
  */
 
 const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
@@ -17,15 +19,77 @@ const PASSES: readonly (readonly [word: 0 | 1, shift: number, bits: number])[] =
   [1, 22, 10],
 ];
 
+/** A bucket may hold this many values before the bucket sort gives way to the radix sort (insertion sort is quadratic). */
+const CROWDED = 48;
+
 /**
- * Sorts `values` ascending in place (the order of Float64Array.prototype.sort
- * for finite values; NaN is not expected). Each double becomes an unsigned
+ * Sorts `values` ascending in place, the order of Float64Array.prototype.sort
+ * for finite values (NaN is not expected). Bucket b = ⌊(y − min)·n/(max − min)⌋
+ * of n buckets; values are counted, scattered in bucket order into a buffer,
+ * and each bucket is finished by insertion sort. Falls back to
+ * radixSortFloat64 when a bucket holds more than 48 values. Cost: O(n) time for
+ * smooth densities, 12·n bytes of buffers.
+ */
+export function sortFloat64(values: Float64Array): void {
+  const n = values.length;
+  if (n < SMALL) {
+    values.sort();
+    return;
+  }
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const y = values[i];
+    if (y < min) min = y;
+    if (y > max) max = y;
+  }
+  const scale = n / (max - min);
+  if (!(scale > 0 && scale < Infinity)) {
+    radixSortFloat64(values);
+    return;
+  }
+  // (y − min)·scale may reach n at the maximum: one extra bucket.
+  const starts = new Int32Array(n + 2);
+  for (let i = 0; i < n; i++) starts[(((values[i] - min) * scale) | 0) + 1]++;
+  let crowded = 0;
+  for (let b = 1; b <= n + 1; b++) {
+    if (starts[b] > crowded) crowded = starts[b];
+    starts[b] += starts[b - 1];
+  }
+  if (crowded > CROWDED) {
+    radixSortFloat64(values);
+    return;
+  }
+  const sorted = new Float64Array(n);
+  const next = starts.slice(0, n + 1);
+  for (let i = 0; i < n; i++) {
+    const y = values[i];
+    sorted[next[((y - min) * scale) | 0]++] = y;
+  }
+  for (let b = 0; b <= n; b++) {
+    const end = starts[b + 1];
+    for (let i = starts[b] + 1; i < end; i++) {
+      const y = sorted[i];
+      let j = i - 1;
+      while (j >= starts[b] && sorted[j] > y) {
+        sorted[j + 1] = sorted[j];
+        j--;
+      }
+      sorted[j + 1] = y;
+    }
+  }
+  values.set(sorted);
+}
+
+/**
+ * Sorts `values` ascending in place by LSD radix sort (the order of
+ * Float64Array.prototype.sort for finite values; NaN is not expected). Each double becomes an unsigned
  * 64-bit key that orders like the number: a positive value gets its sign bit
  * set, a negative value has all bits inverted. Passes whose digit is the same
  * for every key (e.g. sign and exponent of values in a narrow range) are skipped.
  * Cost: O(n) time, 16·n bytes of buffers.
  */
-export function sortFloat64(values: Float64Array): void {
+export function radixSortFloat64(values: Float64Array): void {
   const n = values.length;
   if (n < SMALL) {
     values.sort();

@@ -80,8 +80,12 @@ export class UniformGenerator {
     this.s3 = s3;
   }
 
-  /** Fills out[0..n) (n defaults to out.length) with uniforms in (0, 1). */
-  fill(out: Float64Array, n: number = out.length): void {
+  /**
+   * Fills out[0..n) (n defaults to out.length) with uniforms r in (0, 1), or
+   * with lower + width·r when those are given (0 + 1·r is exactly r), which
+   * saves a rectangular sampler a second pass over the block.
+   */
+  fill(out: Float64Array, n: number = out.length, lower = 0, width = 1): void {
     // State in locals: about three times faster than reading and writing fields per draw.
     let s0 = this.s0;
     let s1 = this.s1;
@@ -115,7 +119,7 @@ export class UniformGenerator {
         s3 = (s3 << 11) | (s3 >>> 21);
         k = (hi >>> 11) * TWO_POW_32 + (lo >>> 0);
       } while (k === 0);
-      out[i] = k * TWO_POW_MINUS_53;
+      out[i] = lower + width * (k * TWO_POW_MINUS_53);
     }
     this.s0 = s0;
     this.s1 = s1;

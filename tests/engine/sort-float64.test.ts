@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { sortFloat64 } from '../../shared/montecarlo/radix-sort';
+import { radixSortFloat64, sortFloat64 } from '../../shared/montecarlo/sort-float64';
 import { coverageIntervals } from '../../shared/montecarlo/coverage-interval';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
 import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
@@ -15,7 +15,13 @@ function byBuiltInSort(values: Float64Array): number[] {
   return Array.from(Float64Array.from(values).sort());
 }
 
-describe('sortFloat64', () => {
+const crowded = normals('rs-crowd', 20_000);
+crowded[7] = 1e9; // one far value crowds the rest into the first buckets: the radix path
+
+describe.each([
+  ['sortFloat64', sortFloat64],
+  ['radixSortFloat64', radixSortFloat64],
+])('%s', (_name, sort) => {
   it.each([
     ['normal values', normals('rs-n', 50_000)],
     ['positive values with a large offset', normals('rs-off', 20_000).map((z) => 1e5 + 0.05 * z)],
@@ -24,10 +30,12 @@ describe('sortFloat64', () => {
     ['ties on a coarse grid', normals('rs-ties', 10_000).map((z) => Math.round(z * 4) / 4)],
     ['values already sorted', Float64Array.from(byBuiltInSort(normals('rs-sorted', 4_000)))],
     ['a short array (built-in path)', normals('rs-short', 100)],
+    ['values crowded by one far value', crowded],
+    ['all values equal', new Float64Array(3000).fill(2.5)],
   ])('orders %s exactly as the built-in sort', (_label, x) => {
     const expected = byBuiltInSort(x);
     const y = Float64Array.from(x);
-    sortFloat64(y);
+    sort(y);
     expect(Array.from(y)).toEqual(expected);
   });
 
@@ -35,7 +43,7 @@ describe('sortFloat64', () => {
     const x = normals('rs-view', 6_000);
     const head = Array.from(x.subarray(0, 1000));
     const expected = byBuiltInSort(x.subarray(1000, 5000));
-    sortFloat64(x.subarray(1000, 5000));
+    sort(x.subarray(1000, 5000));
     expect(Array.from(x.subarray(1000, 5000))).toEqual(expected);
     expect(Array.from(x.subarray(0, 1000))).toEqual(head);
   });
