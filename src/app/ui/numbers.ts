@@ -57,10 +57,11 @@ export function formatSignificant(x: number, sig = 3): string {
 /** Formats x at the decimal place 10^exponent, in ×10ⁿ form when that place is very small or large. */
 export function formatAt(x: number, exponent: number): string {
   if (!Number.isFinite(x)) return formatSignificant(x);
-  const mag = x === 0 ? exponent : Math.floor(Math.log10(Math.abs(x)));
-  if (exponent < -6 || mag >= 9 || (mag < -3 && exponent < -5)) {
+  if (x === 0) return '0';
+  const mag = Math.floor(Math.log10(Math.abs(x)));
+  if (exponent < -6 || mag >= 9) {
     // scientific: choose the power of x (or of the place when x is 0)
-    const p = x === 0 ? exponent : mag;
+    const p = mag;
     const digits = Math.max(0, p - exponent);
     const mantissa = x / 10 ** p;
     return `${groupDigits(mantissa.toFixed(Math.min(digits, 20)))}×10${superscriptExponent(p)}`;
@@ -99,7 +100,7 @@ export function formatPercent(share: number): string {
 export function formatDof(dof: number | null | undefined): string {
   if (dof === null || dof === undefined || !Number.isFinite(dof)) return '∞';
   if (dof >= 1e6) return formatSignificant(dof, 2);
-  return dof >= 100 ? groupDigits(dof.toFixed(0)) : dof.toFixed(dof % 1 === 0 ? 0 : 1);
+  return dof % 1 === 0 ? groupDigits(dof.toFixed(0)) : groupDigits(dof.toFixed(1));
 }
 
 export function formatDateTime(ms: number): string {

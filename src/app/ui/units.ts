@@ -101,6 +101,8 @@ export function ratioUnit(numerator: string | undefined, denominator: string | u
   const d = formatUnit(denominator);
   if (!d) return n;
   if (n === d) return '';
+  const inverse = /^1\/(.+)$/.exec(d);
+  if (inverse) return n ? `${n}·${inverse[1]}` : inverse[1];
   const wrap = (s: string) => (/[/·]/.test(s) ? `(${s})` : s);
   return `${n ? wrap(n) : '1'}/${wrap(d)}`;
 }

@@ -35,11 +35,7 @@ export function evaluateDraft(doc: BudgetDocument): LiveOutcome {
   const value = clean(doc);
   const problems = budgetProblems(value);
   if (problems.length) {
-    return {
-      problems: problems.map((p) => ({ ...p, message: p.message === 'must be a number' || p.message.startsWith('must be') ? p.message : p.message })),
-      result: null,
-      valid: null,
-    };
+    return { problems, result: null, valid: null };
   }
   try {
     const result = computeBudget(value as BudgetDocument, { monteCarlo: false });

@@ -2,7 +2,7 @@ import type { BudgetResult } from '../../../../shared/budget/result';
 import type { InputQuantity } from '../../../../shared/budget/schema';
 import { formatDof, formatPercent, formatSignificant, formatUncertainty, formatWithUncertainty, fullPrecision, splitDecimal } from '../../../app/ui/numbers';
 import { Sym, Unit } from '../../../app/ui/quantity';
-import { ratioUnit } from '../../../app/ui/units';
+import { formatUnit, ratioUnit } from '../../../app/ui/units';
 import { KIND_SHORT } from './kinds';
 
 /** A column of numbers aligned on the decimal sign. */
@@ -65,7 +65,12 @@ export function BudgetTable({
             <th scope="col" className={`${th} text-left`}>Distribution</th>
             <th scope="col" className={`${th} text-right`}>u(xᵢ)</th>
             <th scope="col" className={`${th} text-right`}>cᵢ</th>
-            <th scope="col" className={`${th} text-right`}>|cᵢ|·u(xᵢ)</th>
+            <th scope="col" className={`${th} text-left`}>
+              <span className="sr-only">Unit of cᵢ</span>
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              |cᵢ|·u(xᵢ){formatUnit(yUnit) ? <span className="font-normal"> / {formatUnit(yUnit)}</span> : null}
+            </th>
             <th scope="col" className={`${th} text-right`}>Share</th>
             <th scope="col" className={`${th} text-right`}>νᵢ</th>
           </tr>
@@ -103,13 +108,10 @@ export function BudgetTable({
                 </td>
                 <td className="px-2 py-1 text-right">
                   <Aligned text={cols.c[i]} w={w.c} value={c.sensitivity} />
-                  <span className="ml-1 text-xs text-stone-600">{ratioUnit(yUnit, c.unit)}</span>
                 </td>
+                <td className="whitespace-nowrap px-1 py-1 text-left text-xs text-stone-600">{ratioUnit(yUnit, c.unit)}</td>
                 <td className="px-2 py-1 text-right">
                   <Aligned text={cols.cu[i]} w={w.cu} value={c.contribution} />
-                  <span className="ml-1 text-xs text-stone-600">
-                    <Unit u={yUnit} />
-                  </span>
                 </td>
                 <td className="num px-2 py-1 text-right">{formatPercent(c.varianceShare)}</td>
                 <td className="px-2 py-1 text-right">
