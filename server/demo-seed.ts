@@ -7,7 +7,7 @@ import type { SessionUser } from './http/request-user';
 
 export const DEMO_PASSWORD = 'dubito-demo';
 
-/** The fictional Tarnwick Vale Calibration Laboratory. */
+/** The fictional Kestrel Fen Metrology Laboratory. */
 const PEOPLE: { role: Role; name: string }[] = [
   { role: 'admin', name: 'Orla Fenwick' },
   { role: 'metrologist', name: 'Tobin Marsh' },
@@ -29,7 +29,7 @@ const gaugeTemplate = {
     { symbol: 'dalpha', unit: '1/degC', description: 'difference of expansion coefficients', distribution: { kind: 'rectangular', value: 0, halfWidth: 1e-6 } },
     { symbol: 'theta_s', unit: 'degC', description: 'deviation of the bench from 20 °C', distribution: { kind: 'arcsine', value: 0, halfWidth: 0.5 } },
   ],
-  monteCarlo: { trials: 100000, seed: 'tarnwick-gb' },
+  monteCarlo: { trials: 100000, seed: 'kestrel-gb' },
 };
 
 const thermometerTemplate = {
@@ -44,7 +44,7 @@ const thermometerTemplate = {
     { symbol: 'dt_drift', unit: 'degC', description: 'drift of the reference since calibration', distribution: { kind: 'rectangular', value: 0, halfWidth: 0.006 } },
     { symbol: 'dt_bath', unit: 'degC', description: 'inhomogeneity of the bath', distribution: { kind: 'triangular', value: 0, halfWidth: 0.01 } },
   ],
-  monteCarlo: { trials: 100000, seed: 'tarnwick-th' },
+  monteCarlo: { trials: 100000, seed: 'kestrel-th' },
 };
 
 function resistorVersion(step: 1 | 2 | 3) {
@@ -62,7 +62,7 @@ function resistorVersion(step: 1 | 2 | 3) {
     measurand: { symbol: 'R_x', unit: 'ohm', description: 'resistance at 23 °C' },
     model: step >= 2 ? 'R_x = (R_s + dR_drift + dR_T) * r' : 'R_x = (R_s + dR_drift) * r',
     inputs,
-    monteCarlo: { trials: 100000, seed: 'tarnwick-r10k' },
+    monteCarlo: { trials: 100000, seed: 'kestrel-r10k' },
   };
 }
 
