@@ -2,7 +2,7 @@ import type { Contribution, GumResult } from '../budget/result';
 import type { CompiledModel } from '../model/compile-model';
 import { coverageFactorFor } from '../statistics/student-t';
 import { combinedVariance } from './combined-uncertainty';
-import { gradientOf, secondOrderVarianceTerms } from './second-order';
+import { secondOrderVarianceTerms } from './second-order';
 import { centralDifference, differenceStep, sensitivityCoefficients } from './sensitivity';
 import { effectiveDegreesOfFreedom } from './welch-satterthwaite';
 
@@ -52,7 +52,8 @@ export function propagateGum(
       if (p && methods[i] === 'symbolic') return p;
       return (at: ArrayLike<number>) => centralDifference(model.value, at, i, differenceStep(at[i], u[i]));
     });
-    const extra = secondOrderVarianceTerms(gradientOf(partials), x, u);
+    const reads = partials.map((_, i) => (model.partials[i] && methods[i] === 'symbolic' ? model.partialReads[i] : null));
+    const extra = secondOrderVarianceTerms(partials, reads, x, u);
     standardUncertaintySecondOrder = Number.isFinite(extra) ? Math.sqrt(Math.max(variance + extra, 0)) : null;
     if (standardUncertaintySecondOrder !== null && standardUncertainty > 0 && standardUncertaintySecondOrder > SECOND_ORDER_WARNING_RATIO * standardUncertainty) {
       const pct = ((standardUncertaintySecondOrder / standardUncertainty - 1) * 100).toFixed(0);

@@ -36,6 +36,23 @@ const BINARY: Record<string, string> = { add: '+', subtract: '-', multiply: '*',
 
 export class UnsupportedInCode extends Error {}
 
+/** Code that needs no parentheses: a number literal, a name or an input read x[i]. */
+const ATOM = /^[\w.]+(\[\d+\])?$/;
+
+/**
+ * a + 0, 0 + a, a − 0, a·1, 1·a and a/1 are a for every a, finite or not (up
+ * to the sign of a zero), so they are left out of the code. Symbolic
+ * derivatives are full of them (0 for every term without the variable) and
+ * run several times faster without. Products with 0 are kept: 0·∞ is NaN.
+ */
+function exactIdentity(fn: string, a: string, b: string): string | null {
+  if (fn === 'add') return a === '0' ? b : b === '0' ? a : null;
+  if (fn === 'subtract') return b === '0' ? a : null;
+  if (fn === 'multiply') return a === '1' ? b : b === '1' ? a : null;
+  if (fn === 'divide') return b === '1' ? a : null;
+  return null;
+}
+
 /**
  * Translates an expression tree into a JavaScript expression. `symbol` maps a
  * model symbol to the JavaScript that reads it. Throws UnsupportedInCode for
@@ -53,11 +70,17 @@ export function toJavaScript(node: MathNode, symbol: (name: string) => string): 
       if (n.name === 'pi') return 'Math.PI';
       if (n.name === 'e') return 'Math.E';
       return symbol(n.name);
-    case 'ParenthesisNode':
-      return `(${toJavaScript(n.content, symbol)})`;
+    case 'ParenthesisNode': {
+      const inner = toJavaScript(n.content, symbol);
+      return ATOM.test(inner) ? inner : `(${inner})`;
+    }
     case 'OperatorNode': {
       const args = (n.args as MathNode[]).map((a) => toJavaScript(a, symbol));
-      if (n.fn in BINARY && args.length === 2) return `(${args[0]} ${BINARY[n.fn]} ${args[1]})`;
+      if (n.fn in BINARY && args.length === 2) {
+        const identity = exactIdentity(n.fn as string, args[0], args[1]);
+        if (identity !== null) return identity;
+        return `(${args[0]} ${BINARY[n.fn]} ${args[1]})`;
+      }
       if (n.fn === 'unaryMinus') return `(-${args[0]})`;
       if (n.fn === 'unaryPlus') return args[0];
       if (n.fn === 'pow') return `Math.pow(${args[0]}, ${args[1]})`;

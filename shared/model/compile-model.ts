@@ -42,6 +42,8 @@ export interface CompiledModel {
   evaluateBlock(columns: readonly Float64Array[], out: Float64Array, offset: number, n: number): void;
   /** ∂f/∂x_i compiled from the symbolic derivative; null where mathjs could not differentiate. */
   partials: (ScalarFunction | null)[];
+  /** For each partial, the input indices its code reads (sorted; [] for an unused input, null where there is no symbolic partial). */
+  partialReads: (readonly number[] | null)[];
 }
 
 function unitOf(q: ModelQuantity, field: string): QuantityUnit {
@@ -73,15 +75,18 @@ function inlineLines(lines: readonly ModelLine[], inputIndex: Map<string, number
   });
 }
 
-function symbolicPartial(tree: MathNode, i: number, scale: number): ScalarFunction | null {
+function symbolicPartial(tree: MathNode, i: number, scale: number): { partial: ScalarFunction; reads: number[] } | null {
   try {
     const d = derivative(tree, `x${i}`, { simplify: false });
+    const reads = new Set<number>();
     const code = toJavaScript(d, (name) => {
       const m = /^x(\d+)$/.exec(name);
       if (!m) throw new UnsupportedInCode(name);
+      reads.add(Number(m[1]));
       return `x[${m[1]}]`;
     });
-    return new Function('x', `"use strict"; return (${code}) * ${scale};`) as ScalarFunction;
+    const partial = new Function('x', `"use strict"; return (${code}) * ${scale};`) as ScalarFunction;
+    return { partial, reads: [...reads].sort((a, b) => a - b) };
   } catch {
     return null;
   }
@@ -179,7 +184,7 @@ out[offset + t] = ${last} * ${invScale};
 
   const trees = inlineLines(parsed.lines, inputIndex, factors, constantsSI);
   const yTree = trees[trees.length - 1];
-  const partials = inputSymbols.map((s, i) => (parsed.usedSymbols.has(s) ? symbolicPartial(yTree, i, invScale) : () => 0));
+  const symbolic = inputSymbols.map((s, i) => (parsed.usedSymbols.has(s) ? symbolicPartial(yTree, i, invScale) : { partial: () => 0, reads: [] }));
 
   return {
     inputSymbols,
@@ -191,6 +196,7 @@ out[offset + t] = ${last} * ${invScale};
     lineValues: lineValuesFn,
     lineUnits,
     evaluateBlock,
-    partials,
+    partials: symbolic.map((p) => p?.partial ?? null),
+    partialReads: symbolic.map((p) => p?.reads ?? null),
   };
 }
