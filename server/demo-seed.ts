@@ -49,7 +49,7 @@ const thermometerTemplate = {
 
 function resistorVersion(step: 1 | 2 | 3) {
   const inputs: unknown[] = [
-    { symbol: 'R_s', unit: 'ohm', description: 'reference resistor TV-R10K-3, certificate value', distribution: { kind: 'normal', value: 10000.053, U: step === 3 ? 0.004 : 0.005, k: 2 } },
+    { symbol: 'R_s', unit: 'ohm', description: 'reference resistor KF-R10K-3, certificate value', distribution: { kind: 'normal', value: 10000.053, U: step === 3 ? 0.004 : 0.005, k: 2 } },
     { symbol: 'r', description: 'ratio of the readings', distribution: { kind: 'observations', values: [1.0000121, 1.0000118, 1.0000124, 1.0000119, 1.000012] } },
     { symbol: 'dR_drift', unit: 'ohm', description: 'drift of the reference since its calibration', distribution: { kind: 'rectangular', value: 0, halfWidth: 0.003 } },
   ];
@@ -58,7 +58,7 @@ function resistorVersion(step: 1 | 2 | 3) {
   }
   return {
     format: 'dubito-budget/1',
-    title: 'Resistor TV-R10K-7 by substitution against a reference',
+    title: 'Resistor KF-R10K-7 by substitution against a reference',
     measurand: { symbol: 'R_x', unit: 'ohm', description: 'resistance at 23 °C' },
     model: step >= 2 ? 'R_x = (R_s + dR_drift + dR_T) * r' : 'R_x = (R_s + dR_drift) * r',
     inputs,
@@ -106,7 +106,7 @@ export async function seedDemo(s: Services, opts: { examplesDir: string; log: (m
   await s.reviews.transition(reviewer, r.id, { to: 'approved', password: DEMO_PASSWORD });
 
   // A trainee's draft cloned from a template.
-  await s.budgets.clone(trainee, gauge.id, { title: 'Gauge block TV-GB-50-114 (training)' });
+  await s.budgets.clone(trainee, gauge.id, { title: 'Gauge block KF-GB-50-114 (training)' });
   await s.mail.flush();
   opts.log('demo data: 5 accounts (password dubito-demo), templates, examples and a reviewed budget');
 }
