@@ -59,7 +59,7 @@ export function formatAt(x: number, exponent: number): string {
   if (!Number.isFinite(x)) return formatSignificant(x);
   if (x === 0) return '0';
   const mag = Math.floor(Math.log10(Math.abs(x)));
-  if (exponent < -6 || mag >= 9) {
+  if ((exponent < -6 && mag < -2) || mag >= 9) {
     // scientific: choose the power of x (or of the place when x is 0)
     const p = mag;
     const digits = Math.max(0, p - exponent);

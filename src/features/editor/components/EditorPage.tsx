@@ -7,7 +7,7 @@ import { addPhysicalConstant } from '../../../../shared/constants/add-constant';
 import { canEditBudget, can, isEditableStatus } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Field, NumberInput, Spinner, TextInput } from '../../../app/ui/controls';
-import { formatDateTime } from '../../../app/ui/numbers';
+import { formatDateTime, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
 import { StatusBadge } from '../../../app/ui/status-badge';
 import { useToast } from '../../../app/ui/toasts';
 import { formatUnit } from '../../../app/ui/units';
@@ -269,6 +269,15 @@ function Editor({
   return (
     <div className="mx-auto grid max-w-[1600px] grid-cols-1 gap-5 px-4 py-4 lg:grid-cols-[minmax(0,1fr)_360px] lg:px-6">
       <div className="flex min-w-0 flex-col gap-4">
+        {live.result ? (
+          <div className="sticky top-[52px] z-20 -mx-4 flex flex-wrap items-baseline gap-x-5 gap-y-0.5 border-b border-stone-300 bg-white/95 px-4 py-1.5 text-sm shadow-sm lg:hidden" aria-hidden>
+            <span className="num font-semibold">
+              {live.result.measurand.symbol} = {formatWithUncertainty(live.result.gum.estimate, live.result.gum.expandedUncertainty)} {formatUnit(live.result.measurand.unit)}
+            </span>
+            <span className="num">U = {formatUncertainty(live.result.gum.expandedUncertainty)} {formatUnit(live.result.measurand.unit)}</span>
+            <span className="num text-stone-700">k = {live.result.gum.coverageFactor.toFixed(2)}</span>
+          </div>
+        ) : null}
         <header className="flex flex-col gap-2">
           <nav aria-label="Breadcrumb" className="text-xs text-stone-600">
             <Link to="/budgets" className="hover:text-accent-700 hover:underline">
@@ -388,7 +397,7 @@ function Editor({
           <ModelEditor value={doc.model} readOnly={readOnly} problem={modelProblem} onChange={(model) => setDoc((d) => ({ ...d, model }))} />
         </Section>
 
-        <Section id="inputs" title={`Input quantities (${doc.inputs.length})`} description="Drag the handle, or focus it and press space and the arrow keys, to change the order.">
+        <Section id="inputs" title={`Input quantities (${doc.inputs.length})`} description={readOnly ? 'Open a row to see how the input was evaluated.' : 'Drag the handle, or focus it and press space and the arrow keys, to change the order.'}>
           <InputsList
             items={items}
             onItems={setItems}

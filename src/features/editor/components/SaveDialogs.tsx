@@ -56,6 +56,8 @@ export function SaveDialog({
 
 interface DiffSummary {
   model: { changed: boolean };
+  measurand: { field: string }[];
+  other: { field: string }[];
   inputs: { added: { symbol?: string }[]; removed: { symbol?: string }[]; changed: { key: string; changes: { field: string }[] }[] };
   result: { expandedUncertainty: { from: number | null; to: number | null } };
 }
@@ -105,6 +107,12 @@ export function ConflictDialog({
         <div className="rounded-md bg-stone-50 p-2 text-sm text-stone-800">
           <p className="font-medium">What changed from v{baseVersion} to v{currentVersion}</p>
           <ul className="ml-4 list-disc">
+            {d.other.map((c) => (
+              <li key={`o${c.field}`}>{c.field}</li>
+            ))}
+            {d.measurand.map((c) => (
+              <li key={`m${c.field}`}>measurand {c.field}</li>
+            ))}
             {d.model.changed ? <li>the model</li> : null}
             {d.inputs.added.map((q, i) => (
               <li key={`a${i}`}>input {q.symbol} added</li>
