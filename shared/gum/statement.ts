@@ -14,10 +14,13 @@ export function certificateStatement(symbol: string, unit: string | undefined, g
   const u = unit && unit !== '1' ? ` ${unit}` : '';
   const pct = `${+(gum.coverageProbability * 100).toFixed(2)} %`;
   const k = gum.coverageFactor.toFixed(2);
+  // Beyond a few hundred degrees of freedom t_p differs from the normal quantile only in the third digit of k.
   const dof =
     gum.effectiveDof === null
       ? 'a normal distribution'
-      : `a t-distribution with ν_eff = ${Math.floor(gum.effectiveDof)} effective degrees of freedom`;
+      : gum.effectiveDof >= 1000
+        ? 'a t-distribution with more than 1000 effective degrees of freedom'
+        : `a t-distribution with ν_eff = ${Math.floor(gum.effectiveDof)} effective degrees of freedom`;
   return (
     `${symbol} = (${y} ± ${U})${u}. The reported expanded uncertainty is the combined standard uncertainty ` +
     `multiplied by the coverage factor k = ${k}, which for ${dof} corresponds to a coverage probability of approximately ${pct}.`
