@@ -127,7 +127,11 @@ function tailDraw(rng: UniformGenerator): number {
  */
 export function fillNormal(rng: UniformGenerator, out: Float64Array, n: number, mean: number, standardDeviation: number): void {
   if (raw === null) raw = new Int32Array(RAW_LENGTH);
+  // Tables and constants in locals: module-level bindings cost a context load (and a hole check) per use.
   const words = raw;
+  const edges = X;
+  const toUnit = TWO_POW_MINUS_53;
+  const high = TWO_POW_32;
   let available = 0;
   let used = 0;
   let i = 0;
@@ -142,8 +146,8 @@ export function fillNormal(rng: UniformGenerator, out: Float64Array, n: number, 
     const b = words[used + 1];
     used += 2;
     const layer = a & 255;
-    let x = ((a >>> 11) * TWO_POW_32 + (b >>> 0)) * TWO_POW_MINUS_53 * X[layer];
-    if (x >= X[layer + 1]) {
+    let x = ((a >>> 11) * high + (b >>> 0)) * toUnit * edges[layer];
+    if (x >= edges[layer + 1]) {
       x = rareDraw(rng, layer, x);
       if (x !== x) continue; // rejected in the wedge: a new attempt
     }
