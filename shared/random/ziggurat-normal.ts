@@ -101,7 +101,11 @@ export const zigguratTables: { readonly X: Float64Array; readonly F: Float64Arra
 const TWO_POW_32 = 4294967296;
 const TWO_POW_MINUS_53 = 1 / 9007199254740992;
 const RAW_LENGTH = 8192;
-let raw: Int32Array | null = null;
+/** Raw words for the fill loop (32 KB, allocated once). */
+const RAW = new Int32Array(RAW_LENGTH);
+/** Output indices of the attempts of one block of RAW that the rare path finishes (at most one per attempt). */
+const PENDING = new Int32Array(RAW_LENGTH / 2);
+const single = new Int32Array(2);
 
 /**
  * A draw from the tail z > R (Marsaglia 1964): x = −ln(r₁)/R, y = −ln(r₂),
@@ -116,55 +120,77 @@ function tailDraw(rng: UniformGenerator): number {
 }
 
 /**
+ * Finishes an attempt that fell outside its inner rectangle: for the base
+ * strip a tail draw replaces x; otherwise a uniform r gives
+ * y = f(X[i]) + r·(f(X[i+1]) − f(X[i])), and x stands when y < f(x).
+ * Returns NaN when the wedge rejects x.
+ */
+function finishAttempt(rng: UniformGenerator, layer: number, x: number): number {
+  if (layer === 0) return tailDraw(rng);
+  return F[layer] + rng.next() * (F[layer + 1] - F[layer]) < exp(-0.5 * x * x) ? x : NaN;
+}
+
+/** A complete signed N(0, 1) draw, attempt after attempt (replaces an attempt the wedge rejected). */
+function freshDraw(rng: UniformGenerator): number {
+  for (;;) {
+    rng.fillRaw(single, 2);
+    const a = single[0];
+    const layer = a & 255;
+    let x = ((a >>> 11) * TWO_POW_32 + (single[1] >>> 0)) * TWO_POW_MINUS_53 * X[layer];
+    if (x >= X[layer + 1]) x = finishAttempt(rng, layer, x);
+    if (x === x) return x * (1 - ((a >>> 7) & 2));
+  }
+}
+
+/**
  * Fills out[0..n) with mean + σ·z, z independent N(0, 1) draws
  * (JCGM 101:2008 6.4.7), by the 256-layer ziggurat with the exact tail.
  *
  * Each attempt takes two 32-bit outputs a, b: layer i = a mod 256, the sign
  * from bit 8 of a, and u = (⌊a/2¹¹⌋·2³² + b)·2⁻⁵³ ∈ [0, 1); x = u·X[i] is
- * accepted when x < X[i+1]. Otherwise, for i ≥ 1, a uniform r gives
- * y = f(X[i]) + r·(f(X[i+1]) − f(X[i])) and x is accepted when y < f(x), else
- * the attempt is repeated; for i = 0 a tail draw replaces x.
+ * accepted when x < X[i+1]. The other attempts (about 1 %) are finished after
+ * the block: the wedge test or the tail draw, and a fresh draw for an
+ * attempt the wedge rejects. Output t is thus still the first accepted
+ * attempt of its own independent sequence of attempts.
  */
 export function fillNormal(rng: UniformGenerator, out: Float64Array, n: number, mean: number, standardDeviation: number): void {
-  if (raw === null) raw = new Int32Array(RAW_LENGTH);
   // Tables and constants in locals: module-level bindings cost a context load (and a hole check) per use.
-  const words = raw;
+  const words = RAW;
+  const pending = PENDING;
   const edges = X;
   const toUnit = TWO_POW_MINUS_53;
   const high = TWO_POW_32;
-  let available = 0;
-  let used = 0;
   let i = 0;
   while (i < n) {
-    if (used === available) {
-      // Exactly two words per remaining draw: attempts that fail take more from the next fill, so no word is wasted.
-      available = Math.min(RAW_LENGTH, 2 * (n - i));
-      rng.fillRaw(words, available);
-      used = 0;
+    // Two words per remaining output, one attempt each: the last block ends exactly at n.
+    const available = Math.min(RAW_LENGTH, 2 * (n - i));
+    rng.fillRaw(words, available);
+    const start = i;
+    let waiting = 0;
+    // The hot loop makes no calls, so nothing of the rare path weighs on it.
+    for (let used = 0; used < available; used += 2) {
+      const a = words[used];
+      const layer = a & 255;
+      const x = ((a >>> 11) * high + (words[used + 1] >>> 0)) * toUnit * edges[layer];
+      // Sign from bit 8 as a factor ±1: a branch on a random bit would be mispredicted half the time.
+      if (x < edges[layer + 1]) out[i++] = mean + standardDeviation * (x * (1 - ((a >>> 7) & 2)));
+      else pending[waiting++] = i++;
     }
-    const a = words[used];
-    const b = words[used + 1];
-    used += 2;
-    const layer = a & 255;
-    let x = ((a >>> 11) * high + (b >>> 0)) * toUnit * edges[layer];
-    if (x >= edges[layer + 1]) {
-      x = rareDraw(rng, layer, x);
-      if (x !== x) continue; // rejected in the wedge: a new attempt
-    }
-    // Sign from bit 8 as a factor ±1: a branch on a random bit would be mispredicted half the time.
-    out[i++] = mean + standardDeviation * (x * (1 - ((a >>> 7) & 2)));
+    if (waiting > 0) finishPending(rng, out, start, waiting, mean, standardDeviation);
   }
 }
 
-/**
- * The rare path of an attempt that fell outside the inner rectangle (about
- * 1 % of attempts): a tail draw for the base strip, else the wedge test with
- * a fresh uniform. Returns NaN when the wedge rejects x. Kept out of the fill
- * loop so that loop stays small.
- */
-function rareDraw(rng: UniformGenerator, layer: number, x: number): number {
-  if (layer === 0) return tailDraw(rng);
-  return F[layer] + rng.next() * (F[layer + 1] - F[layer]) < exp(-0.5 * x * x) ? x : NaN;
+/** Finishes the waiting attempts of the last block; output t came from the attempt in RAW[2(t − start)], RAW[2(t − start) + 1]. */
+function finishPending(rng: UniformGenerator, out: Float64Array, start: number, waiting: number, mean: number, standardDeviation: number): void {
+  for (let k = 0; k < waiting; k++) {
+    const t = PENDING[k];
+    const a = RAW[2 * (t - start)];
+    const layer = a & 255;
+    const x = ((a >>> 11) * TWO_POW_32 + (RAW[2 * (t - start) + 1] >>> 0)) * TWO_POW_MINUS_53 * X[layer];
+    const finished = finishAttempt(rng, layer, x);
+    const z = finished === finished ? finished * (1 - ((a >>> 7) & 2)) : freshDraw(rng);
+    out[t] = mean + standardDeviation * z;
+  }
 }
 
 /** Fills out[0..n) (n defaults to out.length) with independent N(0, 1) draws (JCGM 101:2008 6.4.7); see fillNormal. */
