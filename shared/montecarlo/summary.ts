@@ -12,23 +12,61 @@ export function meanAndStandardDeviation(
 ): { mean: number; standardDeviation: number; min: number; max: number } {
   const M = end - start;
   if (M < 1) throw new RangeError('needs at least one model value');
-  let sum = 0;
+  // Four partial sums per quantity: one running sum waits on the latency of each addition.
+  let s0 = 0;
+  let s1 = 0;
+  let s2 = 0;
+  let s3 = 0;
   let min = Infinity;
   let max = -Infinity;
-  for (let r = start; r < end; r++) {
+  const stop4 = start + ((M >> 2) << 2);
+  let r = start;
+  for (; r < stop4; r += 4) {
+    const a = values[r];
+    const b = values[r + 1];
+    const c = values[r + 2];
+    const d = values[r + 3];
+    s0 += a;
+    s1 += b;
+    s2 += c;
+    s3 += d;
+    const lo = a < b ? a : b;
+    const lo2 = c < d ? c : d;
+    const hi = a > b ? a : b;
+    const hi2 = c > d ? c : d;
+    if (lo < min) min = lo;
+    if (lo2 < min) min = lo2;
+    if (hi > max) max = hi;
+    if (hi2 > max) max = hi2;
+  }
+  for (; r < end; r++) {
     const y = values[r];
-    sum += y;
+    s0 += y;
     if (y < min) min = y;
     if (y > max) max = y;
   }
-  const first = sum / M;
-  let sumOfDeviations = 0;
-  let sumOfSquares = 0;
-  for (let r = start; r < end; r++) {
-    const d = values[r] - first;
-    sumOfDeviations += d;
-    sumOfSquares += d * d;
+  const first = (s0 + s1 + (s2 + s3)) / M;
+  let d0 = 0;
+  let d1 = 0;
+  let q0 = 0;
+  let q1 = 0;
+  for (r = start; r < stop4; r += 4) {
+    const a = values[r] - first;
+    const b = values[r + 1] - first;
+    const c = values[r + 2] - first;
+    const d = values[r + 3] - first;
+    d0 += a + b;
+    d1 += c + d;
+    q0 += a * a + b * b;
+    q1 += c * c + d * d;
   }
+  for (; r < end; r++) {
+    const a = values[r] - first;
+    d0 += a;
+    q0 += a * a;
+  }
+  const sumOfDeviations = d0 + d1;
+  const sumOfSquares = q0 + q1;
   const mean = first + sumOfDeviations / M;
   if (M < 2) return { mean, standardDeviation: 0, min, max };
   const variance = (sumOfSquares - (sumOfDeviations * sumOfDeviations) / M) / (M - 1);
