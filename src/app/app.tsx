@@ -6,10 +6,13 @@ import { BudgetsListPage } from '../features/budgets/components/BudgetsListPage'
 import { EditorPage } from '../features/editor/components/EditorPage';
 import { MonteCarloPanel } from '../features/monte-carlo/components/MonteCarloPanel';
 import { VersionsPage } from '../features/versions/components/VersionsPage';
+import { ReviewActions } from '../features/reviews/components/ReviewActions';
+import { CommentBadge, ReviewPanel, type ThreadKey } from '../features/reviews/components/ReviewPanel';
 import { ApiError } from './http';
 import { AppShell, NotFound, Placeholder, RequireAction, RequireSignIn } from './shell';
 import { ToastProvider } from './ui/toasts';
 import { useOutletContext } from 'react-router-dom';
+import { useState } from 'react';
 
 const queryClient = new QueryClient({
   defaultOptions: {
@@ -45,16 +48,30 @@ function BudgetsRoute() {
 }
 
 function EditorRoute() {
-  const me = useMeFromShell();
   const { id, n } = useParams();
+  return <EditorWithReview key={`${id}-${n ?? 'current'}`} id={id} n={n} />;
+}
+
+/** The editor with the review feature in its slots: comment badges on rows, the thread beside the table, the review actions. */
+function EditorWithReview({ id, n }: { id?: string; n?: string }) {
+  const me = useMeFromShell();
   const budgetId = id && id !== 'new' ? Number(id) : undefined;
+  const [thread, setThread] = useState<ThreadKey | null>(null);
   return (
     <EditorPage
-      key={`${id}-${n ?? 'current'}`}
       me={me}
       budgetId={budgetId}
       versionNumber={n ? Number(n) : undefined}
       renderMonteCarlo={(props) => <MonteCarloPanel {...props} />}
+      slots={
+        budgetId === undefined
+          ? undefined
+          : {
+              renderRowAdornment: (symbol) => <CommentBadge budgetId={budgetId} symbol={symbol} open={thread === symbol} onOpen={(s) => setThread((t) => (t === s ? null : s))} />,
+              renderHeaderActions: (ctx) => <ReviewActions ctx={ctx} me={me} />,
+              renderSidePanel: (ctx) => <ReviewPanel ctx={ctx} me={me} thread={thread} onThread={setThread} />,
+            }
+      }
     />
   );
 }

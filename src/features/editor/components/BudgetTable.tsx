@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import type { BudgetResult } from '../../../../shared/budget/result';
 import type { InputQuantity } from '../../../../shared/budget/schema';
 import { formatDof, formatPercent, formatSignificant, formatUncertainty, formatWithUncertainty, fullPrecision, splitDecimal } from '../../../app/ui/numbers';
@@ -36,11 +37,14 @@ export function BudgetTable({
   inputs,
   selected,
   onSelect,
+  adornment,
 }: {
   result: BudgetResult;
   inputs: InputQuantity[];
   selected?: string;
   onSelect(symbol: string): void;
+  /** Rendered after the symbol (e.g. a comment badge); it must not bubble clicks and keys to the row. */
+  adornment?(symbol: string): ReactNode;
 }) {
   const rows = result.gum.contributions;
   const yUnit = result.measurand.unit;
@@ -93,8 +97,9 @@ export function BudgetTable({
                 }}
                 className={`cursor-pointer border-b border-stone-100 last:border-0 ${isSel ? 'bg-accent-50' : 'hover:bg-stone-50'}`}
               >
-                <th scope="row" className="px-2 py-1 text-left font-semibold">
+                <th scope="row" className="whitespace-nowrap px-2 py-1 text-left font-semibold">
                   <Sym s={c.symbol} />
+                  {adornment ? adornment(c.symbol) : null}
                 </th>
                 <td className="px-2 py-1 text-right">
                   <Aligned text={cols.x[i]} w={w.x} value={c.estimate} />

@@ -4,7 +4,7 @@ import { Link, useBlocker, useNavigate } from 'react-router-dom';
 import type { BudgetResult, GumResult } from '../../../../shared/budget/result';
 import type { BudgetDocument, InputQuantity } from '../../../../shared/budget/schema';
 import { addPhysicalConstant } from '../../../../shared/constants/add-constant';
-import { canEditBudget, can, isEditableStatus } from '../../../../shared/policy/policy';
+import { canEditBudget, can, isEditableStatus, type BudgetStatus } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Field, NumberInput, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
@@ -41,6 +41,32 @@ export interface MonteCarloSlotProps {
   readOnly: boolean;
 }
 
+/** What the editor tells the review slots (filled by the app) about the budget on screen. */
+export interface BudgetSlotProps {
+  budgetId: number;
+  /** The version on screen. */
+  version: number;
+  currentVersion: number;
+  viewingOld: boolean;
+  facts: { ownerId: number; status: BudgetStatus; isTemplate: boolean };
+  returned: boolean;
+  /** Author of the current version (who may not approve it). */
+  versionAuthorId: number;
+  /** Input symbols of the version on screen. */
+  symbols: string[];
+  dirty: boolean;
+}
+
+/** Optional slots the app fills with other features' components. */
+export interface EditorSlots {
+  /** Rendered in the symbol cell of each budget-table row (e.g. a comment badge). */
+  renderRowAdornment?(symbol: string): ReactNode;
+  /** Extra buttons in the header (e.g. submit, approve, return). */
+  renderHeaderActions?(props: BudgetSlotProps): ReactNode;
+  /** A panel in the side column beside the budget (e.g. review threads). */
+  renderSidePanel?(props: BudgetSlotProps): ReactNode;
+}
+
 let keySeq = 0;
 const newKey = () => `q${++keySeq}`;
 
@@ -57,6 +83,26 @@ function newDocument(): BudgetDocument {
     coverageProbability: 0.95,
     monteCarlo: { trials: 200000, seed: `dubito-${Math.random().toString(36).slice(2, 8)}` },
   };
+}
+
+/** Where a cloned budget came from: the template or budget and its version. */
+function SourceNote({ source }: { source: NonNullable<BudgetView['source']> }) {
+  const origin = useBudget(source.budgetId);
+  const kind = origin.data?.isTemplate ? 'template' : 'budget';
+  return (
+    <p data-testid="budget-source" className="text-xs text-stone-700">
+      <span aria-hidden>⎘ </span>Cloned from {origin.data ? kind : 'budget'}{' '}
+      <Link to={`/budgets/${source.budgetId}`} className="font-medium text-accent-700 underline">
+        {origin.data?.title ?? `budget ${source.budgetId}`}
+      </Link>
+      {source.version ? (
+        <>
+          , <span className="num">version {source.version}</span>
+        </>
+      ) : null}
+      .
+    </p>
+  );
 }
 
 function Section({ id, title, children, actions, description }: { id: string; title: string; children: ReactNode; actions?: ReactNode; description?: ReactNode }) {
@@ -81,11 +127,13 @@ export function EditorPage({
   budgetId,
   versionNumber,
   renderMonteCarlo,
+  slots,
 }: {
   me: Me;
   budgetId?: number;
   versionNumber?: number;
   renderMonteCarlo(props: MonteCarloSlotProps): ReactNode;
+  slots?: EditorSlots;
 }) {
   const budget = useBudget(budgetId);
   const version = useBudgetVersion(budgetId, versionNumber);
@@ -111,7 +159,7 @@ export function EditorPage({
   }
   const viewingOld = versionNumber !== undefined && loaded && versionNumber !== loaded.currentVersion;
   const start = viewingOld && version.data ? { document: version.data.document, result: version.data.result, version: version.data.number } : loaded ? { document: loaded.document, result: loaded.result, version: loaded.currentVersion } : null;
-  return <Editor me={me} budgetId={budgetId} view={loaded ?? null} start={start} viewingOld={!!viewingOld} renderMonteCarlo={renderMonteCarlo} />;
+  return <Editor me={me} budgetId={budgetId} view={loaded ?? null} start={start} viewingOld={!!viewingOld} renderMonteCarlo={renderMonteCarlo} slots={slots ?? {}} />;
 }
 
 function Editor({
@@ -121,6 +169,7 @@ function Editor({
   start,
   viewingOld,
   renderMonteCarlo,
+  slots,
 }: {
   me: Me;
   budgetId?: number;
@@ -128,6 +177,7 @@ function Editor({
   start: { document: BudgetDocument; result: BudgetResult; version: number } | null;
   viewingOld: boolean;
   renderMonteCarlo(props: MonteCarloSlotProps): ReactNode;
+  slots: EditorSlots;
 }) {
   const initialDoc = useMemo(() => start?.document ?? newDocument(), [start?.document]);
   const [doc, setDocState] = useState<BudgetDocument>(initialDoc);
@@ -264,6 +314,21 @@ function Editor({
     setOpenKeys((s) => new Set(s).add(key));
   };
 
+  const slotProps: BudgetSlotProps | null =
+    view && budgetId !== undefined
+      ? {
+          budgetId,
+          version: baseVersion,
+          currentVersion: view.currentVersion,
+          viewingOld,
+          facts: { ownerId: view.ownerId, status: view.status, isTemplate: view.isTemplate },
+          returned: view.returned,
+          versionAuthorId: view.version.authorId,
+          symbols: (start?.document ?? doc).inputs.map((q) => q.symbol),
+          dirty: dirty && !readOnly,
+        }
+      : null;
+
   const status = view ? <StatusBadge status={view.status} returned={view.returned} /> : <StatusBadge status="draft" />;
 
   return (
@@ -305,6 +370,7 @@ function Editor({
             ) : null}
             {dirty && !readOnly ? <span className="rounded bg-caution-50 px-2 py-0.5 text-xs font-medium text-caution-700">● unsaved changes</span> : null}
           </div>
+          {view?.source ? <SourceNote source={view.source} /> : null}
           {problemAt(live.problems, 'title') ? <p className="text-xs text-caution-700">Title: {problemAt(live.problems, 'title')}</p> : null}
           <div className="flex flex-wrap gap-2">
             {!readOnly ? (
@@ -319,7 +385,14 @@ function Editor({
             ) : null}
             {!isNew ? (
               <>
+                {slotProps && slots.renderHeaderActions ? slots.renderHeaderActions(slotProps) : null}
                 <Button onClick={() => navigate(`/budgets/${budgetId}/versions`)}>Versions</Button>
+                <Link
+                  to={`/budgets/${budgetId}/versions/${baseVersion}/report`}
+                  className="inline-flex items-center rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm font-medium text-stone-800 hover:bg-stone-100"
+                >
+                  Report
+                </Link>
                 <a href={`/api/budgets/${budgetId}/export?version=${baseVersion}`} download className="inline-flex items-center rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm font-medium text-stone-800 hover:bg-stone-100">
                   Export file
                 </a>
@@ -457,7 +530,13 @@ function Editor({
         <Section id="budget" title="Uncertainty budget" description="Recomputed on every edit. Select a row to see how its numbers were obtained.">
           {live.result ? (
             <div className="grid gap-3 2xl:grid-cols-[minmax(0,1fr)_300px]">
-              <BudgetTable result={live.result} inputs={doc.inputs} selected={selectedSymbol} onSelect={(symbol) => setSelection({ type: 'input', symbol })} />
+              <BudgetTable
+                result={live.result}
+                inputs={doc.inputs}
+                selected={selectedSymbol}
+                onSelect={(symbol) => setSelection({ type: 'input', symbol })}
+                adornment={slotProps ? slots.renderRowAdornment : undefined}
+              />
               <SharesChart result={live.result} selected={selectedSymbol} onSelect={(symbol) => setSelection({ type: 'input', symbol })} />
             </div>
           ) : (
@@ -486,6 +565,7 @@ function Editor({
           onSelect={(item) => setSelection({ type: 'result', item })}
         />
         <ExplainPanel explanation={explanation} onClose={() => setSelection(null)} />
+        {slotProps && slots.renderSidePanel ? slots.renderSidePanel(slotProps) : null}
       </aside>
 
       <SaveDialog open={saveOpen} onClose={() => setSaveOpen(false)} onSave={(note) => doSave(note, baseVersion)} saving={save.isPending} isNew={isNew} error={saveError} />
