@@ -91,34 +91,33 @@ export class UniformGenerator {
     let s1 = this.s1;
     let s2 = this.s2;
     let s3 = this.s3;
-    let t = 0;
-    let hi = 0;
-    let lo = 0;
     for (let i = 0; i < n; i++) {
-      let k = 0;
-      do {
-        // First 32-bit output (xoshiro128**), top 21 bits kept.
-        t = s1 << 9;
-        hi = Math.imul(s1, 5);
-        hi = Math.imul((hi << 7) | (hi >>> 25), 9);
-        s2 ^= s0;
-        s3 ^= s1;
-        s1 ^= s2;
-        s0 ^= s3;
-        s2 ^= t;
-        s3 = (s3 << 11) | (s3 >>> 21);
-        // Second 32-bit output, all 32 bits kept.
-        t = s1 << 9;
-        lo = Math.imul(s1, 5);
-        lo = Math.imul((lo << 7) | (lo >>> 25), 9);
-        s2 ^= s0;
-        s3 ^= s1;
-        s1 ^= s2;
-        s0 ^= s3;
-        s2 ^= t;
-        s3 = (s3 << 11) | (s3 >>> 21);
-        k = (hi >>> 11) * TWO_POW_32 + (lo >>> 0);
-      } while (k === 0);
+      // First 32-bit output (xoshiro128**), top 21 bits kept.
+      let t = s1 << 9;
+      let hi = Math.imul(s1, 5);
+      hi = Math.imul((hi << 7) | (hi >>> 25), 9);
+      s2 ^= s0;
+      s3 ^= s1;
+      s1 ^= s2;
+      s0 ^= s3;
+      s2 ^= t;
+      s3 = (s3 << 11) | (s3 >>> 21);
+      // Second 32-bit output, all 32 bits kept.
+      t = s1 << 9;
+      let lo = Math.imul(s1, 5);
+      lo = Math.imul((lo << 7) | (lo >>> 25), 9);
+      s2 ^= s0;
+      s3 ^= s1;
+      s1 ^= s2;
+      s0 ^= s3;
+      s2 ^= t;
+      s3 = (s3 << 11) | (s3 >>> 21);
+      const k = (hi >>> 11) * TWO_POW_32 + (lo >>> 0);
+      // k = 0 is drawn again for the same i; a flat loop with this rare step back runs faster than a nested retry loop.
+      if (k === 0) {
+        i--;
+        continue;
+      }
       out[i] = lower + width * (k * TWO_POW_MINUS_53);
     }
     this.s0 = s0;
