@@ -1,11 +1,12 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams } from 'react-router-dom';
+import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
 import { SignInPage } from '../features/auth/components/SignInPage';
 import type { Me } from '../features/auth/api/auth';
 import { BudgetsListPage } from '../features/budgets/components/BudgetsListPage';
 import { EditorPage } from '../features/editor/components/EditorPage';
 import { MonteCarloPanel } from '../features/monte-carlo/components/MonteCarloPanel';
 import { VersionsPage } from '../features/versions/components/VersionsPage';
+import { ComparePage } from '../features/versions/components/ComparePage';
 import { ReviewActions } from '../features/reviews/components/ReviewActions';
 import { CommentBadge, ReviewPanel, type ThreadKey } from '../features/reviews/components/ReviewPanel';
 import { ApiError } from './http';
@@ -82,6 +83,13 @@ function VersionsRoute() {
   return <VersionsPage me={me} budgetId={Number(id)} />;
 }
 
+function CompareRoute() {
+  const { id } = useParams();
+  const [params] = useSearchParams();
+  const n = (k: string) => (params.get(k) ? Number(params.get(k)) || undefined : undefined);
+  return <ComparePage budgetId={Number(id)} from={n('from')} to={n('to')} />;
+}
+
 function Guarded({ action, children }: { action: Parameters<typeof RequireAction>[0]['action']; children: React.ReactNode }) {
   const me = useMeFromShell();
   return (
@@ -103,6 +111,7 @@ const router = createBrowserRouter([
       { path: 'budgets/:id', element: <EditorRoute /> },
       { path: 'budgets/:id/versions', element: <VersionsRoute /> },
       { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
+      { path: 'budgets/:id/compare', element: <CompareRoute /> },
       {
         path: 'templates',
         element: (

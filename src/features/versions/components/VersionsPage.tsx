@@ -1,10 +1,55 @@
-import { Link } from 'react-router-dom';
+import { useState } from 'react';
+import { Link, useNavigate } from 'react-router-dom';
 import type { Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
-import { EmptyState, ErrorNote, Spinner } from '../../../app/ui/controls';
+import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { StatusBadge } from '../../../app/ui/status-badge';
-import { useBudgetHeader, useVersions } from '../api/versions';
+import { useBudgetHeader, useVersions, type VersionRow } from '../api/versions';
+
+/** Pick any two versions and open their side-by-side comparison. */
+function CompareForm({ budgetId, versions }: { budgetId: number; versions: VersionRow[] }) {
+  const navigate = useNavigate();
+  const [from, setFrom] = useState(versions[0].number);
+  const [to, setTo] = useState(versions[versions.length - 1].number);
+  const same = from === to;
+  return (
+    <form
+      aria-label="Compare two versions"
+      className="flex flex-wrap items-end gap-3 rounded-lg border border-stone-200 bg-white p-3"
+      onSubmit={(e) => {
+        e.preventDefault();
+        if (!same) navigate(`/budgets/${budgetId}/compare?from=${from}&to=${to}`);
+      }}
+    >
+      <Field label="Compare version" className="w-40">
+        {(p) => (
+          <Select {...p} value={from} onChange={(e) => setFrom(Number(e.target.value))}>
+            {versions.map((v) => (
+              <option key={v.number} value={v.number}>
+                v{v.number}
+              </option>
+            ))}
+          </Select>
+        )}
+      </Field>
+      <Field label="with version" className="w-40" error={same ? 'Pick two different versions.' : null}>
+        {(p) => (
+          <Select {...p} value={to} onChange={(e) => setTo(Number(e.target.value))}>
+            {versions.map((v) => (
+              <option key={v.number} value={v.number}>
+                v{v.number}
+              </option>
+            ))}
+          </Select>
+        )}
+      </Field>
+      <Button type="submit" variant="primary" disabled={same}>
+        Compare
+      </Button>
+    </form>
+  );
+}
 
 export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; budgetId: number }) {
   const versions = useVersions(budgetId);
@@ -34,6 +79,8 @@ export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; bud
       ) : versions.data.length === 0 ? (
         <EmptyState title="No versions" />
       ) : (
+        <>
+        {versions.data.length > 1 ? <CompareForm budgetId={budgetId} versions={versions.data} /> : null}
         <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">Versions of the budget, newest first</caption>
@@ -76,6 +123,10 @@ export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; bud
                       <a href={`/api/budgets/${budgetId}/export?version=${v.number}`} download className="text-accent-700 hover:underline">
                         Export
                       </a>
+                      <span className="mx-1 text-stone-400">·</span>
+                      <Link to={`/budgets/${budgetId}/versions/${v.number}/report`} className="text-accent-700 hover:underline" aria-label={`Report of version ${v.number}`}>
+                        Report
+                      </Link>
                     </td>
                   </tr>
                 );
@@ -83,6 +134,7 @@ export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; bud
             </tbody>
           </table>
         </div>
+        </>
       )}
     </div>
   );
