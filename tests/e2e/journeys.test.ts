@@ -1,0 +1,187 @@
+import { writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { BrowserContext, Locator, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { screenshotPath, startApp, type AppUnderTest } from './support/app-under-test';
+import { openBrowser, signIn } from './support/browser';
+import { containsText, countIs, hasTexts, shows } from './support/page-expect';
+
+/*
+ * The five journeys of the workbench, in Debian's Chromium against the built
+ * client and the real server on a fresh database with the demo lab.
+ * Screenshots of the main screens go to tests/.artifacts/screenshots.
+ */
+
+let app: AppUnderTest;
+const contexts: BrowserContext[] = [];
+
+beforeAll(async () => {
+  app = await startApp();
+}, 180_000);
+
+afterAll(async () => {
+  await Promise.all(contexts.map((c) => c.close()));
+  await app?.stop();
+});
+
+async function pageAs(email: string | null): Promise<Page> {
+  const context = await openBrowser();
+  contexts.push(context);
+  const page = await context.newPage();
+  page.setDefaultTimeout(20_000);
+  if (email) await signIn(page, app.baseUrl, email);
+  return page;
+}
+
+const shot = (page: Page, journey: string, name: string) => page.screenshot({ path: screenshotPath(journey, name), fullPage: true });
+
+function inputItems(page: Page): Locator {
+  return page.getByRole('list', { name: 'Input quantities' }).getByRole('listitem');
+}
+
+/** Opens an input's form (if closed) and returns its list item. */
+async function openInput(page: Page, index: number): Promise<Locator> {
+  const item = inputItems(page).nth(index);
+  const header = item.getByRole('button', { expanded: false });
+  if ((await header.count()) > 0 && !(await item.getByLabel('Symbol').isVisible().catch(() => false))) await header.first().click();
+  await expect.poll(() => item.getByLabel('Symbol').isVisible()).toBe(true);
+  return item;
+}
+
+/** Symbols as the budget table typesets them: the part after _ becomes a subscript. */
+const typeset = (symbols: string[]) => symbols.map((s) => s.replace('_', ''));
+
+async function inputOrder(page: Page): Promise<string[]> {
+  const handles = await page.getByRole('button', { name: /^Move / }).allTextContents();
+  const names = await page.getByRole('button', { name: /^Move / }).evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''));
+  return (names.length ? names : handles).map((n) => /^Move (\S+)/.exec(n)?.[1] ?? n);
+}
+
+describe('journey 1: a metrologist drafts a budget from scratch', () => {
+  it('writes the model, four inputs of different kinds (one from a CSV file), reorders them, runs Monte Carlo and saves', async () => {
+    const page = await pageAs('metrologist@dubito.example');
+    await page.getByRole('button', { name: 'New budget' }).or(page.getByRole('link', { name: 'New budget' })).first().click();
+    await page.waitForURL(/\/budgets\/new/);
+
+    await page.getByRole('textbox', { name: 'Title' }).fill('Standard resistor 100 Ω on bench KF-E4');
+    const measurand = page.getByRole('region', { name: 'Measurand' });
+    await measurand.getByLabel('Symbol').fill('R');
+    await measurand.getByLabel('Unit').fill('ohm');
+
+    // 1: reference from its certificate, U and k
+    let item = await openInput(page, 0);
+    await item.getByLabel('Symbol').fill('R_s');
+    await item.getByLabel('Unit').fill('ohm');
+    await item.getByLabel('Given as').selectOption({ index: 1 });
+    await item.getByLabel('Value').fill('100.00012');
+    await item.getByLabel('Expanded uncertainty U').fill('0.00004');
+    await item.getByLabel('Coverage factor k').fill('2');
+
+    // 2: observations uploaded as a CSV file
+    item = await openInput(page, 1);
+    await item.getByLabel('Symbol').fill('dR_obs');
+    await item.getByLabel('Unit').fill('ohm');
+    await item.getByLabel('Distribution').selectOption({ label: 'Repeated observations (Type A)' });
+    const csv = join(tmpdir(), `dubito-e2e-observations-${process.pid}.csv`);
+    writeFileSync(csv, 'reading,deviation\n1,0.0000121\n2,0.0000098\n3,0.0000113\n4,0.0000105\n5,0.0000117\n6,0.0000109\n');
+    const chooser = page.waitForEvent('filechooser');
+    await item.getByRole('button', { name: 'Upload CSV…' }).click();
+    await (await chooser).setFiles(csv);
+    // the file has two columns: the editor asks which one holds the observations
+    const columnPicker = item.getByLabel(/has several columns: choose one/);
+    await shows(columnPicker);
+    await columnPicker.selectOption({ label: 'deviation' });
+    await hasTexts(item.getByRole('definition').first(), ['6']); // n = 6
+
+    // 3: resolution as a rectangular distribution
+    await page.getByRole('button', { name: '+ Add input quantity' }).click();
+    item = await openInput(page, 2);
+    await item.getByLabel('Symbol').fill('dR_res');
+    await item.getByLabel('Unit').fill('ohm');
+    await item.getByLabel('Distribution').selectOption({ label: 'Rectangular (uniform)' });
+    await item.getByLabel('Value').fill('0');
+    await item.getByLabel('Half-width a').fill('0.000005');
+
+    // 4: temperature effect as a triangular distribution
+    await page.getByRole('button', { name: '+ Add input quantity' }).click();
+    item = await openInput(page, 3);
+    await item.getByLabel('Symbol').fill('dR_T');
+    await item.getByLabel('Unit').fill('ohm');
+    await item.getByLabel('Distribution').selectOption({ label: 'Triangular' });
+    await item.getByLabel('Value').fill('0');
+    await item.getByLabel('Half-width a').fill('0.00001');
+
+    await page.getByRole('textbox', { name: /Model equation/ }).fill('R = R_s + dR_obs + dR_res + dR_T');
+
+    const table = page.getByRole('table', { name: /Uncertainty budget/ });
+    await hasTexts(table.getByRole('rowheader'), typeset(['R_s', 'dR_obs', 'dR_res', 'dR_T']));
+    const result = page.getByRole('region', { name: 'Result' });
+    await containsText(result.getByRole('button', { name: /^R / }), '100.000');
+    await shot(page, 'journey1', 'budget-table');
+
+    // reorder by keyboard drag: dR_T from position 4 to position 1
+    const handle = page.getByRole('button', { name: /^Move dR_T/ });
+    await handle.focus();
+    await page.keyboard.press('Space');
+    for (let i = 0; i < 3; i++) {
+      await page.waitForTimeout(250);
+      await page.keyboard.press('ArrowUp');
+    }
+    await page.waitForTimeout(250);
+    await page.keyboard.press('Space');
+    await expect.poll(() => inputOrder(page)).toEqual(['dR_T', 'R_s', 'dR_obs', 'dR_res']);
+    await hasTexts(table.getByRole('rowheader'), typeset(['dR_T', 'R_s', 'dR_obs', 'dR_res']));
+
+    // Monte Carlo in the worker, histogram and verdict
+    const mc = page.getByRole('region', { name: 'Monte Carlo method' });
+    await mc.getByLabel('Trials M').selectOption({ label: '100 000' });
+    await mc.getByRole('button', { name: 'Run Monte Carlo' }).click();
+    await shows(mc.getByRole('table', { name: 'GUM and Monte Carlo results side by side' }), 60_000);
+    await shows(mc.getByText(/GUM result is (validated|not validated)/));
+    await shows(mc.locator('.js-plotly-plot, svg.main-svg'));
+    await shot(page, 'journey1', 'monte-carlo');
+
+    await page.getByRole('button', { name: 'Save version…' }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByLabel('Change note').fill('First draft from the bench notes');
+    await dialog.getByRole('button', { name: 'Save version' }).click();
+    await page.waitForURL(/\/budgets\/\d+/);
+    await shows(page.getByText(/saved/i));
+    await shot(page, 'journey1', 'saved');
+
+    const id = Number(/\/budgets\/(\d+)/.exec(page.url())?.[1]);
+    const stored = await page.evaluate(async (budgetId) => (await fetch(`/api/budgets/${budgetId}`)).json(), id);
+    expect(stored.document.inputs.map((q: { symbol: string }) => q.symbol)).toEqual(['dR_T', 'R_s', 'dR_obs', 'dR_res']);
+    expect(stored.document.inputs[2].distribution.values).toHaveLength(6);
+    expect(stored.result.gum.estimate).toBeCloseTo(100.00012 + 0.0000110, 6);
+  }, 180_000);
+});
+
+describe('journey 5: signed-out visitors and wrong roles are kept out', () => {
+  const protectedPages = ['/budgets', '/budgets/new', '/budgets/1', '/budgets/1/versions', '/templates', '/audit', '/admin/users', '/admin/mail'];
+
+  it('sends a signed-out visitor from every protected page to sign-in', async () => {
+    const page = await pageAs(null);
+    for (const path of protectedPages) {
+      await page.goto(`${app.baseUrl}${path}`);
+      await page.waitForURL(/\/sign-in/);
+      await shows(page.getByRole('heading', { name: 'Sign in' }));
+    }
+    await shot(page, 'journey5', 'sign-in');
+    const api = await page.evaluate(async () => (await fetch('/api/budgets')).status);
+    expect(api).toBe(401);
+  }, 120_000);
+
+  it('keeps a metrologist out of the audit trail and the admin pages, and a trainee out of approval', async () => {
+    const page = await pageAs('metrologist@dubito.example');
+    await countIs(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /audit/i }), 0);
+    for (const path of ['/audit', '/admin/users', '/admin/mail']) {
+      await page.goto(`${app.baseUrl}${path}`);
+      await shows(page.getByText(/not available for your role/i));
+    }
+    await shot(page, 'journey5', 'wrong-role');
+    const status = await page.evaluate(async () => (await fetch('/api/audit')).status);
+    expect(status).toBe(403);
+  }, 120_000);
+});
