@@ -9,6 +9,7 @@ import { VersionsPage } from '../features/versions/components/VersionsPage';
 import { ComparePage } from '../features/versions/components/ComparePage';
 import { ReviewActions } from '../features/reviews/components/ReviewActions';
 import { CommentBadge, ReviewPanel, type ThreadKey } from '../features/reviews/components/ReviewPanel';
+import { TemplatesPage, TemplateToggle } from '../features/templates/components/TemplatesPage';
 import { ApiError } from './http';
 import { AppShell, NotFound, Placeholder, RequireAction, RequireSignIn } from './shell';
 import { ToastProvider } from './ui/toasts';
@@ -69,7 +70,12 @@ function EditorWithReview({ id, n }: { id?: string; n?: string }) {
           ? undefined
           : {
               renderRowAdornment: (symbol) => <CommentBadge budgetId={budgetId} symbol={symbol} open={thread === symbol} onOpen={(s) => setThread((t) => (t === s ? null : s))} />,
-              renderHeaderActions: (ctx) => <ReviewActions ctx={ctx} me={me} />,
+              renderHeaderActions: (ctx) => (
+                <>
+                  <ReviewActions ctx={ctx} me={me} />
+                  {ctx.viewingOld ? null : <TemplateToggle budgetId={ctx.budgetId} isTemplate={ctx.facts.isTemplate} role={me.role} />}
+                </>
+              ),
               renderSidePanel: (ctx) => <ReviewPanel ctx={ctx} me={me} thread={thread} onThread={setThread} />,
             }
       }
@@ -81,6 +87,11 @@ function VersionsRoute() {
   const me = useMeFromShell();
   const { id } = useParams();
   return <VersionsPage me={me} budgetId={Number(id)} />;
+}
+
+function TemplatesRoute() {
+  const me = useMeFromShell();
+  return <TemplatesPage role={me.role} />;
 }
 
 function CompareRoute() {
@@ -116,7 +127,7 @@ const router = createBrowserRouter([
         path: 'templates',
         element: (
           <Guarded action="budget.read">
-            <Placeholder title="Templates">The template gallery comes in the next part: templates will be cloned into new drafts that record their source.</Placeholder>
+            <TemplatesRoute />
           </Guarded>
         ),
       },

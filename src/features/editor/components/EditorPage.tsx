@@ -91,7 +91,7 @@ function SourceNote({ source }: { source: NonNullable<BudgetView['source']> }) {
   const kind = origin.data?.isTemplate ? 'template' : 'budget';
   return (
     <p data-testid="budget-source" className="text-xs text-stone-700">
-      <span aria-hidden>⎘ </span>Cloned from {origin.data ? kind : 'budget'}{' '}
+      <span aria-hidden>↳ </span>Cloned from {origin.data ? kind : 'budget'}{' '}
       <Link to={`/budgets/${source.budgetId}`} className="font-medium text-accent-700 underline">
         {origin.data?.title ?? `budget ${source.budgetId}`}
       </Link>
@@ -363,6 +363,7 @@ function Editor({
               className="min-w-0 flex-1 rounded-md border border-transparent bg-transparent px-1 py-0.5 text-xl font-semibold tracking-tight text-stone-900 hover:border-stone-300 focus:border-stone-300 aria-[invalid=true]:border-caution-500"
             />
             {status}
+            {view?.isTemplate ? <span className="rounded-full border border-stone-400 bg-stone-100 px-2 py-0.5 text-xs font-semibold text-stone-700">Template</span> : null}
             {!isNew ? (
               <Link to={`/budgets/${budgetId}/versions`} className="num text-sm text-stone-700 hover:text-accent-700 hover:underline">
                 {viewingOld ? `v${baseVersion} of ${view?.currentVersion}` : `v${baseVersion}`}

@@ -350,7 +350,7 @@ export function ReviewPanel({ ctx, me, thread, onThread }: { ctx: ReviewContext;
               </ul>
             </div>
           ) : (
-            <p className="text-xs text-stone-600">To comment on one contribution, use the comment badge beside its symbol in the budget table of the budget table.</p>
+            <p className="text-xs text-stone-600">To comment on one contribution, use the comment badge beside its symbol in the budget table.</p>
           )}
           <Thread ctx={ctx} me={me} thread={GENERAL} />
         </div>
