@@ -10,8 +10,11 @@ import { ComparePage } from '../features/versions/components/ComparePage';
 import { ReviewActions } from '../features/reviews/components/ReviewActions';
 import { CommentBadge, ReviewPanel, type ThreadKey } from '../features/reviews/components/ReviewPanel';
 import { TemplatesPage, TemplateToggle } from '../features/templates/components/TemplatesPage';
+import { AuditPage } from '../features/audit/components/AuditPage';
+import { MailboxPage } from '../features/admin/components/MailboxPage';
+import { UsersPage } from '../features/admin/components/UsersPage';
 import { ApiError } from './http';
-import { AppShell, NotFound, Placeholder, RequireAction, RequireSignIn } from './shell';
+import { AppShell, NotFound, RequireAction, RequireSignIn } from './shell';
 import { ToastProvider } from './ui/toasts';
 import { useOutletContext } from 'react-router-dom';
 import { useState } from 'react';
@@ -94,6 +97,11 @@ function TemplatesRoute() {
   return <TemplatesPage role={me.role} />;
 }
 
+function UsersRoute() {
+  const me = useMeFromShell();
+  return <UsersPage meId={me.id} />;
+}
+
 function CompareRoute() {
   const { id } = useParams();
   const [params] = useSearchParams();
@@ -135,7 +143,7 @@ const router = createBrowserRouter([
         path: 'audit',
         element: (
           <Guarded action="audit.read">
-            <Placeholder title="Audit trail">The filterable audit table with CSV export comes in the next part.</Placeholder>
+            <AuditPage />
           </Guarded>
         ),
       },
@@ -143,7 +151,7 @@ const router = createBrowserRouter([
         path: 'admin/users',
         element: (
           <Guarded action="user.manage">
-            <Placeholder title="Users and roles">User management and invitations come in the next part.</Placeholder>
+            <UsersRoute />
           </Guarded>
         ),
       },
@@ -151,7 +159,7 @@ const router = createBrowserRouter([
         path: 'admin/mail',
         element: (
           <Guarded action="mail.read">
-            <Placeholder title="Mailbox">The mail held by the local mail server will be listed here in the next part.</Placeholder>
+            <MailboxPage />
           </Guarded>
         ),
       },

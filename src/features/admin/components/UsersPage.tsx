@@ -1,0 +1,180 @@
+import { useState } from 'react';
+import { ROLES, type Role } from '../../../../shared/policy/policy';
+import { ApiError, errorMessage } from '../../../app/http';
+import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
+import { formatDateTime } from '../../../app/ui/numbers';
+import { useToast } from '../../../app/ui/toasts';
+import { useInvite, useUpdateUser, useUsers, type User } from '../api/admin';
+
+const ROLE_WORD: Record<Role, string> = { admin: 'Administrator', metrologist: 'Metrologist', reviewer: 'Reviewer', auditor: 'Auditor', trainee: 'Trainee' };
+
+function InviteForm() {
+  const invite = useInvite();
+  const toast = useToast();
+  const [email, setEmail] = useState('');
+  const [name, setName] = useState('');
+  const [role, setRole] = useState<Role>('metrologist');
+  const [touched, setTouched] = useState(false);
+  const emailError = touched && !/^\S+@\S+\.\S+$/.test(email) ? 'Enter an e-mail address.' : invite.error instanceof ApiError && invite.error.code === 'email_taken' ? 'An account with this address exists.' : null;
+  const nameError = touched && !name.trim() ? 'Enter the person’s name.' : null;
+  return (
+    <form
+      aria-labelledby="invite-h"
+      className="flex flex-col gap-3 rounded-lg border border-stone-200 bg-white p-4"
+      onSubmit={(e) => {
+        e.preventDefault();
+        setTouched(true);
+        if (!/^\S+@\S+\.\S+$/.test(email) || !name.trim()) return;
+        invite.mutate(
+          { email: email.trim(), name: name.trim(), role },
+          {
+            onSuccess: (r) => {
+              toast(`Invitation sent to ${r.user.email}; the link is valid until ${formatDateTime(r.expiresAt)}.`);
+              setEmail('');
+              setName('');
+              setTouched(false);
+            },
+            onError: (err) => {
+              if (!(err instanceof ApiError && err.code === 'email_taken')) toast(`Not invited: ${errorMessage(err)}`, 'error');
+            },
+          },
+        );
+      }}
+    >
+      <div>
+        <h2 id="invite-h" className="text-base font-semibold">
+          Invite a colleague
+        </h2>
+        <p className="text-xs text-stone-600">They receive an e-mail with a link to set their password.</p>
+      </div>
+      <div className="grid gap-3 sm:grid-cols-[1fr_1fr_12rem_auto]">
+        <Field label="Name" error={nameError}>
+          {(p) => <TextInput {...p} value={name} onChange={(e) => setName(e.target.value)} autoComplete="off" />}
+        </Field>
+        <Field label="E-mail address" error={emailError}>
+          {(p) => <TextInput {...p} type="email" value={email} onChange={(e) => setEmail(e.target.value)} autoComplete="off" />}
+        </Field>
+        <Field label="Role">
+          {(p) => (
+            <Select {...p} value={role} onChange={(e) => setRole(e.target.value as Role)}>
+              {ROLES.map((r) => (
+                <option key={r} value={r}>
+                  {ROLE_WORD[r]}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <div className="flex items-end">
+          <Button type="submit" variant="primary" disabled={invite.isPending}>
+            {invite.isPending ? 'Sending…' : 'Send invitation'}
+          </Button>
+        </div>
+      </div>
+    </form>
+  );
+}
+
+function UserRow({ u, meId }: { u: User; meId: number }) {
+  const update = useUpdateUser();
+  const toast = useToast();
+  const self = u.id === meId;
+  const run = (patch: { role?: Role; active?: boolean }, done: string) =>
+    update.mutate({ id: u.id, ...patch }, { onSuccess: () => toast(done), onError: (e) => toast(errorMessage(e), 'error') });
+  return (
+    <tr data-testid={`user-${u.email}`} className={`border-b border-stone-100 last:border-0 ${u.active ? '' : 'bg-stone-50 text-stone-600'}`}>
+      <td className="px-3 py-2 font-medium">
+        {u.name}
+        {self ? <span className="ml-1 text-xs font-normal text-stone-600">(you)</span> : null}
+      </td>
+      <td className="px-3 py-2 text-stone-700">{u.email}</td>
+      <td className="px-3 py-2">
+        <label className="sr-only" htmlFor={`role-${u.id}`}>
+          Role of {u.name}
+        </label>
+        <Select
+          id={`role-${u.id}`}
+          value={u.role}
+          disabled={self || update.isPending}
+          title={self ? 'You cannot change your own role' : undefined}
+          onChange={(e) => run({ role: e.target.value as Role }, `${u.name} is now ${ROLE_WORD[e.target.value as Role].toLowerCase()}. Their sessions were ended.`)}
+          className="w-40"
+        >
+          {ROLES.map((r) => (
+            <option key={r} value={r}>
+              {ROLE_WORD[r]}
+            </option>
+          ))}
+        </Select>
+      </td>
+      <td className="px-3 py-2">
+        {!u.active ? (
+          <span className="inline-flex items-center gap-1 rounded-full border border-stone-400 bg-white px-2 py-0.5 text-xs font-semibold text-stone-700">
+            <span aria-hidden>⊘</span> Deactivated
+          </span>
+        ) : !u.hasPassword ? (
+          <span className="inline-flex items-center gap-1 rounded-full border border-caution-500 bg-caution-50 px-2 py-0.5 text-xs font-semibold text-caution-700">
+            <span aria-hidden>✉</span> Invited
+          </span>
+        ) : (
+          <span className="inline-flex items-center gap-1 rounded-full border border-accent-600 bg-accent-50 px-2 py-0.5 text-xs font-semibold text-accent-700">
+            <span aria-hidden>●</span> Active
+          </span>
+        )}
+      </td>
+      <td className="whitespace-nowrap px-3 py-2 text-xs text-stone-700">{formatDateTime(u.createdAt)}</td>
+      <td className="px-3 py-2 text-right">
+        {self ? null : u.active ? (
+          <Button size="sm" variant="danger" disabled={update.isPending} onClick={() => run({ active: false }, `${u.name} is deactivated and signed out.`)} aria-label={`Deactivate ${u.name}`}>
+            Deactivate
+          </Button>
+        ) : (
+          <Button size="sm" disabled={update.isPending} onClick={() => run({ active: true }, `${u.name} can sign in again.`)} aria-label={`Activate ${u.name}`}>
+            Activate
+          </Button>
+        )}
+      </td>
+    </tr>
+  );
+}
+
+export function UsersPage({ meId }: { meId: number }) {
+  const users = useUsers();
+  return (
+    <div className="mx-auto flex max-w-6xl flex-col gap-4 px-6 py-6">
+      <div>
+        <h1 className="text-2xl font-semibold tracking-tight">Users and roles</h1>
+        <p className="text-sm text-stone-600">A role change or a deactivation ends the person’s open sessions at once.</p>
+      </div>
+      <InviteForm />
+      {users.isPending ? (
+        <Spinner label="Loading users" />
+      ) : users.isError ? (
+        <ErrorNote title="The users could not be loaded">{errorMessage(users.error)}</ErrorNote>
+      ) : users.data.length === 0 ? (
+        <EmptyState title="No users" />
+      ) : (
+        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
+          <table className="w-full text-left text-sm">
+            <caption className="sr-only">Users of this Dubito installation</caption>
+            <thead className="border-b border-stone-200 bg-stone-50 text-xs text-stone-700">
+              <tr>
+                <th scope="col" className="px-3 py-2 font-semibold">Name</th>
+                <th scope="col" className="px-3 py-2 font-semibold">E-mail</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Role</th>
+                <th scope="col" className="px-3 py-2 font-semibold">State</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Since</th>
+                <th scope="col" className="px-3 py-2 font-semibold"><span className="sr-only">Actions</span></th>
+              </tr>
+            </thead>
+            <tbody>
+              {users.data.map((u) => (
+                <UserRow key={u.id} u={u} meId={meId} />
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}

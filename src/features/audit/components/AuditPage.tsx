@@ -1,0 +1,201 @@
+import { Link, useSearchParams } from 'react-router-dom';
+import { errorMessage } from '../../../app/http';
+import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
+import { formatCount, formatDateTime } from '../../../app/ui/numbers';
+import { AUDIT_ACTIONS, auditCsvUrl, useAudit, useAuditActors, useAuditBudgets, type AuditEvent, type AuditFilter } from '../api/audit';
+
+const PAGE_SIZE = 25;
+
+/** datetime-local text ↔ milliseconds, in the browser's time zone. */
+function toLocalInput(ms: number | undefined): string {
+  if (ms === undefined) return '';
+  const d = new Date(ms);
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
+}
+function fromLocalInput(text: string): number | undefined {
+  if (!text) return undefined;
+  const t = new Date(text).getTime();
+  return Number.isFinite(t) ? t : undefined;
+}
+
+function describe(e: AuditEvent): string {
+  const d = e.detail;
+  const parts: string[] = [];
+  if (typeof d.note === 'string' && d.note) parts.push(`note “${d.note}”`);
+  if (typeof d.comment === 'string') parts.push(`“${d.comment}”`);
+  if (typeof d.signedBy === 'string') parts.push(`signed by ${d.signedBy}`);
+  if (typeof d.symbol === 'string') parts.push(`on ${d.symbol}`);
+  if (typeof d.sourceBudgetId === 'number') parts.push(`from budget ${d.sourceBudgetId}, v${String(d.sourceVersion)}`);
+  if (typeof d.isTemplate === 'boolean') parts.push(d.isTemplate ? 'marked as template' : 'no longer a template');
+  if (typeof d.email === 'string') parts.push(d.email);
+  if (typeof d.role === 'string') parts.push(`as ${d.role}`);
+  if (d.changes && typeof d.changes === 'object') {
+    for (const [k, v] of Object.entries(d.changes as Record<string, { from: unknown; to: unknown }>)) parts.push(`${k}: ${String(v.from)} → ${String(v.to)}`);
+  }
+  if (typeof d.from === 'string' && typeof d.to === 'string') parts.push(`${d.from.replace('_', ' ')} → ${d.to.replace('_', ' ')}`);
+  if (typeof d.via === 'string') parts.push(`via ${d.via}`);
+  return parts.join('; ');
+}
+
+export function AuditPage() {
+  const [params, setParams] = useSearchParams();
+  const num = (k: string) => (params.get(k) ? Number(params.get(k)) || undefined : undefined);
+  const filter: AuditFilter = { budget: num('budget'), actor: num('actor'), action: params.get('action') ?? undefined, from: num('from'), to: num('to') };
+  const page = Math.max(1, num('page') ?? 1);
+  const audit = useAudit(filter, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE });
+  const actors = useAuditActors();
+  const budgets = useAuditBudgets();
+  const budgetTitle = new Map((budgets.data ?? []).map((b) => [b.id, b.title]));
+  const rangeError = filter.from !== undefined && filter.to !== undefined && filter.from > filter.to ? 'The end of the range is before its start.' : null;
+
+  const set = (patch: Record<string, string | undefined>) => {
+    const next = new URLSearchParams(params);
+    for (const [k, v] of Object.entries(patch)) {
+      if (v) next.set(k, v);
+      else next.delete(k);
+    }
+    if (!('page' in patch)) next.delete('page');
+    setParams(next, { replace: true });
+  };
+  const filtered = [...params.keys()].some((k) => k !== 'page');
+  const total = audit.data?.total ?? 0;
+  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
+
+  return (
+    <div className="mx-auto flex max-w-7xl flex-col gap-4 px-6 py-6">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 className="text-2xl font-semibold tracking-tight">Audit trail</h1>
+          <p className="text-sm text-stone-600">Every change to budgets, reviews and accounts, oldest first. Entries cannot be edited or deleted.</p>
+        </div>
+        <a
+          href={auditCsvUrl(filter)}
+          download="dubito-audit.csv"
+          className="inline-flex items-center gap-1.5 rounded-md bg-accent-600 px-3 py-1.5 text-sm font-medium text-white hover:bg-accent-700"
+        >
+          Export CSV
+        </a>
+      </div>
+
+      <form role="search" aria-label="Filter the audit trail" className="grid grid-cols-1 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-2 lg:grid-cols-[2fr_1.5fr_1.5fr_1fr_1fr_auto]" onSubmit={(e) => e.preventDefault()}>
+        <Field label="Budget">
+          {(p) => (
+            <Select {...p} value={filter.budget ?? ''} onChange={(e) => set({ budget: e.target.value || undefined })}>
+              <option value="">All budgets</option>
+              {(budgets.data ?? []).map((b) => (
+                <option key={b.id} value={b.id}>
+                  #{b.id} {b.title}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <Field label="Actor">
+          {(p) => (
+            <Select {...p} value={filter.actor ?? ''} onChange={(e) => set({ actor: e.target.value || undefined })}>
+              <option value="">Anyone</option>
+              {(actors.data ?? []).map(([id, email]) => (
+                <option key={id} value={id}>
+                  {email}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <Field label="Action">
+          {(p) => (
+            <Select {...p} value={filter.action ?? ''} onChange={(e) => set({ action: e.target.value || undefined })}>
+              <option value="">Every action</option>
+              {AUDIT_ACTIONS.map((g) => (
+                <optgroup key={g.group} label={g.label}>
+                  <option value={g.group}>all {g.label.toLowerCase()} actions</option>
+                  {g.actions.map((a) => (
+                    <option key={a} value={a}>
+                      {a}
+                    </option>
+                  ))}
+                </optgroup>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <Field label="From">
+          {(p) => <TextInput {...p} type="datetime-local" value={toLocalInput(filter.from)} onChange={(e) => set({ from: fromLocalInput(e.target.value)?.toString() })} />}
+        </Field>
+        <Field label="To" error={rangeError}>
+          {(p) => <TextInput {...p} type="datetime-local" value={toLocalInput(filter.to)} onChange={(e) => set({ to: fromLocalInput(e.target.value)?.toString() })} />}
+        </Field>
+        <div className="flex items-end">
+          <Button variant="ghost" disabled={!filtered} onClick={() => setParams(new URLSearchParams(), { replace: true })}>
+            Clear filters
+          </Button>
+        </div>
+      </form>
+
+      {audit.isPending ? (
+        <Spinner label="Loading the audit trail" />
+      ) : audit.isError ? (
+        <ErrorNote title="The audit trail could not be loaded">{errorMessage(audit.error)}</ErrorNote>
+      ) : audit.data.events.length === 0 ? (
+        <EmptyState title={filtered ? 'No entry matches these filters' : 'The audit trail is empty'}>{filtered ? 'Widen the time range or clear the filters.' : null}</EmptyState>
+      ) : (
+        <div className={`overflow-x-auto rounded-lg border border-stone-200 bg-white ${audit.isPlaceholderData ? 'opacity-60' : ''}`}>
+          <table className="w-full text-left text-sm" data-testid="audit-table">
+            <caption className="sr-only">Audit entries {filtered ? 'matching the filters' : ''}, oldest first</caption>
+            <thead className="border-b border-stone-200 bg-stone-50 text-xs text-stone-700">
+              <tr>
+                <th scope="col" className="px-3 py-2 font-semibold">Time</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Actor</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Action</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Budget</th>
+                <th scope="col" className="px-3 py-2 text-right font-semibold">Version</th>
+                <th scope="col" className="px-3 py-2 font-semibold">Details</th>
+              </tr>
+            </thead>
+            <tbody>
+              {audit.data.events.map((e) => (
+                <tr key={e.id} className="border-b border-stone-100 align-top last:border-0">
+                  <td className="num whitespace-nowrap px-3 py-1.5 text-xs text-stone-700" title={new Date(e.at).toISOString()}>
+                    {formatDateTime(e.at)}
+                  </td>
+                  <td className="px-3 py-1.5 text-stone-800">{e.actorEmail ?? (e.actorId ? `user #${e.actorId}` : <span className="text-stone-500">system</span>)}</td>
+                  <td className="px-3 py-1.5">
+                    <span className="num rounded border border-stone-300 bg-stone-50 px-1.5 py-0.5 text-xs text-stone-800">{e.action}</span>
+                  </td>
+                  <td className="px-3 py-1.5">
+                    {e.budgetId ? (
+                      <Link to={`/budgets/${e.budgetId}`} className="text-accent-700 hover:underline">
+                        {budgetTitle.get(e.budgetId) ?? `budget ${e.budgetId}`}
+                      </Link>
+                    ) : (
+                      <span className="text-stone-500">—</span>
+                    )}
+                  </td>
+                  <td className="num px-3 py-1.5 text-right">{e.versionNumber ? `v${e.versionNumber}` : ''}</td>
+                  <td className="max-w-md break-words px-3 py-1.5 text-xs text-stone-700">{describe(e)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <nav aria-label="Pages" className="flex items-center justify-between border-t border-stone-200 px-3 py-2 text-sm text-stone-700">
+            <span>
+              {formatCount((page - 1) * PAGE_SIZE + 1)}–{formatCount(Math.min(page * PAGE_SIZE, total))} of {formatCount(total)}
+            </span>
+            <div className="flex items-center gap-2">
+              <Button size="sm" disabled={page <= 1} onClick={() => set({ page: String(page - 1) })}>
+                ‹ Previous
+              </Button>
+              <span>
+                Page {page} of {pages}
+              </span>
+              <Button size="sm" disabled={page >= pages} onClick={() => set({ page: String(page + 1) })}>
+                Next ›
+              </Button>
+            </div>
+          </nav>
+        </div>
+      )}
+    </div>
+  );
+}
