@@ -1,6 +1,7 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
 import { SignInPage } from '../features/auth/components/SignInPage';
+import { ForgotPasswordPage, SetPasswordPage } from '../features/auth/components/PasswordPages';
 import type { Me } from '../features/auth/api/auth';
 import { BudgetsListPage } from '../features/budgets/components/BudgetsListPage';
 import { EditorPage } from '../features/editor/components/EditorPage';
@@ -120,6 +121,9 @@ function Guarded({ action, children }: { action: Parameters<typeof RequireAction
 
 const router = createBrowserRouter([
   { path: '/sign-in', element: <SignInPage /> },
+  { path: '/forgot-password', element: <ForgotPasswordPage /> },
+  { path: '/set-password', element: <SetPasswordPage mode="invitation" /> },
+  { path: '/reset-password', element: <SetPasswordPage mode="reset" /> },
   {
     path: '/',
     element: <SignedIn />,

@@ -50,3 +50,34 @@ export function useSignOut() {
     },
   });
 }
+
+export interface TokenInfo {
+  kind: 'invitation' | 'reset';
+  email: string;
+  name: string;
+}
+
+/** What a link from an e-mail is for; 404 when it is invalid, used or expired. */
+export const tokenQuery = (token: string) =>
+  queryOptions({
+    queryKey: ['auth', 'token', token],
+    queryFn: () => api<TokenInfo>(`/api/auth/token?token=${encodeURIComponent(token)}`),
+    retry: false,
+    staleTime: Infinity,
+  });
+
+export function useToken(token: string) {
+  return useQuery({ ...tokenQuery(token), enabled: token.length >= 10 });
+}
+
+export function useRequestReset() {
+  return useMutation({
+    mutationFn: (email: string) => api<{ message: string }>('/api/auth/password-reset', { method: 'POST', json: { email } }),
+  });
+}
+
+export function useCompleteToken() {
+  return useMutation({
+    mutationFn: (body: { token: string; password: string }) => api<{ user: Me }>('/api/auth/password-reset/complete', { method: 'POST', json: body }),
+  });
+}

@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { ApiError } from '../../../app/http';
 import { Button, Field, TextInput } from '../../../app/ui/controls';
 import { useMe, useSignIn } from '../api/auth';
@@ -74,6 +74,9 @@ export function SignInPage() {
           <Button type="submit" variant="primary" disabled={signIn.isPending}>
             {signIn.isPending ? 'Signing in…' : 'Sign in'}
           </Button>
+          <Link to="/forgot-password" className="self-start text-sm text-accent-700 underline-offset-2 hover:underline">
+            Forgot password?
+          </Link>
           <details className="text-xs text-stone-600">
             <summary className="cursor-pointer select-none font-medium text-stone-700">Demo accounts</summary>
             <p className="mt-2">This installation holds a fictional demo lab. Every demo account uses the password dubito-demo.</p>
