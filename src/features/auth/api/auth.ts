@@ -52,7 +52,7 @@ export function useSignOut() {
 }
 
 export interface TokenInfo {
-  kind: 'invitation' | 'reset';
+  kind: 'invitation' | 'password_reset';
   email: string;
   name: string;
 }
