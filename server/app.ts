@@ -20,6 +20,8 @@ import { sameOriginOnly } from './http/origin-check';
 import { RouteTable, type RouteInfo } from './http/routes';
 import { mailRoutes } from './mail/mail-routes';
 import { MailService } from './mail/mail-service';
+import { reportsRoutes } from './reports/reports-routes';
+import { ReportsService } from './reports/reports-service';
 import { reviewsRoutes } from './reviews/reviews-routes';
 import { ReviewsService } from './reviews/reviews-service';
 import { AttachmentsService } from './uploads/attachments-service';
@@ -34,6 +36,7 @@ export interface Services {
   audit: AuditService;
   attachments: AttachmentsService;
   mail: MailService;
+  reports: ReportsService;
 }
 
 export interface DubitoApp {
@@ -71,13 +74,15 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     invitationHours: config.invitationHours,
     resetHours: config.resetHours,
   });
+  const budgets = new BudgetsService(db, pool);
   const services: Services = {
     accounts,
-    budgets: new BudgetsService(db, pool),
+    budgets,
     reviews: new ReviewsService({ db, accounts, mail, publicUrl: config.publicUrl }),
     audit: new AuditService(db),
     attachments: new AttachmentsService(db, resolve(config.dataDir)),
     mail,
+    reports: new ReportsService({ budgets, accounts }),
   };
   const passport = createPassport(accounts);
 
@@ -124,6 +129,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
   });
   budgetsRoutes(table, services.budgets, { importMaxBytes: config.importMaxBytes });
   reviewsRoutes(table, services.reviews);
+  reportsRoutes(table, services.reports);
   uploadsRoutes(table, services.attachments, {
     observationsMaxBytes: config.observationsMaxBytes,
     attachmentMaxBytes: config.attachmentMaxBytes,

@@ -65,6 +65,8 @@ const cases: Record<string, Case> = {
   'patch /api/budgets/:id': async (role) => ({ url: `/api/budgets/${await ownDraft(role)}`, body: { isTemplate: true }, ok: 200 }),
   'get /api/budgets/:id/versions': () => ({ url: `/api/budgets/${shared}/versions`, ok: 200 }),
   'get /api/budgets/:id/versions/:n': () => ({ url: `/api/budgets/${shared}/versions/2`, ok: 200 }),
+  'get /api/budgets/:id/report.pdf': () => ({ url: `/api/budgets/${shared}/report.pdf`, ok: 200 }),
+  'get /api/budgets/:id/versions/:n/report.pdf': () => ({ url: `/api/budgets/${shared}/versions/1/report.pdf`, ok: 200 }),
   'get /api/budgets/:id/diff': () => ({ url: `/api/budgets/${shared}/diff?from=1&to=2`, ok: 200 }),
   'post /api/budgets/:id/clone': () => ({ url: `/api/budgets/${shared}/clone`, body: {}, ok: 201 }),
   'get /api/budgets/:id/export': () => ({ url: `/api/budgets/${shared}/export`, ok: 200 }),

@@ -1,0 +1,38 @@
+import type { BudgetResult } from '../../shared/budget/result';
+import type { BudgetDocument } from '../../shared/budget/schema';
+
+/** The status a version shows on paper: the budget's status for the current version, "superseded" for older drafts. */
+export type VersionStatus = 'draft' | 'returned' | 'in_review' | 'approved' | 'superseded';
+
+export const STATUS_WORDS: Record<VersionStatus, string> = {
+  draft: 'Draft',
+  returned: 'Draft (returned by the reviewer)',
+  in_review: 'In review',
+  approved: 'Approved',
+  superseded: 'Superseded draft',
+};
+
+/** Everything the report shows, gathered by the service; the renderer reads nothing else. */
+export interface ReportData {
+  lab: string;
+  budgetId: number;
+  title: string;
+  procedure: string | null;
+  version: {
+    number: number;
+    /** The budget's current version when the report was made. */
+    latest: number;
+    createdAt: number;
+    note: string;
+    seed: string;
+    engineVersion: string;
+    documentSha256: string;
+    status: VersionStatus;
+    author: string;
+    reviewer: string | null;
+    approvedAt: number | null;
+  };
+  document: BudgetDocument;
+  result: BudgetResult;
+  generatedAt: number;
+}

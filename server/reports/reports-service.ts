@@ -1,0 +1,72 @@
+import { can } from '../../shared/policy/policy';
+import type { AccountsService } from '../accounts/accounts-service';
+import type { BudgetRow } from '../budgets/budgets-repository';
+import type { BudgetsService } from '../budgets/budgets-service';
+import { ForbiddenError } from '../http/errors';
+import type { SessionUser } from '../http/request-user';
+import type { ReportData, VersionStatus } from './report-data';
+import { renderReportPdf, reportFileName } from './report-pdf';
+
+/** The laboratory named on reports whose budget file names none. */
+export const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
+
+export interface ReportFile {
+  fileName: string;
+  pdf: Buffer;
+}
+
+function versionStatus(b: BudgetRow, v: { number: number; approvedAt: number | null }): VersionStatus {
+  if (v.approvedAt !== null) return 'approved';
+  if (v.number !== b.currentVersion) return 'superseded';
+  if (b.status === 'draft') return b.returned ? 'returned' : 'draft';
+  return b.status;
+}
+
+const text = (v: unknown): string | null => (typeof v === 'string' && v.trim() ? v.trim() : null);
+
+/** The printed report of a budget version: readable by whoever may read the budget. */
+export class ReportsService {
+  constructor(
+    private readonly d: { budgets: BudgetsService; accounts: AccountsService; lab?: string; now?: () => number },
+  ) {}
+
+  private name(id: number | null): string | null {
+    if (id === null) return null;
+    return this.d.accounts.userById(id)?.name ?? `user ${id}`;
+  }
+
+  /** Everything the report shows; `n` defaults to the current version. */
+  data(actor: SessionUser, id: number, n?: number): ReportData {
+    if (!can(actor.role, 'budget.read')) throw new ForbiddenError();
+    const b = this.d.budgets.requireBudget(id);
+    const v = this.d.budgets.version(id, n ?? b.currentVersion);
+    const doc = v.document as typeof v.document & { lab?: unknown; procedure?: unknown };
+    return {
+      lab: text(doc.lab) ?? this.d.lab ?? DEFAULT_LAB,
+      budgetId: id,
+      title: v.document.title,
+      procedure: text(doc.procedure),
+      version: {
+        number: v.number,
+        latest: b.currentVersion,
+        createdAt: v.createdAt,
+        note: v.note,
+        seed: v.seed,
+        engineVersion: v.engineVersion,
+        documentSha256: v.documentSha256,
+        status: versionStatus(b, v),
+        author: this.name(v.authorId)!,
+        reviewer: this.name(v.approvedBy),
+        approvedAt: v.approvedAt,
+      },
+      document: v.document,
+      result: v.result,
+      generatedAt: (this.d.now ?? Date.now)(),
+    };
+  }
+
+  async pdf(actor: SessionUser, id: number, n?: number): Promise<ReportFile> {
+    const data = this.data(actor, id, n);
+    return { fileName: reportFileName(data), pdf: await renderReportPdf(data) };
+  }
+}
