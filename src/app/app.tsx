@@ -14,6 +14,8 @@ import { TemplatesPage, TemplateToggle } from '../features/templates/components/
 import { AuditPage } from '../features/audit/components/AuditPage';
 import { MailboxPage } from '../features/admin/components/MailboxPage';
 import { UsersPage } from '../features/admin/components/UsersPage';
+import { ReportPage } from '../features/report/components/ReportPage';
+import { BudgetTable, SharesChart } from '../features/editor/components/BudgetTable';
 import { ApiError } from './http';
 import { AppShell, NotFound, RequireAction, RequireSignIn } from './shell';
 import { ToastProvider } from './ui/toasts';
@@ -103,6 +105,24 @@ function UsersRoute() {
   return <UsersPage meId={me.id} />;
 }
 
+function ReportRoute() {
+  const me = useMeFromShell();
+  const { id, n } = useParams();
+  return (
+    <ReportPage
+      role={me.role}
+      budgetId={Number(id)}
+      versionNumber={Number(n)}
+      renderBudgetTable={(result, document) => (
+        <>
+          <BudgetTable result={result} inputs={document.inputs} onSelect={() => {}} />
+          <SharesChart result={result} onSelect={() => {}} />
+        </>
+      )}
+    />
+  );
+}
+
 function CompareRoute() {
   const { id } = useParams();
   const [params] = useSearchParams();
@@ -135,6 +155,7 @@ const router = createBrowserRouter([
       { path: 'budgets/:id/versions', element: <VersionsRoute /> },
       { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
       { path: 'budgets/:id/compare', element: <CompareRoute /> },
+      { path: 'budgets/:id/versions/:n/report', element: <ReportRoute /> },
       {
         path: 'templates',
         element: (
