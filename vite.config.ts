@@ -6,7 +6,11 @@ export default defineConfig({
   plugins: [react(), tailwindcss()],
   worker: { format: 'es' },
   optimizeDeps: { include: ['mathjs', 'plotly.js-basic-dist-min', 'react-plotly.js/factory'] },
-  server: { proxy: { '/api': 'http://localhost:3000' } },
+  // Same cross-origin isolation as the server, so the Monte Carlo worker can share its stop flag.
+  server: {
+    proxy: { '/api': 'http://localhost:3000' },
+    headers: { 'Cross-Origin-Opener-Policy': 'same-origin', 'Cross-Origin-Embedder-Policy': 'require-corp' },
+  },
   build: { outDir: 'dist', chunkSizeWarningLimit: 2000 },
   test: {
     include: ['tests/**/*.test.ts'],

@@ -142,6 +142,13 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
 
   if (config.staticDir && existsSync(join(config.staticDir, 'index.html'))) {
     const dir = resolve(config.staticDir);
+    // Cross-origin isolation lets the Monte Carlo worker share a stop flag with the page (SharedArrayBuffer),
+    // so Cancel stops the engine between blocks; everything the client loads is same-origin.
+    app.use((_req, res, next) => {
+      res.setHeader('Cross-Origin-Opener-Policy', 'same-origin');
+      res.setHeader('Cross-Origin-Embedder-Policy', 'require-corp');
+      next();
+    });
     app.use(express.static(dir, { index: false, maxAge: '1h' }));
     app.get('/{*splat}', (_req, res) => res.sendFile(join(dir, 'index.html')));
   }

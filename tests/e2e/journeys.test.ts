@@ -135,6 +135,13 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
 
     // Monte Carlo in the worker, histogram and verdict
     const mc = page.getByRole('region', { name: 'Monte Carlo method' });
+    // a long run shows its progress and can be stopped; the page stays usable meanwhile
+    expect(await page.evaluate(() => globalThis.crossOriginIsolated)).toBe(true);
+    await mc.getByLabel('Trials M').selectOption({ label: '2 000 000' });
+    await mc.getByRole('button', { name: 'Run Monte Carlo' }).click();
+    await shows(mc.getByRole('progressbar'));
+    await mc.getByRole('button', { name: 'Cancel' }).click();
+    await shows(mc.getByText(/Stopped after .* trials/));
     await mc.getByLabel('Trials M').selectOption({ label: '100 000' });
     await mc.getByRole('button', { name: 'Run Monte Carlo' }).click();
     await shows(mc.getByRole('table', { name: 'GUM and Monte Carlo results side by side' }), 60_000);
