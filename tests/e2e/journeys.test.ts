@@ -165,6 +165,153 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
   }, 180_000);
 });
 
+/** Opens a budget from the list by its title. */
+async function openBudget(page: Page, title: RegExp): Promise<number> {
+  await page.goto(`${app.baseUrl}/budgets`);
+  await page.getByRole('link', { name: title }).first().click();
+  await page.waitForURL(/\/budgets\/\d+$/);
+  return Number(/\/budgets\/(\d+)/.exec(page.url())?.[1]);
+}
+
+async function saveVersion(page: Page, note: string): Promise<void> {
+  await page.getByRole('button', { name: 'Save version…' }).click();
+  const dialog = page.getByRole('dialog');
+  await dialog.getByLabel('Change note').fill(note);
+  await dialog.getByRole('button', { name: 'Save version' }).click();
+  await shows(page.getByText(/saved/i));
+}
+
+describe('journey 2: review, return, resubmit and approve', () => {
+  it('a reviewer comments on one contribution and returns the budget; after the change the reviewer signs it off', async () => {
+    const title = /Conventional mass of a 200 g weight/;
+    const author = await pageAs('metrologist@dubito.example');
+    const id = await openBudget(author, title);
+    await author.getByRole('button', { name: 'Submit for review' }).click();
+    await shows(author.getByText('In review'));
+
+    const reviewer = await pageAs('reviewer@dubito.example');
+    await reviewer.goto(`${app.baseUrl}/budgets/${id}`);
+    await reviewer.getByRole('button', { name: /^Comments on dm_r \(0\)/ }).click();
+    await reviewer.getByLabel('New comment on dm_r').fill('The certificate KF-2025-077 gives U = 0.025 mg, not 0.030 mg. Please check.');
+    await reviewer.getByRole('button', { name: 'Add comment' }).click();
+    await shows(reviewer.getByRole('button', { name: /^Comments on dm_r \(1\)/ }));
+    await shot(reviewer, 'journey2', 'comment-on-contribution');
+
+    await reviewer.getByRole('button', { name: 'Return to author' }).click();
+    const back = reviewer.getByRole('dialog', { name: /Return version 1/ });
+    await back.getByRole('button', { name: 'Send back' }).click();
+    await shows(back.getByText(/required|give a reason|write/i)); // a return needs its comment
+    await back.getByLabel('Why is it returned?').fill('Uncertainty of the reference weight to be corrected, see the comment on dm_r.');
+    await back.getByRole('button', { name: 'Send back' }).click();
+    await shows(reviewer.getByText('Returned'));
+
+    await author.goto(`${app.baseUrl}/budgets/${id}`);
+    await shows(author.getByRole('button', { name: /^Comments on dm_r \(1\)/ }));
+    const names = await author.getByRole('button', { name: /^Move / }).evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''));
+    const index = names.findIndex((n) => n.startsWith('Move dm_r '));
+    const item = await openInput(author, index);
+    await item.getByLabel('Expanded uncertainty U').fill('0.025');
+    await saveVersion(author, 'dm_r: U from certificate KF-2025-077 corrected to 0.025 mg');
+    await author.getByRole('button', { name: 'Submit for review' }).click();
+    await shows(author.getByText('In review'));
+    await shot(author, 'journey2', 'resubmitted');
+
+    await reviewer.goto(`${app.baseUrl}/budgets/${id}`);
+    await reviewer.getByRole('button', { name: 'Approve' }).click();
+    const sign = reviewer.getByRole('dialog', { name: /Approve version 2/ });
+    await sign.getByLabel('Your password (signature)').fill('not my password');
+    await sign.getByRole('button', { name: 'Sign and approve' }).click();
+    await shows(sign.getByText(/password does not match/i));
+    await sign.getByLabel('Your password (signature)').fill('dubito-demo');
+    await sign.getByRole('button', { name: 'Sign and approve' }).click();
+    await shows(reviewer.getByText('Approved'));
+    await shot(reviewer, 'journey2', 'approved');
+
+    // the approved version is read-only for everyone, its author included
+    await author.goto(`${app.baseUrl}/budgets/${id}`);
+    await shows(author.getByText('Approved'));
+    await countIs(author.getByRole('button', { name: 'Save version…' }), 0);
+    const value = author.getByRole('list', { name: 'Input quantities' }).getByRole('listitem').first();
+    await value.getByRole('button', { expanded: false }).first().click().catch(() => undefined);
+    const editable = await value.getByLabel('Value').first().isEditable().catch(() => false);
+    expect(editable).toBe(false);
+    const stored = await author.evaluate(async (budgetId) => (await fetch(`/api/budgets/${budgetId}`)).json(), id);
+    expect(stored.status).toBe('approved');
+    expect(stored.approvedVersion).toBe(2);
+    const dmR = stored.document.inputs.find((q: { symbol: string }) => q.symbol === 'dm_r');
+    expect(dmR.distribution.U).toBe(0.025);
+  }, 240_000);
+});
+
+describe('journey 3: an auditor compares versions and exports the audit trail', () => {
+  it('compares version 1 with the latest, sees the changed input, and downloads the audit CSV', async () => {
+    const page = await pageAs('auditor@dubito.example');
+    const id = await openBudget(page, /Resistor KF-R10K-7/);
+    await page.goto(`${app.baseUrl}/budgets/${id}/versions`);
+    const form = page.getByRole('form', { name: 'Compare two versions' }).or(page.getByRole('region', { name: 'Compare two versions' })).first();
+    await form.getByLabel('Compare version').selectOption('1');
+    await form.getByLabel('with version').selectOption('3');
+    await form.getByRole('button', { name: 'Compare' }).click();
+    await page.waitForURL(/compare\?from=1&to=3/);
+    // the input whose certificate changed is marked, field by field, and so is its contribution
+    const changed = page.getByTestId('inputs-changed-R_s');
+    await shows(changed);
+    await shows(changed.locator('[data-change="changed"]'));
+    await shows(changed.getByText(/changed/i));
+    expect(await page.getByTestId('contribution-R_s').getAttribute('data-change')).toBe('changed');
+    await shot(page, 'journey3', 'compare');
+
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /audit/i }).click();
+    await shows(page.getByTestId('audit-table'));
+    await shot(page, 'journey3', 'audit-trail');
+    const download = page.waitForEvent('download');
+    await page.getByRole('link', { name: 'Export CSV' }).click();
+    const file = await (await download).path();
+    const { readFileSync } = await import('node:fs');
+    const csv = readFileSync(file, 'utf8');
+    expect(csv.split('\n')[0]).toMatch(/time|at/i);
+    expect(csv).toMatch(/budget\.approved|approved/);
+  }, 180_000);
+});
+
+describe('journey 4: a trainee starts from a template', () => {
+  it('clones a template, changes a value, sees the result move, saves, and cannot approve', async () => {
+    const page = await pageAs('trainee@dubito.example');
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Templates' }).click();
+    await shows(page.getByRole('region', { name: 'Template gallery' }).or(page.getByTestId(/template-/)).first());
+    await shot(page, 'journey4', 'templates');
+    await page.getByRole('button', { name: /^Use this template/ }).first().click();
+    const dialog = page.getByRole('dialog', { name: 'Start a draft from this template' });
+    await dialog.getByLabel('Title of the new draft').fill('Training: gauge block KF-GB-50-201');
+    await dialog.getByRole('button', { name: 'Create draft' }).click();
+    await page.waitForURL(/\/budgets\/\d+$/);
+    const id = Number(/\/budgets\/(\d+)/.exec(page.url())?.[1]);
+    await shows(page.getByTestId('budget-source'));
+
+    const U = page.getByRole('region', { name: 'Result' }).getByRole('button', { name: /^U / });
+    const before = await U.textContent();
+    const item = await openInput(page, 0);
+    await item.getByLabel('Distribution').selectOption({ label: 'Normal (Gaussian)' });
+    await item.getByLabel('Given as').selectOption({ index: 0 });
+    const u = item.getByLabel('Standard uncertainty u');
+    await u.fill(String(Number(await u.inputValue()) * 3));
+    await expect.poll(() => U.textContent()).not.toBe(before);
+    await saveVersion(page, 'First input: standard uncertainty tripled for the exercise');
+    await shot(page, 'journey4', 'trainee-draft');
+
+    await countIs(page.getByRole('button', { name: 'Approve' }), 0);
+    const status = await page.evaluate(
+      async (budgetId) =>
+        (await fetch(`/api/budgets/${budgetId}/transitions`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ to: 'approved', password: 'dubito-demo' }) })).status,
+      id,
+    );
+    expect(status).toBe(403);
+    const stored = await page.evaluate(async (budgetId) => (await fetch(`/api/budgets/${budgetId}`)).json(), id);
+    expect(stored.currentVersion).toBe(2);
+    expect(stored.source).not.toBeNull();
+  }, 180_000);
+});
+
 describe('journey 5: signed-out visitors and wrong roles are kept out', () => {
   const protectedPages = ['/budgets', '/budgets/new', '/budgets/1', '/budgets/1/versions', '/templates', '/audit', '/admin/users', '/admin/mail'];
 
@@ -180,7 +327,7 @@ describe('journey 5: signed-out visitors and wrong roles are kept out', () => {
     expect(api).toBe(401);
   }, 120_000);
 
-  it('keeps a metrologist out of the audit trail and the admin pages, and a trainee out of approval', async () => {
+  it('keeps a metrologist out of the audit trail and the admin pages (pages and API)', async () => {
     const page = await pageAs('metrologist@dubito.example');
     await countIs(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /audit/i }), 0);
     for (const path of ['/audit', '/admin/users', '/admin/mail']) {
