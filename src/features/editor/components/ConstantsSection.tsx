@@ -31,7 +31,7 @@ export function ConstantsSection({
       {constants.length === 0 ? <p className="text-sm text-stone-600">No constants. Constants are exact numbers the model uses, such as a nominal value or a physical constant.</p> : null}
       <ul className="flex flex-col gap-2">
         {constants.map((c, i) => (
-          <li key={i} className="grid grid-cols-[8rem_10rem_7rem_1fr_auto] items-start gap-2">
+          <li key={i} className="grid grid-cols-[minmax(0,1fr)_minmax(0,1.3fr)_minmax(0,1fr)_minmax(0,2fr)_auto] items-start gap-2">
             <Field label="Symbol" error={problemAt(problems, `constants[${i}].symbol`)}>
               {(p) => <TextInput {...p} readOnly={readOnly} className="num" value={c.symbol} onChange={(e) => set(i, { ...c, symbol: e.target.value })} />}
             </Field>
