@@ -240,6 +240,17 @@ describe('journey 2: review, return, resubmit and approve', () => {
     expect(stored.approvedVersion).toBe(2);
     const dmR = stored.document.inputs.find((q: { symbol: string }) => q.symbol === 'dm_r');
     expect(dmR.distribution.U).toBe(0.025);
+
+    // the report of the approved version: a print-ready page and its PDF
+    await reviewer.goto(`${app.baseUrl}/budgets/${id}/versions/2/report`);
+    await shows(reviewer.getByTestId('report-statement'));
+    await shot(reviewer, 'journey2', 'report');
+    const href = await reviewer.getByRole('link', { name: 'Download PDF' }).getAttribute('href');
+    const pdf = await reviewer.evaluate(async (url) => {
+      const r = await fetch(url as string);
+      return { type: r.headers.get('content-type'), head: new TextDecoder().decode((await r.arrayBuffer()).slice(0, 5)) };
+    }, href);
+    expect(pdf).toEqual({ type: 'application/pdf', head: '%PDF-' });
   }, 240_000);
 });
 
