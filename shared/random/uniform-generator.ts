@@ -19,21 +19,21 @@ const TWO_POW_MINUS_53 = 1 / 9007199254740992;
 export class UniformGenerator {
   /** The seed text this stream was derived from. */
   readonly seed: string;
-  private s0 = 0;
-  private s1 = 0;
-  private s2 = 0;
-  private s3 = 0;
+  /**
+   * The four xoshiro128** state words. A sampler that runs the generator
+   * inline (to skip a buffer of raw words) loads them into locals, steps
+   * exactly as `fillRaw` does, and stores them back before any other call.
+   */
+  readonly state = new Int32Array(4);
   private readonly single = new Float64Array(1);
 
   constructor(seed: string | number) {
     this.seed = String(seed);
     const hash = seedrandom(this.seed);
-    this.s0 = hash.int32();
-    this.s1 = hash.int32();
-    this.s2 = hash.int32();
-    this.s3 = hash.int32();
+    const s = this.state;
+    for (let k = 0; k < 4; k++) s[k] = hash.int32();
     // xoshiro's all-zero state is a fixed point; the hash makes it practically impossible, but guard anyway.
-    if ((this.s0 | this.s1 | this.s2 | this.s3) === 0) this.s0 = 0x9e3779b9 | 0;
+    if ((s[0] | s[1] | s[2] | s[3]) === 0) s[0] = 0x9e3779b9 | 0;
   }
 
   /**
@@ -57,10 +57,11 @@ export class UniformGenerator {
    * the same stream as `fill`: one uniform of `fill` is two raw outputs.
    */
   fillRaw(out: Int32Array, n: number = out.length): void {
-    let s0 = this.s0;
-    let s1 = this.s1;
-    let s2 = this.s2;
-    let s3 = this.s3;
+    const state = this.state;
+    let s0 = state[0];
+    let s1 = state[1];
+    let s2 = state[2];
+    let s3 = state[3];
     let t = 0;
     let r = 0;
     for (let i = 0; i < n; i++) {
@@ -74,10 +75,10 @@ export class UniformGenerator {
       s2 ^= t;
       s3 = (s3 << 11) | (s3 >>> 21);
     }
-    this.s0 = s0;
-    this.s1 = s1;
-    this.s2 = s2;
-    this.s3 = s3;
+    state[0] = s0;
+    state[1] = s1;
+    state[2] = s2;
+    state[3] = s3;
   }
 
   /**
@@ -86,11 +87,12 @@ export class UniformGenerator {
    * saves a rectangular sampler a second pass over the block.
    */
   fill(out: Float64Array, n: number = out.length, lower = 0, width = 1): void {
-    // State in locals: about three times faster than reading and writing fields per draw.
-    let s0 = this.s0;
-    let s1 = this.s1;
-    let s2 = this.s2;
-    let s3 = this.s3;
+    // State in locals: about three times faster than reading and writing words per draw.
+    const state = this.state;
+    let s0 = state[0];
+    let s1 = state[1];
+    let s2 = state[2];
+    let s3 = state[3];
     for (let i = 0; i < n; i++) {
       // First 32-bit output (xoshiro128**), top 21 bits kept.
       let t = s1 << 9;
@@ -112,7 +114,7 @@ export class UniformGenerator {
       s0 ^= s3;
       s2 ^= t;
       s3 = (s3 << 11) | (s3 >>> 21);
-      const k = (hi >>> 11) * TWO_POW_32 + (lo >>> 0);
+      const k = unsigned53(hi, lo);
       // k = 0 is drawn again for the same i; a flat loop with this rare step back runs faster than a nested retry loop.
       if (k === 0) {
         i--;
@@ -120,9 +122,23 @@ export class UniformGenerator {
       }
       out[i] = lower + width * (k * TWO_POW_MINUS_53);
     }
-    this.s0 = s0;
-    this.s1 = s1;
-    this.s2 = s2;
-    this.s3 = s3;
+    state[0] = s0;
+    state[1] = s1;
+    state[2] = s2;
+    state[3] = s3;
   }
+}
+
+const SIGN = -2147483648;
+/** 2⁵² + 2³¹: moves the signed 53-bit integer of `unsigned53` back to [0, 2⁵³). */
+const UNSIGNED_OFFSET = 4503599627370496 + 2147483648;
+
+/**
+ * k = ⌊hi/2¹¹⌋·2³² + lo for two 32-bit words read as unsigned, k ∈ [0, 2⁵³).
+ * Computed from signed words (hi ⊕ 2³¹ >> 11 is ⌊hi/2¹¹⌋ − 2²⁰, lo ⊕ 2³¹ is
+ * lo − 2³¹), because a signed 32-bit integer converts to a double in one
+ * instruction and an unsigned one does not; every step is exact.
+ */
+export function unsigned53(hi: number, lo: number): number {
+  return ((hi ^ SIGN) >> 11) * TWO_POW_32 + ((lo ^ SIGN) + UNSIGNED_OFFSET);
 }

@@ -1,4 +1,4 @@
-import type { UniformGenerator } from './uniform-generator';
+import { unsigned53, type UniformGenerator } from './uniform-generator';
 
 /*
  * Ziggurat sampler for N(0, 1) (Marsaglia & Tsang 2000), 256 layers, with the
@@ -98,13 +98,13 @@ const { X, F, area: LAYER_AREA } = buildTables();
  */
 export const zigguratTables: { readonly X: Float64Array; readonly F: Float64Array; readonly area: number } = { X, F, area: LAYER_AREA };
 
-const TWO_POW_32 = 4294967296;
 const TWO_POW_MINUS_53 = 1 / 9007199254740992;
-const RAW_LENGTH = 8192;
-/** Raw words for the fill loop (32 KB, allocated once). */
-const RAW = new Int32Array(RAW_LENGTH);
-/** Output indices of the attempts of one block of RAW that the rare path finishes (at most one per attempt). */
-const PENDING = new Int32Array(RAW_LENGTH / 2);
+/** Attempts per round of the fill loop; the rare path of a round runs after it. */
+const ROUND = 4096;
+/** Output index and the two words a, b of each attempt of a round that the rare path finishes (at most one per attempt). */
+const PENDING = new Int32Array(ROUND);
+const PENDING_A = new Int32Array(ROUND);
+const PENDING_B = new Int32Array(ROUND);
 const single = new Int32Array(2);
 
 /**
@@ -136,7 +136,7 @@ function freshDraw(rng: UniformGenerator): number {
     rng.fillRaw(single, 2);
     const a = single[0];
     const layer = a & 255;
-    let x = ((a >>> 11) * TWO_POW_32 + (single[1] >>> 0)) * TWO_POW_MINUS_53 * X[layer];
+    let x = unsigned53(a, single[1]) * TWO_POW_MINUS_53 * X[layer];
     if (x >= X[layer + 1]) x = finishAttempt(rng, layer, x);
     if (x === x) return x * (1 - ((a >>> 7) & 2));
   }
@@ -149,47 +149,74 @@ function freshDraw(rng: UniformGenerator): number {
  * Each attempt takes two 32-bit outputs a, b: layer i = a mod 256, the sign
  * from bit 8 of a, and u = (⌊a/2¹¹⌋·2³² + b)·2⁻⁵³ ∈ [0, 1); x = u·X[i] is
  * accepted when x < X[i+1]. The other attempts (about 1 %) are finished after
- * the block: the wedge test or the tail draw, and a fresh draw for an
- * attempt the wedge rejects. Output t is thus still the first accepted
- * attempt of its own independent sequence of attempts.
+ * each round of 4096 attempts: the wedge test or the tail draw, and a fresh
+ * draw for an attempt the wedge rejects. Output t is thus still the first
+ * accepted attempt of its own independent sequence of attempts.
  */
 export function fillNormal(rng: UniformGenerator, out: Float64Array, n: number, mean: number, standardDeviation: number): void {
   // Tables and constants in locals: module-level bindings cost a context load (and a hole check) per use.
-  const words = RAW;
   const pending = PENDING;
+  const pendingA = PENDING_A;
+  const pendingB = PENDING_B;
   const edges = X;
   const toUnit = TWO_POW_MINUS_53;
-  const high = TWO_POW_32;
+  const state = rng.state;
   let i = 0;
   while (i < n) {
-    // Two words per remaining output, one attempt each: the last block ends exactly at n.
-    const available = Math.min(RAW_LENGTH, 2 * (n - i));
-    rng.fillRaw(words, available);
-    const start = i;
+    const end = Math.min(n, i + ROUND);
     let waiting = 0;
+    // xoshiro128** run inline (as UniformGenerator.fillRaw), state in locals: no buffer of raw words.
+    let s0 = state[0];
+    let s1 = state[1];
+    let s2 = state[2];
+    let s3 = state[3];
     // The hot loop makes no calls, so nothing of the rare path weighs on it.
-    for (let used = 0; used < available; used += 2) {
-      const a = words[used];
+    for (; i < end; i++) {
+      let t = s1 << 9;
+      let a = Math.imul(s1, 5);
+      a = Math.imul((a << 7) | (a >>> 25), 9);
+      s2 ^= s0;
+      s3 ^= s1;
+      s1 ^= s2;
+      s0 ^= s3;
+      s2 ^= t;
+      s3 = (s3 << 11) | (s3 >>> 21);
+      t = s1 << 9;
+      let b = Math.imul(s1, 5);
+      b = Math.imul((b << 7) | (b >>> 25), 9);
+      s2 ^= s0;
+      s3 ^= s1;
+      s1 ^= s2;
+      s0 ^= s3;
+      s2 ^= t;
+      s3 = (s3 << 11) | (s3 >>> 21);
       const layer = a & 255;
-      const x = ((a >>> 11) * high + (words[used + 1] >>> 0)) * toUnit * edges[layer];
+      const x = unsigned53(a, b) * toUnit * edges[layer];
       // Sign from bit 8 as a factor ±1: a branch on a random bit would be mispredicted half the time.
-      if (x < edges[layer + 1]) out[i++] = mean + standardDeviation * (x * (1 - ((a >>> 7) & 2)));
-      else pending[waiting++] = i++;
+      if (x < edges[layer + 1]) out[i] = mean + standardDeviation * (x * (1 - ((a >>> 7) & 2)));
+      else {
+        pending[waiting] = i;
+        pendingA[waiting] = a;
+        pendingB[waiting++] = b;
+      }
     }
-    if (waiting > 0) finishPending(rng, out, start, waiting, mean, standardDeviation);
+    state[0] = s0;
+    state[1] = s1;
+    state[2] = s2;
+    state[3] = s3;
+    if (waiting > 0) finishPending(rng, out, waiting, mean, standardDeviation);
   }
 }
 
-/** Finishes the waiting attempts of the last block; output t came from the attempt in RAW[2(t − start)], RAW[2(t − start) + 1]. */
-function finishPending(rng: UniformGenerator, out: Float64Array, start: number, waiting: number, mean: number, standardDeviation: number): void {
+/** Finishes the waiting attempts of the last round, in order: output PENDING[k] came from the words PENDING_A[k], PENDING_B[k]. */
+function finishPending(rng: UniformGenerator, out: Float64Array, waiting: number, mean: number, standardDeviation: number): void {
   for (let k = 0; k < waiting; k++) {
-    const t = PENDING[k];
-    const a = RAW[2 * (t - start)];
+    const a = PENDING_A[k];
     const layer = a & 255;
-    const x = ((a >>> 11) * TWO_POW_32 + (RAW[2 * (t - start) + 1] >>> 0)) * TWO_POW_MINUS_53 * X[layer];
+    const x = unsigned53(a, PENDING_B[k]) * TWO_POW_MINUS_53 * X[layer];
     const finished = finishAttempt(rng, layer, x);
     const z = finished === finished ? finished * (1 - ((a >>> 7) & 2)) : freshDraw(rng);
-    out[t] = mean + standardDeviation * z;
+    out[PENDING[k]] = mean + standardDeviation * z;
   }
 }
 

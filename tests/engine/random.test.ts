@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import jstatPkg from 'jstat';
-import { UniformGenerator } from '../../shared/random/uniform-generator';
+import { UniformGenerator, unsigned53 } from '../../shared/random/uniform-generator';
 import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
 import { fillStudentT } from '../../shared/random/student-t-draws';
 import { sampleMoments } from './moments';
@@ -67,6 +67,13 @@ describe('UniformGenerator', () => {
     for (let i = 1; i < N; i++) s += (x[i] - 0.5) * (x[i - 1] - 0.5);
     const r = s / (N - 1) / (1 / 12);
     expect(Math.abs(r)).toBeLessThan(5 / Math.sqrt(N));
+  });
+
+  it('builds the 53-bit integer from signed words exactly as from unsigned ones', () => {
+    // IEEE 754 binary64: every integer below 2⁵³ is exact, so both forms must agree bit for bit.
+    const words = [0, 1, -1, 2047, 2048, 0x7fffffff, -0x80000000, 0x12345678, -0x2468ace0, 0x7ff, -0x800];
+    for (const hi of words) for (const lo of words) expect(unsigned53(hi, lo)).toBe((hi >>> 11) * 2 ** 32 + (lo >>> 0));
+    expect(unsigned53(-1, -1)).toBe(2 ** 53 - 1);
   });
 
   it('derives sub-streams that differ from the parent and from each other, reproducibly', () => {
