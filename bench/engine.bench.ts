@@ -17,7 +17,7 @@ import type { MonteCarloPhase, PhaseTimer } from '../shared/montecarlo/run-monte
 
 const here = dirname(fileURLToPath(import.meta.url));
 const RUNS = 7;
-const WARM_UPS = 2;
+const WARM_UPS = 3;
 
 /** JCGM 101:2008 9.3: calibration of a 100 g weight (same budget as the reference test). */
 const mass = validateBudget({
@@ -71,23 +71,30 @@ function monteCarloAtMillion() {
   for (let w = 0; w < WARM_UPS; w++) computeBudget(mass, { trials });
   const totals: number[] = [];
   const cpu: number[] = [];
+  const sums: number[] = [];
   const phases: Record<MonteCarloPhase, number[]> = { sample: [], evaluate: [], moments: [], histogram: [], intervals: [] };
   let result = computeBudget(mass, { trials });
+  // Phases and totals from the same runs, so their difference is what computeBudget adds (the ≈ 100 clock reads cost microseconds).
   for (let r = 0; r < RUNS; r++) {
+    const timer: PhaseTimer = { now: () => performance.now(), elapsed: {} };
     const c0 = process.cpuUsage();
     const t0 = performance.now();
-    result = computeBudget(mass, { trials });
+    result = computeBudget(mass, { trials, timer });
     totals.push(performance.now() - t0);
     const c = process.cpuUsage(c0);
     cpu.push((c.user + c.system) / 1000);
-  }
-  // Phase times in separate runs, so the clock reads do not enter the totals.
-  for (let r = 0; r < RUNS; r++) {
-    const timer: PhaseTimer = { now: () => performance.now(), elapsed: {} };
-    computeBudget(mass, { trials, timer });
     for (const p of PHASES) phases[p].push(timer.elapsed[p] ?? 0);
+    sums.push(PHASES.reduce((s, p) => s + (timer.elapsed[p] ?? 0), 0));
   }
-  return { trials, total: median(totals), cpu: median(cpu), phases: Object.fromEntries(PHASES.map((p) => [p, median(phases[p])])) as Record<MonteCarloPhase, number>, result };
+  return {
+    trials,
+    total: median(totals),
+    cpu: median(cpu),
+    /** Median over runs of the sum of the Monte Carlo phases (runMonteCarlo alone). */
+    phaseSum: median(sums),
+    phases: Object.fromEntries(PHASES.map((p) => [p, median(phases[p])])) as Record<MonteCarloPhase, number>,
+    result,
+  };
 }
 
 function monteCarloAtTenMillion() {
@@ -197,7 +204,7 @@ function main() {
   const guf = gufRecompute();
 
   const mc = million.result.monteCarlo!;
-  const phaseSum = PHASES.reduce((s, p) => s + million.phases[p], 0);
+  const phaseSum = million.phaseSum;
   console.log('JCGM 101:2008 9.3 mass model, 10⁶ trials');
   console.log('| phase      | Dubito ms | numpy ms |');
   console.log('| ---------- | --------: | -------: |');
@@ -206,7 +213,7 @@ function main() {
   for (const p of PHASES) {
     console.log(`| ${p.padEnd(10)} | ${fmt(million.phases[p]).padStart(9)} | ${(npSeconds ? fmt(npSeconds[p] * 1000) : '—').padStart(8)} |`);
   }
-  console.log(`| sum        | ${fmt(phaseSum).padStart(9)} | ${(npSeconds ? fmt(npSeconds.total * 1000) : '—').padStart(8)} |`);
+  console.log(`| MCM (sum)  | ${fmt(phaseSum).padStart(9)} | ${(npSeconds ? fmt(npSeconds.total * 1000) : '—').padStart(8)} |`);
   console.log(`| computeBudget total (GUF + MCM) | ${fmt(million.total)} ms | ${fmt(million.trials / (million.total / 1000) / 1e6)} M trials/s |`);
   console.log(
     `  result: y = ${mc.estimate.toFixed(5)} mg, u = ${mc.standardUncertainty.toFixed(5)} mg, symmetric [${mc.interval.map((v) => v.toFixed(4)).join(', ')}], ` +
@@ -235,11 +242,13 @@ function main() {
   console.log('| --- | --- | --- |');
   if ('skipped' in np) console.log(`| MCM 10⁶ ≤ 0.5 × numpy | ${fmt(million.total)} ms, numpy skipped | — |`);
   else {
+    const mcmRatio = phaseSum / (np.seconds.total * 1000);
+    console.log(`| MCM 10⁶ ≤ 0.5 × numpy (runMonteCarlo phases, wall time) | ${fmt(phaseSum)} ms / ${fmt(np.seconds.total * 1000)} ms = ${fmt(mcmRatio, 3)} | ${verdict(mcmRatio <= 0.5)} |`);
     const ratio = million.total / (np.seconds.total * 1000);
-    console.log(`| MCM 10⁶ ≤ 0.5 × numpy (wall time) | ${fmt(million.total)} ms / ${fmt(np.seconds.total * 1000)} ms = ${fmt(ratio, 3)} | ${verdict(ratio <= 0.5)} |`);
+    console.log(`| computeBudget 10⁶ ≤ 0.5 × numpy (GUF + MCM, wall time) | ${fmt(million.total)} ms / ${fmt(np.seconds.total * 1000)} ms = ${fmt(ratio, 3)} | ${verdict(ratio <= 0.5)} |`);
     // CPU time leaves out the time either process waited for a core: the steadier figure on a shared machine.
     const cpuRatio = million.cpu / (np.seconds.cpu * 1000);
-    console.log(`| (same, CPU time, for reference) | ${fmt(million.cpu)} ms / ${fmt(np.seconds.cpu * 1000)} ms = ${fmt(cpuRatio, 3)} | ${verdict(cpuRatio <= 0.5)} |`);
+    console.log(`| (computeBudget, CPU time, for reference) | ${fmt(million.cpu)} ms / ${fmt(np.seconds.cpu * 1000)} ms = ${fmt(cpuRatio, 3)} | ${verdict(cpuRatio <= 0.5)} |`);
   }
   console.log(`| 10⁷ trials, memory well under 1 GB (< 512 MiB rss) | ${fmt(mib(ten.peakRss), 0)} MiB | ${verdict(ten.peakRss < 512 * 2 ** 20)} |`);
   console.log(`| GUF recompute of 50 inputs < 2 ms | ${fmt(guf.recompute, 3)} ms | ${verdict(guf.recompute < 2)} |`);

@@ -4,7 +4,7 @@ import { UniformGenerator } from '../random/uniform-generator';
 import { correlatedNormalSampler, type CorrelatedSampler } from './correlated-normal';
 import { coverageIntervals, probabilisticallySymmetricInterval } from './coverage-interval';
 import { histogramBins } from './histogram';
-import { meanAndStandardDeviation } from './summary';
+import { MomentAccumulator } from './summary';
 import { numericalTolerance } from './validation';
 
 export interface MonteCarloPlan {
@@ -157,8 +157,11 @@ class TrialGenerator {
     });
   }
 
-  /** Fills out[offset..offset + count) with model values; trial numbers continue across calls. */
-  run(out: Float64Array, offset: number, count: number, onBlock?: (n: number) => void): void {
+  /**
+   * Fills out[offset..offset + count) with model values and adds each block
+   * to `moments` while it is in cache; trial numbers continue across calls.
+   */
+  run(out: Float64Array, offset: number, count: number, moments: MomentAccumulator, onBlock?: (n: number) => void): void {
     const { plan, columns, streams, timer } = this;
     for (let start = 0; start < count; start += this.blockSize) {
       if (this.shouldStop?.()) throw new MonteCarloCancelled(this.done);
@@ -172,8 +175,11 @@ class TrialGenerator {
       if (timer) since = addElapsed(timer, 'sample', since);
       const at = offset + start;
       plan.evaluateBlock(columns, out, at, n);
-      this.checkFinite(out, at, n);
-      if (timer) addElapsed(timer, 'evaluate', since);
+      if (timer) since = addElapsed(timer, 'evaluate', since);
+      // The block mean is finite unless a value is not (or the sum overflows): only then look for the value.
+      const blockMean = moments.add(out, at, at + n);
+      if (blockMean - blockMean !== 0) this.checkFinite(out, at, n);
+      if (timer) addElapsed(timer, 'moments', since);
       this.done += n;
       onBlock?.(n);
     }
@@ -197,11 +203,10 @@ function checkTrials(trials: number): void {
   if (!(Number.isInteger(trials) && trials >= 1)) throw new RangeError(`trials must be a whole number ≥ 1 (got ${trials})`);
 }
 
-/** Summary of M model values: estimate and u (7.6), both intervals (7.7), histogram. Reorders `values`. */
-function summarize(values: Float64Array, p: number, binCount?: number, timer?: PhaseTimer) {
+/** Summary of M model values: estimate and u (7.6, from `moments`), both intervals (7.7), histogram. Reorders `values`. */
+function summarize(values: Float64Array, moments: MomentAccumulator, p: number, binCount?: number, timer?: PhaseTimer) {
+  const { mean, standardDeviation, min, max } = moments.result();
   let since = timer ? timer.now() : 0;
-  const { mean, standardDeviation, min, max } = meanAndStandardDeviation(values);
-  if (timer) since = addElapsed(timer, 'moments', since);
   const range = { min, max };
   const histogram = histogramBins(values, binCount, range);
   if (timer) since = addElapsed(timer, 'histogram', since);
@@ -223,8 +228,9 @@ export function runMonteCarlo(plan: MonteCarloPlan, options: MonteCarloOptions):
   checkTrials(M);
   const generator = new TrialGenerator(plan, seed, Math.min(options.blockSize ?? DEFAULT_BLOCK_SIZE, M), options.shouldStop, options.timer);
   const values = new Float64Array(M);
-  generator.run(values, 0, M, () => options.onProgress?.(generator.done, M));
-  return { trials: M, seed, ...summarize(values, p, options.binCount, options.timer), values };
+  const moments = new MomentAccumulator();
+  generator.run(values, 0, M, moments, () => options.onProgress?.(generator.done, M));
+  return { trials: M, seed, ...summarize(values, moments, p, options.binCount, options.timer), values };
 }
 
 /** Standard deviation of the average of h values: s = √(Σ(x_r − x̄)² / (h(h − 1))) (JCGM 101:2008 7.9.4 e). */
@@ -262,6 +268,7 @@ export function runAdaptiveMonteCarlo(plan: MonteCarloPlan, options: AdaptiveMon
   let spread = { estimate: NaN, standardUncertainty: NaN, low: NaN, high: NaN };
   let stabilized = false;
   let h = 0;
+  const allMoments = new MomentAccumulator();
   while (h < maxSequences) {
     const offset = h * M;
     if (offset + M > values.length) {
@@ -270,10 +277,12 @@ export function runAdaptiveMonteCarlo(plan: MonteCarloPlan, options: AdaptiveMon
       grown.set(values);
       values = grown;
     }
-    generator.run(values, offset, M, () => options.onProgress?.(generator.done, maxSequences * M));
+    const sequenceMoments = new MomentAccumulator();
+    generator.run(values, offset, M, sequenceMoments, () => options.onProgress?.(generator.done, maxSequences * M));
+    allMoments.merge(sequenceMoments);
     h++;
     const sequence = values.subarray(offset, offset + M);
-    const { mean, standardDeviation } = meanAndStandardDeviation(sequence);
+    const { mean, standardDeviation } = sequenceMoments.result();
     const [low, high] = probabilisticallySymmetricInterval(sequence, p);
     estimates.push(mean);
     uncertainties.push(standardDeviation);
@@ -286,7 +295,7 @@ export function runAdaptiveMonteCarlo(plan: MonteCarloPlan, options: AdaptiveMon
       low: standardDeviationOfAverage(lows),
       high: standardDeviationOfAverage(highs),
     };
-    const all = meanAndStandardDeviation(values, 0, h * M);
+    const all = allMoments.result();
     if (!(all.standardDeviation > 0)) {
       // u = 0: the model does not vary, every sequence agrees exactly.
       tolerance = 0;
@@ -303,13 +312,13 @@ export function runAdaptiveMonteCarlo(plan: MonteCarloPlan, options: AdaptiveMon
   const used = values.subarray(0, h * M);
   if (Number.isNaN(tolerance)) {
     // A single sequence (maxTrials < 2M): report δ of its u all the same.
-    const { standardDeviation } = meanAndStandardDeviation(used);
+    const { standardDeviation } = allMoments.result();
     tolerance = standardDeviation > 0 ? numericalTolerance(standardDeviation, significantDigits) : 0;
   }
   return {
     trials: h * M,
     seed,
-    ...summarize(used, p, options.binCount, options.timer),
+    ...summarize(used, allMoments, p, options.binCount, options.timer),
     values: used,
     adaptive: { sequenceLength: M, sequences: h, tolerance, spread, stabilized },
   };

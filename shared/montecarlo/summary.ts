@@ -10,6 +10,26 @@ export function meanAndStandardDeviation(
   start = 0,
   end = values.length,
 ): { mean: number; standardDeviation: number; min: number; max: number } {
+  const { count: M, mean, sumOfSquares, min, max } = centralSums(values, start, end);
+  return { mean, standardDeviation: standardDeviationOf(M, sumOfSquares), min, max };
+}
+
+/** s = √(S/(M − 1)) from the sum S of squared deviations (0 for M = 1). */
+function standardDeviationOf(M: number, sumOfSquares: number): number {
+  return M < 2 ? 0 : Math.sqrt(Math.max(sumOfSquares, 0) / (M - 1));
+}
+
+interface CentralSums {
+  count: number;
+  mean: number;
+  /** Σ (y_r − ȳ)², corrected for the rounding of ȳ. */
+  sumOfSquares: number;
+  min: number;
+  max: number;
+}
+
+/** ȳ, Σ (y_r − ȳ)², min and max of values[start..end) by the corrected two-pass method. */
+function centralSums(values: Float64Array, start: number, end: number): CentralSums {
   const M = end - start;
   if (M < 1) throw new RangeError('needs at least one model value');
   // Four partial sums per quantity: one running sum waits on the latency of each addition.
@@ -66,9 +86,105 @@ export function meanAndStandardDeviation(
     q0 += a * a;
   }
   const sumOfDeviations = d0 + d1;
-  const sumOfSquares = q0 + q1;
   const mean = first + sumOfDeviations / M;
-  if (M < 2) return { mean, standardDeviation: 0, min, max };
-  const variance = (sumOfSquares - (sumOfDeviations * sumOfDeviations) / M) / (M - 1);
-  return { mean, standardDeviation: Math.sqrt(Math.max(variance, 0)), min, max };
+  return { count: M, mean, sumOfSquares: q0 + q1 - (sumOfDeviations * sumOfDeviations) / M, min, max };
+}
+
+/** Σ (y_r − K), Σ (y_r − K)², min and max of values[start..end) in one pass (see MomentAccumulator). */
+function shiftedSums(values: Float64Array, start: number, end: number, K: number): { sum: number; sumOfSquares: number; min: number; max: number } {
+  let d0 = 0;
+  let d1 = 0;
+  let q0 = 0;
+  let q1 = 0;
+  let min = Infinity;
+  let max = -Infinity;
+  const stop4 = start + (((end - start) >> 2) << 2);
+  let r = start;
+  for (; r < stop4; r += 4) {
+    const a = values[r];
+    const b = values[r + 1];
+    const c = values[r + 2];
+    const d = values[r + 3];
+    const da = a - K;
+    const db = b - K;
+    const dc = c - K;
+    const dd = d - K;
+    d0 += da + db;
+    d1 += dc + dd;
+    q0 += da * da + db * db;
+    q1 += dc * dc + dd * dd;
+    const lo = a < b ? a : b;
+    const lo2 = c < d ? c : d;
+    const hi = a > b ? a : b;
+    const hi2 = c > d ? c : d;
+    if (lo < min) min = lo;
+    if (lo2 < min) min = lo2;
+    if (hi > max) max = hi;
+    if (hi2 > max) max = hi2;
+  }
+  for (; r < end; r++) {
+    const y = values[r];
+    const dy = y - K;
+    d0 += dy;
+    q0 += dy * dy;
+    if (y < min) min = y;
+    if (y > max) max = y;
+  }
+  return { sum: d0 + d1, sumOfSquares: q0 + q1, min, max };
+}
+
+/**
+ * ỹ and u(ỹ) of JCGM 101:2008 7.6 (eqs. 12–13) gathered block by block, in
+ * one pass over each block while it is still in cache, as sums about a fixed
+ * shift K (the first value added): with d_r = y_r − K,
+ * ỹ = K + Σd/M and Σ (y_r − ỹ)² = Σd² − (Σd)²/M. K is one of the values, so
+ * d_r is exact for values close to it and a large common offset costs no
+ * digits of the spread; K lies a few u(ỹ) from ỹ, so the subtraction cancels
+ * little.
+ */
+export class MomentAccumulator {
+  private count = 0;
+  private shift = 0;
+  private sum = 0;
+  private sumOfSquares = 0;
+  private min = Infinity;
+  private max = -Infinity;
+
+  /** Adds values[start..end) (end > start) and returns their mean (NaN or ±∞ when one of them is not finite). */
+  add(values: Float64Array, start: number, end: number): number {
+    if (this.count === 0) this.shift = values[start];
+    const n = end - start;
+    const block = shiftedSums(values, start, end, this.shift);
+    this.count += n;
+    this.sum += block.sum;
+    this.sumOfSquares += block.sumOfSquares;
+    if (block.min < this.min) this.min = block.min;
+    if (block.max > this.max) this.max = block.max;
+    return this.shift + block.sum / n;
+  }
+
+  /**
+   * Adds everything another accumulator has gathered, moving its sums to this
+   * shift: with e = K_o − K, Σ(y − K) = Σ(y − K_o) + n·e and
+   * Σ(y − K)² = Σ(y − K_o)² + 2e·Σ(y − K_o) + n·e².
+   */
+  merge(other: MomentAccumulator): void {
+    const n = other.count;
+    if (n === 0) return;
+    if (this.count === 0) this.shift = other.shift;
+    const e = other.shift - this.shift;
+    this.count += n;
+    this.sum += other.sum + n * e;
+    this.sumOfSquares += other.sumOfSquares + 2 * e * other.sum + n * e * e;
+    if (other.min < this.min) this.min = other.min;
+    if (other.max > this.max) this.max = other.max;
+  }
+
+  /** ỹ, u(ỹ), min and max of all values added (eqs. 12–13). */
+  result(): { mean: number; standardDeviation: number; min: number; max: number } {
+    const M = this.count;
+    if (M < 1) throw new RangeError('needs at least one model value');
+    const mean = this.shift + this.sum / M;
+    return { mean, standardDeviation: standardDeviationOf(M, this.sumOfSquares - (this.sum * this.sum) / M), min: this.min, max: this.max };
+  }
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { meanAndStandardDeviation } from '../../shared/montecarlo/summary';
+import { MomentAccumulator, meanAndStandardDeviation } from '../../shared/montecarlo/summary';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
 
 describe('meanAndStandardDeviation (JCGM 101:2008 7.6, eqs. 12–13)', () => {
@@ -23,5 +23,37 @@ describe('meanAndStandardDeviation (JCGM 101:2008 7.6, eqs. 12–13)', () => {
     expect(s.mean).toBe(3);
     expect(s.standardDeviation).toBeCloseTo(Math.sqrt(2.5), 14); // s² of 1..5 is 2.5
     expect([s.min, s.max]).toEqual([1, 5]);
+  });
+});
+
+describe('MomentAccumulator (JCGM 101:2008 7.6, eqs. 12–13, block by block)', () => {
+  it.each([1, 7, 4096, 10_001])('agrees with the two-pass formulas over all values, blocks of %i', (block) => {
+    const M = 50_003;
+    const y = new Float64Array(M);
+    // A large offset with a small spread: the case where a naive one-pass sum loses the digits of u.
+    new UniformGenerator('blocks').fill(y, M, 1e8, 1e-3);
+    const acc = new MomentAccumulator();
+    for (let start = 0; start < M; start += block) acc.add(y, start, Math.min(M, start + block));
+    const all = meanAndStandardDeviation(y);
+    const s = acc.result();
+    expect(s.mean).toBeCloseTo(all.mean, 6);
+    expect(Math.abs(s.standardDeviation / all.standardDeviation - 1)).toBeLessThan(1e-9);
+    expect([s.min, s.max]).toEqual([all.min, all.max]);
+  });
+
+  it('merges accumulators as if all values had been added to one', () => {
+    const y = Float64Array.from([1, 2, 3, 4, 5, 6, 7, 8]);
+    const a = new MomentAccumulator();
+    const b = new MomentAccumulator();
+    a.add(y, 0, 3);
+    b.add(y, 3, 8);
+    a.merge(b);
+    expect(a.result().mean).toBe(4.5);
+    expect(a.result().standardDeviation).toBeCloseTo(Math.sqrt(6), 14); // s² of 1..8 is 6
+  });
+
+  it('returns a non-finite block mean when a value is not finite', () => {
+    expect(new MomentAccumulator().add(Float64Array.from([1, NaN, 3]), 0, 3)).toBeNaN();
+    expect(new MomentAccumulator().add(Float64Array.from([1, Infinity, 3]), 0, 3)).toBe(Infinity);
   });
 });
