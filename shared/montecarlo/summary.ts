@@ -98,9 +98,17 @@ function shiftedSums(values: Float64Array, start: number, end: number, K: number
   let q1 = 0;
   let min = Infinity;
   let max = -Infinity;
-  const stop4 = start + (((end - start) >> 2) << 2);
   let r = start;
-  for (; r < stop4; r += 4) {
+  // The odd values first: every call then runs both loops' code before the long loop, so the optimizer has seen it all.
+  for (const first4 = start + ((end - start) & 3); r < first4; r++) {
+    const y = values[r];
+    const dy = y - K;
+    d0 += dy;
+    q0 += dy * dy;
+    min = y < min ? y : min;
+    max = y > max ? y : max;
+  }
+  for (; r < end; r += 4) {
     const a = values[r];
     const b = values[r + 1];
     const c = values[r + 2];
@@ -121,14 +129,6 @@ function shiftedSums(values: Float64Array, start: number, end: number, K: number
     if (lo2 < min) min = lo2;
     if (hi > max) max = hi;
     if (hi2 > max) max = hi2;
-  }
-  for (; r < end; r++) {
-    const y = values[r];
-    const dy = y - K;
-    d0 += dy;
-    q0 += dy * dy;
-    if (y < min) min = y;
-    if (y > max) max = y;
   }
   return { sum: d0 + d1, sumOfSquares: q0 + q1, min, max };
 }
