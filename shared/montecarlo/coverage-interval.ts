@@ -1,4 +1,5 @@
 import { sortFloat64 } from './sort-float64';
+import { bucketCountFor, countInBuckets, type ValueBuckets } from './value-buckets';
 
 /*
  * Coverage intervals from M model values (JCGM 101:2008 7.7). Only the order
@@ -98,31 +99,31 @@ function orderStatistic(t: Tails, k: number): number {
   return k <= t.low.length ? t.low[k - 1] : t.high[k - 1 - (t.M - t.high.length)];
 }
 
-const BUCKETS = 1 << 12;
-
 /**
- * The lowest and highest `tail` (or a few more) values, each sorted, by
- * counting the values in 4096 equal buckets between min and max; null when a
- * tail's buckets hold far more than `tail` values (a very concentrated
- * distribution). `values` is not changed.
+ * The lowest and highest `tail` (or a few more) values, each sorted, from the
+ * counts of the values in about 4096 equal buckets between min and max
+ * (counted here unless `buckets` brings them); null when a tail's buckets hold
+ * far more than `tail` values (a very concentrated distribution). `values` is
+ * not changed.
  */
-function tailsByBuckets(values: Float64Array, tail: number, range?: { min: number; max: number }): Tails | null {
+function tailsByBuckets(values: Float64Array, tail: number, range?: { min: number; max: number }, buckets?: ValueBuckets | null): Tails | null {
   const M = values.length;
-  let min = Infinity;
-  let max = -Infinity;
-  if (range) ({ min, max } = range);
-  else {
-    for (let r = 0; r < M; r++) {
-      const y = values[r];
-      if (y < min) min = y;
-      if (y > max) max = y;
+  if (!buckets) {
+    let min = Infinity;
+    let max = -Infinity;
+    if (range) ({ min, max } = range);
+    else {
+      for (let r = 0; r < M; r++) {
+        const y = values[r];
+        if (y < min) min = y;
+        if (y > max) max = y;
+      }
     }
+    buckets = countInBuckets(values, bucketCountFor(1), min, max);
+    if (!buckets) return null;
   }
+  const { counts, bucketCount: BUCKETS, min, max } = buckets;
   const scale = BUCKETS / (max - min);
-  if (!(scale > 0 && scale < Infinity)) return null;
-  // (y − min)·scale ≤ BUCKETS after rounding, hence one extra bucket.
-  const counts = new Int32Array(BUCKETS + 1);
-  for (let r = 0; r < M; r++) counts[((values[r] - min) * scale) | 0]++;
   let lowBucket = 0;
   let lowCount = counts[0];
   while (lowCount < tail) lowCount += counts[++lowBucket];
@@ -167,14 +168,14 @@ function tailsBySelection(values: Float64Array, tail: number): Tails {
 }
 
 /** Both tails of M − q values each (the whole array sorted when they overlap). */
-function tailsOf(values: Float64Array, q: number, range?: { min: number; max: number }): Tails {
+function tailsOf(values: Float64Array, q: number, range?: { min: number; max: number }, buckets?: ValueBuckets | null): Tails {
   const M = values.length;
   const tail = M - q;
   if (2 * tail >= M) {
     sortFloat64(values);
     return { low: values, high: values, M };
   }
-  return tailsByBuckets(values, tail, range) ?? tailsBySelection(values, tail);
+  return tailsByBuckets(values, tail, range, buckets) ?? tailsBySelection(values, tail);
 }
 
 /** r* in 1..M−q minimising y_(r+q) − y_(r) (JCGM 101:2008 7.7.3); the first such r on ties. */
@@ -201,16 +202,18 @@ function symmetricFromTails(t: Tails, q: number): [number, number] {
  * (JCGM 101:2008 7.7): with y_(1) ≤ … ≤ y_(M), the interval is [y_(r), y_(r+q)];
  * symmetric: r = (M − q)/2 or (M − q + 1)/2 (7.7.2); shortest: the r* that
  * minimises y_(r+q) − y_(r) (7.7.3). May reorder `values` in place.
- * `range` passes min and max when the caller has them already.
+ * `range` passes min and max when the caller has them already, `buckets` the
+ * counts of the values when the caller has counted them (see value-buckets).
  * Cost: two or three passes over the M values plus sorting 2·(M − q) values.
  */
 export function coverageIntervals(
   values: Float64Array,
   p: number,
   range?: { min: number; max: number },
+  buckets?: ValueBuckets | null,
 ): { symmetric: [number, number]; shortest: [number, number] } {
   const q = checkArguments(values.length, p);
-  const tails = tailsOf(values, q, range);
+  const tails = tailsOf(values, q, range, buckets);
   return { symmetric: symmetricFromTails(tails, q), shortest: shortestFromTails(tails, q) };
 }
 

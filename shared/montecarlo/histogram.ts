@@ -1,4 +1,5 @@
 import type { HistogramBins } from '../budget/result';
+import type { ValueBuckets } from './value-buckets';
 
 /** Default number of bins for the Monte Carlo histogram (common practice for 10⁵–10⁷ values). */
 export const DEFAULT_BIN_COUNT = 100;
@@ -37,4 +38,22 @@ export function histogramBins(
   for (let r = 0; r < M; r++) counts[((values[r] - min) * perUnit) | 0]++;
   counts[binCount - 1] += counts[binCount];
   return { start: min, width, counts: Array.from(counts.subarray(0, binCount)) };
+}
+
+/**
+ * The same histogram from bucket counts (see value-buckets) whose bucket count
+ * is a multiple of binCount: bin b sums buckets b·k … (b + 1)·k − 1, k =
+ * bucketCount/binCount, and the maximum's slot goes to the last bin. No pass
+ * over the values.
+ */
+export function histogramFromBuckets(buckets: ValueBuckets, binCount: number = DEFAULT_BIN_COUNT): HistogramBins {
+  const { counts, bucketCount, min, max } = buckets;
+  if (!(Number.isInteger(binCount) && binCount >= 1 && bucketCount % binCount === 0)) {
+    throw new RangeError(`bin count must be a whole number ≥ 1 that divides ${bucketCount} (got ${binCount})`);
+  }
+  const k = bucketCount / binCount;
+  const bins = new Array<number>(binCount).fill(0);
+  for (let j = 0; j < bucketCount; j++) bins[(j / k) | 0] += counts[j];
+  bins[binCount - 1] += counts[bucketCount];
+  return { start: min, width: (max - min) / binCount, counts: bins };
 }

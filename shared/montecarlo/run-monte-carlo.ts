@@ -3,7 +3,8 @@ import type { Sampler } from '../distributions/distribution';
 import { UniformGenerator } from '../random/uniform-generator';
 import { correlatedNormalSampler, type CorrelatedSampler } from './correlated-normal';
 import { coverageIntervals, probabilisticallySymmetricInterval } from './coverage-interval';
-import { histogramBins } from './histogram';
+import { DEFAULT_BIN_COUNT, histogramBins, histogramFromBuckets } from './histogram';
+import { bucketCountFor, countInBuckets } from './value-buckets';
 import { MomentAccumulator } from './summary';
 import { numericalTolerance } from './validation';
 
@@ -208,9 +209,12 @@ function summarize(values: Float64Array, moments: MomentAccumulator, p: number, 
   const { mean, standardDeviation, min, max } = moments.result();
   let since = timer ? timer.now() : 0;
   const range = { min, max };
-  const histogram = histogramBins(values, binCount, range);
+  // One counting pass serves the histogram and the interval search.
+  const bins = binCount ?? DEFAULT_BIN_COUNT;
+  const buckets = Number.isInteger(bins) && bins >= 1 && max > min ? countInBuckets(values, bucketCountFor(bins), min, max) : null;
+  const histogram = buckets ? histogramFromBuckets(buckets, bins) : histogramBins(values, bins, range);
   if (timer) since = addElapsed(timer, 'histogram', since);
-  const { symmetric, shortest } = coverageIntervals(values, p, range);
+  const { symmetric, shortest } = coverageIntervals(values, p, range, buckets);
   if (timer) addElapsed(timer, 'intervals', since);
   return { estimate: mean, standardUncertainty: standardDeviation, interval: symmetric, shortestInterval: shortest, histogram };
 }

@@ -6,7 +6,8 @@ import {
   quickselect,
   shortestInterval,
 } from '../../shared/montecarlo/coverage-interval';
-import { histogramBins } from '../../shared/montecarlo/histogram';
+import { histogramBins, histogramFromBuckets } from '../../shared/montecarlo/histogram';
+import { bucketCountFor, countInBuckets } from '../../shared/montecarlo/value-buckets';
 import { meanAndStandardDeviation } from '../../shared/montecarlo/summary';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
 import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
@@ -134,5 +135,24 @@ describe('summary (JCGM 101:2008 7.6) and histogram', () => {
     expect(big.counts).toHaveLength(100);
     expect(big.counts.reduce((a, b) => a + b, 0)).toBe(100_000);
     expect(histogramBins(Float64Array.from([3, 3, 3]))).toEqual({ start: 3, width: 0, counts: [3] });
+  });
+
+  it('histogram from the shared bucket counts equals the histogram of the values (JCGM 101:2008 7.5)', () => {
+    const x = uniforms('hb', 100_000);
+    const { min, max } = meanAndStandardDeviation(x);
+    for (const bins of [1, 7, 100, 5000]) {
+      const buckets = countInBuckets(x, bucketCountFor(bins), min, max)!;
+      expect(buckets.bucketCount % bins).toBe(0);
+      expect(buckets.bucketCount).toBeGreaterThanOrEqual(4096);
+      expect(histogramFromBuckets(buckets, bins)).toEqual(histogramBins(x, bins, { min, max }));
+    }
+    expect(countInBuckets(Float64Array.from([3, 3]), 4096, 3, 3)).toBeNull();
+  });
+
+  it('intervals from the shared bucket counts equal those found alone (JCGM 101:2008 7.7)', () => {
+    const x = uniforms('ib', 100_000);
+    const { min, max } = meanAndStandardDeviation(x);
+    const alone = coverageIntervals(Float64Array.from(x), 0.95);
+    expect(coverageIntervals(Float64Array.from(x), 0.95, { min, max }, countInBuckets(x, bucketCountFor(100), min, max))).toEqual(alone);
   });
 });
