@@ -82,7 +82,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     audit: new AuditService(db),
     attachments: new AttachmentsService(db, resolve(config.dataDir)),
     mail,
-    reports: new ReportsService({ budgets, accounts }),
+    reports: new ReportsService({ budgets }),
   };
   const passport = createPassport(accounts);
 

@@ -1,11 +1,11 @@
 import { and, asc, eq, isNull, sql } from 'drizzle-orm';
+import type { TokenKind } from '../../shared/api/accounts';
 import type { Role } from '../../shared/policy/policy';
 import type { DbLike } from '../db/connection';
 import { prepared } from '../db/prepared';
 import { accountTokens, users } from '../db/schema';
 
 export type UserRow = typeof users.$inferSelect;
-export type TokenKind = 'invitation' | 'password_reset';
 
 export function findUserByEmail(db: DbLike, email: string): UserRow | undefined {
   return db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
@@ -64,4 +64,11 @@ export function retireTokens(db: DbLike, userId: number): void {
     .set({ usedAt: Date.now() })
     .where(and(eq(accountTokens.userId, userId), isNull(accountTokens.usedAt)))
     .run();
+}
+
+/** The display name of a user, or null for an unknown id. */
+export function userName(db: DbLike, id: number): string | null {
+  return (
+    prepared(db, 'user.name', () => db.select({ name: users.name }).from(users).where(eq(users.id, sql.placeholder('id'))).prepare()).get({ id })?.name ?? null
+  );
 }

@@ -1,3 +1,4 @@
+import type { InvitationResponse, TokenInfo, UserAccount } from '../../shared/api/accounts';
 import type { Role } from '../../shared/policy/policy';
 import { recordAudit } from '../audit/audit-repository';
 import { inTransaction, type Db } from '../db/connection';
@@ -15,7 +16,6 @@ import {
   markTokenUsed,
   retireTokens,
   updateUser,
-  type TokenKind,
   type UserRow,
 } from './accounts-repository';
 import { hashPassword, hashToken, newToken, verifyPassword } from './password';
@@ -23,11 +23,7 @@ import { hashPassword, hashToken, newToken, verifyPassword } from './password';
 export const MIN_PASSWORD = 10;
 const HOUR = 60 * 60 * 1000;
 
-export interface PublicUser extends SessionUser {
-  active: boolean;
-  hasPassword: boolean;
-  createdAt: number;
-}
+type PublicUser = UserAccount;
 
 export function toSessionUser(u: UserRow): SessionUser {
   return { id: u.id, email: u.email, name: u.name, role: u.role };
@@ -130,7 +126,7 @@ export class AccountsService {
   }
 
   /** Creates the account without a password and mails a one-time link to set it. */
-  async invite(actor: SessionUser, input: { email: string; name: string; role: Role }): Promise<{ user: PublicUser; expiresAt: number }> {
+  async invite(actor: SessionUser, input: { email: string; name: string; role: Role }): Promise<InvitationResponse> {
     const { token, hash } = newToken();
     const expiresAt = Date.now() + this.d.invitationHours * HOUR;
     const user = inTransaction(this.d.db, (tx) => {
@@ -175,7 +171,7 @@ export class AccountsService {
   }
 
   /** What a link is for, without using it. */
-  inspectToken(token: string): { kind: TokenKind; email: string; name: string } {
+  inspectToken(token: string): TokenInfo {
     const t = findUnusedToken(this.d.db, hashToken(token));
     const u = t && t.expiresAt > Date.now() ? findUserById(this.d.db, t.userId) : undefined;
     if (!t || !u || !u.active) throw new NotFoundError('this link is invalid, used or expired', 'invalid_token');

@@ -1,4 +1,5 @@
-import { and, asc, eq, gte, lte, sql, type SQL } from 'drizzle-orm';
+import { and, desc, eq, gte, lte, sql, type SQL } from 'drizzle-orm';
+import type { AuditEvent } from '../../shared/api/audit';
 import type { DbLike } from '../db/connection';
 import { auditEvents, users } from '../db/schema';
 
@@ -21,17 +22,6 @@ export interface AuditFilter {
   offset: number;
 }
 
-export interface AuditRow {
-  id: number;
-  at: number;
-  actorId: number | null;
-  actorEmail: string | null;
-  action: string;
-  budgetId: number | null;
-  versionNumber: number | null;
-  detail: Record<string, unknown>;
-}
-
 /** Call inside the transaction of the change it records. */
 export function recordAudit(db: DbLike, e: NewAuditEvent): void {
   db.insert(auditEvents)
@@ -46,7 +36,7 @@ export function recordAudit(db: DbLike, e: NewAuditEvent): void {
     .run();
 }
 
-export function listAudit(db: DbLike, f: AuditFilter): { rows: AuditRow[]; total: number } {
+export function listAudit(db: DbLike, f: AuditFilter): { rows: AuditEvent[]; total: number } {
   const where: SQL[] = [];
   if (f.budgetId !== undefined) where.push(eq(auditEvents.budgetId, f.budgetId));
   if (f.actorId !== undefined) where.push(eq(auditEvents.actorId, f.actorId));
@@ -72,7 +62,8 @@ export function listAudit(db: DbLike, f: AuditFilter): { rows: AuditRow[]; total
     .from(auditEvents)
     .leftJoin(users, eq(users.id, auditEvents.actorId))
     .where(cond)
-    .orderBy(asc(auditEvents.id))
+    // newest first; events of the same millisecond by id, the later one first
+    .orderBy(desc(auditEvents.at), desc(auditEvents.id))
     .limit(f.limit)
     .offset(f.offset)
     .all();

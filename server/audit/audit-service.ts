@@ -1,5 +1,6 @@
+import type { AuditEvent, AuditPage } from '../../shared/api/audit';
 import type { Db } from '../db/connection';
-import { listAudit, type AuditFilter, type AuditRow } from './audit-repository';
+import { listAudit, type AuditFilter } from './audit-repository';
 
 function csvCell(v: unknown): string {
   const s = v === null || v === undefined ? '' : typeof v === 'string' ? v : JSON.stringify(v);
@@ -11,12 +12,12 @@ function csvCell(v: unknown): string {
 export class AuditService {
   constructor(private readonly db: Db) {}
 
-  list(filter: AuditFilter): { events: AuditRow[]; total: number } {
+  list(filter: AuditFilter): AuditPage {
     const { rows, total } = listAudit(this.db, filter);
     return { events: rows, total };
   }
 
-  toCsv(events: AuditRow[]): string {
+  toCsv(events: AuditEvent[]): string {
     const head = ['id', 'time_utc', 'actor_id', 'actor_email', 'action', 'budget_id', 'version', 'detail'];
     const lines = events.map((e) =>
       [e.id, new Date(e.at).toISOString(), e.actorId, e.actorEmail, e.action, e.budgetId, e.versionNumber, e.detail]

@@ -1,43 +1,5 @@
+import type { BudgetDiff, Delta, FieldChange, KeyedDiff } from '../../shared/api/diff';
 import type { BudgetResult } from '../../shared/budget/result';
-
-export interface FieldChange {
-  field: string;
-  from: unknown;
-  to: unknown;
-}
-
-export interface Delta {
-  from: number | null;
-  to: number | null;
-  delta: number | null;
-}
-
-export interface KeyedDiff<T> {
-  added: T[];
-  removed: T[];
-  changed: { key: string; changes: FieldChange[] }[];
-}
-
-export interface BudgetDiff {
-  from: number;
-  to: number;
-  model: { changed: boolean; from: string; to: string };
-  measurand: FieldChange[];
-  inputs: KeyedDiff<Record<string, unknown>>;
-  constants: KeyedDiff<Record<string, unknown>>;
-  correlations: KeyedDiff<Record<string, unknown>>;
-  /** Other top-level fields (title, coverageProbability, monteCarlo, unknown fields). */
-  other: FieldChange[];
-  result: {
-    estimate: Delta;
-    standardUncertainty: Delta;
-    expandedUncertainty: Delta;
-    coverageFactor: Delta;
-    effectiveDof: Delta;
-    monteCarlo: { estimate: Delta; standardUncertainty: Delta; intervalLow: Delta; intervalHigh: Delta } | null;
-    contributions: { symbol: string; contribution: Delta; varianceShare: Delta; sensitivity: Delta; standardUncertainty: Delta }[];
-  };
-}
 
 type Obj = Record<string, unknown>;
 

@@ -1,4 +1,6 @@
 import { and, asc, desc, eq, like, sql, type SQL } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/sqlite-core';
+import type { BudgetListItem, VersionMeta } from '../../shared/api/budgets';
 import type { BudgetStatus } from '../../shared/policy/policy';
 import type { DbLike } from '../db/connection';
 import { prepared } from '../db/prepared';
@@ -23,12 +25,16 @@ export function getBudget(db: DbLike, id: number): BudgetRow | undefined {
   ).get({ id });
 }
 
-export function listBudgets(db: DbLike, f: BudgetFilter) {
+function listWhere(f: Omit<BudgetFilter, 'limit' | 'offset'>): SQL | undefined {
   const where: SQL[] = [];
   if (f.status) where.push(eq(budgets.status, f.status));
   if (f.ownerId !== undefined) where.push(eq(budgets.ownerId, f.ownerId));
   if (f.q) where.push(like(budgets.title, `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`));
   if (f.template !== 'any') where.push(eq(budgets.isTemplate, f.template === 'true'));
+  return where.length ? and(...where) : undefined;
+}
+
+export function listBudgets(db: DbLike, f: BudgetFilter): BudgetListItem[] {
   return db
     .select({
       id: budgets.id,
@@ -45,7 +51,7 @@ export function listBudgets(db: DbLike, f: BudgetFilter) {
     })
     .from(budgets)
     .innerJoin(users, eq(users.id, budgets.ownerId))
-    .where(where.length ? and(...where) : undefined)
+    .where(listWhere(f))
     .orderBy(desc(budgets.updatedAt), desc(budgets.id))
     .limit(f.limit)
     .offset(f.offset)
@@ -86,8 +92,10 @@ export function getVersion(db: DbLike, budgetId: number, number: number): Versio
   ).get({ budgetId, number });
 }
 
-/** Version metadata without the document and result text. */
-export function listVersions(db: DbLike, budgetId: number) {
+const approvers = alias(users, 'approvers');
+
+/** Version metadata without the document and result text, with the names of author and approver. */
+export function listVersions(db: DbLike, budgetId: number): VersionMeta[] {
   return db
     .select({
       number: budgetVersions.number,
@@ -99,10 +107,12 @@ export function listVersions(db: DbLike, budgetId: number) {
       engineVersion: budgetVersions.engineVersion,
       documentSha256: budgetVersions.documentSha256,
       approvedBy: budgetVersions.approvedBy,
+      approverName: approvers.name,
       approvedAt: budgetVersions.approvedAt,
     })
     .from(budgetVersions)
     .innerJoin(users, eq(users.id, budgetVersions.authorId))
+    .leftJoin(approvers, eq(approvers.id, budgetVersions.approvedBy))
     .where(eq(budgetVersions.budgetId, budgetId))
     .orderBy(asc(budgetVersions.number))
     .all();
@@ -115,6 +125,7 @@ export function recordApproval(db: DbLike, budgetId: number, number: number, use
     .run();
 }
 
-export function countBudgets(db: DbLike): number {
-  return db.select({ n: sql<number>`count(*)` }).from(budgets).get()?.n ?? 0;
+/** How many budgets match a filter (every budget, templates included, without one). */
+export function countBudgets(db: DbLike, f: Omit<BudgetFilter, 'limit' | 'offset'> = { template: 'any' }): number {
+  return db.select({ n: sql<number>`count(*)` }).from(budgets).where(listWhere(f)).get()?.n ?? 0;
 }

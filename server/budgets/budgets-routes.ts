@@ -42,7 +42,8 @@ export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { im
 
   t.add('get', '/api/budgets', 'budget.read', (req, res) => {
     const q = parse(listQuery, req.query);
-    res.json(budgets.list({ status: q.status, ownerId: q.owner, q: q.q, template: q.template, limit: q.limit, offset: q.offset }));
+    const { rows, total } = budgets.page({ status: q.status, ownerId: q.owner, q: q.q, template: q.template, limit: q.limit, offset: q.offset });
+    res.set('X-Total-Count', String(total)).json(rows);
   });
 
   t.add('get', '/api/templates', 'budget.read', (_req, res) => {

@@ -1,14 +1,18 @@
+import type { BudgetListItem, BudgetSummary, BudgetView, ClonedBudget, CreatedBudget, SavedVersion, VersionMeta, VersionView } from '../../shared/api/budgets';
+import type { BudgetDiff } from '../../shared/api/diff';
 import { validateBudget } from '../../shared/budget/budget-file';
 import { DEFAULTS } from '../../shared/budget/limits';
 import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
-import { canEditBudget, isEditableStatus, type BudgetStatus } from '../../shared/policy/policy';
+import { canEditBudget, isEditableStatus } from '../../shared/policy/policy';
+import { userName } from '../accounts/accounts-repository';
 import { recordAudit } from '../audit/audit-repository';
 import { inTransaction, type Db } from '../db/connection';
 import { ConflictError, ForbiddenError, NotFoundError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
-import { diffBudgets, type BudgetDiff } from './budget-diff';
+import { diffBudgets } from './budget-diff';
 import {
+  countBudgets,
   getBudget,
   getVersion,
   insertBudget,
@@ -27,38 +31,6 @@ export interface Computer {
   compute(doc: BudgetDocument): Promise<BudgetResult>;
 }
 
-export interface VersionMeta {
-  number: number;
-  authorId: number;
-  createdAt: number;
-  note: string;
-  seed: string;
-  engineVersion: string;
-  documentSha256: string;
-  approvedBy: number | null;
-  approvedAt: number | null;
-}
-
-export interface BudgetSummary {
-  id: number;
-  title: string;
-  status: BudgetStatus;
-  returned: boolean;
-  isTemplate: boolean;
-  ownerId: number;
-  currentVersion: number;
-  approvedVersion: number | null;
-  source: { budgetId: number; version: number | null } | null;
-  createdAt: number;
-  updatedAt: number;
-}
-
-export interface BudgetView extends BudgetSummary {
-  version: VersionMeta;
-  document: BudgetDocument;
-  result: BudgetResult;
-}
-
 function summary(b: BudgetRow): BudgetSummary {
   return {
     id: b.id,
@@ -75,16 +47,21 @@ function summary(b: BudgetRow): BudgetSummary {
   };
 }
 
-function meta(v: VersionRow): VersionMeta {
+/** A user's name as payloads show it; an id without a row (never expected) stays visible as such. */
+const nameOr = (name: string | null, id: number) => name ?? `user ${id}`;
+
+function meta(db: Db, v: VersionRow): VersionMeta {
   return {
     number: v.number,
     authorId: v.authorId,
+    authorName: nameOr(userName(db, v.authorId), v.authorId),
     createdAt: v.createdAt,
     note: v.note,
     seed: v.seed,
     engineVersion: v.engineVersion,
     documentSha256: v.documentSha256,
     approvedBy: v.approvedBy,
+    approverName: v.approvedBy === null ? null : nameOr(userName(db, v.approvedBy), v.approvedBy),
     approvedAt: v.approvedAt,
   };
 }
@@ -148,8 +125,17 @@ export class BudgetsService {
     return v;
   }
 
-  list(filter: BudgetFilter) {
+  list(filter: BudgetFilter): BudgetListItem[] {
     return listBudgets(this.db, filter);
+  }
+
+  /** One page of the list and how many budgets match the filter in all. */
+  page(filter: BudgetFilter): { rows: BudgetListItem[]; total: number } {
+    return { rows: listBudgets(this.db, filter), total: countBudgets(this.db, filter) };
+  }
+
+  private head(b: BudgetRow, v: VersionRow): Omit<BudgetView, 'document' | 'result'> {
+    return { ...summary(b), ownerName: nameOr(userName(this.db, b.ownerId), b.ownerId), version: meta(this.db, v) };
   }
 
   get(id: number): BudgetView {
@@ -164,28 +150,27 @@ export class BudgetsService {
   getJson(id: number): string {
     const b = this.requireBudget(id);
     const v = this.requireVersion(id, b.currentVersion);
-    const head = JSON.stringify({ ...summary(b), version: meta(v) });
+    const head = JSON.stringify(this.head(b, v));
     return `${head.slice(0, -1)},"document":${v.document},"result":${v.result}}`;
   }
 
   private view(b: BudgetRow, v: VersionRow): BudgetView {
     return {
-      ...summary(b),
-      version: meta(v),
+      ...this.head(b, v),
       document: JSON.parse(v.document) as BudgetDocument,
       result: JSON.parse(v.result) as BudgetResult,
     };
   }
 
-  versions(id: number) {
+  versions(id: number): VersionMeta[] {
     this.requireBudget(id);
     return listVersions(this.db, id);
   }
 
-  version(id: number, n: number) {
+  version(id: number, n: number): VersionView {
     this.requireBudget(id);
     const v = this.requireVersion(id, n);
-    return { budgetId: id, ...meta(v), document: JSON.parse(v.document) as BudgetDocument, result: JSON.parse(v.result) as BudgetResult };
+    return { budgetId: id, ...meta(this.db, v), document: JSON.parse(v.document) as BudgetDocument, result: JSON.parse(v.result) as BudgetResult };
   }
 
   diff(id: number, from: number, to: number): BudgetDiff {
@@ -201,7 +186,7 @@ export class BudgetsService {
     actor: SessionUser,
     input: { document: unknown; note: string; template?: boolean },
     action = 'budget.created',
-  ): Promise<{ id: number; version: 1; result: BudgetResult }> {
+  ): Promise<CreatedBudget> {
     if (input.template && actor.role !== 'admin') throw new ForbiddenError('only admins create templates');
     const c = await this.computeDocument(input.document);
     const at = Date.now();
@@ -237,7 +222,7 @@ export class BudgetsService {
   }
 
   /** Saves a new version on top of `baseVersion`; 409 if someone saved in between. Saving an approved budget starts a new draft. */
-  async save(actor: SessionUser, id: number, input: { baseVersion: number; document: unknown; note: string }) {
+  async save(actor: SessionUser, id: number, input: { baseVersion: number; document: unknown; note: string }): Promise<SavedVersion> {
     this.checkEditable(actor, this.requireBudget(id), input.baseVersion);
     const c = await this.computeDocument(input.document);
     const at = Date.now();
@@ -274,7 +259,7 @@ export class BudgetsService {
   }
 
   /** A new draft owned by the caller, recording where it came from. */
-  async clone(actor: SessionUser, id: number, input: { version?: number; title?: string }): Promise<{ id: number; version: 1 }> {
+  async clone(actor: SessionUser, id: number, input: { version?: number; title?: string }): Promise<ClonedBudget> {
     const source = this.requireBudget(id);
     const n = input.version ?? source.currentVersion;
     const v = this.requireVersion(id, n);

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { index, integer, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 
 /** All times are milliseconds since the epoch (UTC). */
 const now = sql`(CAST(unixepoch('subsec') * 1000 AS INTEGER))`;
@@ -92,6 +92,8 @@ export const comments = sqliteTable(
     versionNumber: integer('version_number').notNull(),
     /** Input symbol the comment is about, or null for the whole budget. */
     symbol: text('symbol'),
+    /** The root comment of the thread a reply belongs to (same budget), or null for a thread's first comment. */
+    parentId: integer('parent_id').references((): AnySQLiteColumn => comments.id),
     authorId: integer('author_id')
       .notNull()
       .references(() => users.id),
@@ -101,7 +103,7 @@ export const comments = sqliteTable(
     resolvedAt: integer('resolved_at'),
     createdAt: integer('created_at').notNull().default(now),
   },
-  (t) => [index('comments_budget_idx').on(t.budgetId)],
+  (t) => [index('comments_budget_idx').on(t.budgetId), index('comments_parent_idx').on(t.parentId)],
 );
 
 export const attachments = sqliteTable(

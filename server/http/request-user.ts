@@ -1,12 +1,7 @@
-import type { Role } from '../../shared/policy/policy';
+import type { Me } from '../../shared/api/accounts';
 
 /** The signed-in user as the routes see it (never the password hash). */
-export interface SessionUser {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-}
+export type SessionUser = Me;
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace

@@ -1,5 +1,4 @@
 import { can } from '../../shared/policy/policy';
-import type { AccountsService } from '../accounts/accounts-service';
 import type { BudgetRow } from '../budgets/budgets-repository';
 import type { BudgetsService } from '../budgets/budgets-service';
 import { ForbiddenError } from '../http/errors';
@@ -27,13 +26,8 @@ const text = (v: unknown): string | null => (typeof v === 'string' && v.trim() ?
 /** The printed report of a budget version: readable by whoever may read the budget. */
 export class ReportsService {
   constructor(
-    private readonly d: { budgets: BudgetsService; accounts: AccountsService; lab?: string; now?: () => number },
+    private readonly d: { budgets: BudgetsService; lab?: string; now?: () => number },
   ) {}
-
-  private name(id: number | null): string | null {
-    if (id === null) return null;
-    return this.d.accounts.userById(id)?.name ?? `user ${id}`;
-  }
 
   /** Everything the report shows; `n` defaults to the current version. */
   data(actor: SessionUser, id: number, n?: number): ReportData {
@@ -55,8 +49,8 @@ export class ReportsService {
         engineVersion: v.engineVersion,
         documentSha256: v.documentSha256,
         status: versionStatus(b, v),
-        author: this.name(v.authorId)!,
-        reviewer: this.name(v.approvedBy),
+        author: v.authorName,
+        reviewer: v.approverName,
         approvedAt: v.approvedAt,
       },
       document: v.document,

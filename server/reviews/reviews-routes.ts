@@ -11,6 +11,7 @@ const listQuery = z.strictObject({ version: positive.optional() });
 const newComment = z.strictObject({
   version: z.number({ error: 'must be a version number' }).int().positive(),
   symbol: z.string().regex(/^[A-Za-z_][A-Za-z0-9_]*$/, { message: 'must be a symbol name' }).nullable().optional(),
+  parentId: z.number({ error: 'must be a comment id' }).int().positive({ message: 'must be a comment id' }).nullable().optional(),
   body: z.string({ error: 'must be text' }).trim().min(1, { message: 'must not be empty' }).max(10_000),
 });
 const patchComment = z.strictObject({ resolved: z.boolean({ error: 'must be true or false' }) });

@@ -1,3 +1,4 @@
+import type { Comment, NewComment, TransitionOutput, TransitionTarget } from '../../shared/api/reviews';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import { canApprove, canResolveComment, canReturn, canSubmit, type BudgetStatus } from '../../shared/policy/policy';
 import type { AccountsService } from '../accounts/accounts-service';
@@ -7,9 +8,7 @@ import { inTransaction, type Db } from '../db/connection';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import type { MailService } from '../mail/mail-service';
-import { getComment, insertComment, listComments, setResolved, type CommentRow } from './reviews-repository';
-
-export type TransitionTarget = 'in_review' | 'approved' | 'draft';
+import { getComment, insertComment, listComments, setResolved } from './reviews-repository';
 
 export interface ReviewsDeps {
   db: Db;
@@ -31,37 +30,51 @@ export class ReviewsService {
     return `${this.d.publicUrl}/budgets/${id}`;
   }
 
-  comments(budgetId: number, version?: number): CommentRow[] {
+  comments(budgetId: number, version?: number): Comment[] {
     this.budget(budgetId);
     return listComments(this.d.db, budgetId, version);
   }
 
-  addComment(actor: SessionUser, budgetId: number, input: { version: number; symbol?: string | null; body: string }): CommentRow {
+  /**
+   * A new thread, or a reply when `parentId` names a comment of the same budget.
+   * A reply joins its parent's thread: the quantity is the parent's, and a reply
+   * to a reply is stored as a reply to the thread's first comment.
+   */
+  addComment(actor: SessionUser, budgetId: number, input: NewComment): Comment {
     this.budget(budgetId);
     return inTransaction(this.d.db, (tx) => {
       const v = getVersion(tx, budgetId, input.version);
       if (!v) throw new ValidationError(`budget ${budgetId} has no version ${input.version}`, 'version');
-      const symbol = input.symbol ?? null;
-      if (symbol !== null) {
+      let symbol = input.symbol ?? null;
+      let parentId: number | null = null;
+      if (input.parentId !== undefined && input.parentId !== null) {
+        const parent = getComment(tx, budgetId, input.parentId);
+        if (!parent) throw new ValidationError(`budget ${budgetId} has no comment ${input.parentId}`, 'parentId');
+        if (input.symbol !== undefined && (input.symbol ?? null) !== parent.symbol) {
+          throw new ValidationError('a reply belongs to the thread of the comment it answers; leave out "symbol" or give the same one', 'symbol');
+        }
+        symbol = parent.symbol;
+        parentId = parent.parentId ?? parent.id;
+      } else if (symbol !== null) {
         const doc = JSON.parse(v.document) as BudgetDocument;
         const known = [...doc.inputs.map((q) => q.symbol), ...(doc.constants ?? []).map((c) => c.symbol), doc.measurand.symbol];
         if (!known.includes(symbol)) throw new ValidationError(`"${symbol}" is not a quantity of version ${input.version}`, 'symbol');
       }
       const at = Date.now();
-      const c = insertComment(tx, { budgetId, versionNumber: input.version, symbol, authorId: actor.id, body: input.body, at });
+      const id = insertComment(tx, { budgetId, versionNumber: input.version, symbol, parentId, authorId: actor.id, body: input.body, at });
       recordAudit(tx, {
         actorId: actor.id,
         action: 'comment.created',
         budgetId,
         versionNumber: input.version,
         at,
-        detail: { commentId: c.id, symbol },
+        detail: { commentId: id, symbol, ...(parentId !== null ? { parentId } : {}) },
       });
-      return c;
+      return getComment(tx, budgetId, id)!;
     });
   }
 
-  resolveComment(actor: SessionUser, budgetId: number, commentId: number, resolved: boolean): CommentRow {
+  resolveComment(actor: SessionUser, budgetId: number, commentId: number, resolved: boolean): Comment {
     return inTransaction(this.d.db, (tx) => {
       const b = getBudget(tx, budgetId);
       const c = b && getComment(tx, budgetId, commentId);
@@ -69,7 +82,7 @@ export class ReviewsService {
       if (!canResolveComment(actor, b, c.authorId)) throw new ForbiddenError('only the author, the owner or a reviewer may resolve this comment');
       if (c.resolved === resolved) return c;
       const at = Date.now();
-      const after = setResolved(tx, commentId, resolved, actor.id, at);
+      setResolved(tx, commentId, resolved, actor.id, at);
       recordAudit(tx, {
         actorId: actor.id,
         action: resolved ? 'comment.resolved' : 'comment.reopened',
@@ -78,7 +91,7 @@ export class ReviewsService {
         at,
         detail: { commentId },
       });
-      return after;
+      return getComment(tx, budgetId, commentId)!;
     });
   }
 
@@ -91,7 +104,7 @@ export class ReviewsService {
     actor: SessionUser,
     budgetId: number,
     input: { to: TransitionTarget; comment?: string; password?: string },
-  ): Promise<{ status: BudgetStatus; version: number; returned: boolean }> {
+  ): Promise<TransitionOutput> {
     const b = this.budget(budgetId);
     const illegal = () => new ConflictError(`a budget that is ${b.status.replace('_', ' ')} cannot go to ${input.to.replace('_', ' ')}`, 'invalid_transition');
     let signatureOk = false;

@@ -1,21 +1,7 @@
 import Papa from 'papaparse';
 import { LIMITS } from '../../shared/budget/limits';
+import type { ObservationsResult, RowError } from '../../shared/api/uploads';
 import { AppError, ValidationError } from '../http/errors';
-
-export interface RowError {
-  /** 1-based line number in the file. */
-  row: number;
-  message: string;
-}
-
-export interface ObservationsResult {
-  values: number[];
-  column: { index: number; name: string | null };
-  columns: (string | null)[];
-  header: boolean;
-  rows: number;
-  errors: RowError[];
-}
 
 function toNumber(cell: string, delimiter: string): number | null {
   let s = cell.trim();

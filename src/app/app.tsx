@@ -1,8 +1,8 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
+import type { Me } from '../../shared/api/accounts';
 import { SignInPage } from '../features/auth/components/SignInPage';
 import { ForgotPasswordPage, SetPasswordPage } from '../features/auth/components/PasswordPages';
-import type { Me } from '../features/auth/api/auth';
 import { BudgetsListPage } from '../features/budgets/components/BudgetsListPage';
 import { EditorPage } from '../features/editor/components/EditorPage';
 import { MonteCarloPanel } from '../features/monte-carlo/components/MonteCarloPanel';
@@ -106,11 +106,9 @@ function UsersRoute() {
 }
 
 function ReportRoute() {
-  const me = useMeFromShell();
   const { id, n } = useParams();
   return (
     <ReportPage
-      role={me.role}
       budgetId={Number(id)}
       versionNumber={Number(n)}
       renderBudgetTable={(result, document) => (

@@ -1,6 +1,7 @@
 import { NavLink, Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
+import type { Me } from '../../shared/api/accounts';
 import { can, type Action, type Role } from '../../shared/policy/policy';
-import { useMe, useSignOut, type Me } from '../features/auth/api/auth';
+import { useMe, useSignOut } from '../features/auth/api/auth';
 import { errorMessage } from './http';
 import { Button, ErrorNote, Spinner } from './ui/controls';
 

@@ -74,7 +74,7 @@ describe('audit trail', () => {
     await m.post(`/api/budgets/${id}/comments`).send({ version: 2, body: 'self note' }).expect(201);
     const auditor = await s.as('auditor');
     const all = (await auditor.get(`/api/audit?budget=${id}`).expect(200)).body;
-    expect(all.events.map((e: { action: string }) => e.action)).toEqual(['budget.created', 'budget.version_saved', 'comment.created']);
+    expect(all.events.map((e: { action: string }) => e.action)).toEqual(['comment.created', 'budget.version_saved', 'budget.created']);
     expect(all.events.every((e: { actorId: number }) => e.actorId === s.users.metrologist.id)).toBe(true);
     const saves = (await auditor.get(`/api/audit?budget=${id}&action=budget.version_saved`).expect(200)).body;
     expect(saves.events).toHaveLength(1);

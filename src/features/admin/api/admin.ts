@@ -1,28 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../app/http';
+import type { InvitationResponse, MailMessage, UserAccount } from '../../../../shared/api/accounts';
 import type { Role } from '../../../../shared/policy/policy';
 
-export interface User {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  active: boolean;
-  /** False until an invited user sets a password. */
-  hasPassword: boolean;
-  createdAt: number;
-}
-
-export interface MailMessage {
-  id: number;
-  at: number;
-  sender: string;
-  recipients: string[];
-  subject: string;
-  text: string;
-}
-
-export const usersQuery = () => queryOptions({ queryKey: ['users'], queryFn: () => api<User[]>('/api/users') });
+export const usersQuery = () => queryOptions({ queryKey: ['users'], queryFn: () => api<UserAccount[]>('/api/users') });
 export const mailQuery = () => queryOptions({ queryKey: ['mail'], queryFn: () => api<MailMessage[]>('/api/dev/mail?limit=200'), refetchInterval: 10_000 });
 
 export function useUsers() {
@@ -36,7 +17,7 @@ export function useMail() {
 export function useUpdateUser() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, ...patch }: { id: number; role?: Role; active?: boolean; name?: string }) => api<User>(`/api/users/${id}`, { method: 'PATCH', json: patch }),
+    mutationFn: ({ id, ...patch }: { id: number; role?: Role; active?: boolean; name?: string }) => api<UserAccount>(`/api/users/${id}`, { method: 'PATCH', json: patch }),
     onSuccess: () => {
       qc.invalidateQueries({ queryKey: ['users'] });
       qc.invalidateQueries({ queryKey: ['audit'] });
@@ -47,7 +28,7 @@ export function useUpdateUser() {
 export function useInvite() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { email: string; name: string; role: Role }) => api<{ user: User; expiresAt: number }>('/api/invitations', { method: 'POST', json: body }),
+    mutationFn: (body: { email: string; name: string; role: Role }) => api<InvitationResponse>('/api/invitations', { method: 'POST', json: body }),
     onSuccess: () => {
       qc.invalidateQueries({ queryKey: ['users'] });
       qc.invalidateQueries({ queryKey: ['mail'] });

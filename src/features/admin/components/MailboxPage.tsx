@@ -1,8 +1,9 @@
 import { useState } from 'react';
+import type { MailMessage } from '../../../../shared/api/accounts';
 import { errorMessage } from '../../../app/http';
 import { EmptyState, ErrorNote, Spinner } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
-import { useMail, type MailMessage } from '../api/admin';
+import { useMail } from '../api/admin';
 
 /** Message text with its links made clickable (set-password and review links). */
 function Body({ text }: { text: string }) {

@@ -1,10 +1,11 @@
 import { useState } from 'react';
+import type { UserAccount } from '../../../../shared/api/accounts';
 import { ROLES, type Role } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { useToast } from '../../../app/ui/toasts';
-import { useInvite, useUpdateUser, useUsers, type User } from '../api/admin';
+import { useInvite, useUpdateUser, useUsers } from '../api/admin';
 
 const ROLE_WORD: Record<Role, string> = { admin: 'Administrator', metrologist: 'Metrologist', reviewer: 'Reviewer', auditor: 'Auditor', trainee: 'Trainee' };
 
@@ -75,7 +76,7 @@ function InviteForm() {
   );
 }
 
-function UserRow({ u, meId }: { u: User; meId: number }) {
+function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
   const update = useUpdateUser();
   const toast = useToast();
   const self = u.id === meId;

@@ -1,16 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../app/http';
-
-export interface AuditEvent {
-  id: number;
-  at: number;
-  actorId: number | null;
-  actorEmail: string | null;
-  action: string;
-  budgetId: number | null;
-  versionNumber: number | null;
-  detail: Record<string, unknown>;
-}
+import type { AuditPage } from '../../../../shared/api/audit';
+import type { BudgetListItem } from '../../../../shared/api/budgets';
 
 export interface AuditFilter {
   budget?: number;
@@ -56,7 +47,7 @@ export const auditQuery = (f: AuditFilter, page: { limit: number; offset: number
       const p = auditParams(f);
       p.set('limit', String(page.limit));
       p.set('offset', String(page.offset));
-      return api<{ events: AuditEvent[]; total: number }>(`/api/audit?${p}`);
+      return api<AuditPage>(`/api/audit?${p}`);
     },
     placeholderData: keepPreviousData,
   });
@@ -70,7 +61,7 @@ export function useAuditActors() {
   return useQuery({
     queryKey: ['audit', 'actors'],
     queryFn: async () => {
-      const r = await api<{ events: AuditEvent[] }>('/api/audit?limit=10000');
+      const r = await api<AuditPage>('/api/audit?limit=10000');
       const m = new Map<number, string>();
       for (const e of r.events) if (e.actorId !== null) m.set(e.actorId, e.actorEmail ?? `user #${e.actorId}`);
       return [...m].sort((a, b) => a[1].localeCompare(b[1]));
@@ -82,7 +73,7 @@ export function useAuditActors() {
 export function useAuditBudgets() {
   return useQuery({
     queryKey: ['audit', 'budgets'],
-    queryFn: () => api<{ id: number; title: string; isTemplate: boolean }[]>('/api/budgets?template=any&limit=1000'),
+    queryFn: () => api<BudgetListItem[]>('/api/budgets?template=any&limit=1000'),
     staleTime: 60_000,
   });
 }

@@ -1,8 +1,9 @@
 import { Link, useSearchParams } from 'react-router-dom';
+import type { AuditEvent } from '../../../../shared/api/audit';
 import { errorMessage } from '../../../app/http';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatCount, formatDateTime } from '../../../app/ui/numbers';
-import { AUDIT_ACTIONS, auditCsvUrl, useAudit, useAuditActors, useAuditBudgets, type AuditEvent, type AuditFilter } from '../api/audit';
+import { AUDIT_ACTIONS, auditCsvUrl, useAudit, useAuditActors, useAuditBudgets, type AuditFilter } from '../api/audit';
 
 const PAGE_SIZE = 25;
 
@@ -67,7 +68,7 @@ export function AuditPage() {
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <h1 className="text-2xl font-semibold tracking-tight">Audit trail</h1>
-          <p className="text-sm text-stone-600">Every change to budgets, reviews and accounts, oldest first. Entries cannot be edited or deleted.</p>
+          <p className="text-sm text-stone-600">Every change to budgets, reviews and accounts, newest first. Entries cannot be edited or deleted.</p>
         </div>
         <a
           href={auditCsvUrl(filter)}
@@ -142,7 +143,7 @@ export function AuditPage() {
       ) : (
         <div className={`overflow-x-auto rounded-lg border border-stone-200 bg-white ${audit.isPlaceholderData ? 'opacity-60' : ''}`}>
           <table className="w-full text-left text-sm" data-testid="audit-table">
-            <caption className="sr-only">Audit entries {filtered ? 'matching the filters' : ''}, oldest first</caption>
+            <caption className="sr-only">Audit entries {filtered ? 'matching the filters' : ''}, newest first</caption>
             <thead className="border-b border-stone-200 bg-stone-50 text-xs text-stone-700">
               <tr>
                 <th scope="col" className="px-3 py-2 font-semibold">Time</th>

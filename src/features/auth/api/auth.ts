@@ -1,13 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, ApiError } from '../../../app/http';
-import type { Role } from '../../../../shared/policy/policy';
-
-export interface Me {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-}
+import type { Me, SignInResponse, TokenInfo } from '../../../../shared/api/accounts';
 
 /** The signed-in user, or null when signed out (401). */
 export const meQuery = () =>
@@ -32,7 +25,7 @@ export function useMe() {
 export function useSignIn() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { email: string; password: string }) => api<{ user: Me }>('/api/auth/login', { method: 'POST', json: body }),
+    mutationFn: (body: { email: string; password: string }) => api<SignInResponse>('/api/auth/login', { method: 'POST', json: body }),
     onSuccess: (r) => {
       qc.clear();
       qc.setQueryData(meQuery().queryKey, r.user);
@@ -49,12 +42,6 @@ export function useSignOut() {
       qc.setQueryData(meQuery().queryKey, null);
     },
   });
-}
-
-export interface TokenInfo {
-  kind: 'invitation' | 'password_reset';
-  email: string;
-  name: string;
 }
 
 /** What a link from an e-mail is for; 404 when it is invalid, used or expired. */
@@ -78,6 +65,6 @@ export function useRequestReset() {
 
 export function useCompleteToken() {
   return useMutation({
-    mutationFn: (body: { token: string; password: string }) => api<{ user: Me }>('/api/auth/password-reset/complete', { method: 'POST', json: body }),
+    mutationFn: (body: { token: string; password: string }) => api<SignInResponse>('/api/auth/password-reset/complete', { method: 'POST', json: body }),
   });
 }

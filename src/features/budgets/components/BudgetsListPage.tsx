@@ -1,12 +1,13 @@
 import { useDeferredValue, useMemo, useRef, useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import type { BudgetListItem } from '../../../../shared/api/budgets';
 import { can, type BudgetStatus, type Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { displayStatus, StatusBadge, statusLabel, type DisplayStatus } from '../../../app/ui/status-badge';
 import { useToast } from '../../../app/ui/toasts';
-import { useBudgetList, useImportBudget, type BudgetListItem } from '../api/budgets';
+import { useBudgetList, useImportBudget } from '../api/budgets';
 
 type SortKey = 'title' | 'status' | 'owner' | 'version' | 'updated';
 const PAGE_SIZE = 12;

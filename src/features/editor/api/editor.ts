@@ -1,47 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../app/http';
+import type { BudgetView, CreatedBudget, SavedVersion, VersionMeta, VersionView } from '../../../../shared/api/budgets';
+import type { ObservationsResult } from '../../../../shared/api/uploads';
 import type { BudgetResult } from '../../../../shared/budget/result';
 import type { BudgetDocument } from '../../../../shared/budget/schema';
-import type { BudgetStatus } from '../../../../shared/policy/policy';
-
-export interface VersionMeta {
-  number: number;
-  authorId: number;
-  createdAt: number;
-  note: string;
-  seed: string;
-  engineVersion: string;
-  documentSha256: string;
-  approvedBy: number | null;
-  approvedAt: number | null;
-}
-
-export interface BudgetView {
-  id: number;
-  title: string;
-  status: BudgetStatus;
-  returned: boolean;
-  isTemplate: boolean;
-  ownerId: number;
-  currentVersion: number;
-  approvedVersion: number | null;
-  source: { budgetId: number; version: number | null } | null;
-  createdAt: number;
-  updatedAt: number;
-  version: VersionMeta;
-  document: BudgetDocument;
-  result: BudgetResult;
-}
-
-export interface VersionView extends VersionMeta {
-  budgetId: number;
-  document: BudgetDocument;
-  result: BudgetResult;
-}
-
-export interface VersionListItem extends VersionMeta {
-  authorName: string;
-}
 
 export const budgetQuery = (id: number) =>
   queryOptions({
@@ -59,7 +21,7 @@ export const budgetVersionQuery = (id: number, n: number) =>
 export const editorVersionsQuery = (id: number) =>
   queryOptions({
     queryKey: ['budgets', id, 'versions'],
-    queryFn: () => api<VersionListItem[]>(`/api/budgets/${id}/versions`),
+    queryFn: () => api<VersionMeta[]>(`/api/budgets/${id}/versions`),
   });
 
 export function useBudget(id: number | undefined) {
@@ -85,13 +47,13 @@ export function useSaveBudget() {
   return useMutation({
     mutationFn: async (input: SaveInput): Promise<SaveOutput> => {
       if (input.kind === 'create') {
-        const r = await api<{ id: number; version: number; result: BudgetResult }>('/api/budgets', {
+        const r = await api<CreatedBudget>('/api/budgets', {
           method: 'POST',
           json: { document: input.document, note: input.note },
         });
         return r;
       }
-      const r = await api<{ version: number; result: BudgetResult }>(`/api/budgets/${input.id}`, {
+      const r = await api<SavedVersion>(`/api/budgets/${input.id}`, {
         method: 'PUT',
         json: { baseVersion: input.baseVersion, document: input.document, note: input.note },
       });
@@ -104,15 +66,6 @@ export function useSaveBudget() {
   });
 }
 
-export interface ObservationsUpload {
-  values: number[];
-  column: { index: number; name: string | null };
-  columns: (string | null)[];
-  header: boolean;
-  rows: number;
-  errors: { row: number; message: string }[];
-}
-
 /** Sends a CSV file to the server, which reads one column of numbers (and reports the rows it could not read). */
 export function useUploadObservations() {
   return useMutation({
@@ -120,7 +73,7 @@ export function useUploadObservations() {
       const form = new FormData();
       if (column) form.set('column', column);
       form.set('file', file);
-      return api<ObservationsUpload>('/api/uploads/observations', { method: 'POST', body: form });
+      return api<ObservationsResult>('/api/uploads/observations', { method: 'POST', body: form });
     },
   });
 }

@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Link, useBlocker, useNavigate } from 'react-router-dom';
+import type { BudgetView, VersionMeta } from '../../../../shared/api/budgets';
 import type { BudgetResult, GumResult } from '../../../../shared/budget/result';
 import type { BudgetDocument, InputQuantity } from '../../../../shared/budget/schema';
 import { addPhysicalConstant } from '../../../../shared/constants/add-constant';
@@ -11,7 +12,7 @@ import { formatDateTime, formatUncertainty, formatWithUncertainty } from '../../
 import { StatusBadge } from '../../../app/ui/status-badge';
 import { useToast } from '../../../app/ui/toasts';
 import { formatUnit } from '../../../app/ui/units';
-import { budgetQuery, useBudget, useBudgetVersion, useSaveBudget, type BudgetView } from '../api/editor';
+import { budgetQuery, useBudget, useBudgetVersion, useSaveBudget } from '../api/editor';
 import { clearDraft, loadDraft, storeDraft, type StoredDraft } from '../draft-storage';
 import { explainInput, explainResult, type Selection } from '../explain';
 import { problemAt, useLiveResult } from '../live';
@@ -159,13 +160,15 @@ export function EditorPage({
   }
   const viewingOld = versionNumber !== undefined && loaded && versionNumber !== loaded.currentVersion;
   const start = viewingOld && version.data ? { document: version.data.document, result: version.data.result, version: version.data.number } : loaded ? { document: loaded.document, result: loaded.result, version: loaded.currentVersion } : null;
-  return <Editor me={me} budgetId={budgetId} view={loaded ?? null} start={start} viewingOld={!!viewingOld} renderMonteCarlo={renderMonteCarlo} slots={slots ?? {}} />;
+  const shown = viewingOld && version.data ? version.data : (loaded?.version ?? null);
+  return <Editor me={me} budgetId={budgetId} view={loaded ?? null} shown={shown} start={start} viewingOld={!!viewingOld} renderMonteCarlo={renderMonteCarlo} slots={slots ?? {}} />;
 }
 
 function Editor({
   me,
   budgetId,
   view,
+  shown,
   start,
   viewingOld,
   renderMonteCarlo,
@@ -174,6 +177,8 @@ function Editor({
   me: Me;
   budgetId?: number;
   view: BudgetView | null;
+  /** The version on screen: an older one when viewing history, else the current one. */
+  shown: VersionMeta | null;
   start: { document: BudgetDocument; result: BudgetResult; version: number } | null;
   viewingOld: boolean;
   renderMonteCarlo(props: MonteCarloSlotProps): ReactNode;
@@ -371,6 +376,17 @@ function Editor({
             ) : null}
             {dirty && !readOnly ? <span className="rounded bg-caution-50 px-2 py-0.5 text-xs font-medium text-caution-700">● unsaved changes</span> : null}
           </div>
+          {view && shown ? (
+            <p data-testid="budget-people" className="text-xs text-stone-700">
+              Owner <span className="font-medium">{view.ownerName}</span> · version {shown.number} saved by <span className="font-medium">{shown.authorName}</span>
+              {shown.approverName ? (
+                <>
+                  {' '}
+                  · approved by <span className="font-medium">{shown.approverName}</span>
+                </>
+              ) : null}
+            </p>
+          ) : null}
           {view?.source ? <SourceNote source={view.source} /> : null}
           {problemAt(live.problems, 'title') ? <p className="text-xs text-caution-700">Title: {problemAt(live.problems, 'title')}</p> : null}
           <div className="flex flex-wrap gap-2">

@@ -3,7 +3,6 @@ import { Link } from 'react-router-dom';
 import type { BudgetResult, HistogramBins } from '../../../../shared/budget/result';
 import type { BudgetDocument } from '../../../../shared/budget/schema';
 import { certificateStatement } from '../../../../shared/gum/statement';
-import type { Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Spinner } from '../../../app/ui/controls';
 import { formatCount, formatDateTime, formatDof, formatSignificant, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
@@ -63,8 +62,8 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
-export function ReportPage({ budgetId, versionNumber, role, renderBudgetTable }: { budgetId: number; versionNumber: number; role: Role; renderBudgetTable: RenderBudgetTable }) {
-  const { version, budget, versions, people } = useReport(budgetId, versionNumber, role);
+export function ReportPage({ budgetId, versionNumber, renderBudgetTable }: { budgetId: number; versionNumber: number; renderBudgetTable: RenderBudgetTable }) {
+  const { version, budget } = useReport(budgetId, versionNumber);
   if (version.isPending || budget.isPending) {
     return (
       <div className="p-8">
@@ -83,9 +82,6 @@ export function ReportPage({ budgetId, versionNumber, role, renderBudgetTable }:
   const b = budget.data;
   const r = v.result;
   const doc = v.document;
-  const names = new Map((versions.data ?? []).map((x) => [x.authorId, x.authorName]));
-  for (const [id, name] of people.data ?? []) if (!names.has(id)) names.set(id, name);
-  const nameOf = (id: number) => names.get(id) ?? `user #${id}`;
   const unit = formatUnit(r.measurand.unit);
   const statement = certificateStatement(r.measurand.symbol, unit || undefined, r.gum);
   const approved = v.approvedAt !== null;
@@ -128,9 +124,9 @@ export function ReportPage({ budgetId, versionNumber, role, renderBudgetTable }:
               {b.currentVersion !== v.number ? ` (current: ${b.currentVersion})` : ''}
             </span>
           </Row>
-          <Row label="Author">{nameOf(v.authorId)}</Row>
+          <Row label="Author">{v.authorName}</Row>
           <Row label="Saved">{formatDateTime(v.createdAt)}</Row>
-          <Row label="Reviewer">{v.approvedBy !== null ? nameOf(v.approvedBy) : 'not approved'}</Row>
+          <Row label="Reviewer">{v.approverName ?? 'not approved'}</Row>
           <Row label="Approved">{v.approvedAt !== null ? formatDateTime(v.approvedAt) : '—'}</Row>
           <Row label="Monte Carlo seed">
             <span className="num">{mc?.seed ?? v.seed}</span>
@@ -219,8 +215,8 @@ export function ReportPage({ budgetId, versionNumber, role, renderBudgetTable }:
         </h2>
         <div className="grid grid-cols-2 gap-8 pt-6 text-xs">
           {[
-            ['Prepared by', nameOf(v.authorId), formatDateTime(v.createdAt)],
-            ['Approved by', v.approvedBy !== null ? nameOf(v.approvedBy) : '', v.approvedAt !== null ? `${formatDateTime(v.approvedAt)} (signed with password)` : ''],
+            ['Prepared by', v.authorName, formatDateTime(v.createdAt)],
+            ['Approved by', v.approverName ?? '', v.approvedAt !== null ? `${formatDateTime(v.approvedAt)} (signed with password)` : ''],
           ].map(([role, who, when]) => (
             <div key={role}>
               <div className="h-10 border-b border-stone-900" />

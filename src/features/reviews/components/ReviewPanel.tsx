@@ -1,12 +1,12 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { useQuery } from '@tanstack/react-query';
+import type { Comment } from '../../../../shared/api/reviews';
 import { can, canResolveComment, type BudgetFacts, type Role } from '../../../../shared/policy/policy';
-import { api, errorMessage } from '../../../app/http';
+import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Field, Spinner, TextArea } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
 import { useToast } from '../../../app/ui/toasts';
-import { replyBody, replyTarget, useAddComment, useComments, useResolveComment, type Comment } from '../api/reviews';
+import { useAddComment, useComments, useResolveComment } from '../api/reviews';
 
 interface Me {
   id: number;
@@ -31,16 +31,17 @@ export interface ReviewContext {
 export type ThreadKey = string;
 export const GENERAL: ThreadKey = '__budget__';
 
-function useNames(budgetId: number, me: Me) {
-  const versions = useQuery({
-    queryKey: ['budgets', budgetId, 'versions'],
-    queryFn: () => api<{ authorId: number; authorName: string }[]>(`/api/budgets/${budgetId}/versions`),
-  });
-  return useMemo(() => {
-    const m = new Map<number, string>();
-    for (const v of versions.data ?? []) m.set(v.authorId, v.authorName);
-    return (id: number) => (id === me.id ? `${me.name} (you)` : (m.get(id) ?? `colleague #${id}`));
-  }, [versions.data, me.id, me.name]);
+/** The author as a thread shows them: the signed-in user is "(you)". */
+function authorLabel(c: Comment, me: Me): string {
+  return c.authorId === me.id ? `${me.name} (you)` : c.authorName;
+}
+
+/** A thread's comments in reading order: each first comment followed by its replies. */
+function threadOrder(list: Comment[]): Comment[] {
+  const ids = new Set(list.map((c) => c.id));
+  const replies = new Map<number, Comment[]>();
+  for (const c of list) if (c.parentId !== null && ids.has(c.parentId)) replies.set(c.parentId, [...(replies.get(c.parentId) ?? []), c]);
+  return list.filter((c) => c.parentId === null || !ids.has(c.parentId)).flatMap((c) => [c, ...(replies.get(c.id) ?? [])]);
 }
 
 function BubbleIcon() {
@@ -87,7 +88,7 @@ export function CommentBadge({ budgetId, symbol, open, onOpen }: { budgetId: num
 function CommentItem({
   c,
   byId,
-  nameOf,
+  me,
   mayResolve,
   onReply,
   onResolve,
@@ -96,22 +97,22 @@ function CommentItem({
 }: {
   c: Comment;
   byId: Map<number, Comment>;
-  nameOf(id: number): string;
+  me: Me;
   mayResolve: boolean;
   onReply?(c: Comment): void;
   onResolve(c: Comment, resolved: boolean): void;
   busy: boolean;
   currentVersion: number;
 }) {
-  const { to, text } = replyTarget(c.body);
-  const parent = to ? byId.get(to) : undefined;
+  const to = c.parentId;
+  const parent = to !== null ? byId.get(to) : undefined;
   return (
     <li
       data-testid={`comment-${c.id}`}
-      className={`rounded-md border px-2.5 py-2 text-sm ${c.resolved ? 'border-stone-200 bg-stone-50 text-stone-600' : 'border-stone-300 bg-white text-stone-900'} ${to ? 'ml-4' : ''}`}
+      className={`rounded-md border px-2.5 py-2 text-sm ${c.resolved ? 'border-stone-200 bg-stone-50 text-stone-600' : 'border-stone-300 bg-white text-stone-900'} ${to !== null ? 'ml-4' : ''}`}
     >
       <div className="flex flex-wrap items-baseline justify-between gap-x-2 text-xs text-stone-600">
-        <span className="font-semibold text-stone-800">{nameOf(c.authorId)}</span>
+        <span className="font-semibold text-stone-800">{authorLabel(c, me)}</span>
         <span>
           {formatDateTime(c.createdAt)} · <span className="num">v{c.versionNumber}</span>
           {c.versionNumber !== currentVersion ? ' (older version)' : ''}
@@ -119,13 +120,13 @@ function CommentItem({
       </div>
       {parent ? (
         <p className="mt-1 border-l-2 border-stone-300 pl-2 text-xs text-stone-600">
-          ↪ in reply to {nameOf(parent.authorId)}: “{replyTarget(parent.body).text.slice(0, 80)}
-          {replyTarget(parent.body).text.length > 80 ? '…' : ''}”
+          ↪ in reply to {authorLabel(parent, me)}: “{parent.body.slice(0, 80)}
+          {parent.body.length > 80 ? '…' : ''}”
         </p>
-      ) : to ? (
+      ) : to !== null ? (
         <p className="mt-1 text-xs text-stone-600">↪ in reply to comment #{to}</p>
       ) : null}
-      <p className="mt-1 whitespace-pre-wrap break-words">{text}</p>
+      <p className="mt-1 whitespace-pre-wrap break-words">{c.body}</p>
       <div className="mt-1.5 flex flex-wrap items-center gap-2">
         {c.resolved ? (
           <span className="inline-flex items-center gap-1 rounded-full border border-stone-300 px-2 text-xs font-medium text-stone-700">
@@ -157,7 +158,6 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
   const comments = useComments(ctx.budgetId);
   const add = useAddComment(ctx.budgetId);
   const resolve = useResolveComment(ctx.budgetId);
-  const nameOf = useNames(ctx.budgetId, me);
   const toast = useToast();
   const [body, setBody] = useState('');
   const [replyTo, setReplyTo] = useState<Comment | null>(null);
@@ -165,7 +165,7 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
   const headingRef = useRef<HTMLHeadingElement>(null);
   const boxRef = useRef<HTMLTextAreaElement>(null);
   const symbol = thread === GENERAL ? null : thread;
-  const list = (comments.data ?? []).filter((c) => c.symbol === symbol);
+  const list = threadOrder((comments.data ?? []).filter((c) => c.symbol === symbol));
   const byId = useMemo(() => new Map((comments.data ?? []).map((c) => [c.id, c])), [comments.data]);
   const mayComment = can(me.role, 'comment.create') && !ctx.viewingOld;
   const known = symbol === null || ctx.symbols.includes(symbol);
@@ -181,7 +181,7 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
     setTouched(true);
     if (body.trim() === '') return;
     add.mutate(
-      { version: ctx.currentVersion, symbol, body: replyBody(replyTo?.id ?? null, body.trim()) },
+      { version: ctx.currentVersion, symbol, parentId: replyTo?.id ?? null, body: body.trim() },
       {
         onSuccess: () => {
           setBody('');
@@ -230,7 +230,7 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
               key={c.id}
               c={c}
               byId={byId}
-              nameOf={nameOf}
+              me={me}
               currentVersion={ctx.currentVersion}
               mayResolve={canResolveComment(me, ctx.facts, c.authorId)}
               busy={resolve.isPending}
@@ -265,7 +265,7 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
         >
           {replyTo ? (
             <p className="flex items-center gap-2 text-xs text-stone-700">
-              ↪ Replying to {nameOf(replyTo.authorId)}
+              ↪ Replying to {authorLabel(replyTo, me)}
               <Button size="sm" variant="ghost" onClick={() => setReplyTo(null)}>
                 Cancel reply
               </Button>

@@ -1,14 +1,15 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
+import type { BudgetListItem } from '../../../../shared/api/budgets';
 import { can, type Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
 import { Button, EmptyState, ErrorNote, Field, Modal, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { Sym, Unit } from '../../../app/ui/quantity';
 import { useToast } from '../../../app/ui/toasts';
-import { useCloneBudget, useSetTemplate, useTemplateDetails, useTemplates, type TemplateItem } from '../api/templates';
+import { useCloneBudget, useSetTemplate, useTemplateDetails, useTemplates } from '../api/templates';
 
-function UseDialog({ template, onClose }: { template: TemplateItem; onClose(): void }) {
+function UseDialog({ template, onClose }: { template: BudgetListItem; onClose(): void }) {
   const [title, setTitle] = useState(template.title.replace(/^Template:\s*/i, ''));
   const clone = useCloneBudget();
   const toast = useToast();
@@ -56,7 +57,7 @@ export function TemplatesPage({ role }: { role: Role }) {
   const templates = useTemplates();
   const list = templates.data ?? [];
   const details = useTemplateDetails(list.map((t) => t.id));
-  const [using, setUsing] = useState<TemplateItem | null>(null);
+  const [using, setUsing] = useState<BudgetListItem | null>(null);
   const mayClone = can(role, 'budget.clone');
   const navigate = useNavigate();
   return (

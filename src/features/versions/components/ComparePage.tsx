@@ -1,11 +1,12 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate } from 'react-router-dom';
+import type { BudgetDiff, Delta, FieldChange, KeyedDiff } from '../../../../shared/api/diff';
 import { errorMessage } from '../../../app/http';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { formatDateTime, formatPercent, formatSignificant, fullPrecision, groupDigits } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
 import { formatUnit } from '../../../app/ui/units';
-import { useBudgetHeader, useDiff, useVersions, versionUnitQuery, type BudgetDiff, type Delta, type FieldChange, type KeyedDiff } from '../api/versions';
+import { useBudgetHeader, useDiff, useVersions, versionUnitQuery } from '../api/versions';
 
 /** Added, removed, changed: each its own colour, mark and word. */
 const MARK = {

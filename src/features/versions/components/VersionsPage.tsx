@@ -1,14 +1,15 @@
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
+import type { VersionMeta } from '../../../../shared/api/budgets';
 import type { Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { StatusBadge } from '../../../app/ui/status-badge';
-import { useBudgetHeader, useVersions, type VersionRow } from '../api/versions';
+import { useBudgetHeader, useVersions } from '../api/versions';
 
 /** Pick any two versions and open their side-by-side comparison. */
-function CompareForm({ budgetId, versions }: { budgetId: number; versions: VersionRow[] }) {
+function CompareForm({ budgetId, versions }: { budgetId: number; versions: VersionMeta[] }) {
   const navigate = useNavigate();
   const [from, setFrom] = useState(versions[0].number);
   const [to, setTo] = useState(versions[versions.length - 1].number);
