@@ -18,6 +18,7 @@ export const rectangularRule: DistributionRule<'rectangular'> = {
       fill(rng, out, n) {
         rng.fill(out, n, lower, width);
       },
+      affineUniform: { lower, width },
     };
   },
 };

@@ -129,6 +129,109 @@ export class UniformGenerator {
   }
 }
 
+/**
+ * Fills outA[0..n) with lowerA + widthA·r from stream a and outB[0..n) with
+ * lowerB + widthB·r from stream b (JCGM 101:2008 6.4.2, r ∈ (0, 1) as in
+ * `fill`): the same numbers as a.fill(outA, n, lowerA, widthA) and
+ * b.fill(outB, n, lowerB, widthB), in one loop where the two generators' steps
+ * overlap (each alone waits on its own chain of state updates).
+ */
+export function fillUniformPair(
+  a: UniformGenerator,
+  outA: Float64Array,
+  lowerA: number,
+  widthA: number,
+  b: UniformGenerator,
+  outB: Float64Array,
+  lowerB: number,
+  widthB: number,
+  n: number,
+): void {
+  const stateA = a.state;
+  const stateB = b.state;
+  let s0 = stateA[0];
+  let s1 = stateA[1];
+  let s2 = stateA[2];
+  let s3 = stateA[3];
+  let p0 = stateB[0];
+  let p1 = stateB[1];
+  let p2 = stateB[2];
+  let p3 = stateB[3];
+  for (let i = 0; i < n; i++) {
+    // Two outputs of each xoshiro128** stream, as in `fill`, the streams interleaved.
+    let t = s1 << 9;
+    let hiA = Math.imul(s1, 5);
+    hiA = Math.imul((hiA << 7) | (hiA >>> 25), 9);
+    s2 ^= s0;
+    s3 ^= s1;
+    s1 ^= s2;
+    s0 ^= s3;
+    s2 ^= t;
+    s3 = (s3 << 11) | (s3 >>> 21);
+    let v = p1 << 9;
+    let hiB = Math.imul(p1, 5);
+    hiB = Math.imul((hiB << 7) | (hiB >>> 25), 9);
+    p2 ^= p0;
+    p3 ^= p1;
+    p1 ^= p2;
+    p0 ^= p3;
+    p2 ^= v;
+    p3 = (p3 << 11) | (p3 >>> 21);
+    t = s1 << 9;
+    let loA = Math.imul(s1, 5);
+    loA = Math.imul((loA << 7) | (loA >>> 25), 9);
+    s2 ^= s0;
+    s3 ^= s1;
+    s1 ^= s2;
+    s0 ^= s3;
+    s2 ^= t;
+    s3 = (s3 << 11) | (s3 >>> 21);
+    v = p1 << 9;
+    let loB = Math.imul(p1, 5);
+    loB = Math.imul((loB << 7) | (loB >>> 25), 9);
+    p2 ^= p0;
+    p3 ^= p1;
+    p1 ^= p2;
+    p0 ^= p3;
+    p2 ^= v;
+    p3 = (p3 << 11) | (p3 >>> 21);
+    const kA = unsigned53(hiA, loA);
+    const kB = unsigned53(hiB, loB);
+    if (kA === 0 || kB === 0) {
+      // k = 0 (probability 2⁻⁵³): that stream draws again for the same i, exactly as `fill` would.
+      stateA[0] = s0;
+      stateA[1] = s1;
+      stateA[2] = s2;
+      stateA[3] = s3;
+      stateB[0] = p0;
+      stateB[1] = p1;
+      stateB[2] = p2;
+      stateB[3] = p3;
+      outA[i] = kA === 0 ? lowerA + widthA * a.next() : lowerA + widthA * (kA * TWO_POW_MINUS_53);
+      outB[i] = kB === 0 ? lowerB + widthB * b.next() : lowerB + widthB * (kB * TWO_POW_MINUS_53);
+      s0 = stateA[0];
+      s1 = stateA[1];
+      s2 = stateA[2];
+      s3 = stateA[3];
+      p0 = stateB[0];
+      p1 = stateB[1];
+      p2 = stateB[2];
+      p3 = stateB[3];
+      continue;
+    }
+    outA[i] = lowerA + widthA * (kA * TWO_POW_MINUS_53);
+    outB[i] = lowerB + widthB * (kB * TWO_POW_MINUS_53);
+  }
+  stateA[0] = s0;
+  stateA[1] = s1;
+  stateA[2] = s2;
+  stateA[3] = s3;
+  stateB[0] = p0;
+  stateB[1] = p1;
+  stateB[2] = p2;
+  stateB[3] = p3;
+}
+
 const SIGN = -2147483648;
 /** 2⁵² + 2³¹: moves the signed 53-bit integer of `unsigned53` back to [0, 2⁵³). */
 const UNSIGNED_OFFSET = 4503599627370496 + 2147483648;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import jstatPkg from 'jstat';
-import { UniformGenerator, unsigned53 } from '../../shared/random/uniform-generator';
+import { UniformGenerator, fillUniformPair, unsigned53 } from '../../shared/random/uniform-generator';
 import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
 import { fillStudentT } from '../../shared/random/student-t-draws';
 import { sampleMoments } from './moments';
@@ -74,6 +74,23 @@ describe('UniformGenerator', () => {
     const words = [0, 1, -1, 2047, 2048, 0x7fffffff, -0x80000000, 0x12345678, -0x2468ace0, 0x7ff, -0x800];
     for (const hi of words) for (const lo of words) expect(unsigned53(hi, lo)).toBe((hi >>> 11) * 2 ** 32 + (lo >>> 0));
     expect(unsigned53(-1, -1)).toBe(2 ** 53 - 1);
+  });
+
+  it('fills two rectangular columns in one loop with the numbers of two separate fills', () => {
+    // JCGM 101:2008 6.4.2: ξ = a + (b − a)·r; pairing the streams must not change any draw.
+    const n = 10_001;
+    const [a1, b1, a2, b2] = [0, 0, 0, 0].map(() => new Float64Array(n));
+    new UniformGenerator('pa').fill(a1, n, 1.1, 0.2);
+    new UniformGenerator('pb').fill(b1, n, 7000, 2000);
+    const ga = new UniformGenerator('pa');
+    const gb = new UniformGenerator('pb');
+    fillUniformPair(ga, a2, 1.1, 0.2, gb, b2, 7000, 2000, n);
+    expect(Array.from(a2)).toEqual(Array.from(a1));
+    expect(Array.from(b2)).toEqual(Array.from(b1));
+    // The streams continue where separate fills would have left them.
+    const next = new UniformGenerator('pa');
+    next.fill(new Float64Array(n));
+    expect(ga.next()).toBe(next.next());
   });
 
   it('derives sub-streams that differ from the parent and from each other, reproducibly', () => {
