@@ -1,5 +1,6 @@
 import type { Contribution } from '../../shared/budget/result';
 import type { Distribution, InputQuantity } from '../../shared/budget/schema';
+import { budgetKindLabel } from '../../shared/format/distribution-labels';
 import { certificateStatement } from '../../shared/gum/statement';
 import { COLOR, STYLE, rule, type Cursor } from './layout';
 import { drawLine, drawParagraph, type TextStyle } from './pdf-text';
@@ -106,21 +107,9 @@ function given(x: number): string {
   return formatSignificant(x, Math.min(15, x.toExponential().split('e')[0].replace(/[-.]/g, '').length));
 }
 
-const KIND_WORDS: Record<string, string> = {
-  normal: 'normal',
-  rectangular: 'rectangular',
-  triangular: 'triangular',
-  arcsine: 'arcsine',
-  trapezoidal: 'trapezoidal',
-  'curvilinear-trapezoidal': 'curv. trapezoidal',
-  'student-t': 'scaled t',
-  observations: 'Type A',
-  constant: 'exact',
-};
-
-function distributionWords(kind: string, q: InputQuantity | undefined): string {
-  if (kind === 'observations' && q?.distribution.kind === 'observations') return `Type A, n = ${q.distribution.values.length}`;
-  return KIND_WORDS[kind] ?? kind;
+/** The number of observations of a Type A input, undefined for other kinds. */
+function observationCount(q: InputQuantity | undefined): number | undefined {
+  return q?.distribution.kind === 'observations' ? q.distribution.values.length : undefined;
 }
 
 /** How the standard uncertainty of an input was stated, as entered. */
@@ -211,7 +200,7 @@ export function budgetTable(c: Cursor, r: ReportData): void {
     symbol: k.symbol,
     estimate: formatWithUncertainty(k.estimate, k.standardUncertainty),
     unit: formatUnit(k.unit),
-    dist: distributionWords(k.kind, inputs.get(k.symbol)),
+    dist: budgetKindLabel(k.kind, observationCount(inputs.get(k.symbol))),
     u: k.standardUncertainty > 0 ? formatUncertainty(k.standardUncertainty) : '0',
     c: formatSignificant(k.sensitivity, 3),
     cunit: ratioUnit(r.result.measurand.unit ?? r.document.measurand.unit, k.unit),

@@ -1,29 +1,7 @@
 import type { Distribution, DistributionKind } from '../../../../shared/budget/schema';
 import { gumTreatment } from '../../../../shared/distributions/registry';
 
-export const KIND_LABELS: Record<DistributionKind, string> = {
-  normal: 'Normal (Gaussian)',
-  rectangular: 'Rectangular (uniform)',
-  triangular: 'Triangular',
-  arcsine: 'Arcsine (U-shaped)',
-  trapezoidal: 'Trapezoidal',
-  'curvilinear-trapezoidal': 'Curvilinear trapezoidal',
-  'student-t': 'Student t (scaled, shifted)',
-  observations: 'Repeated observations (Type A)',
-  constant: 'Exact value (no uncertainty)',
-};
-
-export const KIND_SHORT: Record<DistributionKind, string> = {
-  normal: 'normal',
-  rectangular: 'rectangular',
-  triangular: 'triangular',
-  arcsine: 'arcsine',
-  trapezoidal: 'trapezoidal',
-  'curvilinear-trapezoidal': 'curv. trapezoidal',
-  'student-t': 'Student t',
-  observations: 'Type A, n obs.',
-  constant: 'exact',
-};
+export { KIND_LABELS, KIND_SHORT } from '../../../../shared/format/distribution-labels';
 
 /** Treatment of a draft distribution, or null while it is incomplete. */
 export function tryTreatment(d: Distribution): { estimate: number; standardUncertainty: number; dof: number } | null {
