@@ -184,3 +184,46 @@ export function Modal({ open, onClose, title, children, wide }: { open: boolean;
     </dialog>
   );
 }
+
+/** A modal holding one form: the caller's fields, then Cancel and the submit button. */
+export function FormDialog({
+  open = true,
+  onClose,
+  title,
+  onSubmit,
+  submitLabel,
+  pendingLabel,
+  pending,
+  variant = 'primary',
+  children,
+}: {
+  open?: boolean;
+  onClose(): void;
+  title: string;
+  onSubmit(): void;
+  submitLabel: string;
+  pendingLabel: string;
+  pending: boolean;
+  variant?: Variant;
+  children: ReactNode;
+}) {
+  return (
+    <Modal open={open} onClose={onClose} title={title}>
+      <form
+        className="flex flex-col gap-3"
+        onSubmit={(e) => {
+          e.preventDefault();
+          onSubmit();
+        }}
+      >
+        {children}
+        <div className="flex justify-end gap-2">
+          <Button onClick={onClose}>Cancel</Button>
+          <Button type="submit" variant={variant} disabled={pending}>
+            {pending ? pendingLabel : submitLabel}
+          </Button>
+        </div>
+      </form>
+    </Modal>
+  );
+}

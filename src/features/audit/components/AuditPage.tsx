@@ -2,7 +2,8 @@ import { Link, useSearchParams } from 'react-router-dom';
 import type { AuditEvent } from '../../../../shared/api/audit';
 import { errorMessage } from '../../../app/http';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
-import { formatCount, formatDateTime } from '../../../app/ui/numbers';
+import { formatDateTime } from '../../../app/ui/numbers';
+import { Pager } from '../../../app/ui/pager';
 import { AUDIT_ACTIONS, auditCsvUrl, useAudit, useAuditActors, useAuditBudgets, type AuditFilter } from '../api/audit';
 
 const PAGE_SIZE = 25;
@@ -179,22 +180,7 @@ export function AuditPage() {
               ))}
             </tbody>
           </table>
-          <nav aria-label="Pages" className="flex items-center justify-between border-t border-stone-200 px-3 py-2 text-sm text-stone-700">
-            <span>
-              {formatCount((page - 1) * PAGE_SIZE + 1)}–{formatCount(Math.min(page * PAGE_SIZE, total))} of {formatCount(total)}
-            </span>
-            <div className="flex items-center gap-2">
-              <Button size="sm" disabled={page <= 1} onClick={() => set({ page: String(page - 1) })}>
-                ‹ Previous
-              </Button>
-              <span>
-                Page {page} of {pages}
-              </span>
-              <Button size="sm" disabled={page >= pages} onClick={() => set({ page: String(page + 1) })}>
-                Next ›
-              </Button>
-            </div>
-          </nav>
+          <Pager page={page} pages={pages} pageSize={PAGE_SIZE} total={total} onPage={(n) => set({ page: String(n) })} />
         </div>
       )}
     </div>

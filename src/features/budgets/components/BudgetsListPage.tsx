@@ -5,6 +5,7 @@ import { can, type BudgetStatus, type Role } from '../../../../shared/policy/pol
 import { errorMessage } from '../../../app/http';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
+import { Pager } from '../../../app/ui/pager';
 import { displayStatus, StatusBadge, statusLabel, type DisplayStatus } from '../../../app/ui/status-badge';
 import { useToast } from '../../../app/ui/toasts';
 import { useBudgetList, useImportBudget } from '../api/budgets';
@@ -229,22 +230,7 @@ export function BudgetsListPage({ role }: { role: Role }) {
               ))}
             </tbody>
           </table>
-          <nav aria-label="Pages" className="flex items-center justify-between border-t border-stone-200 px-3 py-2 text-sm text-stone-700">
-            <span>
-              {(current - 1) * PAGE_SIZE + 1}–{Math.min(current * PAGE_SIZE, rows.length)} of {rows.length}
-            </span>
-            <div className="flex items-center gap-2">
-              <Button size="sm" disabled={current <= 1} onClick={() => set({ page: String(current - 1) })}>
-                ‹ Previous
-              </Button>
-              <span>
-                Page {current} of {pages}
-              </span>
-              <Button size="sm" disabled={current >= pages} onClick={() => set({ page: String(current + 1) })}>
-                Next ›
-              </Button>
-            </div>
-          </nav>
+          <Pager page={current} pages={pages} pageSize={PAGE_SIZE} total={rows.length} onPage={(n) => set({ page: String(n) })} />
         </div>
       )}
     </div>

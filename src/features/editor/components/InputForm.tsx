@@ -11,6 +11,18 @@ import { ObservationsHelper } from './ObservationsHelper';
 type NormalMode = 'u' | 'Uk' | 'Up';
 type RectMode = 'tolerance' | 'limits' | 'resolution';
 
+const NORMAL_MODES = [
+  ['u', 'a standard uncertainty u'],
+  ['Uk', 'a certificate: expanded uncertainty U with coverage factor k'],
+  ['Up', 'a certificate: U at coverage probability p with ν degrees of freedom'],
+] as const satisfies readonly (readonly [NormalMode, string])[];
+
+const RECT_MODES = [
+  ['tolerance', 'a tolerance ± a around a value'],
+  ['limits', 'lower and upper limits'],
+  ['resolution', 'the resolution of an indicating instrument'],
+] as const satisfies readonly (readonly [RectMode, string])[];
+
 /* eslint-disable @typescript-eslint/no-explicit-any */
 type AnyDist = Distribution & Record<string, any>;
 
@@ -58,6 +70,21 @@ export function InputForm({
     </Field>
   );
 
+  // One chooser shape for every "how is this given" select on the form.
+  const choice = <M extends string>(label: string, value: M, onChoose: (m: M) => void, options: readonly (readonly [M, string])[], extra: { error?: string | null; className?: string } = {}) => (
+    <Field label={label} error={extra.error} className={extra.className}>
+      {(fp) => (
+        <Select {...fp} disabled={readOnly} value={value} onChange={(e) => onChoose(e.target.value as M)}>
+          {options.map(([v, text]) => (
+            <option key={v} value={v}>
+              {text}
+            </option>
+          ))}
+        </Select>
+      )}
+    </Field>
+  );
+
   const kFromP = (nu: number | undefined, prob: number | undefined) => {
     if (!(prob !== undefined && prob > 0 && prob < 1)) return undefined;
     const dof = nu !== undefined && nu > 0 ? nu : Infinity;
@@ -69,30 +96,22 @@ export function InputForm({
       case 'normal':
         return (
           <>
-            <Field label="Given as" className="md:col-span-3">
-              {(fp) => (
-                <Select
-                  {...fp}
-                  disabled={readOnly}
-                  value={normalMode}
-                  onChange={(e) => {
-                    const mode = e.target.value as NormalMode;
-                    setNormalMode(mode);
-                    if (mode === 'u') setDist({ u: d.u ?? (d.U && d.k ? Number((d.U / d.k).toPrecision(6)) : undefined), U: undefined, k: undefined });
-                    else if (mode === 'Uk') setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: d.k ?? 2, u: undefined });
-                    else {
-                      const nu = d.dof ?? 10;
-                      setDofMode('direct');
-                      setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: kFromP(nu, p), dof: nu, u: undefined, relativeUncertaintyOfU: undefined });
-                    }
-                  }}
-                >
-                  <option value="u">a standard uncertainty u</option>
-                  <option value="Uk">a certificate: expanded uncertainty U with coverage factor k</option>
-                  <option value="Up">a certificate: U at coverage probability p with ν degrees of freedom</option>
-                </Select>
-              )}
-            </Field>
+            {choice(
+              'Given as',
+              normalMode,
+              (mode) => {
+                setNormalMode(mode);
+                if (mode === 'u') setDist({ u: d.u ?? (d.U && d.k ? Number((d.U / d.k).toPrecision(6)) : undefined), U: undefined, k: undefined });
+                else if (mode === 'Uk') setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: d.k ?? 2, u: undefined });
+                else {
+                  const nu = d.dof ?? 10;
+                  setDofMode('direct');
+                  setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: kFromP(nu, p), dof: nu, u: undefined, relativeUncertaintyOfU: undefined });
+                }
+              },
+              NORMAL_MODES,
+              { className: 'md:col-span-3' },
+            )}
             {num(`Value${unitSuffix}`, 'value')}
             {normalMode === 'u' ? num(`Standard uncertainty u${unitSuffix}`, 'u') : null}
             {normalMode === 'Uk' ? (
@@ -104,19 +123,10 @@ export function InputForm({
             {normalMode === 'Up' ? (
               <>
                 {num(`Expanded uncertainty U${unitSuffix}`, 'U')}
-                <Field label="Coverage probability p" hint="e.g. 0.95">
-                  {(fp) => (
-                    <NumberInput
-                      {...fp}
-                      readOnly={readOnly}
-                      value={p}
-                      onValue={(v) => {
-                        setP(v);
-                        setDist({ k: kFromP(d.dof, v) });
-                      }}
-                    />
-                  )}
-                </Field>
+                {num('Coverage probability p', 'p', 'e.g. 0.95', p, (v) => {
+                  setP(v);
+                  setDist({ k: kFromP(d.dof, v) });
+                })}
                 {num('Degrees of freedom ν', 'dof', d.k ? `k = t_p(ν) = ${d.k.toFixed(3)} (GUM G.3.4)` : undefined, undefined, (v) => setDist({ dof: v, k: kFromP(v, p) }))}
               </>
             ) : null}
@@ -125,32 +135,24 @@ export function InputForm({
       case 'rectangular':
         return (
           <>
-            <Field label="Given as" className="md:col-span-3">
-              {(fp) => (
-                <Select
-                  {...fp}
-                  disabled={readOnly}
-                  value={rectMode}
-                  onChange={(e) => {
-                    const mode = e.target.value as RectMode;
-                    setRectMode(mode);
-                    if (mode === 'limits') {
-                      const v = d.value ?? 0;
-                      const a = d.halfWidth ?? 1;
-                      setDist({ lower: v - a, upper: v + a, value: undefined, halfWidth: undefined });
-                    } else if (d.lower !== undefined || d.upper !== undefined) {
-                      const lo = d.lower ?? 0;
-                      const hi = d.upper ?? lo;
-                      setDist({ value: (lo + hi) / 2, halfWidth: (hi - lo) / 2 || 1, lower: undefined, upper: undefined });
-                    }
-                  }}
-                >
-                  <option value="tolerance">a tolerance ± a around a value</option>
-                  <option value="limits">lower and upper limits</option>
-                  <option value="resolution">the resolution of an indicating instrument</option>
-                </Select>
-              )}
-            </Field>
+            {choice(
+              'Given as',
+              rectMode,
+              (mode) => {
+                setRectMode(mode);
+                if (mode === 'limits') {
+                  const v = d.value ?? 0;
+                  const a = d.halfWidth ?? 1;
+                  setDist({ lower: v - a, upper: v + a, value: undefined, halfWidth: undefined });
+                } else if (d.lower !== undefined || d.upper !== undefined) {
+                  const lo = d.lower ?? 0;
+                  const hi = d.upper ?? lo;
+                  setDist({ value: (lo + hi) / 2, halfWidth: (hi - lo) / 2 || 1, lower: undefined, upper: undefined });
+                }
+              },
+              RECT_MODES,
+              { className: 'md:col-span-3' },
+            )}
             {rectMode === 'limits' ? (
               <>
                 {num(`Lower limit a₋${unitSuffix}`, 'lower')}
@@ -250,68 +252,47 @@ export function InputForm({
         </Field>
       </div>
       <div className="grid gap-3 md:grid-cols-3">
-        <Field label="Distribution" error={err('distribution.kind')} className="md:col-span-3">
-          {(fp) => (
-            <Select
-              {...fp}
-              disabled={readOnly}
-              value={d.kind}
-              onChange={(e) => {
-                const kind = e.target.value as DistributionKind;
-                setNormalMode('u');
-                setRectMode('tolerance');
-                onChange({ ...input, distribution: convertKind(input.distribution, kind) });
-              }}
-            >
-              {DISTRIBUTION_KINDS.map((k) => (
-                <option key={k} value={k}>
-                  {KIND_LABELS[k]}
-                </option>
-              ))}
-            </Select>
-          )}
-        </Field>
+        {choice(
+          'Distribution',
+          d.kind as DistributionKind,
+          (kind) => {
+            setNormalMode('u');
+            setRectMode('tolerance');
+            onChange({ ...input, distribution: convertKind(input.distribution, kind) });
+          },
+          DISTRIBUTION_KINDS.map((k) => [k, KIND_LABELS[k]] as const),
+          { error: err('distribution.kind'), className: 'md:col-span-3' },
+        )}
         {kindFields()}
       </div>
       {showDof ? (
         <fieldset className="grid gap-3 rounded-md border border-stone-200 p-3 md:grid-cols-3">
           <legend className="px-1 text-xs font-medium text-stone-700">Degrees of freedom νᵢ</legend>
-          <Field label="ν from" error={err('distribution.relativeUncertaintyOfU')}>
-            {(fp) => (
-              <Select
-                {...fp}
-                disabled={readOnly}
-                value={dofMode}
-                onChange={(e) => {
-                  const m = e.target.value as typeof dofMode;
-                  setDofMode(m);
-                  if (m === 'inf') setDist({ dof: undefined, relativeUncertaintyOfU: undefined });
-                  if (m === 'direct') setDist({ relativeUncertaintyOfU: undefined, dof: d.dof ?? (d.kind === 'observations' ? undefined : 50) });
-                  if (m === 'reliability') setDist({ dof: undefined, relativeUncertaintyOfU: d.relativeUncertaintyOfU ?? 0.1 });
-                }}
-              >
-                <option value="inf">{d.kind === 'observations' ? 'n − 1 (default)' : '∞: u is known well (default)'}</option>
-                <option value="direct">a value given directly</option>
-                <option value="reliability">the reliability of u (Δu/u)</option>
-              </Select>
-            )}
-          </Field>
+          {choice(
+            'ν from',
+            dofMode,
+            (m) => {
+              setDofMode(m);
+              if (m === 'inf') setDist({ dof: undefined, relativeUncertaintyOfU: undefined });
+              if (m === 'direct') setDist({ relativeUncertaintyOfU: undefined, dof: d.dof ?? (d.kind === 'observations' ? undefined : 50) });
+              if (m === 'reliability') setDist({ dof: undefined, relativeUncertaintyOfU: d.relativeUncertaintyOfU ?? 0.1 });
+            },
+            [
+              ['inf', d.kind === 'observations' ? 'n − 1 (default)' : '∞: u is known well (default)'],
+              ['direct', 'a value given directly'],
+              ['reliability', 'the reliability of u (Δu/u)'],
+            ],
+            { error: err('distribution.relativeUncertaintyOfU') },
+          )}
           {dofMode === 'direct' ? num('νᵢ', 'dof') : null}
           {dofMode === 'reliability' ? (
-            <Field
-              label="Relative uncertainty of u, Δu/u (%)"
-              error={err('distribution.relativeUncertaintyOfU')}
-              hint={d.relativeUncertaintyOfU ? `ν = ½·(Δu/u)⁻² = ${formatSignificant(0.5 / d.relativeUncertaintyOfU ** 2, 3)} (GUM G.4.2)` : 'e.g. 10 % gives ν = 50'}
-            >
-              {(fp) => (
-                <NumberInput
-                  {...fp}
-                  readOnly={readOnly}
-                  value={d.relativeUncertaintyOfU !== undefined ? Number((d.relativeUncertaintyOfU * 100).toPrecision(10)) : undefined}
-                  onValue={(v) => setDist({ relativeUncertaintyOfU: v === undefined ? undefined : v / 100 })}
-                />
-              )}
-            </Field>
+            num(
+              'Relative uncertainty of u, Δu/u (%)',
+              'relativeUncertaintyOfU',
+              d.relativeUncertaintyOfU ? `ν = ½·(Δu/u)⁻² = ${formatSignificant(0.5 / d.relativeUncertaintyOfU ** 2, 3)} (GUM G.4.2)` : 'e.g. 10 % gives ν = 50',
+              d.relativeUncertaintyOfU !== undefined ? Number((d.relativeUncertaintyOfU * 100).toPrecision(10)) : undefined,
+              (v) => setDist({ relativeUncertaintyOfU: v === undefined ? undefined : v / 100 }),
+            )
           ) : null}
         </fieldset>
       ) : null}

@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { api } from '../../../app/http';
-import { Button, Field, Modal, Spinner, TextArea } from '../../../app/ui/controls';
+import { Button, Field, FormDialog, Modal, Spinner, TextArea } from '../../../app/ui/controls';
 import { formatDateTime, formatSignificant } from '../../../app/ui/numbers';
 import { editorVersionsQuery } from '../api/editor';
 
@@ -24,33 +24,29 @@ export function SaveDialog({
   const [touched, setTouched] = useState(false);
   const noteError = touched && !isNew && note.trim() === '' ? 'Say in a few words what changed; the note goes into the version history.' : null;
   return (
-    <Modal open={open} onClose={onClose} title={isNew ? 'Save the first version' : 'Save a new version'}>
-      <form
-        className="flex flex-col gap-3"
-        onSubmit={(e) => {
-          e.preventDefault();
-          setTouched(true);
-          if (!isNew && note.trim() === '') return;
-          onSave(note.trim() || 'first version');
-        }}
-      >
-        <Field label="Change note" error={noteError} hint={isNew ? 'Optional for the first version.' : 'e.g. “new certificate for the reference, U from 30 nm to 25 nm”'}>
-          {(p) => <TextArea {...p} rows={3} value={note} onChange={(e) => setNote(e.target.value)} autoFocus maxLength={2000} />}
-        </Field>
-        <p className="text-xs text-stone-600">The server computes the saved version again (GUM and Monte Carlo) and stores the result with it.</p>
-        {error ? (
-          <p role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-2 py-1 text-sm text-caution-700">
-            {error}
-          </p>
-        ) : null}
-        <div className="flex justify-end gap-2">
-          <Button onClick={onClose}>Cancel</Button>
-          <Button type="submit" variant="primary" disabled={saving}>
-            {saving ? 'Saving…' : 'Save version'}
-          </Button>
-        </div>
-      </form>
-    </Modal>
+    <FormDialog
+      open={open}
+      onClose={onClose}
+      title={isNew ? 'Save the first version' : 'Save a new version'}
+      onSubmit={() => {
+        setTouched(true);
+        if (!isNew && note.trim() === '') return;
+        onSave(note.trim() || 'first version');
+      }}
+      submitLabel="Save version"
+      pendingLabel="Saving…"
+      pending={saving}
+    >
+      <Field label="Change note" error={noteError} hint={isNew ? 'Optional for the first version.' : 'e.g. “new certificate for the reference, U from 30 nm to 25 nm”'}>
+        {(p) => <TextArea {...p} rows={3} value={note} onChange={(e) => setNote(e.target.value)} autoFocus maxLength={2000} />}
+      </Field>
+      <p className="text-xs text-stone-600">The server computes the saved version again (GUM and Monte Carlo) and stores the result with it.</p>
+      {error ? (
+        <p role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-2 py-1 text-sm text-caution-700">
+          {error}
+        </p>
+      ) : null}
+    </FormDialog>
   );
 }
 

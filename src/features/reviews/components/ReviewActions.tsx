@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { canApprove, canReturn, canSubmit, type Role } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
-import { Button, Field, Modal, TextArea, TextInput } from '../../../app/ui/controls';
+import { Button, Field, FormDialog, TextArea, TextInput } from '../../../app/ui/controls';
 import { useToast } from '../../../app/ui/toasts';
 import { useTransition } from '../api/reviews';
 import type { ReviewContext } from './ReviewPanel';
@@ -84,73 +84,66 @@ export function ReviewActions({ ctx, me }: { ctx: ReviewContext; me: Me }) {
         <span className="self-center text-xs text-stone-600">You wrote this version, so another reviewer approves it.</span>
       ) : null}
 
-      <Modal open={approveOpen} onClose={close} title={`Approve version ${ctx.currentVersion}`}>
-        <form
-          className="flex flex-col gap-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            setTouched(true);
-            if (!password) return;
-            setError(null);
-            transition.mutate(
-              { to: 'approved', password },
-              {
-                onSuccess: (r) => {
-                  close();
-                  toast(`Version ${r.version} approved and signed by ${me.name}.`);
-                },
-                onError: (err) => setError(transitionError(err)),
+      <FormDialog
+        open={approveOpen}
+        onClose={close}
+        title={`Approve version ${ctx.currentVersion}`}
+        onSubmit={() => {
+          setTouched(true);
+          if (!password) return;
+          setError(null);
+          transition.mutate(
+            { to: 'approved', password },
+            {
+              onSuccess: (r) => {
+                close();
+                toast(`Version ${r.version} approved and signed by ${me.name}.`);
               },
-            );
-          }}
-        >
-          <p className="text-sm text-stone-700">
-            Approving signs version {ctx.currentVersion} in your name; it then cannot change. Re-enter your password as your signature.
-          </p>
-          <Field label="Your password (signature)" error={touched && !password ? 'Enter your password to sign.' : error}>
-            {(p) => <TextInput {...p} type="password" autoComplete="current-password" value={password} onChange={(e) => setPassword(e.target.value)} autoFocus />}
-          </Field>
-          <div className="flex justify-end gap-2">
-            <Button onClick={close}>Cancel</Button>
-            <Button type="submit" variant="primary" disabled={transition.isPending}>
-              {transition.isPending ? 'Signing…' : 'Sign and approve'}
-            </Button>
-          </div>
-        </form>
-      </Modal>
+              onError: (err) => setError(transitionError(err)),
+            },
+          );
+        }}
+        submitLabel="Sign and approve"
+        pendingLabel="Signing…"
+        pending={transition.isPending}
+      >
+        <p className="text-sm text-stone-700">
+          Approving signs version {ctx.currentVersion} in your name; it then cannot change. Re-enter your password as your signature.
+        </p>
+        <Field label="Your password (signature)" error={touched && !password ? 'Enter your password to sign.' : error}>
+          {(p) => <TextInput {...p} type="password" autoComplete="current-password" value={password} onChange={(e) => setPassword(e.target.value)} autoFocus />}
+        </Field>
+      </FormDialog>
 
-      <Modal open={returnOpen} onClose={close} title={`Return version ${ctx.currentVersion} to its author`}>
-        <form
-          className="flex flex-col gap-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            setTouched(true);
-            if (!comment.trim()) return;
-            setError(null);
-            transition.mutate(
-              { to: 'draft', comment: comment.trim() },
-              {
-                onSuccess: () => {
-                  close();
-                  toast('Returned to the author with your comment.');
-                },
-                onError: (err) => setError(transitionError(err)),
+      <FormDialog
+        open={returnOpen}
+        onClose={close}
+        title={`Return version ${ctx.currentVersion} to its author`}
+        onSubmit={() => {
+          setTouched(true);
+          if (!comment.trim()) return;
+          setError(null);
+          transition.mutate(
+            { to: 'draft', comment: comment.trim() },
+            {
+              onSuccess: () => {
+                close();
+                toast('Returned to the author with your comment.');
               },
-            );
-          }}
-        >
-          <p className="text-sm text-stone-700">The budget goes back to draft. Your comment is added to the budget and mailed to the owner.</p>
-          <Field label="Why is it returned?" error={touched && !comment.trim() ? 'Say what the author should change; the comment is required.' : error}>
-            {(p) => <TextArea {...p} rows={4} value={comment} onChange={(e) => setComment(e.target.value)} autoFocus maxLength={10_000} />}
-          </Field>
-          <div className="flex justify-end gap-2">
-            <Button onClick={close}>Cancel</Button>
-            <Button type="submit" variant="danger" disabled={transition.isPending}>
-              {transition.isPending ? 'Returning…' : 'Send back'}
-            </Button>
-          </div>
-        </form>
-      </Modal>
+              onError: (err) => setError(transitionError(err)),
+            },
+          );
+        }}
+        submitLabel="Send back"
+        pendingLabel="Returning…"
+        pending={transition.isPending}
+        variant="danger"
+      >
+        <p className="text-sm text-stone-700">The budget goes back to draft. Your comment is added to the budget and mailed to the owner.</p>
+        <Field label="Why is it returned?" error={touched && !comment.trim() ? 'Say what the author should change; the comment is required.' : error}>
+          {(p) => <TextArea {...p} rows={4} value={comment} onChange={(e) => setComment(e.target.value)} autoFocus maxLength={10_000} />}
+        </Field>
+      </FormDialog>
     </>
   );
 }

@@ -3,7 +3,7 @@ import { useNavigate } from 'react-router-dom';
 import type { BudgetListItem } from '../../../../shared/api/budgets';
 import { can, type Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
-import { Button, EmptyState, ErrorNote, Field, Modal, Spinner, TextInput } from '../../../app/ui/controls';
+import { Button, EmptyState, ErrorNote, Field, FormDialog, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { Sym, Unit } from '../../../app/ui/quantity';
 import { useToast } from '../../../app/ui/toasts';
@@ -17,39 +17,34 @@ function UseDialog({ template, onClose }: { template: BudgetListItem; onClose():
   const [touched, setTouched] = useState(false);
   const error = touched && !title.trim() ? 'Give the new draft a title.' : null;
   return (
-    <Modal open onClose={onClose} title="Start a draft from this template">
-      <form
-        className="flex flex-col gap-3"
-        onSubmit={(e) => {
-          e.preventDefault();
-          setTouched(true);
-          if (!title.trim()) return;
-          clone.mutate(
-            { id: template.id, title: title.trim() },
-            {
-              onSuccess: (r) => {
-                toast(`Draft created from “${template.title}”.`);
-                navigate(`/budgets/${r.id}`);
-              },
-              onError: (err) => toast(`No draft was created: ${errorMessage(err)}`, 'error'),
+    <FormDialog
+      onClose={onClose}
+      title="Start a draft from this template"
+      onSubmit={() => {
+        setTouched(true);
+        if (!title.trim()) return;
+        clone.mutate(
+          { id: template.id, title: title.trim() },
+          {
+            onSuccess: (r) => {
+              toast(`Draft created from “${template.title}”.`);
+              navigate(`/budgets/${r.id}`);
             },
-          );
-        }}
-      >
-        <p className="text-sm text-stone-700">
-          The draft is yours: a copy of version {template.currentVersion} of the template that records where it came from. The template itself does not change.
-        </p>
-        <Field label="Title of the new draft" error={error}>
-          {(p) => <TextInput {...p} value={title} onChange={(e) => setTitle(e.target.value)} autoFocus maxLength={300} />}
-        </Field>
-        <div className="flex justify-end gap-2">
-          <Button onClick={onClose}>Cancel</Button>
-          <Button type="submit" variant="primary" disabled={clone.isPending}>
-            {clone.isPending ? 'Creating…' : 'Create draft'}
-          </Button>
-        </div>
-      </form>
-    </Modal>
+            onError: (err) => toast(`No draft was created: ${errorMessage(err)}`, 'error'),
+          },
+        );
+      }}
+      submitLabel="Create draft"
+      pendingLabel="Creating…"
+      pending={clone.isPending}
+    >
+      <p className="text-sm text-stone-700">
+        The draft is yours: a copy of version {template.currentVersion} of the template that records where it came from. The template itself does not change.
+      </p>
+      <Field label="Title of the new draft" error={error}>
+        {(p) => <TextInput {...p} value={title} onChange={(e) => setTitle(e.target.value)} autoFocus maxLength={300} />}
+      </Field>
+    </FormDialog>
   );
 }
 
