@@ -137,6 +137,11 @@ function Guarded({ action, children }: { action: Parameters<typeof RequireAction
   );
 }
 
+/** A route only for the roles that the policy allows the action. */
+function guarded(path: string, action: Parameters<typeof Guarded>[0]['action'], element: React.ReactNode) {
+  return { path, element: <Guarded action={action}>{element}</Guarded> };
+}
+
 const router = createBrowserRouter([
   { path: '/sign-in', element: <SignInPage /> },
   { path: '/forgot-password', element: <ForgotPasswordPage /> },
@@ -148,44 +153,16 @@ const router = createBrowserRouter([
     children: [
       { index: true, element: <Navigate to="/budgets" replace /> },
       { path: 'budgets', element: <BudgetsRoute /> },
-      { path: 'budgets/new', element: <Guarded action="budget.create"><EditorRoute /></Guarded> },
+      guarded('budgets/new', 'budget.create', <EditorRoute />),
       { path: 'budgets/:id', element: <EditorRoute /> },
       { path: 'budgets/:id/versions', element: <VersionsRoute /> },
       { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
       { path: 'budgets/:id/compare', element: <CompareRoute /> },
       { path: 'budgets/:id/versions/:n/report', element: <ReportRoute /> },
-      {
-        path: 'templates',
-        element: (
-          <Guarded action="budget.read">
-            <TemplatesRoute />
-          </Guarded>
-        ),
-      },
-      {
-        path: 'audit',
-        element: (
-          <Guarded action="audit.read">
-            <AuditPage />
-          </Guarded>
-        ),
-      },
-      {
-        path: 'admin/users',
-        element: (
-          <Guarded action="user.manage">
-            <UsersRoute />
-          </Guarded>
-        ),
-      },
-      {
-        path: 'admin/mail',
-        element: (
-          <Guarded action="mail.read">
-            <MailboxPage />
-          </Guarded>
-        ),
-      },
+      guarded('templates', 'budget.read', <TemplatesRoute />),
+      guarded('audit', 'audit.read', <AuditPage />),
+      guarded('admin/users', 'user.manage', <UsersRoute />),
+      guarded('admin/mail', 'mail.read', <MailboxPage />),
       { path: '*', element: <NotFound /> },
     ],
   },

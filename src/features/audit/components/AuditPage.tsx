@@ -1,6 +1,7 @@
-import { Link, useSearchParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import type { AuditEvent } from '../../../../shared/api/audit';
 import { errorMessage } from '../../../app/http';
+import { useListParams } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { Pager } from '../../../app/ui/pager';
@@ -41,7 +42,7 @@ function describe(e: AuditEvent): string {
 }
 
 export function AuditPage() {
-  const [params, setParams] = useSearchParams();
+  const { params, set, clear } = useListParams();
   const num = (k: string) => (params.get(k) ? Number(params.get(k)) || undefined : undefined);
   const filter: AuditFilter = { budget: num('budget'), actor: num('actor'), action: params.get('action') ?? undefined, from: num('from'), to: num('to') };
   const page = Math.max(1, num('page') ?? 1);
@@ -51,15 +52,6 @@ export function AuditPage() {
   const budgetTitle = new Map((budgets.data ?? []).map((b) => [b.id, b.title]));
   const rangeError = filter.from !== undefined && filter.to !== undefined && filter.from > filter.to ? 'The end of the range is before its start.' : null;
 
-  const set = (patch: Record<string, string | undefined>) => {
-    const next = new URLSearchParams(params);
-    for (const [k, v] of Object.entries(patch)) {
-      if (v) next.set(k, v);
-      else next.delete(k);
-    }
-    if (!('page' in patch)) next.delete('page');
-    setParams(next, { replace: true });
-  };
   const filtered = [...params.keys()].some((k) => k !== 'page');
   const total = audit.data?.total ?? 0;
   const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
@@ -129,7 +121,7 @@ export function AuditPage() {
           {(p) => <TextInput {...p} type="datetime-local" value={toLocalInput(filter.to)} onChange={(e) => set({ to: fromLocalInput(e.target.value)?.toString() })} />}
         </Field>
         <div className="flex items-end">
-          <Button variant="ghost" disabled={!filtered} onClick={() => setParams(new URLSearchParams(), { replace: true })}>
+          <Button variant="ghost" disabled={!filtered} onClick={clear}>
             Clear filters
           </Button>
         </div>

@@ -1,8 +1,9 @@
 import { useDeferredValue, useMemo, useRef, useState } from 'react';
-import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, useNavigate } from 'react-router-dom';
 import type { BudgetListItem } from '../../../../shared/api/budgets';
 import { can, type BudgetStatus, type Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
+import { useListParams } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { Pager } from '../../../app/ui/pager';
@@ -30,7 +31,7 @@ function compare(a: BudgetListItem, b: BudgetListItem, key: SortKey): number {
 }
 
 export function BudgetsListPage({ role }: { role: Role }) {
-  const [params, setParams] = useSearchParams();
+  const { params, set, clear } = useListParams();
   const status = (params.get('status') ?? '') as DisplayStatus | '';
   const owner = Number(params.get('owner') ?? '') || undefined;
   const [text, setText] = useState(params.get('q') ?? '');
@@ -59,15 +60,6 @@ export function BudgetsListPage({ role }: { role: Role }) {
   const current = Math.min(page, pages);
   const shown = rows.slice((current - 1) * PAGE_SIZE, current * PAGE_SIZE);
 
-  const set = (patch: Record<string, string | undefined>) => {
-    const next = new URLSearchParams(params);
-    for (const [k, v] of Object.entries(patch)) {
-      if (v) next.set(k, v);
-      else next.delete(k);
-    }
-    if (!('page' in patch)) next.delete('page');
-    setParams(next, { replace: true });
-  };
   const sortBy = (key: SortKey) => set({ sort: key, dir: sort === key && dir === 'desc' ? 'asc' : 'desc' });
 
   const navigate = useNavigate();
@@ -175,7 +167,7 @@ export function BudgetsListPage({ role }: { role: Role }) {
             disabled={!filtered}
             onClick={() => {
               setText('');
-              setParams(new URLSearchParams(), { replace: true });
+              clear();
             }}
           >
             Clear filters

@@ -2,11 +2,12 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Link, useBlocker, useNavigate } from 'react-router-dom';
 import type { BudgetView, VersionMeta } from '../../../../shared/api/budgets';
-import type { BudgetResult, GumResult } from '../../../../shared/budget/result';
+import type { BudgetResult } from '../../../../shared/budget/result';
 import type { BudgetDocument, InputQuantity } from '../../../../shared/budget/schema';
 import { addPhysicalConstant } from '../../../../shared/constants/add-constant';
 import { canEditBudget, can, isEditableStatus, type BudgetStatus } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
+import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Button, ErrorNote, Field, NumberInput, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
 import { StatusBadge } from '../../../app/ui/status-badge';
@@ -29,17 +30,6 @@ interface Me {
   id: number;
   role: Parameters<typeof can>[0] & string;
   name: string;
-}
-
-/** What the editor hands to the Monte Carlo panel (composed by the app). */
-export interface MonteCarloSlotProps {
-  document: BudgetDocument | null;
-  gum: GumResult | null;
-  measurand: { symbol: string; unit?: string };
-  stored: { result: BudgetResult; label: string } | null;
-  settings: BudgetDocument['monteCarlo'];
-  onSettings(next: BudgetDocument['monteCarlo']): void;
-  readOnly: boolean;
 }
 
 /** What the editor tells the review slots (filled by the app) about the budget on screen. */

@@ -1,6 +1,6 @@
 import { lazy, Suspense, useState } from 'react';
-import type { BudgetResult, GumResult } from '../../../../shared/budget/result';
-import type { BudgetDocument } from '../../../../shared/budget/schema';
+import type { BudgetResult } from '../../../../shared/budget/result';
+import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Button, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatCount, formatSignificant, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
 import { Unit } from '../../../app/ui/quantity';
@@ -11,16 +11,6 @@ const HistogramPlot = lazy(() => import('./HistogramPlot'));
 
 const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000];
 const BROWSER_CAP = 5_000_000;
-
-export interface MonteCarloPanelProps {
-  document: BudgetDocument | null;
-  gum: GumResult | null;
-  measurand: { symbol: string; unit?: string };
-  stored: { result: BudgetResult; label: string } | null;
-  settings: BudgetDocument['monteCarlo'];
-  onSettings(next: BudgetDocument['monteCarlo']): void;
-  readOnly: boolean;
-}
 
 function seconds(ms: number): string {
   if (ms < 1000) return `${Math.round(ms)} ms`;
@@ -99,7 +89,7 @@ function Comparison({ result, unit }: { result: BudgetResult; unit?: string }) {
   );
 }
 
-export function MonteCarloPanel({ document, gum, measurand, stored, settings, onSettings, readOnly }: MonteCarloPanelProps) {
+export function MonteCarloPanel({ document, gum, measurand, stored, settings, onSettings, readOnly }: MonteCarloSlotProps) {
   const { state, run, cancel } = useMonteCarloRun();
   const [localTrials, setLocalTrials] = useState<number | 'adaptive'>(() => {
     const t = settings?.trials;
