@@ -8,6 +8,7 @@ import { addPhysicalConstant } from '../../../../shared/constants/add-constant';
 import { canEditBudget, can, isEditableStatus, type BudgetStatus } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
 import type { MonteCarloSlotProps } from '../../../app/slots';
+import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, ErrorNote, Field, NumberInput, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
 import { StatusBadge } from '../../../app/ui/status-badge';
@@ -339,12 +340,7 @@ function Editor({
           </div>
         ) : null}
         <header className="flex flex-col gap-2">
-          <nav aria-label="Breadcrumb" className="text-xs text-stone-600">
-            <Link to="/budgets" className="hover:text-accent-700 hover:underline">
-              Budgets
-            </Link>{' '}
-            / {isNew ? 'new budget' : `budget ${budgetId}`}
-          </nav>
+          <Breadcrumb trail={[{ label: 'Budgets', to: '/budgets' }, { label: isNew ? 'new budget' : `budget ${budgetId}` }]} />
           <div className="flex flex-wrap items-center gap-3">
             <label htmlFor="budget-title" className="sr-only">
               Title

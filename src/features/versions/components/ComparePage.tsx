@@ -1,7 +1,8 @@
 import { useQuery } from '@tanstack/react-query';
-import { Link, useNavigate } from 'react-router-dom';
+import { useNavigate } from 'react-router-dom';
 import type { BudgetDiff, Delta, FieldChange, KeyedDiff } from '../../../../shared/api/diff';
 import { errorMessage } from '../../../app/http';
+import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { formatDateTime, formatPercent, formatSignificant, fullPrecision, groupDigits } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
@@ -343,20 +344,14 @@ export function ComparePage({ budgetId, from, to }: { budgetId: number; from?: n
 
   return (
     <div className="mx-auto flex max-w-6xl flex-col gap-4 px-6 py-6">
-      <nav aria-label="Breadcrumb" className="text-xs text-stone-600">
-        <Link to="/budgets" className="hover:text-accent-700 hover:underline">
-          Budgets
-        </Link>{' '}
-        /{' '}
-        <Link to={`/budgets/${budgetId}`} className="hover:text-accent-700 hover:underline">
-          {budget.data?.title ?? `budget ${budgetId}`}
-        </Link>{' '}
-        /{' '}
-        <Link to={`/budgets/${budgetId}/versions`} className="hover:text-accent-700 hover:underline">
-          versions
-        </Link>{' '}
-        / compare
-      </nav>
+      <Breadcrumb
+        trail={[
+          { label: 'Budgets', to: '/budgets' },
+          { label: budget.data?.title ?? `budget ${budgetId}`, to: `/budgets/${budgetId}` },
+          { label: 'versions', to: `/budgets/${budgetId}/versions` },
+          { label: 'compare' },
+        ]}
+      />
       <h1 className="text-2xl font-semibold tracking-tight">Compare versions</h1>
       {versions.isPending ? (
         <Spinner label="Loading versions" />

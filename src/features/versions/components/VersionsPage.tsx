@@ -3,6 +3,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import type { VersionMeta } from '../../../../shared/api/budgets';
 import type { Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
+import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { StatusBadge } from '../../../app/ui/status-badge';
@@ -14,6 +15,19 @@ function CompareForm({ budgetId, versions }: { budgetId: number; versions: Versi
   const [from, setFrom] = useState(versions[0].number);
   const [to, setTo] = useState(versions[versions.length - 1].number);
   const same = from === to;
+  const pick = (label: string, value: number, onPick: (n: number) => void, error: string | null = null) => (
+    <Field label={label} className="w-40" error={error}>
+      {(p) => (
+        <Select {...p} value={value} onChange={(e) => onPick(Number(e.target.value))}>
+          {versions.map((v) => (
+            <option key={v.number} value={v.number}>
+              v{v.number}
+            </option>
+          ))}
+        </Select>
+      )}
+    </Field>
+  );
   return (
     <form
       aria-label="Compare two versions"
@@ -23,28 +37,8 @@ function CompareForm({ budgetId, versions }: { budgetId: number; versions: Versi
         if (!same) navigate(`/budgets/${budgetId}/compare?from=${from}&to=${to}`);
       }}
     >
-      <Field label="Compare version" className="w-40">
-        {(p) => (
-          <Select {...p} value={from} onChange={(e) => setFrom(Number(e.target.value))}>
-            {versions.map((v) => (
-              <option key={v.number} value={v.number}>
-                v{v.number}
-              </option>
-            ))}
-          </Select>
-        )}
-      </Field>
-      <Field label="with version" className="w-40" error={same ? 'Pick two different versions.' : null}>
-        {(p) => (
-          <Select {...p} value={to} onChange={(e) => setTo(Number(e.target.value))}>
-            {versions.map((v) => (
-              <option key={v.number} value={v.number}>
-                v{v.number}
-              </option>
-            ))}
-          </Select>
-        )}
-      </Field>
+      {pick('Compare version', from, setFrom)}
+      {pick('with version', to, setTo, same ? 'Pick two different versions.' : null)}
       <Button type="submit" variant="primary" disabled={same}>
         Compare
       </Button>
@@ -58,16 +52,13 @@ export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; bud
   const b = budget.data;
   return (
     <div className="mx-auto flex max-w-5xl flex-col gap-4 px-6 py-6">
-      <nav aria-label="Breadcrumb" className="text-xs text-stone-600">
-        <Link to="/budgets" className="hover:text-accent-700 hover:underline">
-          Budgets
-        </Link>{' '}
-        /{' '}
-        <Link to={`/budgets/${budgetId}`} className="hover:text-accent-700 hover:underline">
-          {b?.title ?? `budget ${budgetId}`}
-        </Link>{' '}
-        / versions
-      </nav>
+      <Breadcrumb
+        trail={[
+          { label: 'Budgets', to: '/budgets' },
+          { label: b?.title ?? `budget ${budgetId}`, to: `/budgets/${budgetId}` },
+          { label: 'versions' },
+        ]}
+      />
       <div className="flex flex-wrap items-center gap-3">
         <h1 className="text-2xl font-semibold tracking-tight">Version history</h1>
         {b ? <StatusBadge status={b.status} returned={b.returned} /> : null}
