@@ -185,6 +185,24 @@ export function Modal({ open, onClose, title, children, wide }: { open: boolean;
   );
 }
 
+/** A form's submit button: disabled, and saying what happens, while the request runs. */
+export function SubmitButton({ pending, pendingLabel, children, variant = 'primary', size }: { pending: boolean; pendingLabel: string; children: ReactNode; variant?: Variant; size?: 'sm' | 'md' }) {
+  return (
+    <Button type="submit" variant={variant} size={size} disabled={pending}>
+      {pending ? pendingLabel : children}
+    </Button>
+  );
+}
+
+/** Why a form's request failed, announced to screen readers. */
+export function FormError({ children }: { children: ReactNode }) {
+  return (
+    <p role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+      {children}
+    </p>
+  );
+}
+
 /** A modal holding one form: the caller's fields, then Cancel and the submit button. */
 export function FormDialog({
   open = true,
@@ -219,9 +237,9 @@ export function FormDialog({
         {children}
         <div className="flex justify-end gap-2">
           <Button onClick={onClose}>Cancel</Button>
-          <Button type="submit" variant={variant} disabled={pending}>
-            {pending ? pendingLabel : submitLabel}
-          </Button>
+          <SubmitButton variant={variant} pending={pending} pendingLabel={pendingLabel}>
+            {submitLabel}
+          </SubmitButton>
         </div>
       </form>
     </Modal>

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import type { UserAccount } from '../../../../shared/api/accounts';
 import { ROLES, type Role } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
-import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
+import { Button, EmptyState, ErrorNote, Field, Select, Spinner, SubmitButton, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { useToast } from '../../../app/ui/toasts';
 import { useInvite, useUpdateUser, useUsers } from '../api/admin';
@@ -67,9 +67,9 @@ function InviteForm() {
           )}
         </Field>
         <div className="flex items-end">
-          <Button type="submit" variant="primary" disabled={invite.isPending}>
-            {invite.isPending ? 'Sending…' : 'Send invitation'}
-          </Button>
+          <SubmitButton pending={invite.isPending} pendingLabel="Sending…">
+            Send invitation
+          </SubmitButton>
         </div>
       </div>
     </form>

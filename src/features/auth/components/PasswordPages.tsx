@@ -1,7 +1,7 @@
 import { useState, type FormEvent, type ReactNode } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { ApiError, errorMessage } from '../../../app/http';
-import { Button, ErrorNote, Field, Spinner, TextInput } from '../../../app/ui/controls';
+import { ErrorNote, Field, FormError, Spinner, SubmitButton, TextInput } from '../../../app/ui/controls';
 import { useCompleteToken, useRequestReset, useToken } from '../api/auth';
 
 const MIN_PASSWORD = 10;
@@ -103,13 +103,13 @@ export function SetPasswordPage({ mode }: { mode: 'invitation' | 'reset' }) {
           {(p) => <TextInput {...p} type="password" autoComplete="new-password" value={repeat} onChange={(e) => setRepeat(e.target.value)} />}
         </Field>
         {complete.error ? (
-          <p role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+          <FormError>
             {complete.error instanceof ApiError && complete.error.code === 'invalid_token' ? 'This link is no longer valid. Ask for a new one.' : errorMessage(complete.error)}
-          </p>
+          </FormError>
         ) : null}
-        <Button type="submit" variant="primary" disabled={complete.isPending}>
-          {complete.isPending ? 'Saving…' : 'Save password'}
-        </Button>
+        <SubmitButton pending={complete.isPending} pendingLabel="Saving…">
+          Save password
+        </SubmitButton>
       </form>
     </Frame>
   );
@@ -149,13 +149,13 @@ export function ForgotPasswordPage() {
           {(p) => <TextInput {...p} type="email" autoComplete="username" value={email} onChange={(e) => setEmail(e.target.value)} autoFocus />}
         </Field>
         {reset.error ? (
-          <p role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+          <FormError>
             {reset.error instanceof ApiError && reset.error.status === 429 ? 'Too many requests. Wait a few minutes and try again.' : errorMessage(reset.error)}
-          </p>
+          </FormError>
         ) : null}
-        <Button type="submit" variant="primary" disabled={reset.isPending}>
-          {reset.isPending ? 'Sending…' : 'Send reset link'}
-        </Button>
+        <SubmitButton pending={reset.isPending} pendingLabel="Sending…">
+          Send reset link
+        </SubmitButton>
         <Link to="/sign-in" className="text-sm text-accent-700 underline">
           Back to sign-in
         </Link>

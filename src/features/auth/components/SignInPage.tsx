@@ -1,7 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { ApiError } from '../../../app/http';
-import { Button, Field, TextInput } from '../../../app/ui/controls';
+import { Field, FormError, SubmitButton, TextInput } from '../../../app/ui/controls';
 import { useMe, useSignIn } from '../api/auth';
 
 const DEMO = ['metrologist', 'reviewer', 'auditor', 'trainee', 'admin'];
@@ -67,13 +67,11 @@ export function SignInPage() {
             {(p) => <TextInput {...p} type="password" autoComplete="current-password" value={password} onChange={(e) => setPassword(e.target.value)} />}
           </Field>
           {serverError ? (
-            <p role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
-              {serverError}
-            </p>
+            <FormError>{serverError}</FormError>
           ) : null}
-          <Button type="submit" variant="primary" disabled={signIn.isPending}>
-            {signIn.isPending ? 'Signing in…' : 'Sign in'}
-          </Button>
+          <SubmitButton pending={signIn.isPending} pendingLabel="Signing in…">
+            Sign in
+          </SubmitButton>
           <Link to="/forgot-password" className="self-start text-sm text-accent-700 underline-offset-2 hover:underline">
             Forgot password?
           </Link>

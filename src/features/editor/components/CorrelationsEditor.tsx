@@ -1,5 +1,5 @@
 import type { Correlation, InputQuantity } from '../../../../shared/budget/schema';
-import { Button, Field, NumberInput, Select } from '../../../app/ui/controls';
+import { Button, Field, FormError, NumberInput, Select } from '../../../app/ui/controls';
 import { plainMessage, problemsUnder, type Problem } from '../live';
 
 export function CorrelationsEditor({
@@ -76,10 +76,10 @@ export function CorrelationsEditor({
         </ul>
       )}
       {matrixProblem ? (
-        <p role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+        <FormError>
           <span className="font-semibold">Correlations: </span>
           {plainMessage(matrixProblem)}. Lower one of these coefficients, or check that they describe the same shared effect.
-        </p>
+        </FormError>
       ) : null}
       {!readOnly ? (
         <div>

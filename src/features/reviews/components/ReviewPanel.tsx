@@ -2,7 +2,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import type { Comment } from '../../../../shared/api/reviews';
 import { can, canResolveComment, type BudgetFacts, type Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
-import { Button, ErrorNote, Field, Spinner, TextArea } from '../../../app/ui/controls';
+import { Button, ErrorNote, Field, Spinner, SubmitButton, TextArea } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
 import { useToast } from '../../../app/ui/toasts';
@@ -291,9 +291,9 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
           </Field>
           <div className="flex items-center justify-between gap-2">
             <span className="text-[11px] text-stone-600">Pinned to version {ctx.currentVersion}. Ctrl+Enter sends.</span>
-            <Button type="submit" variant="primary" size="sm" disabled={add.isPending}>
-              {add.isPending ? 'Adding…' : replyTo ? 'Add reply' : 'Add comment'}
-            </Button>
+            <SubmitButton size="sm" pending={add.isPending} pendingLabel="Adding…">
+              {replyTo ? 'Add reply' : 'Add comment'}
+            </SubmitButton>
           </div>
         </form>
       ) : mayComment && !known ? (
