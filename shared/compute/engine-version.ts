@@ -2,4 +2,6 @@
 // 0.2.0: normal draws by the ziggurat, so a seed gives other Monte Carlo numbers than 0.1.0.
 // 0.2.1: ỹ and u(ỹ) gathered block by block (one shifted pass per block), the histogram from the interval search's bucket counts:
 // u can differ from 0.2.0 in the last digits, a value within rounding of a bin edge can change bins.
-export const ENGINE_VERSION = 'dubito-engine/0.2.1';
+// 0.3.0: rectangular, triangular, trapezoidal and arcsine inputs drawn from 32-bit uniforms (one generator output per uniform
+// instead of two), so a seed gives other Monte Carlo numbers than 0.2.1.
+export const ENGINE_VERSION = 'dubito-engine/0.3.0';

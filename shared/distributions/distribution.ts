@@ -12,11 +12,6 @@ export interface GumTreatment {
 export interface Sampler {
   /** Fills out[0..n) with n independent draws. */
   fill(rng: UniformGenerator, out: Float64Array, n: number): void;
-  /**
-   * Present when `fill` gives exactly rng.fill(out, n, lower, width) (a
-   * rectangular draw): the driver may then fill two such inputs in one loop.
-   */
-  affineUniform?: { lower: number; width: number };
 }
 
 /** One distribution kind of the budget file: its GUM treatment and its Monte Carlo sampler. */

@@ -3,7 +3,10 @@ import type { DistributionRule } from './distribution';
 
 /**
  * Rectangular input on [a₋, a₊]: x = (a₋ + a₊)/2, u = a/√3 with a = (a₊ − a₋)/2,
- * ν = ∞ (GUM 4.3.7). Draws ξ = a₋ + (a₊ − a₋)·r, r ~ R(0, 1) (JCGM 101:2008 6.4.2).
+ * ν = ∞ (GUM 4.3.7). Draws ξ = a₋ + (a₊ − a₋)·r, r ~ R(0, 1) (JCGM 101:2008 6.4.2),
+ * r = (w + ½)·2⁻³² from one 32-bit word (UniformGenerator.fill32: resolution
+ * 2⁻³² of the width, far finer than any limits are known; C.3 asks for
+ * statistical quality, not 53 bits).
  */
 export const rectangularRule: DistributionRule<'rectangular'> = {
   kind: 'rectangular',
@@ -16,9 +19,8 @@ export const rectangularRule: DistributionRule<'rectangular'> = {
     const width = upper - lower;
     return {
       fill(rng, out, n) {
-        rng.fill(out, n, lower, width);
+        rng.fill32(out, n, lower, width);
       },
-      affineUniform: { lower, width },
     };
   },
 };

@@ -6,6 +6,9 @@ import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratc
  * x = value, u = a·√((1 + β²)/6), ν = ∞ (JCGM 101:2008 6.4.4; GUM 4.3.9 note 2).
  * Draws ξ = a₋ + (a₊ − a₋)/2·[(1 + β)r₁ + (1 − β)r₂] (JCGM 101:2008 6.4.4),
  * here with (a₊ − a₋)/2 = a.
+ * The uniforms are 32-bit, r = (w + ½)·2⁻³² ∈ (0, 1) (UniformGenerator.fill32):
+ * a 2⁻³² grid lies far below the resolution of any half-width, and
+ * JCGM 101:2008 C.3 asks for statistical quality, not 53-bit resolution.
  */
 export const trapezoidalRule: DistributionRule<'trapezoidal'> = {
   kind: 'trapezoidal',
@@ -19,11 +22,11 @@ export const trapezoidalRule: DistributionRule<'trapezoidal'> = {
     const narrow = spec.halfWidth * (1 - spec.beta);
     return {
       fill(rng, out, n) {
-        rng.fill(out, n);
+        rng.fill32(out, n);
         const r2 = uniformScratch();
         for (let start = 0; start < n; start += UNIFORM_SCRATCH_LENGTH) {
           const m = Math.min(UNIFORM_SCRATCH_LENGTH, n - start);
-          rng.fill(r2, m);
+          rng.fill32(r2, m);
           for (let j = 0; j < m; j++) out[start + j] = lower + wide * out[start + j] + narrow * r2[j];
         }
       },

@@ -5,6 +5,9 @@ import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratc
  * Symmetric triangular input on [x − a, x + a]: x = value, u = a/√6, ν = ∞
  * (GUM 4.3.9). Draws ξ = (x − a) + a·(r₁ + r₂), the sum of two uniforms
  * (JCGM 101:2008 6.4.5: ξ = a₋ + (a₊ − a₋)/2·(r₁ + r₂)).
+ * The uniforms are 32-bit, r = (w + ½)·2⁻³² ∈ (0, 1) (UniformGenerator.fill32):
+ * a 2⁻³² grid lies far below the resolution of any half-width, and
+ * JCGM 101:2008 C.3 asks for statistical quality, not 53-bit resolution.
  */
 export const triangularRule: DistributionRule<'triangular'> = {
   kind: 'triangular',
@@ -16,11 +19,11 @@ export const triangularRule: DistributionRule<'triangular'> = {
     const a = spec.halfWidth;
     return {
       fill(rng, out, n) {
-        rng.fill(out, n);
+        rng.fill32(out, n);
         const r2 = uniformScratch();
         for (let start = 0; start < n; start += UNIFORM_SCRATCH_LENGTH) {
           const m = Math.min(UNIFORM_SCRATCH_LENGTH, n - start);
-          rng.fill(r2, m);
+          rng.fill32(r2, m);
           for (let j = 0; j < m; j++) out[start + j] = lower + a * (out[start + j] + r2[j]);
         }
       },

@@ -1,6 +1,6 @@
 import type { HistogramBins } from '../budget/result';
 import type { Sampler } from '../distributions/distribution';
-import { UniformGenerator, fillUniformPair } from '../random/uniform-generator';
+import { UniformGenerator } from '../random/uniform-generator';
 import { correlatedNormalSampler, type CorrelatedSampler } from './correlated-normal';
 import { coverageIntervals, probabilisticallySymmetricInterval } from './coverage-interval';
 import { DEFAULT_BIN_COUNT, histogramBins, histogramFromBuckets } from './histogram';
@@ -126,9 +126,8 @@ class TrialGenerator {
   private readonly correlatedSampler: CorrelatedSampler | null = null;
   private readonly correlatedStream: UniformGenerator | null = null;
   private readonly correlatedColumns: Float64Array[] = [];
-  /** Inputs drawn one by one, and pairs of rectangular inputs drawn together (same numbers, one loop). */
+  /** The inputs with their own sampler (the others are drawn by the correlated group). */
   private readonly singles: number[] = [];
-  private readonly pairs: [number, number][] = [];
   readonly blockSize: number;
   done = 0;
 
@@ -155,17 +154,9 @@ class TrialGenerator {
       this.correlatedStream = root.substream('correlated');
       this.correlatedColumns = group.indices.map((i) => this.columns[i]);
     }
-    let waiting = -1;
     plan.samplers.forEach((s, i) => {
-      if (s === null) return;
-      if (!s.affineUniform) this.singles.push(i);
-      else if (waiting < 0) waiting = i;
-      else {
-        this.pairs.push([waiting, i]);
-        waiting = -1;
-      }
+      if (s !== null) this.singles.push(i);
     });
-    if (waiting >= 0) this.singles.push(waiting);
     const covered = new Set(group?.indices ?? []);
     plan.samplers.forEach((s, i) => {
       if (s === null && !covered.has(i)) throw new RangeError(`input ${i} has neither a sampler nor a place in the correlated group`);
@@ -184,11 +175,6 @@ class TrialGenerator {
       let since = timer ? timer.now() : 0;
       // Each input has its own stream, so the order of the inputs does not change the numbers.
       for (const i of this.singles) plan.samplers[i]!.fill(streams[i]!, columns[i], n);
-      for (const [i, j] of this.pairs) {
-        const a = plan.samplers[i]!.affineUniform!;
-        const b = plan.samplers[j]!.affineUniform!;
-        fillUniformPair(streams[i]!, columns[i], a.lower, a.width, streams[j]!, columns[j], b.lower, b.width, n);
-      }
       if (this.correlatedSampler) this.correlatedSampler.fill(this.correlatedStream!, this.correlatedColumns, n);
       if (timer) since = addElapsed(timer, 'sample', since);
       const at = offset + start;

@@ -2,6 +2,9 @@ import seedrandom from 'seedrandom';
 
 const TWO_POW_32 = 4294967296;
 const TWO_POW_MINUS_53 = 1 / 9007199254740992;
+const TWO_POW_MINUS_32 = 1 / 4294967296;
+/** ½ + 2⁻³³: (w + ½)·2⁻³² = w_s·2⁻³² + ½ + 2⁻³³ for w_s = w − 2³¹. */
+const MIDPOINT_OFFSET = 0.5 + 1 / 8589934592;
 
 /**
  * Seeded pseudo-random generator of uniform numbers in the OPEN interval (0, 1)
@@ -15,6 +18,7 @@ const TWO_POW_MINUS_53 = 1 / 9007199254740992;
  *
  * Each uniform uses two 32-bit outputs: r = k·2⁻⁵³ with k a 53-bit integer;
  * k = 0 is drawn again, so r ∈ [2⁻⁵³, 1 − 2⁻⁵³] and log(r) is always finite.
+ * `fill32` gives coarser uniforms from one output each, for rectangular-based inputs.
  */
 export class UniformGenerator {
   /** The seed text this stream was derived from. */
@@ -82,6 +86,44 @@ export class UniformGenerator {
   }
 
   /**
+   * Fills out[0..n) with lower + width·u from 32-bit uniforms
+   * u = (w + ½)·2⁻³², w one unsigned 32-bit output of xoshiro128**, so
+   * u ∈ [2⁻³³, 1 − 2⁻³³], the open interval (0, 1), and E u = ½,
+   * Var u = (1 − 2⁻⁶⁴)/12 (the midpoints of 2³² equal cells). For the
+   * rectangular-based draws of JCGM 101:2008 6.4.2–6.4.6: C.3 asks for a
+   * generator of good statistical quality, not for 53-bit resolution, and a
+   * 2⁻³² grid (≈ 2.3·10⁻¹⁰ of the width) lies far below the resolution with
+   * which any rectangular input's limits are known. One output per number
+   * instead of the two of `fill`: the stream advances by n outputs.
+   * Computed from the signed word w_s = w ⊕ 2³¹ = w − 2³¹ (converts to a
+   * double in one instruction) as w_s·2⁻³² + (½ + 2⁻³³), which is exact
+   * (33 significant bits).
+   */
+  fill32(out: Float64Array, n: number = out.length, lower = 0, width = 1): void {
+    const state = this.state;
+    let s0 = state[0];
+    let s1 = state[1];
+    let s2 = state[2];
+    let s3 = state[3];
+    for (let i = 0; i < n; i++) {
+      const t = s1 << 9;
+      let w = Math.imul(s1, 5);
+      w = Math.imul((w << 7) | (w >>> 25), 9);
+      s2 ^= s0;
+      s3 ^= s1;
+      s1 ^= s2;
+      s0 ^= s3;
+      s2 ^= t;
+      s3 = (s3 << 11) | (s3 >>> 21);
+      out[i] = lower + width * ((w ^ -2147483648) * TWO_POW_MINUS_32 + MIDPOINT_OFFSET);
+    }
+    state[0] = s0;
+    state[1] = s1;
+    state[2] = s2;
+    state[3] = s3;
+  }
+
+  /**
    * Fills out[0..n) (n defaults to out.length) with uniforms r in (0, 1), or
    * with lower + width·r when those are given (0 + 1·r is exactly r), which
    * saves a rectangular sampler a second pass over the block.
@@ -127,109 +169,6 @@ export class UniformGenerator {
     state[2] = s2;
     state[3] = s3;
   }
-}
-
-/**
- * Fills outA[0..n) with lowerA + widthA·r from stream a and outB[0..n) with
- * lowerB + widthB·r from stream b (JCGM 101:2008 6.4.2, r ∈ (0, 1) as in
- * `fill`): the same numbers as a.fill(outA, n, lowerA, widthA) and
- * b.fill(outB, n, lowerB, widthB), in one loop where the two generators' steps
- * overlap (each alone waits on its own chain of state updates).
- */
-export function fillUniformPair(
-  a: UniformGenerator,
-  outA: Float64Array,
-  lowerA: number,
-  widthA: number,
-  b: UniformGenerator,
-  outB: Float64Array,
-  lowerB: number,
-  widthB: number,
-  n: number,
-): void {
-  const stateA = a.state;
-  const stateB = b.state;
-  let s0 = stateA[0];
-  let s1 = stateA[1];
-  let s2 = stateA[2];
-  let s3 = stateA[3];
-  let p0 = stateB[0];
-  let p1 = stateB[1];
-  let p2 = stateB[2];
-  let p3 = stateB[3];
-  for (let i = 0; i < n; i++) {
-    // Two outputs of each xoshiro128** stream, as in `fill`, the streams interleaved.
-    let t = s1 << 9;
-    let hiA = Math.imul(s1, 5);
-    hiA = Math.imul((hiA << 7) | (hiA >>> 25), 9);
-    s2 ^= s0;
-    s3 ^= s1;
-    s1 ^= s2;
-    s0 ^= s3;
-    s2 ^= t;
-    s3 = (s3 << 11) | (s3 >>> 21);
-    let v = p1 << 9;
-    let hiB = Math.imul(p1, 5);
-    hiB = Math.imul((hiB << 7) | (hiB >>> 25), 9);
-    p2 ^= p0;
-    p3 ^= p1;
-    p1 ^= p2;
-    p0 ^= p3;
-    p2 ^= v;
-    p3 = (p3 << 11) | (p3 >>> 21);
-    t = s1 << 9;
-    let loA = Math.imul(s1, 5);
-    loA = Math.imul((loA << 7) | (loA >>> 25), 9);
-    s2 ^= s0;
-    s3 ^= s1;
-    s1 ^= s2;
-    s0 ^= s3;
-    s2 ^= t;
-    s3 = (s3 << 11) | (s3 >>> 21);
-    v = p1 << 9;
-    let loB = Math.imul(p1, 5);
-    loB = Math.imul((loB << 7) | (loB >>> 25), 9);
-    p2 ^= p0;
-    p3 ^= p1;
-    p1 ^= p2;
-    p0 ^= p3;
-    p2 ^= v;
-    p3 = (p3 << 11) | (p3 >>> 21);
-    const kA = unsigned53(hiA, loA);
-    const kB = unsigned53(hiB, loB);
-    if (kA === 0 || kB === 0) {
-      // k = 0 (probability 2⁻⁵³): that stream draws again for the same i, exactly as `fill` would.
-      stateA[0] = s0;
-      stateA[1] = s1;
-      stateA[2] = s2;
-      stateA[3] = s3;
-      stateB[0] = p0;
-      stateB[1] = p1;
-      stateB[2] = p2;
-      stateB[3] = p3;
-      outA[i] = kA === 0 ? lowerA + widthA * a.next() : lowerA + widthA * (kA * TWO_POW_MINUS_53);
-      outB[i] = kB === 0 ? lowerB + widthB * b.next() : lowerB + widthB * (kB * TWO_POW_MINUS_53);
-      s0 = stateA[0];
-      s1 = stateA[1];
-      s2 = stateA[2];
-      s3 = stateA[3];
-      p0 = stateB[0];
-      p1 = stateB[1];
-      p2 = stateB[2];
-      p3 = stateB[3];
-      continue;
-    }
-    outA[i] = lowerA + widthA * (kA * TWO_POW_MINUS_53);
-    outB[i] = lowerB + widthB * (kB * TWO_POW_MINUS_53);
-  }
-  stateA[0] = s0;
-  stateA[1] = s1;
-  stateA[2] = s2;
-  stateA[3] = s3;
-  stateB[0] = p0;
-  stateB[1] = p1;
-  stateB[2] = p2;
-  stateB[3] = p3;
 }
 
 const SIGN = -2147483648;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import jstatPkg from 'jstat';
-import { UniformGenerator, fillUniformPair, unsigned53 } from '../../shared/random/uniform-generator';
+import { UniformGenerator, unsigned53 } from '../../shared/random/uniform-generator';
 import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
 import { fillStudentT } from '../../shared/random/student-t-draws';
 import { sampleMoments } from './moments';
@@ -76,21 +76,52 @@ describe('UniformGenerator', () => {
     expect(unsigned53(-1, -1)).toBe(2 ** 53 - 1);
   });
 
-  it('fills two rectangular columns in one loop with the numbers of two separate fills', () => {
-    // JCGM 101:2008 6.4.2: ξ = a + (b − a)·r; pairing the streams must not change any draw.
+  it('fill32 draws 32-bit midpoints (w + ½)·2⁻³² in the open interval (0, 1), one generator output each', () => {
+    // u = (w + ½)·2⁻³² for the unsigned output w: exact, on the grid of cell midpoints.
     const n = 10_001;
-    const [a1, b1, a2, b2] = [0, 0, 0, 0].map(() => new Float64Array(n));
-    new UniformGenerator('pa').fill(a1, n, 1.1, 0.2);
-    new UniformGenerator('pb').fill(b1, n, 7000, 2000);
-    const ga = new UniformGenerator('pa');
-    const gb = new UniformGenerator('pb');
-    fillUniformPair(ga, a2, 1.1, 0.2, gb, b2, 7000, 2000, n);
-    expect(Array.from(a2)).toEqual(Array.from(a1));
-    expect(Array.from(b2)).toEqual(Array.from(b1));
-    // The streams continue where separate fills would have left them.
-    const next = new UniformGenerator('pa');
-    next.fill(new Float64Array(n));
-    expect(ga.next()).toBe(next.next());
+    const u = new Float64Array(n);
+    const g = new UniformGenerator('u32');
+    g.fill32(u, n);
+    const raw = new Int32Array(n);
+    const ref = new UniformGenerator('u32');
+    ref.fillRaw(raw, n);
+    for (let i = 0; i < n; i++) expect(u[i]).toBe(((raw[i] >>> 0) + 0.5) / 2 ** 32);
+    // The stream advanced by exactly n outputs.
+    ref.fillRaw(raw, 2);
+    const after = new Int32Array(2);
+    g.fillRaw(after, 2);
+    expect(Array.from(after)).toEqual(Array.from(raw.subarray(0, 2)));
+    // The extreme words give the extreme midpoints, still inside (0, 1).
+    expect((0 + 0.5) / 2 ** 32).toBe(2 ** -33);
+    expect((2 ** 32 - 1 + 0.5) / 2 ** 32).toBeLessThan(1);
+  });
+
+  it('fill32 draws with mean 1/2 and variance 1/12 in (0, 1), and lower + width·u for a rectangular input (JCGM 101:2008 6.4.2, C.3)', () => {
+    // R(0, 1): expectation 1/2, variance 1/12 (JCGM 101:2008 C.3); the midpoint grid differs by 2⁻⁶⁴/12.
+    const x = new Float64Array(N);
+    new UniformGenerator('u32-moments').fill32(x);
+    let min = 1;
+    let max = 0;
+    for (let i = 0; i < N; i++) {
+      if (x[i] < min) min = x[i];
+      if (x[i] > max) max = x[i];
+    }
+    expect(min).toBeGreaterThan(0);
+    expect(max).toBeLessThan(1);
+    const m = sampleMoments(x);
+    expect(Math.abs(m.mean - 0.5)).toBeLessThan(5 * m.meanError);
+    expect(Math.abs(m.variance - 1 / 12)).toBeLessThan(5 * m.varianceError);
+    const y = new Float64Array(1000);
+    new UniformGenerator('u32-moments').fill32(y, 1000, 7000, 2000);
+    for (let i = 0; i < 1000; i++) expect(y[i]).toBe(7000 + 2000 * x[i]);
+  });
+
+  it('fill32 has no visible lag-1 correlation (common practice)', () => {
+    const x = new Float64Array(N);
+    new UniformGenerator('lag32').fill32(x);
+    let s = 0;
+    for (let i = 1; i < N; i++) s += (x[i] - 0.5) * (x[i - 1] - 0.5);
+    expect(Math.abs(s / (N - 1) / (1 / 12))).toBeLessThan(5 / Math.sqrt(N));
   });
 
   it('derives sub-streams that differ from the parent and from each other, reproducibly', () => {
