@@ -9,7 +9,8 @@
 import { spawnSync } from 'node:child_process';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { validateBudget } from '../shared/budget/budget-file';
+import { readFileSync } from 'node:fs';
+import { parseBudgetFile, validateBudget } from '../shared/budget/budget-file';
 import type { BudgetDocument } from '../shared/budget/schema';
 import { computeBudget } from '../shared/compute/compute-budget';
 import { compileModel } from '../shared/model/compile-model';
@@ -19,25 +20,11 @@ const here = dirname(fileURLToPath(import.meta.url));
 const RUNS = 7;
 const WARM_UPS = 3;
 
-/** JCGM 101:2008 9.3: calibration of a 100 g weight (same budget as the reference test). */
-const mass = validateBudget({
-  format: 'dubito-budget/1',
-  title: 'Mass calibration, JCGM 101:2008 9.3',
-  measurand: { symbol: 'dm', unit: 'mg' },
-  model: 'dm = (mRc + dmRc) * (1 + (rho_a - rho_a0) * (1/rho_W - 1/rho_R)) - m_nom',
-  constants: [
-    { symbol: 'rho_a0', value: 1.2, unit: 'kg/m^3' },
-    { symbol: 'm_nom', value: 100000, unit: 'mg' },
-  ],
-  inputs: [
-    { symbol: 'mRc', unit: 'mg', distribution: { kind: 'normal', value: 100000, u: 0.05 } },
-    { symbol: 'dmRc', unit: 'mg', distribution: { kind: 'normal', value: 1.234, u: 0.02 } },
-    { symbol: 'rho_a', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 1.1, upper: 1.3 } },
-    { symbol: 'rho_W', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 7000, upper: 9000 } },
-    { symbol: 'rho_R', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 7950, upper: 8050 } },
-  ],
-  monteCarlo: { trials: 1000000, seed: 'bench-9.3' },
-});
+/** JCGM 101:2008 9.3: calibration of a 100 g weight (the budget of the reference test). */
+const mass = (() => {
+  const doc = parseBudgetFile(readFileSync(join(here, '..', 'tests', 'reference-budgets', 'jcgm101-9.3-mass-calibration.json'), 'utf8'));
+  return { ...doc, monteCarlo: { trials: 1_000_000, seed: 'bench-9.3' } };
+})();
 
 const median = (xs: number[]) => {
   const s = [...xs].sort((a, b) => a - b);

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { computeBudget } from '../../shared/compute/compute-budget';
-import { validateBudget } from '../../shared/budget/budget-file';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { parseBudgetFile } from '../../shared/budget/budget-file';
 
 /*
  * JCGM 101:2008 9.3, calibration of a 100 g weight against a reference.
@@ -9,24 +11,10 @@ import { validateBudget } from '../../shared/budget/budget-file';
  * MCM (10⁶ trials) u = 0.0754 mg, probabilistically symmetric 95 % interval
  * [1.0844, 1.3835] mg; the GUF is not validated at n_dig = 2.
  */
-export const massCalibration = validateBudget({
-  format: 'dubito-budget/1',
-  title: 'Mass calibration, JCGM 101:2008 9.3',
-  measurand: { symbol: 'dm', unit: 'mg' },
-  model: 'dm = (mRc + dmRc) * (1 + (rho_a - rho_a0) * (1/rho_W - 1/rho_R)) - m_nom',
-  constants: [
-    { symbol: 'rho_a0', value: 1.2, unit: 'kg/m^3' },
-    { symbol: 'm_nom', value: 100000, unit: 'mg' },
-  ],
-  inputs: [
-    { symbol: 'mRc', unit: 'mg', distribution: { kind: 'normal', value: 100000, u: 0.05 } },
-    { symbol: 'dmRc', unit: 'mg', distribution: { kind: 'normal', value: 1.234, u: 0.02 } },
-    { symbol: 'rho_a', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 1.1, upper: 1.3 } },
-    { symbol: 'rho_W', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 7000, upper: 9000 } },
-    { symbol: 'rho_R', unit: 'kg/m^3', distribution: { kind: 'rectangular', lower: 7950, upper: 8050 } },
-  ],
-  monteCarlo: { trials: 1000000, seed: 'mass-9.3' },
-});
+// The budget of the example, shared with the benchmark.
+const massCalibration = parseBudgetFile(
+  readFileSync(join(__dirname, '..', 'reference-budgets', 'jcgm101-9.3-mass-calibration.json'), 'utf8'),
+);
 
 describe('JCGM 101:2008 9.3 mass calibration', () => {
   const result = computeBudget(massCalibration);
