@@ -8,7 +8,7 @@ import { openBrowser, signIn } from './support/browser';
 import { containsText, countIs, hasTexts, shows } from './support/page-expect';
 
 /*
- * The five journeys of the workbench, in Debian's Chromium against the built
+ * The five user journeys of Dubito, in Debian's Chromium against the built
  * client and the real server on a fresh database with the demo lab.
  * Screenshots of the main screens go to tests/.artifacts/screenshots.
  */
