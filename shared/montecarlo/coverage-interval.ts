@@ -1,5 +1,6 @@
 import { sortFloat64 } from './sort-float64';
 import { bucketCountFor, countInBuckets, type ValueBuckets } from './value-buckets';
+import { valueRange } from './value-range';
 
 /*
  * Coverage intervals from M model values (JCGM 101:2008 7.7). Only the order
@@ -109,16 +110,7 @@ function orderStatistic(t: Tails, k: number): number {
 function tailsByBuckets(values: Float64Array, tail: number, range?: { min: number; max: number }, buckets?: ValueBuckets | null): Tails | null {
   const M = values.length;
   if (!buckets) {
-    let min = Infinity;
-    let max = -Infinity;
-    if (range) ({ min, max } = range);
-    else {
-      for (let r = 0; r < M; r++) {
-        const y = values[r];
-        if (y < min) min = y;
-        if (y > max) max = y;
-      }
-    }
+    const { min, max } = range ?? valueRange(values);
     buckets = countInBuckets(values, bucketCountFor(1), min, max);
     if (!buckets) return null;
   }

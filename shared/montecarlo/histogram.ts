@@ -1,5 +1,6 @@
 import type { HistogramBins } from '../budget/result';
 import type { ValueBuckets } from './value-buckets';
+import { valueRange } from './value-range';
 
 /** Default number of bins for the Monte Carlo histogram (common practice for 10⁵–10⁷ values). */
 export const DEFAULT_BIN_COUNT = 100;
@@ -19,16 +20,7 @@ export function histogramBins(
   if (!(Number.isInteger(binCount) && binCount >= 1)) throw new RangeError(`bin count must be a whole number ≥ 1 (got ${binCount})`);
   const M = values.length;
   if (M === 0) return { start: 0, width: 0, counts: [] };
-  let min = Infinity;
-  let max = -Infinity;
-  if (range) ({ min, max } = range);
-  else {
-    for (let r = 0; r < M; r++) {
-      const y = values[r];
-      if (y < min) min = y;
-      if (y > max) max = y;
-    }
-  }
+  const { min, max } = range ?? valueRange(values);
   if (!(max > min)) return { start: min, width: 0, counts: [M] };
   const width = (max - min) / binCount;
   const perUnit = binCount / (max - min);

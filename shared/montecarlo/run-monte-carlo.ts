@@ -1,4 +1,4 @@
-import type { HistogramBins } from '../budget/result';
+import type { MonteCarloResult } from '../budget/result';
 import type { Sampler } from '../distributions/distribution';
 import { UniformGenerator } from '../random/uniform-generator';
 import { correlatedNormalSampler, type CorrelatedSampler } from './correlated-normal';
@@ -70,17 +70,9 @@ export interface AdaptiveReport {
   stabilized: boolean;
 }
 
-export interface MonteCarloRun {
-  trials: number;
-  seed: string;
-  estimate: number;
-  standardUncertainty: number;
-  /** Probabilistically symmetric coverage interval (JCGM 101:2008 7.7.2). */
-  interval: [number, number];
-  /** Shortest coverage interval (JCGM 101:2008 7.7.3). */
-  shortestInterval: [number, number];
-  histogram: HistogramBins;
-  /** The M model values, reordered (partially sorted) by the interval search. */
+/** A finished run: the reported figures (JCGM 101:2008 7.6–7.7) plus the model values themselves. */
+export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive'> {
+  /** The M model values; the interval search may reorder them. */
   values: Float64Array;
   /** Present for the adaptive procedure only. */
   adaptive?: AdaptiveReport;
