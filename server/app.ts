@@ -56,7 +56,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
   const connection = openDatabase(config.dbFile);
   const { db } = connection;
   const secret = config.sessionSecret ?? putSettingIfAbsent(db, 'session_secret', randomBytes(32).toString('hex'));
-  const store = new DrizzleSessionStore(db);
+  const store = new DrizzleSessionStore(db, connection.dataVersion);
   const mail = await MailService.create(db, { smtpUrl: config.smtpUrl, from: config.mailFrom, log: config.log });
   const pool = new ComputePool({
     size: config.computeWorkers,
@@ -71,6 +71,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     mail,
     publicUrl: config.publicUrl,
     endSessionsOf: (id) => store.destroyForUser(id),
+    dataVersion: connection.dataVersion,
     invitationHours: config.invitationHours,
     resetHours: config.resetHours,
   });
@@ -88,6 +89,8 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
 
   const app = express();
   app.disable('x-powered-by');
+  // API answers are `no-store`; hashing every body for an entity tag would be wasted (static files keep theirs).
+  app.set('etag', false);
   app.set('trust proxy', config.trustProxy);
   app.use((_req, res, next) => {
     res.setHeader('X-Content-Type-Options', 'nosniff');
@@ -109,7 +112,8 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
       cookie: { httpOnly: true, sameSite: 'strict', secure: config.cookieSecure, maxAge: config.sessionMaxAgeMs, path: '/' },
     }),
   );
-  api.use(passport.initialize());
+  // No passport.initialize(): since passport 0.5.1 authenticate() (here the session strategy) gives the request
+  // login/logout itself, and initialize's compatibility fields would only cost time on every request.
   api.use(passport.session());
   api.use(sameOriginOnly(config.allowedOrigins));
   api.use((_req, res, next) => {

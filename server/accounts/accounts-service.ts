@@ -2,6 +2,7 @@ import type { InvitationResponse, TokenInfo, UserAccount } from '../../shared/ap
 import type { Role } from '../../shared/policy/policy';
 import { recordAudit } from '../audit/audit-repository';
 import { inTransaction, type Db } from '../db/connection';
+import { RowCache } from '../db/row-cache';
 import { ConflictError, NotFoundError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import type { MailService } from '../mail/mail-service';
@@ -44,12 +45,19 @@ export interface AccountsDeps {
   mail: MailService;
   publicUrl: string;
   endSessionsOf(userId: number): void;
+  /** See Connection.dataVersion: lets the session-user cache notice changes made elsewhere. */
+  dataVersion(): number;
   invitationHours: number;
   resetHours: number;
 }
 
 export class AccountsService {
-  constructor(private readonly d: AccountsDeps) {}
+  /** The user behind each session id, read on every request; emptied whenever this service writes a user. */
+  private readonly sessionUsers: RowCache<number, SessionUser | null>;
+
+  constructor(private readonly d: AccountsDeps) {
+    this.sessionUsers = new RowCache(d.dataVersion);
+  }
 
   /** The same answer (null) for an unknown address, a wrong password, an inactive account. */
   async authenticate(email: string, password: string): Promise<SessionUser | null> {
@@ -71,8 +79,12 @@ export class AccountsService {
 
   /** The user behind a session, or null when gone or deactivated. */
   sessionUser(id: number): SessionUser | null {
-    const u = findUserById(this.d.db, id);
-    return u && u.active ? toSessionUser(u) : null;
+    return (
+      this.sessionUsers.get(id, () => {
+        const u = findUserById(this.d.db, id);
+        return u && u.active ? Object.freeze(toSessionUser(u)) : null;
+      }) ?? null
+    );
   }
 
   /** Re-entered password as an electronic signature. */
@@ -101,6 +113,7 @@ export class AccountsService {
       if (findUserByEmail(tx, input.email)) throw new ConflictError('a user with this e-mail address exists', 'email_taken');
       const u = insertUser(tx, { email: input.email, name: input.name, role: input.role, passwordHash: hash });
       recordAudit(tx, { actorId: actor?.id ?? null, action: 'user.created', detail: { userId: u.id, email: u.email, role: u.role } });
+      this.sessionUsers.delete(u.id);
       return toPublic(u);
     });
   }
@@ -121,6 +134,7 @@ export class AccountsService {
       recordAudit(tx, { actorId: actor.id, action: 'user.updated', detail: { userId: id, changes } });
       return after;
     });
+    this.sessionUsers.delete(id);
     if (patch.active === false || patch.role !== undefined) this.d.endSessionsOf(id);
     return toPublic(updated);
   }
@@ -133,6 +147,7 @@ export class AccountsService {
       let u = findUserByEmail(tx, input.email);
       if (u?.passwordHash) throw new ConflictError('this person already has an account', 'email_taken');
       if (!u) u = insertUser(tx, { email: input.email, name: input.name, role: input.role, passwordHash: null });
+      this.sessionUsers.delete(u.id);
       retireTokens(tx, u.id);
       insertToken(tx, { kind: 'invitation', userId: u.id, tokenHash: hash, expiresAt });
       recordAudit(tx, { actorId: actor.id, action: 'user.invited', detail: { userId: u.id, email: u.email, role: u.role } });
@@ -191,6 +206,7 @@ export class AccountsService {
       recordAudit(tx, { actorId: u.id, action: 'user.password_set', detail: { via: t.kind } });
       return after;
     });
+    this.sessionUsers.delete(user.id);
     this.d.endSessionsOf(user.id);
     return toSessionUser(user);
   }

@@ -93,6 +93,30 @@ export function getVersion(db: DbLike, budgetId: number, number: number): Versio
 }
 
 const approvers = alias(users, 'approvers');
+const owners = alias(users, 'owners');
+
+export interface CurrentVersionRow {
+  budget: BudgetRow;
+  version: VersionRow;
+  ownerName: string | null;
+  authorName: string | null;
+  approverName: string | null;
+}
+
+/** A budget with its current version and the names it is shown with, in one query (the hot read path). */
+export function getCurrentVersion(db: DbLike, id: number): CurrentVersionRow | undefined {
+  return prepared(db, 'budget.current', () =>
+    db
+      .select({ budget: budgets, version: budgetVersions, ownerName: owners.name, authorName: users.name, approverName: approvers.name })
+      .from(budgets)
+      .innerJoin(budgetVersions, and(eq(budgetVersions.budgetId, budgets.id), eq(budgetVersions.number, budgets.currentVersion)))
+      .leftJoin(owners, eq(owners.id, budgets.ownerId))
+      .leftJoin(users, eq(users.id, budgetVersions.authorId))
+      .leftJoin(approvers, eq(approvers.id, budgetVersions.approvedBy))
+      .where(eq(budgets.id, sql.placeholder('id')))
+      .prepare(),
+  ).get({ id });
+}
 
 /** Version metadata without the document and result text, with the names of author and approver. */
 export function listVersions(db: DbLike, budgetId: number): VersionMeta[] {

@@ -14,6 +14,7 @@ import { diffBudgets } from './budget-diff';
 import {
   countBudgets,
   getBudget,
+  getCurrentVersion,
   getVersion,
   insertBudget,
   insertVersion,
@@ -51,17 +52,21 @@ function summary(b: BudgetRow): BudgetSummary {
 const nameOr = (name: string | null, id: number) => name ?? `user ${id}`;
 
 function meta(db: Db, v: VersionRow): VersionMeta {
+  return metaNamed(v, userName(db, v.authorId), v.approvedBy === null ? null : userName(db, v.approvedBy));
+}
+
+function metaNamed(v: VersionRow, authorName: string | null, approverName: string | null): VersionMeta {
   return {
     number: v.number,
     authorId: v.authorId,
-    authorName: nameOr(userName(db, v.authorId), v.authorId),
+    authorName: nameOr(authorName, v.authorId),
     createdAt: v.createdAt,
     note: v.note,
     seed: v.seed,
     engineVersion: v.engineVersion,
     documentSha256: v.documentSha256,
     approvedBy: v.approvedBy,
-    approverName: v.approvedBy === null ? null : nameOr(userName(db, v.approvedBy), v.approvedBy),
+    approverName: v.approvedBy === null ? null : nameOr(approverName, v.approvedBy),
     approvedAt: v.approvedAt,
   };
 }
@@ -148,10 +153,16 @@ export class BudgetsService {
    * spliced in as they are, without parsing them (the hot read path).
    */
   getJson(id: number): string {
-    const b = this.requireBudget(id);
-    const v = this.requireVersion(id, b.currentVersion);
-    const head = JSON.stringify(this.head(b, v));
-    return `${head.slice(0, -1)},"document":${v.document},"result":${v.result}}`;
+    const row = getCurrentVersion(this.db, id);
+    if (!row) throw new NotFoundError('no such budget');
+    const { budget: b, version: v } = row;
+    const head: Omit<BudgetView, 'document' | 'result'> = {
+      ...summary(b),
+      ownerName: nameOr(row.ownerName, b.ownerId),
+      version: metaNamed(v, row.authorName, row.approverName),
+    };
+    const text = JSON.stringify(head);
+    return `${text.slice(0, -1)},"document":${v.document},"result":${v.result}}`;
   }
 
   private view(b: BudgetRow, v: VersionRow): BudgetView {

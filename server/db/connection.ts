@@ -16,6 +16,8 @@ export type DbLike = BaseSQLiteDatabase<'sync', RunResult, Schema>;
 export interface Connection {
   db: Db;
   sqlite: Database.Database;
+  /** SQLite's `PRAGMA data_version`: changes when another connection commits. */
+  dataVersion(): number;
   close(): void;
 }
 
@@ -31,9 +33,11 @@ export function openDatabase(file: string): Connection {
   sqlite.pragma('busy_timeout = 5000');
   const db = drizzle({ client: sqlite, schema });
   migrate(db, { migrationsFolder: MIGRATIONS });
+  const dataVersion = sqlite.prepare('PRAGMA data_version').pluck();
   return {
     db,
     sqlite,
+    dataVersion: () => dataVersion.get() as number,
     close: () => {
       if (sqlite.open) sqlite.close();
     },

@@ -2,22 +2,36 @@ import { eq, lt, sql } from 'drizzle-orm';
 import session from 'express-session';
 import type { Db } from './connection';
 import { prepared } from './prepared';
+import { RowCache } from './row-cache';
 import { httpSessions } from './schema';
 
 const DAY = 24 * 60 * 60 * 1000;
 
-/** express-session store over the `http_sessions` table; expired rows are swept on an unref'd timer. */
+interface StoredSession {
+  /** The session as stored (JSON text): every read hands express-session a fresh object. */
+  data: string;
+  expiresAt: number;
+  /** When this process last wrote the row, so a busy client does not cost a disk write per request. */
+  writtenAt: number;
+}
+
+/**
+ * express-session store over the `http_sessions` table. Rows are cached in
+ * memory after their first read (write-through, see RowCache); expired rows are
+ * swept on an unref'd timer.
+ */
 export class DrizzleSessionStore extends session.Store {
   private timer: NodeJS.Timeout;
-  /** When each session was last written, so a busy client does not cost a disk write per request. */
-  private written = new Map<string, number>();
+  private readonly rows: RowCache<string, StoredSession>;
   private readonly touchEveryMs = 60_000;
 
   constructor(
     private readonly db: Db,
+    dataVersion: () => number,
     sweepEveryMs = 10 * 60 * 1000,
   ) {
     super();
+    this.rows = new RowCache(dataVersion);
     this.timer = setInterval(() => this.sweep(), sweepEveryMs);
     this.timer.unref();
   }
@@ -27,11 +41,18 @@ export class DrizzleSessionStore extends session.Store {
     return expires ? new Date(expires).getTime() : Date.now() + DAY;
   }
 
+  private read(sid: string): StoredSession | undefined {
+    const row = prepared(this.db, 'session.bySid', () =>
+      this.db.select().from(httpSessions).where(eq(httpSessions.sid, sql.placeholder('sid'))).prepare(),
+    ).get({ sid });
+    // A row read from disk counts as freshly written: the next touch may wait a full interval.
+    return row ? { data: row.data, expiresAt: row.expiresAt, writtenAt: Date.now() } : undefined;
+  }
+
   override get(sid: string, cb: (err: unknown, session?: session.SessionData | null) => void): void {
     try {
-      const row = prepared(this.db, 'session.bySid', () =>
-        this.db.select().from(httpSessions).where(eq(httpSessions.sid, sql.placeholder('sid'))).prepare(),
-      ).get({ sid });
+      // Unknown ids are not cached: a stream of made-up cookies must not fill memory.
+      const row = this.rows.get(sid, () => this.read(sid));
       if (!row || row.expiresAt <= Date.now()) return cb(null, null);
       cb(null, JSON.parse(row.data) as session.SessionData);
     } catch (e) {
@@ -48,17 +69,18 @@ export class DrizzleSessionStore extends session.Store {
         .values({ sid, data, expiresAt })
         .onConflictDoUpdate({ target: httpSessions.sid, set: { data, expiresAt } })
         .run();
-      this.written.set(sid, Date.now());
+      this.rows.set(sid, { data, expiresAt, writtenAt: Date.now() });
       cb?.();
     } catch (e) {
+      this.rows.delete(sid);
       cb?.(e);
     }
   }
 
   override destroy(sid: string, cb?: (err?: unknown) => void): void {
     try {
+      this.rows.delete(sid);
       this.db.delete(httpSessions).where(eq(httpSessions.sid, sid)).run();
-      this.written.delete(sid);
       cb?.();
     } catch (e) {
       cb?.(e);
@@ -67,10 +89,12 @@ export class DrizzleSessionStore extends session.Store {
 
   override touch(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void): void {
     try {
-      const last = this.written.get(sid);
-      if (last === undefined || Date.now() - last >= this.touchEveryMs) {
-        this.db.update(httpSessions).set({ expiresAt: this.expiry(sess) }).where(eq(httpSessions.sid, sid)).run();
-        this.written.set(sid, Date.now());
+      const row = this.rows.get(sid, () => this.read(sid));
+      const now = Date.now();
+      if (!row || now - row.writtenAt >= this.touchEveryMs) {
+        const expiresAt = this.expiry(sess);
+        this.db.update(httpSessions).set({ expiresAt }).where(eq(httpSessions.sid, sid)).run();
+        if (row) this.rows.set(sid, { ...row, expiresAt, writtenAt: now });
       }
       cb?.();
     } catch (e) {
@@ -84,7 +108,7 @@ export class DrizzleSessionStore extends session.Store {
     for (const row of rows) {
       try {
         const data = JSON.parse(row.data) as { passport?: { user?: number } };
-        if (data.passport?.user === userId) this.db.delete(httpSessions).where(eq(httpSessions.sid, row.sid)).run();
+        if (data.passport?.user === userId) this.destroy(row.sid);
       } catch {
         /* unreadable row: leave it to expire */
       }
@@ -92,10 +116,10 @@ export class DrizzleSessionStore extends session.Store {
   }
 
   sweep(): void {
-    const cutoff = Date.now() - this.touchEveryMs;
-    for (const [sid, at] of this.written) if (at < cutoff) this.written.delete(sid);
+    const now = Date.now();
+    this.rows.clear((row) => row.expiresAt <= now);
     try {
-      this.db.delete(httpSessions).where(lt(httpSessions.expiresAt, Date.now())).run();
+      this.db.delete(httpSessions).where(lt(httpSessions.expiresAt, now)).run();
     } catch {
       /* database closed */
     }

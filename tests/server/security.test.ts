@@ -1,3 +1,4 @@
+import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ORIGIN, PASSWORD, sampleDocument, startTestServer, type TestServer } from './helpers';
 
@@ -35,24 +36,45 @@ describe('sign-in', () => {
   });
 
   it('ends the sessions of a deactivated user', async () => {
-    const a = s.anonymous();
     const u = await s.services.accounts.create(null, { email: 'leaver@lab.test', name: 'Leaver', role: 'auditor', password: PASSWORD });
-    s.services.accounts.update(s.users.admin, u.id, {}); // no-op patch leaves the session alone
-    await s.services.accounts.authenticate('leaver@lab.test', PASSWORD);
-    const store = s.connection.sqlite;
-    // Sign in through the store-backed session, then deactivate.
-    const login = await fetch(`${s.url}/api/auth/login`, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json', origin: ORIGIN },
-      body: JSON.stringify({ email: 'leaver@lab.test', password: PASSWORD }),
-    });
-    expect(login.status).toBe(200);
-    const cookie = login.headers.get('set-cookie')!.split(';')[0];
-    expect((await fetch(`${s.url}/api/me`, { headers: { cookie } })).status).toBe(200);
+    const a = s.anonymous();
+    await a.post('/api/auth/login').send({ email: 'leaver@lab.test', password: PASSWORD }).expect(200);
+    await a.get('/api/me').expect(200);
+    s.services.accounts.update(s.users.admin, u.id, {}); // a no-op patch leaves the session alone
+    await a.get('/api/me').expect(200);
     s.services.accounts.update(s.users.admin, u.id, { active: false });
-    expect((await fetch(`${s.url}/api/me`, { headers: { cookie } })).status).toBe(401);
-    expect(store.open).toBe(true);
-    void a;
+    await a.get('/api/me').expect(401);
+  });
+});
+
+describe('sessions and users kept in memory', () => {
+  it('shows a renamed user under the new name at once', async () => {
+    const u = await s.services.accounts.create(null, { email: 'renamed@lab.test', name: 'Before', role: 'auditor', password: PASSWORD });
+    const a = s.anonymous();
+    await a.post('/api/auth/login').send({ email: 'renamed@lab.test', password: PASSWORD }).expect(200);
+    expect((await a.get('/api/me').expect(200)).body.name).toBe('Before');
+    const admin = await s.as('admin');
+    await admin.patch(`/api/users/${u.id}`).send({ name: 'After' }).expect(200);
+    expect((await a.get('/api/me').expect(200)).body.name).toBe('After');
+  });
+
+  it('notices within a second a user deactivated and a session deleted by another connection', async () => {
+    const u = await s.services.accounts.create(null, { email: 'by-hand@lab.test', name: 'By Hand', role: 'auditor', password: PASSWORD });
+    const deactivated = s.anonymous();
+    await deactivated.post('/api/auth/login').send({ email: 'by-hand@lab.test', password: PASSWORD }).expect(200);
+    const signedOut = s.anonymous();
+    const login = await signedOut.post('/api/auth/login').send({ email: s.users.metrologist.email, password: PASSWORD }).expect(200);
+    const sid = decodeURIComponent(String(login.headers['set-cookie']).match(/dubito\.sid=s%3A([^.;]+)/)![1]);
+    await deactivated.get('/api/me').expect(200);
+    await signedOut.get('/api/me').expect(200);
+
+    const other = new Database(s.config.dbFile);
+    other.prepare('UPDATE users SET active = 0 WHERE id = ?').run(u.id);
+    other.prepare('DELETE FROM http_sessions WHERE sid = ?').run(sid);
+    other.close();
+    await new Promise((r) => setTimeout(r, 1100));
+    await deactivated.get('/api/me').expect(401);
+    await signedOut.get('/api/me').expect(401);
   });
 });
 
