@@ -16,7 +16,8 @@ export async function serve(overrides: Partial<AppConfig> = {}) {
   if (empty && env.DUBITO_DEMO !== '0') {
     await seedDemo(handle.services, { examplesDir: env.DUBITO_EXAMPLES ?? EXAMPLES, log: config.log });
   }
-  handle.pool.warm();
+  // Loading the engine in the workers takes a second or two of CPU; say when it is done (the API benchmark waits for it).
+  void handle.pool.warm().then((ok) => ok && config.log('compute workers ready'));
   const port = Number(env.PORT ?? 3000);
   const host = env.HOST ?? '0.0.0.0';
   const server = handle.app.listen(port, host, () => config.log(`listening on http://${host === '0.0.0.0' ? 'localhost' : host}:${port} (database ${config.dbFile})`));

@@ -25,6 +25,8 @@ interface Slot {
   worker: Worker;
   busy: Pending | null;
   timer: NodeJS.Timeout | null;
+  /** Settles when the worker has loaded the engine (true) or exited first (false). */
+  ready: Promise<boolean>;
 }
 
 export interface ComputePoolOptions {
@@ -46,9 +48,12 @@ export class ComputePool {
 
   private spawn(): Slot {
     const worker = new Worker(BOOTSTRAP, { eval: true, workerData: { engineModule: this.o.engineModule } });
-    const slot: Slot = { worker, busy: null, timer: null };
+    let loaded: (ok: boolean) => void = () => {};
+    const ready = new Promise<boolean>((resolve) => (loaded = resolve));
+    const slot: Slot = { worker, busy: null, timer: null, ready };
+    worker.once('exit', () => loaded(false));
     worker.on('message', (msg: ComputeReply | { ready: true }) => {
-      if ('ready' in msg) return;
+      if ('ready' in msg) return loaded(true);
       const p = slot.busy;
       if (!p || p.job.id !== msg.id) return;
       this.finish(slot);
@@ -121,9 +126,10 @@ export class ComputePool {
     });
   }
 
-  /** Starts the workers ahead of the first save. */
-  warm(): void {
+  /** Starts the workers ahead of the first save; true once every one has loaded the engine. */
+  async warm(): Promise<boolean> {
     while (this.slots.length < this.o.size) this.slots.push(this.spawn());
+    return (await Promise.all(this.slots.map((s) => s.ready))).every(Boolean);
   }
 
   async close(): Promise<void> {
