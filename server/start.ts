@@ -1,13 +1,13 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import { clientBuildIsStale } from './client-build';
 import { serve } from './main';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 const dist = fileURLToPath(new URL('../dist', import.meta.url));
 
-if (!existsSync(`${dist}/index.html`)) {
-  console.log('[dubito] no client build in dist/: running vite build');
+if (clientBuildIsStale(root, dist)) {
+  console.log('[dubito] the client build in dist/ is missing or older than its sources: running vite build');
   const r = spawnSync(process.execPath, [fileURLToPath(new URL('../node_modules/vite/bin/vite.js', import.meta.url)), 'build'], {
     cwd: root,
     stdio: 'inherit',
