@@ -23,6 +23,7 @@ import {
   updateBudget,
   type BudgetFilter,
   type BudgetRow,
+  type CurrentVersionRow,
   type VersionRow,
 } from './budgets-repository';
 import { documentSha256 } from './canonical';
@@ -139,13 +140,20 @@ export class BudgetsService {
     return { rows: listBudgets(this.db, filter), total: countBudgets(this.db, filter) };
   }
 
-  private head(b: BudgetRow, v: VersionRow): Omit<BudgetView, 'document' | 'result'> {
-    return { ...summary(b), ownerName: nameOr(userName(this.db, b.ownerId), b.ownerId), version: meta(this.db, v) };
+  /** The budget with its current version and names, in one query. */
+  private current(id: number): CurrentVersionRow {
+    const row = getCurrentVersion(this.db, id);
+    if (!row) throw new NotFoundError('no such budget');
+    return row;
+  }
+
+  private head({ budget: b, version: v, ownerName, authorName, approverName }: CurrentVersionRow): Omit<BudgetView, 'document' | 'result'> {
+    return { ...summary(b), ownerName: nameOr(ownerName, b.ownerId), version: metaNamed(v, authorName, approverName) };
   }
 
   get(id: number): BudgetView {
-    const b = this.requireBudget(id);
-    return this.view(b, this.requireVersion(id, b.currentVersion));
+    const row = this.current(id);
+    return { ...this.head(row), document: JSON.parse(row.version.document) as BudgetDocument, result: JSON.parse(row.version.result) as BudgetResult };
   }
 
   /**
@@ -153,24 +161,9 @@ export class BudgetsService {
    * spliced in as they are, without parsing them (the hot read path).
    */
   getJson(id: number): string {
-    const row = getCurrentVersion(this.db, id);
-    if (!row) throw new NotFoundError('no such budget');
-    const { budget: b, version: v } = row;
-    const head: Omit<BudgetView, 'document' | 'result'> = {
-      ...summary(b),
-      ownerName: nameOr(row.ownerName, b.ownerId),
-      version: metaNamed(v, row.authorName, row.approverName),
-    };
-    const text = JSON.stringify(head);
-    return `${text.slice(0, -1)},"document":${v.document},"result":${v.result}}`;
-  }
-
-  private view(b: BudgetRow, v: VersionRow): BudgetView {
-    return {
-      ...this.head(b, v),
-      document: JSON.parse(v.document) as BudgetDocument,
-      result: JSON.parse(v.result) as BudgetResult,
-    };
+    const row = this.current(id);
+    const head = JSON.stringify(this.head(row));
+    return `${head.slice(0, -1)},"document":${row.version.document},"result":${row.version.result}}`;
   }
 
   versions(id: number): VersionMeta[] {
