@@ -38,10 +38,25 @@ export interface HistogramBins {
   counts: number[];
 }
 
+/**
+ * How stable an adaptive run's figures are (JCGM 101:2008 7.9.4): M per
+ * sequence, h sequences, the standard deviations s of the sequence averages
+ * and the tolerance δ they were judged against (stable when every 2s ≤ δ).
+ */
+export interface AdaptiveStability {
+  sequenceLength: number;
+  sequences: number;
+  spread: { estimate: number; standardUncertainty: number; low: number; high: number };
+  tolerance: number;
+  stabilized: boolean;
+}
+
 export interface MonteCarloResult {
   trials: number;
   seed: string;
   adaptive: boolean;
+  /** Present for adaptive runs only (JCGM 101:2008 7.9). */
+  stability?: AdaptiveStability;
   estimate: number;
   standardUncertainty: number;
   interval: [number, number];
@@ -49,12 +64,51 @@ export interface MonteCarloResult {
   histogram: HistogramBins;
 }
 
+/**
+ * The verdict of the JCGM 101:2008 clause 8 comparison:
+ * - `validated` / `not-validated`: d_low and d_high against δ, and the verdict
+ *   would not change with another seed at this number of trials;
+ * - `inconclusive`: the Monte Carlo figures' own numerical accuracy is of the size of δ;
+ * - `not-possible`: the comparison is undefined (e.g. an input with ν ≤ 2 has no variance),
+ *   `reason` says why.
+ */
+export type ValidationVerdict = 'validated' | 'not-validated' | 'inconclusive' | 'not-possible';
+
 export interface ValidationResult {
   significantDigits: number;
   tolerance: number;
   dLow: number;
   dHigh: number;
+  /** True only for the verdict `validated`. */
   passed: boolean;
+  verdict?: ValidationVerdict;
+  /** Why the verdict is `inconclusive` or `not-possible`, in words. */
+  reason?: string;
+}
+
+/**
+ * How the lab reports U (budget file `reporting`; EA-4/02, ILAC P14):
+ * - `t-effective-dof`: k = t_p(ν_eff) (JCGM 100:2008 G.4), the default;
+ * - `k-fixed`: k given by the lab (conventionally 2) whatever ν_eff;
+ * - `monte-carlo`: the Monte Carlo coverage interval (JCGM 101:2008 7.7).
+ */
+export type ReportingBasis = 't-effective-dof' | 'k-fixed' | 'monte-carlo';
+
+/** The figures that go to the certificate, and how they were obtained. */
+export interface ReportedResult {
+  basis: ReportingBasis;
+  estimate: number;
+  standardUncertainty: number;
+  coverageProbability: number;
+  /** k; null when the interval is the Monte Carlo one. */
+  coverageFactor: number | null;
+  /** U; for the Monte Carlo basis the larger half-width of the interval about the estimate. */
+  expandedUncertainty: number;
+  interval: [number, number];
+  /** The Monte Carlo basis replaced the GUM figures because clause 8 did not validate them. */
+  replacedGum: boolean;
+  /** GUM figures reported although the Monte Carlo method did not validate them (or could not). */
+  unvalidated: boolean;
 }
 
 export interface BudgetResult {
@@ -63,5 +117,7 @@ export interface BudgetResult {
   gum: GumResult;
   monteCarlo: MonteCarloResult | null;
   validation: ValidationResult | null;
+  /** What is reported; absent in results stored before the reporting choice existed (read as the GUM figures). */
+  reported?: ReportedResult;
   warnings: string[];
 }
