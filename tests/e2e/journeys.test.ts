@@ -123,12 +123,14 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     // reorder by keyboard drag: dR_T from position 4 to position 1
     const handle = page.getByRole('button', { name: /^Move dR_T/ });
     await handle.focus();
+    // Each key waits for the drag's own announcement, so no key lands before the sensor has seen the last one.
+    const dragNews = page.locator('[id^="DndLiveRegion"]');
     await page.keyboard.press('Space');
-    for (let i = 0; i < 3; i++) {
-      await page.waitForTimeout(250);
+    await containsText(dragNews, 'dR_T is over position 4.');
+    for (const position of [3, 2, 1]) {
       await page.keyboard.press('ArrowUp');
+      await containsText(dragNews, `dR_T is over position ${position}.`);
     }
-    await page.waitForTimeout(250);
     await page.keyboard.press('Space');
     await expect.poll(() => inputOrder(page)).toEqual(['dR_T', 'R_s', 'dR_obs', 'dR_res']);
     await hasTexts(table.getByRole('rowheader'), typeset(['dR_T', 'R_s', 'dR_obs', 'dR_res']));
