@@ -129,7 +129,7 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
   const stopNote: Problem[] =
     wasStopped === null
       ? []
-      : [{ field: '', message: `live recompute stopped after ${wasStopped} s: this budget takes too long to compute in the page; saving computes it on the server` }];
+      : [{ field: '', message: `live recompute stopped after ${wasStopped} s: this budget takes too long to compute in the page` }];
   const outcome: LiveOutcome =
     current ??
     (isStored && stored
