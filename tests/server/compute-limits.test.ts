@@ -2,7 +2,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DOCUMENT_LIMITS } from '../../server/budgets/document-limits';
+import { checkDocumentShape, DOCUMENT_LIMITS } from '../../server/budgets/document-limits';
 import { loadConfig } from '../../server/config';
 import { DEFAULTS } from '../../shared/budget/limits';
 import type { BudgetDocument } from '../../shared/budget/schema';
@@ -58,6 +58,26 @@ describe('the document shape is limited at the edge, and the compute slot stays 
     const ok = await m.post('/api/budgets').send({ document: sampleDocument('Small', { lab: 'Kestrel Fen Metrology Laboratory' }) }).expect(201);
     const stored = (await m.get(`/api/budgets/${ok.body.id}`).expect(200)).body;
     expect(stored.document.lab).toBe('Kestrel Fen Metrology Laboratory');
+  });
+});
+
+describe('checkDocumentShape', () => {
+  const nested = (levels: number): unknown => (levels === 0 ? 1 : [nested(levels - 1)]);
+  it('accepts a document exactly 32 levels deep and refuses one level more', () => {
+    // The document object is level 1, each array around the number one more.
+    expect(() => checkDocumentShape(sampleDocument('At the limit', { notes: nested(31) }))).not.toThrow();
+    expect(() => checkDocumentShape(sampleDocument('Past the limit', { notes: nested(32) }))).toThrow(/nested more than 32 levels/);
+  });
+
+  it('counts unknown fields at every level of the format, and ignores known ones', () => {
+    const half = 'x'.repeat(DOCUMENT_LIMITS.unknownFieldBytes / 2);
+    const doc = sampleDocument('Spread') as ReturnType<typeof sampleDocument> & Record<string, unknown>;
+    const inputs = doc.inputs.map((q, i) => (i === 0 ? { ...q, remark: half } : q));
+    expect(() => checkDocumentShape({ ...doc, inputs })).not.toThrow();
+    const both = { ...doc, inputs, measurand: { ...doc.measurand, remark: half } };
+    expect(() => checkDocumentShape(both)).toThrow(/fields outside the budget format take \d+ bytes/);
+    const known = { ...doc, model: `y = a + b * c\n# ${'y'.repeat(DOCUMENT_LIMITS.unknownFieldBytes)}` };
+    expect(() => checkDocumentShape(known)).not.toThrow();
   });
 });
 
