@@ -38,6 +38,11 @@ const dbFile = join(dir, 'bench.sqlite');
 const seconds = Number(process.env.BENCH_SECONDS ?? 10);
 const rounds = Math.max(1, Number(process.env.BENCH_ROUNDS ?? 3));
 const connections = 50;
+// Saves: as many at once as the server admits (DUBITO_COMPUTE_JOBS_PER_USER 2 each, within DUBITO_COMPUTE_QUEUE 8),
+// so the figure is the rate of accepted saves, not of refusals.
+const saveUsers = 4;
+const savesPerUser = 2;
+const saveConnections = saveUsers * savesPerUser;
 
 function document(title: string) {
   return {
@@ -69,7 +74,16 @@ const setup = await createApp({ dbFile, dataDir: dir, log: () => {} });
 const user = await setup.services.accounts.create(null, { email: 'bench@lab.test', name: 'Bench', role: 'metrologist', password: PASSWORD });
 const { id } = await setup.services.budgets.create(user, { document: document('Bench budget'), note: '' });
 const saveIds: number[] = [];
-for (let i = 0; i < connections; i++) saveIds.push((await setup.services.budgets.create(user, { document: document(`Save ${i}`), note: '' })).id);
+const ownerOf = new Map<number, string>();
+for (let u = 0; u < saveUsers; u++) {
+  const email = `saver${u}@lab.test`;
+  const saver = await setup.services.accounts.create(null, { email, name: `Saver ${u}`, role: 'metrologist', password: PASSWORD });
+  for (let i = 0; i < savesPerUser; i++) {
+    const b = (await setup.services.budgets.create(saver, { document: document(`Save ${u}.${i}`), note: '' })).id;
+    saveIds.push(b);
+    ownerOf.set(b, email);
+  }
+}
 const trialsCap = setup.config.trialsCap;
 const workers = setup.config.computeWorkers;
 await setup.close();
@@ -107,12 +121,17 @@ await new Promise<void>((resolve, reject) => {
   child.once('exit', (code) => reject(new Error(`server exited with ${code}`)));
 });
 
-const login = await fetch(`${base}/api/auth/login`, {
-  method: 'POST',
-  headers: { 'content-type': 'application/json', origin: ORIGIN },
-  body: JSON.stringify({ email: 'bench@lab.test', password: PASSWORD }),
-});
-const cookie = login.headers.get('set-cookie')!.split(';')[0];
+async function signIn(email: string): Promise<string> {
+  const login = await fetch(`${base}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: ORIGIN },
+    body: JSON.stringify({ email, password: PASSWORD }),
+  });
+  return login.headers.get('set-cookie')!.split(';')[0];
+}
+const cookie = await signIn('bench@lab.test');
+const cookies = new Map<string, string>();
+for (const email of new Set(ownerOf.values())) cookies.set(email, await signIn(email));
 
 const rate = (r: Result) => r['2xx'] / r.duration;
 
@@ -127,7 +146,10 @@ function report(name: string, r: Result): void {
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 const verdict = (ok: boolean) => (ok ? 'PASS' : 'MISS');
 
-console.log(`Dubito API benchmark — Node ${process.version}, loopback, ${connections} connections, ${rounds} × ${seconds} s of reads after a 3 s warm-up\n`);
+console.log(
+  `Dubito API benchmark — Node ${process.version}, loopback, ${connections} connections, ${rounds} × ${seconds} s of reads after a 3 s warm-up; ` +
+    `${saveConnections} connections of ${saveUsers} users for ${seconds} s of saves\n`,
+);
 try {
   // Warm-up, then the measured run.
   await autocannon({ url: `${base}/api/budgets/${id}`, connections, duration: 3, headers: { cookie } });
@@ -142,7 +164,7 @@ try {
   const idle = [...saveIds];
   const saves = (await autocannon({
     url: base,
-    connections,
+    connections: saveConnections,
     duration: seconds,
     timeout: 60,
     requests: [
@@ -154,7 +176,7 @@ try {
             ...req,
             method: 'PUT',
             path: `/api/budgets/${b}`,
-            headers: { cookie, origin: ORIGIN, 'content-type': 'application/json' },
+            headers: { cookie: cookies.get(ownerOf.get(b)!)!, origin: ORIGIN, 'content-type': 'application/json' },
             body: JSON.stringify({ baseVersion: baseVersion.get(b), document: document(`Save ${b}`), note: 'bench' }),
           };
         },

@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import express, { type Express } from 'express';
 import session from 'express-session';
+import { DEFAULTS } from '../shared/budget/limits';
 import { AccountsService } from './accounts/accounts-service';
 import { accountsRoutes } from './accounts/accounts-routes';
 import { createPassport, resetLimiter, signInLimiters } from './accounts/auth-setup';
@@ -10,7 +11,7 @@ import { auditRoutes } from './audit/audit-routes';
 import { AuditService } from './audit/audit-service';
 import { budgetsRoutes } from './budgets/budgets-routes';
 import { BudgetsService } from './budgets/budgets-service';
-import { ComputePool } from './budgets/compute-pool';
+import { ComputeSupervisor } from './compute/supervisor';
 import { loadConfig, type AppConfig } from './config';
 import { openDatabase, type Connection } from './db/connection';
 import { DrizzleSessionStore } from './db/session-store';
@@ -44,7 +45,8 @@ export interface DubitoApp {
   config: AppConfig;
   connection: Connection;
   services: Services;
-  pool: ComputePool;
+  /** The compute supervisor: budgets, reports and diffs run in its worker threads. */
+  pool: ComputeSupervisor;
   /** Every API route with the access rule it is registered with. */
   routes: RouteInfo[];
   close(): Promise<void>;
@@ -58,8 +60,11 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
   const secret = config.sessionSecret ?? putSettingIfAbsent(db, 'session_secret', randomBytes(32).toString('hex'));
   const store = new DrizzleSessionStore(db, connection.dataVersion);
   const mail = await MailService.create(db, { smtpUrl: config.smtpUrl, from: config.mailFrom, log: config.log });
-  const pool = new ComputePool({
+  const pool = new ComputeSupervisor({
     size: config.computeWorkers,
+    queueLength: config.computeQueueLength,
+    jobsPerUser: config.computeJobsPerUser,
+    workerHeapMb: config.workerHeapMb,
     trialsCap: config.trialsCap,
     timeoutMs: config.computeTimeoutMs,
     engineModule: config.engineModule,
@@ -75,7 +80,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     invitationHours: config.invitationHours,
     resetHours: config.resetHours,
   });
-  const budgets = new BudgetsService(db, pool);
+  const budgets = new BudgetsService(db, pool, { diffMaxBytes: config.diffMaxBytes });
   const services: Services = {
     accounts,
     budgets,
@@ -83,7 +88,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     audit: new AuditService(db),
     attachments: new AttachmentsService(db, resolve(config.dataDir)),
     mail,
-    reports: new ReportsService({ budgets }),
+    reports: new ReportsService({ budgets, workers: pool, maxBytes: config.reportMaxBytes }),
   };
   const passport = createPassport(accounts);
 
@@ -131,7 +136,10 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     signInLimiters: signInLimiters(config.signIn),
     resetLimiter: resetLimiter(config.signIn),
   });
-  budgetsRoutes(table, services.budgets, { importMaxBytes: config.importMaxBytes });
+  budgetsRoutes(table, services.budgets, {
+    importMaxBytes: config.importMaxBytes,
+    limits: { trialsCap: config.trialsCap, defaultTrials: DEFAULTS.trials, timeoutSeconds: Math.round(config.computeTimeoutMs / 1000) },
+  });
   reviewsRoutes(table, services.reviews);
   reportsRoutes(table, services.reports);
   uploadsRoutes(table, services.attachments, {

@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { dirname } from 'node:path';
 import type { SignInLimits } from './accounts/auth-setup';
-import { DEFAULT_ENGINE_MODULE } from './budgets/compute-pool';
+import { DEFAULT_ENGINE_MODULE } from './compute/supervisor';
 
 export interface AppConfig {
   /** SQLite file (DUBITO_DB); created with its folder on first start. */
@@ -20,10 +20,21 @@ export interface AppConfig {
   cookieSecure: boolean;
   sessionMaxAgeMs: number;
   trustProxy: boolean | number;
-  /** Upper bound on Monte Carlo trials per saved version (DUBITO_TRIALS_CAP). */
+  /** Upper bound on Monte Carlo trials per saved version (DUBITO_TRIALS_CAP, default 10⁶: the default trials of a budget). */
   trialsCap: number;
   computeWorkers: number;
+  /** Deadline of a computation, a report or a diff, counted from when it is accepted (DUBITO_COMPUTE_TIMEOUT_MS). */
   computeTimeoutMs: number;
+  /** Jobs waiting for a worker; more answer 503 (DUBITO_COMPUTE_QUEUE). */
+  computeQueueLength: number;
+  /** Jobs of one user running or waiting; more answer 429 (DUBITO_COMPUTE_JOBS_PER_USER). */
+  computeJobsPerUser: number;
+  /** V8 heap of each compute worker in MiB (DUBITO_WORKER_HEAP_MB). */
+  workerHeapMb: number;
+  /** Largest stored version (document and result text) a report is built from. */
+  reportMaxBytes: number;
+  /** Largest pair of stored versions a diff compares. */
+  diffMaxBytes: number;
   /** URL of the module exporting computeBudget. */
   engineModule: string;
   signIn: SignInLimits;
@@ -66,9 +77,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     cookieSecure: env.DUBITO_COOKIE_SECURE ? env.DUBITO_COOKIE_SECURE === '1' : production,
     sessionMaxAgeMs: int(env.DUBITO_SESSION_HOURS, 12) * 60 * 60 * 1000,
     trustProxy: env.DUBITO_TRUST_PROXY ? (/^\d+$/.test(env.DUBITO_TRUST_PROXY) ? Number(env.DUBITO_TRUST_PROXY) : env.DUBITO_TRUST_PROXY === 'true') : false,
-    trialsCap: int(env.DUBITO_TRIALS_CAP, 200_000),
+    trialsCap: int(env.DUBITO_TRIALS_CAP, 1_000_000),
     computeWorkers: int(env.DUBITO_COMPUTE_WORKERS, Math.max(1, Math.min(2, availableParallelism() - 1))),
     computeTimeoutMs: int(env.DUBITO_COMPUTE_TIMEOUT_MS, 120_000),
+    computeQueueLength: int(env.DUBITO_COMPUTE_QUEUE, 8),
+    computeJobsPerUser: int(env.DUBITO_COMPUTE_JOBS_PER_USER, 2),
+    workerHeapMb: int(env.DUBITO_WORKER_HEAP_MB, 512),
+    reportMaxBytes: 8 * MB,
+    diffMaxBytes: 16 * MB,
     engineModule: DEFAULT_ENGINE_MODULE,
     signIn: {
       windowMs: 15 * 60 * 1000,

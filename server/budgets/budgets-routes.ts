@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
+import type { ComputeLimits } from '../../shared/api/budgets';
 import { parseBudgetFile, serializeBudget } from '../../shared/budget/budget-file';
 import { BUDGET_STATUSES } from '../../shared/policy/policy';
 import { ValidationError } from '../http/errors';
@@ -34,11 +35,15 @@ const exportQuery = z.strictObject({ version: versionNumber.optional() });
 const importJson = z.strictObject({ document: documentField, note: note.optional(), template: z.boolean().optional() });
 const importForm = z.strictObject({ note: note.optional(), template: z.enum(['true', 'false']).optional() });
 
-export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { importMaxBytes: number }): void {
+export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { importMaxBytes: number; limits: ComputeLimits }): void {
   const importUpload: RequestHandler = multer({
     storage: multer.memoryStorage(),
     limits: { fileSize: opts.importMaxBytes, files: 1, fields: 10 },
   }).single('file');
+
+  t.add('get', '/api/config', 'signed-in', (_req, res) => {
+    res.json(opts.limits);
+  });
 
   t.add('get', '/api/budgets', 'budget.read', (req, res) => {
     const q = parse(listQuery, req.query);
@@ -105,10 +110,10 @@ export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { im
     res.json(budgets.version(p.id, p.n));
   });
 
-  t.add('get', '/api/budgets/:id/diff', 'budget.read', (req, res) => {
+  t.add('get', '/api/budgets/:id/diff', 'budget.read', async (req, res) => {
     const { id } = parse(idParams, req.params);
     const q = parse(diffQuery, req.query);
-    res.json(budgets.diff(id, q.from, q.to));
+    res.json(await budgets.diff(userOf(req), id, q.from, q.to));
   });
 
   t.add('post', '/api/budgets/:id/clone', 'budget.clone', async (req, res) => {

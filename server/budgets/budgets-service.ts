@@ -4,13 +4,13 @@ import { validateBudget } from '../../shared/budget/budget-file';
 import { DEFAULTS } from '../../shared/budget/limits';
 import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
+import type { ComputeSupervisor } from '../compute/supervisor';
 import { canEditBudget, isEditableStatus } from '../../shared/policy/policy';
 import { userName } from '../accounts/accounts-repository';
 import { recordAudit } from '../audit/audit-repository';
 import { inTransaction, type Db } from '../db/connection';
-import { ConflictError, ForbiddenError, NotFoundError } from '../http/errors';
+import { ConflictError, ForbiddenError, NotFoundError, UnprocessableError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
-import { diffBudgets } from './budget-diff';
 import {
   countBudgets,
   getBudget,
@@ -27,11 +27,10 @@ import {
   type VersionRow,
 } from './budgets-repository';
 import { documentSha256 } from './canonical';
+import { checkDocumentShape } from './document-limits';
 
-/** What the pool does: compute a validated budget off the main thread. */
-export interface Computer {
-  compute(doc: BudgetDocument): Promise<BudgetResult>;
-}
+/** What the supervisor does for budgets: compute and compare off the main thread, one user's jobs counted together. */
+export type Computer = Pick<ComputeSupervisor, 'compute' | 'run'>;
 
 function summary(b: BudgetRow): BudgetSummary {
   return {
@@ -95,12 +94,14 @@ export class BudgetsService {
   constructor(
     private readonly db: Db,
     private readonly computer: Computer,
+    private readonly limits: { diffMaxBytes: number } = { diffMaxBytes: Infinity },
   ) {}
 
-  /** Validates and computes a document; a version is never stored without its result. */
-  private async computeDocument(value: unknown): Promise<Computed> {
+  /** Checks the shape, validates and computes a document for `actor`; a version is never stored without its result. */
+  private async computeDocument(value: unknown, actor: SessionUser): Promise<Computed> {
+    checkDocumentShape(value);
     const document = validateBudget(value);
-    const result = await this.computer.compute(document);
+    const result = await this.computer.compute(document, actor.id);
     return { document, text: JSON.stringify(document), sha: documentSha256(document), result };
   }
 
@@ -166,6 +167,12 @@ export class BudgetsService {
     return `${head.slice(0, -1)},"document":${row.version.document},"result":${row.version.result}}`;
   }
 
+  /** Bytes of a stored version's document and result text (what a report or a diff would read). */
+  storedBytes(id: number, n: number): number {
+    const v = this.requireVersion(id, n);
+    return Buffer.byteLength(v.document) + Buffer.byteLength(v.result);
+  }
+
   versions(id: number): VersionMeta[] {
     this.requireBudget(id);
     return listVersions(this.db, id);
@@ -177,13 +184,20 @@ export class BudgetsService {
     return { budgetId: id, ...meta(this.db, v), document: JSON.parse(v.document) as BudgetDocument, result: JSON.parse(v.result) as BudgetResult };
   }
 
-  diff(id: number, from: number, to: number): BudgetDiff {
+  /** The difference of two versions, computed in a worker; versions larger together than `diffMaxBytes` are refused. */
+  async diff(actor: SessionUser, id: number, from: number, to: number): Promise<BudgetDiff> {
     this.requireBudget(id);
-    const load = (n: number) => {
-      const v = this.requireVersion(id, n);
-      return { number: n, document: JSON.parse(v.document) as Record<string, unknown>, result: JSON.parse(v.result) as BudgetResult };
-    };
-    return diffBudgets(load(from), load(to));
+    const a = this.requireVersion(id, from);
+    const b = this.requireVersion(id, to);
+    const bytes = [a.document, a.result, b.document, b.result].reduce((n, t) => n + Buffer.byteLength(t), 0);
+    if (bytes > this.limits.diffMaxBytes) {
+      throw new UnprocessableError(
+        'too_large_to_compare',
+        `versions ${from} and ${to} take ${bytes} bytes together, more than the ${this.limits.diffMaxBytes} a comparison may read; export both versions and compare the files instead`,
+      );
+    }
+    const text = (v: VersionRow) => ({ number: v.number, document: v.document, result: v.result });
+    return this.computer.run('diff', { from: text(a), to: text(b) }, actor.id);
   }
 
   async create(
@@ -192,7 +206,7 @@ export class BudgetsService {
     action = 'budget.created',
   ): Promise<CreatedBudget> {
     if (input.template && actor.role !== 'admin') throw new ForbiddenError('only admins create templates');
-    const c = await this.computeDocument(input.document);
+    const c = await this.computeDocument(input.document, actor);
     const at = Date.now();
     const id = inTransaction(this.db, (tx) => {
       const b = insertBudget(tx, { title: c.document.title, ownerId: actor.id, isTemplate: !!input.template }, at);
@@ -228,7 +242,7 @@ export class BudgetsService {
   /** Saves a new version on top of `baseVersion`; 409 if someone saved in between. Saving an approved budget starts a new draft. */
   async save(actor: SessionUser, id: number, input: { baseVersion: number; document: unknown; note: string }): Promise<SavedVersion> {
     this.checkEditable(actor, this.requireBudget(id), input.baseVersion);
-    const c = await this.computeDocument(input.document);
+    const c = await this.computeDocument(input.document, actor);
     const at = Date.now();
     const number = inTransaction(this.db, (tx) => {
       const b = getBudget(tx, id);
@@ -269,7 +283,7 @@ export class BudgetsService {
     const v = this.requireVersion(id, n);
     const doc = JSON.parse(v.document) as BudgetDocument;
     if (input.title) doc.title = input.title;
-    const c = await this.computeDocument(doc);
+    const c = await this.computeDocument(doc, actor);
     const at = Date.now();
     const newId = inTransaction(this.db, (tx) => {
       const b = insertBudget(tx, { title: c.document.title, ownerId: actor.id, isTemplate: false, sourceBudgetId: id, sourceVersion: n }, at);

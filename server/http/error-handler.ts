@@ -1,7 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import multer from 'multer';
 import { BudgetError } from '../../shared/budget/budget-error';
-import { AppError, NotFoundError } from './errors';
+import { AppError, BusyError, NotFoundError } from './errors';
 
 export interface ErrorBody {
   error: { code: string; message: string; field?: string; [k: string]: unknown };
@@ -19,6 +19,7 @@ export function errorHandler(log: (msg: string, err: unknown) => void): ErrorReq
   return (err, _req, res, next) => {
     if (res.headersSent) return next(err);
     if (err instanceof AppError) {
+      if (err instanceof BusyError) res.setHeader('Retry-After', String(err.retryAfterSeconds));
       res.status(err.status).json(body(err.code, err.message, err.field, err.extra));
       return;
     }

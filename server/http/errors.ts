@@ -66,3 +66,15 @@ export class UnavailableError extends AppError {
     super(503, code, message);
   }
 }
+
+/** Too much work is waiting (429 for one user, 503 for the whole server); the answer carries `Retry-After`. */
+export class BusyError extends AppError {
+  constructor(
+    status: 429 | 503,
+    code: string,
+    message: string,
+    readonly retryAfterSeconds: number,
+  ) {
+    super(status, code, message);
+  }
+}

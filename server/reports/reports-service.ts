@@ -1,10 +1,11 @@
 import { can } from '../../shared/policy/policy';
 import type { BudgetRow } from '../budgets/budgets-repository';
 import type { BudgetsService } from '../budgets/budgets-service';
-import { ForbiddenError } from '../http/errors';
+import type { ComputeSupervisor } from '../compute/supervisor';
+import { ForbiddenError, UnprocessableError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import type { ReportData, VersionStatus } from './report-data';
-import { renderReportPdf, reportFileName } from './report-pdf';
+import { reportFileName } from './report-pdf';
 
 /** The laboratory named on reports whose budget file names none. */
 export const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
@@ -26,7 +27,15 @@ const text = (v: unknown): string | null => (typeof v === 'string' && v.trim() ?
 /** The printed report of a budget version: readable by whoever may read the budget. */
 export class ReportsService {
   constructor(
-    private readonly d: { budgets: BudgetsService; lab?: string; now?: () => number },
+    private readonly d: {
+      budgets: BudgetsService;
+      /** Builds the PDF in a worker thread, never on the event loop. */
+      workers: Pick<ComputeSupervisor, 'run'>;
+      /** Largest stored version (document and result text) a report is built from. */
+      maxBytes: number;
+      lab?: string;
+      now?: () => number;
+    },
   ) {}
 
   /** Everything the report shows; `n` defaults to the current version. */
@@ -59,8 +68,19 @@ export class ReportsService {
     };
   }
 
+  /** The PDF, built in a worker; a version larger than `maxBytes` is refused before anything is parsed. */
   async pdf(actor: SessionUser, id: number, n?: number): Promise<ReportFile> {
-    const data = this.data(actor, id, n);
-    return { fileName: reportFileName(data), pdf: await renderReportPdf(data) };
+    if (!can(actor.role, 'budget.read')) throw new ForbiddenError();
+    const number = n ?? this.d.budgets.requireBudget(id).currentVersion;
+    const bytes = this.d.budgets.storedBytes(id, number);
+    if (bytes > this.d.maxBytes) {
+      throw new UnprocessableError(
+        'too_large_to_report',
+        `version ${number} takes ${bytes} bytes, more than the ${this.d.maxBytes} a report may be built from; export the budget file instead`,
+      );
+    }
+    const data = this.data(actor, id, number);
+    const pdf = await this.d.workers.run('report', data, actor.id);
+    return { fileName: reportFileName(data), pdf: Buffer.from(pdf.buffer, pdf.byteOffset, pdf.byteLength) };
   }
 }

@@ -71,3 +71,13 @@ export interface ClonedBudget {
   id: number;
   version: 1;
 }
+
+/** `GET /api/config`: what the server computes for a save, so the client can say so before a run. */
+export interface ComputeLimits {
+  /** Monte Carlo trials stored with a version at most; a browser run above it would not be the stored run. */
+  trialsCap: number;
+  /** Trials of a budget that names none. */
+  defaultTrials: number;
+  /** Deadline of one save in seconds, queue time included. */
+  timeoutSeconds: number;
+}

@@ -139,7 +139,9 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     const mc = page.getByRole('region', { name: 'Monte Carlo method' });
     // a long run shows its progress and can be stopped; the page stays usable meanwhile
     expect(await page.evaluate(() => globalThis.crossOriginIsolated)).toBe(true);
-    await mc.getByLabel('Trials M').selectOption({ label: '2 000 000' });
+    // the panel offers no more trials than a save stores, and says so before the run
+    await shows(mc.getByText(/A saved version stores at most 1\s000\s000 trials/));
+    await mc.getByLabel('Trials M').selectOption({ label: '1 000 000' });
     await mc.getByRole('button', { name: 'Run Monte Carlo' }).click();
     await shows(mc.getByRole('progressbar'));
     await mc.getByRole('button', { name: 'Cancel' }).click();
@@ -150,6 +152,7 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     await shows(mc.getByText(/GUM result is (validated|not validated)/));
     await shows(mc.locator('.js-plotly-plot, svg.main-svg'));
     await shot(page, 'journey1', 'monte-carlo');
+    const seenSeed = await mc.getByLabel('Seed').inputValue();
 
     await page.getByRole('button', { name: 'Save version…' }).click();
     const dialog = page.getByRole('dialog');
@@ -164,6 +167,8 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     expect(stored.document.inputs.map((q: { symbol: string }) => q.symbol)).toEqual(['dR_T', 'R_s', 'dR_obs', 'dR_res']);
     expect(stored.document.inputs[2].distribution.values).toHaveLength(6);
     expect(stored.result.gum.estimate).toBeCloseTo(100.00012 + 0.0000110, 6);
+    // the stored run is the run that was seen: the panel's trials and seed (JCGM 101:2008 7.2)
+    expect(stored.result.monteCarlo).toMatchObject({ trials: 100_000, seed: seenSeed });
   }, 180_000);
 });
 

@@ -42,6 +42,8 @@ async function startServer(port: number): Promise<ChildProcess> {
       DUBITO_DEMO: '0',
       DUBITO_TRIALS_CAP: '5000',
       DUBITO_COMPUTE_WORKERS: '1',
+      // three writers of one user save at once
+      DUBITO_COMPUTE_JOBS_PER_USER: '3',
       DUBITO_ALLOWED_ORIGINS: ORIGIN,
       SMTP_URL: '',
     },

@@ -41,6 +41,7 @@ const cases: Record<string, Case> = {
   'post /api/auth/login': () => ({ url: '/api/auth/login', body: { email: s.users.trainee.email, password: PASSWORD }, fresh: true, ok: 200 }),
   'post /api/auth/logout': () => ({ url: '/api/auth/logout', fresh: true, ok: 204 }),
   'get /api/me': () => ({ url: '/api/me', ok: 200 }),
+  'get /api/config': () => ({ url: '/api/config', ok: 200 }),
   'post /api/auth/password-reset': () => ({ url: '/api/auth/password-reset', body: { email: 'nobody@lab.test' }, ok: 202 }),
   'get /api/auth/token': () => ({ url: '/api/auth/token?token=not-a-real-token-at-all', ok: 404 }),
   'post /api/auth/password-reset/complete': () => ({

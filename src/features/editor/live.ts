@@ -1,9 +1,7 @@
 import { useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
-import { BudgetError, type ModelLocation } from '../../../shared/budget/budget-error';
-import { budgetProblems } from '../../../shared/budget/budget-file';
+import type { ModelLocation } from '../../../shared/budget/budget-error';
 import type { BudgetResult } from '../../../shared/budget/result';
 import type { BudgetDocument } from '../../../shared/budget/schema';
-import { computeBudget } from '../../../shared/compute/compute-budget';
 
 export interface Problem {
   field: string;
@@ -26,37 +24,120 @@ export function plainMessage(p: Problem): string {
   return m.replace(/^model line \d+(, column \d+)?: /, '').replace(/^(correlations|model|monteCarlo): /, '');
 }
 
-/** Removes values the editor keeps while typing (NaN from unreadable text) so the schema names them. */
-function clean(doc: BudgetDocument): unknown {
-  return JSON.parse(JSON.stringify(doc, (_k, v) => (typeof v === 'number' && Number.isNaN(v) ? 'not a number' : v)));
+/** One recompute asked of the live worker, and its answer. */
+export interface LiveRequest {
+  id: number;
+  document: BudgetDocument;
+}
+export interface LiveReply {
+  id: number;
+  outcome: LiveOutcome;
 }
 
-export function evaluateDraft(doc: BudgetDocument): LiveOutcome {
-  const value = clean(doc);
-  const problems = budgetProblems(value);
-  if (problems.length) {
-    return { problems, result: null, valid: null };
-  }
-  try {
-    const result = computeBudget(value as BudgetDocument, { monteCarlo: false });
-    return { problems: [], result, valid: value as BudgetDocument };
-  } catch (e) {
-    if (e instanceof BudgetError) {
-      return { problems: [{ field: e.field ?? '', message: e.message, location: e.location }], result: null, valid: null };
-    }
-    return { problems: [{ field: '', message: (e as Error).message }], result: null, valid: null };
-  }
-}
+/** A live recompute longer than this is stopped: the page never waits on a budget the server computes on save anyway. */
+export const LIVE_TIME_LIMIT_MS = 20_000;
 
 export interface UMove {
   from: number;
   to: number;
 }
 
-/** Recomputes the GUM result on every edit (deferred, so typing stays fluid) and tracks how U moved with the last edit. */
-export function useLiveResult(doc: BudgetDocument) {
+interface Job {
+  id: number;
+  doc: BudgetDocument;
+  timer: ReturnType<typeof setTimeout>;
+}
+
+/**
+ * Recomputes the GUM result on every edit in a Web Worker (deferred, so
+ * typing stays fluid) and tracks how U moved with the last edit. Until the
+ * worker answers, a draft identical to the stored version shows the stored
+ * result; a recompute past LIVE_TIME_LIMIT_MS is stopped and reported as a
+ * problem of the draft.
+ */
+export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDocument; result: BudgetResult } | null) {
   const deferred = useDeferredValue(doc);
-  const outcome = useMemo(() => evaluateDraft(deferred), [deferred]);
+  const [computed, setComputed] = useState<{ doc: BudgetDocument; outcome: LiveOutcome } | null>(null);
+  const [stopped, setStopped] = useState<{ doc: BudgetDocument; seconds: number } | null>(null);
+  const worker = useRef<Worker | null>(null);
+  const job = useRef<Job | null>(null);
+  const waiting = useRef<BudgetDocument | null>(null);
+  const nextId = useRef(1);
+
+  const send = useRef((d: BudgetDocument) => {
+    if (job.current) {
+      // One recompute at a time: the latest draft waits for the one running.
+      waiting.current = d;
+      return;
+    }
+    const w = worker.current ?? new Worker(new URL('./live.worker.ts', import.meta.url), { type: 'module' });
+    if (!worker.current) {
+      worker.current = w;
+      w.onmessage = (e: MessageEvent<LiveReply>) => {
+        const j = job.current;
+        if (!j || e.data.id !== j.id) return;
+        clearTimeout(j.timer);
+        job.current = null;
+        setComputed({ doc: j.doc, outcome: e.data.outcome });
+        setStopped(null);
+        next();
+      };
+      w.onerror = (e) => {
+        const j = job.current;
+        if (!j) return;
+        clearTimeout(j.timer);
+        job.current = null;
+        setComputed({ doc: j.doc, outcome: { problems: [{ field: '', message: `the live recompute failed: ${e.message}` }], result: null, valid: null } });
+        next();
+      };
+    }
+    const id = nextId.current++;
+    const timer = setTimeout(() => {
+      // The worker is busy in the engine and cannot be asked to stop: end it; the next edit starts a fresh one.
+      worker.current?.terminate();
+      worker.current = null;
+      job.current = null;
+      setStopped({ doc: d, seconds: Math.round(LIVE_TIME_LIMIT_MS / 1000) });
+      next();
+    }, LIVE_TIME_LIMIT_MS);
+    job.current = { id, doc: d, timer };
+    w.postMessage({ id, document: d } satisfies LiveRequest);
+  }).current;
+  const next = () => {
+    const d = waiting.current;
+    waiting.current = null;
+    if (d) send(d);
+  };
+
+  useEffect(() => send(deferred), [deferred, send]);
+  useEffect(
+    () => () => {
+      if (job.current) clearTimeout(job.current.timer);
+      job.current = null;
+      waiting.current = null;
+      worker.current?.terminate();
+      worker.current = null;
+    },
+    [],
+  );
+
+  const storedText = useMemo(() => (stored ? JSON.stringify(stored.document) : null), [stored?.document]);
+  const isStored = useMemo(() => storedText !== null && JSON.stringify(deferred) === storedText, [deferred, storedText]);
+
+  const current = computed?.doc === deferred ? computed.outcome : null;
+  const wasStopped = stopped?.doc === deferred ? stopped.seconds : null;
+  const stopNote: Problem[] =
+    wasStopped === null
+      ? []
+      : [{ field: '', message: `live recompute stopped after ${wasStopped} s: this budget takes too long to compute in the page` }];
+  const outcome: LiveOutcome =
+    current ??
+    (isStored && stored
+      ? { problems: stopNote, result: stored.result, valid: deferred }
+      : wasStopped !== null
+        ? { problems: stopNote, result: null, valid: null }
+        : (computed?.outcome ?? { problems: [], result: null, valid: null }));
+
   const lastU = useRef<number | null>(null);
   const [move, setMove] = useState<UMove | null>(null);
   useEffect(() => {
@@ -65,7 +146,7 @@ export function useLiveResult(doc: BudgetDocument) {
     if (lastU.current !== null && lastU.current !== U) setMove({ from: lastU.current, to: U });
     lastU.current = U;
   }, [outcome.result]);
-  return { ...outcome, move, stale: deferred !== doc };
+  return { ...outcome, move, stale: deferred !== doc || (current === null && wasStopped === null && !isStored) };
 }
 
 /** Problems under a field path prefix, e.g. all of `inputs[2]`. */

@@ -199,7 +199,7 @@ function Editor({
   const qc = useQueryClient();
   const save = useSaveBudget();
 
-  const live = useLiveResult(doc);
+  const live = useLiveResult(doc, start);
   const dirty = baseline === '' ? true : JSON.stringify(doc) !== baseline;
   const isNew = budgetId === undefined;
 

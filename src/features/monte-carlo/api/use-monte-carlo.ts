@@ -29,7 +29,7 @@ export function useMonteCarloRun() {
     const shared = typeof SharedArrayBuffer !== 'undefined' && globalThis.crossOriginIsolated ? new SharedArrayBuffer(4) : undefined;
     flag.current = shared ? new Int32Array(shared) : null;
     const startedAt = performance.now();
-    setState({ phase: 'running', done: 0, total: trials === 'adaptive' ? trialsCap : trials, startedAt, trials });
+    setState({ phase: 'running', done: 0, total: trials === 'adaptive' ? trialsCap : Math.min(trials, trialsCap), startedAt, trials });
     w.onmessage = (e: MessageEvent<WorkerMessage>) => {
       const m = e.data;
       if (m.type === 'progress') setState((s) => (s.phase === 'running' ? { ...s, done: m.done, total: m.total } : s));

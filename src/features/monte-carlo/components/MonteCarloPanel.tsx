@@ -5,12 +5,13 @@ import { Button, Field, Select, Spinner, TextInput } from '../../../app/ui/contr
 import { formatCount, formatSignificant, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
 import { Unit } from '../../../app/ui/quantity';
 import { formatUnit } from '../../../app/ui/units';
+import { DEFAULTS } from '../../../../shared/budget/limits';
+import { useComputeLimits } from '../api/compute-limits';
 import { useMonteCarloRun } from '../api/use-monte-carlo';
 
 const HistogramPlot = lazy(() => import('./HistogramPlot'));
 
-const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000];
-const BROWSER_CAP = 5_000_000;
+const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000, 5_000_000];
 
 function seconds(ms: number): string {
   if (ms < 1000) return `${Math.round(ms)} ms`;
@@ -91,13 +92,18 @@ function Comparison({ result, unit }: { result: BudgetResult; unit?: string }) {
 
 export function MonteCarloPanel({ document, gum, measurand, stored, settings, onSettings, readOnly }: MonteCarloSlotProps) {
   const { state, run, cancel } = useMonteCarloRun();
+  // A run in the browser uses the server's cap, so the run a save stores is the run seen here (JCGM 101:2008 7.2).
+  const limits = useComputeLimits();
+  const cap = limits.data?.trialsCap ?? null;
   const [localTrials, setLocalTrials] = useState<number | 'adaptive'>(() => {
     const t = settings?.trials;
-    return t === 'adaptive' ? 'adaptive' : typeof t === 'number' ? Math.min(t, BROWSER_CAP) : 200_000;
+    return t === 'adaptive' ? 'adaptive' : typeof t === 'number' ? t : DEFAULTS.trials;
   });
-  const [localSeed, setLocalSeed] = useState(() => String(settings?.seed ?? 'dubito'));
-  const trials = readOnly ? localTrials : settings?.trials === 'adaptive' ? 'adaptive' : typeof settings?.trials === 'number' ? settings.trials : localTrials;
-  const seed = readOnly ? localSeed : String(settings?.seed ?? localSeed);
+  const [localSeed, setLocalSeed] = useState(() => String(settings?.seed ?? DEFAULTS.seed));
+  // Unset in the budget, trials and seed are the defaults a save uses too.
+  const trials = readOnly ? localTrials : settings?.trials === 'adaptive' ? 'adaptive' : typeof settings?.trials === 'number' ? settings.trials : DEFAULTS.trials;
+  const seed = readOnly ? localSeed : String(settings?.seed ?? DEFAULTS.seed);
+  const overCap = cap !== null && typeof trials === 'number' && trials > cap;
   const unit = formatUnit(measurand.unit);
 
   const shown = state.phase === 'done' ? { result: state.result, label: `run in this browser in ${seconds(state.ms)}` } : state.phase === 'idle' ? stored : null;
@@ -129,8 +135,9 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
           {(p) => (
             <Select {...p} value={String(trials)} disabled={running} onChange={(e) => setTrials(e.target.value === 'adaptive' ? 'adaptive' : Number(e.target.value))}>
               {choices.map((t) => (
-                <option key={t} value={t} disabled={t > BROWSER_CAP}>
+                <option key={t} value={t} disabled={cap !== null && t > cap}>
                   {formatCount(t)}
+                  {cap !== null && t > cap ? ' (above the server cap)' : ''}
                 </option>
               ))}
               <option value="adaptive">adaptive (JCGM 101 7.9)</option>
@@ -146,13 +153,34 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
               Cancel
             </Button>
           ) : (
-            <Button variant="primary" disabled={!document} onClick={() => document && run(document, trials, seed, BROWSER_CAP)} title={document ? undefined : 'Fix the problems of the budget first'}>
+            <Button
+              variant="primary"
+              disabled={!document || cap === null}
+              onClick={() => document && cap !== null && run(document, trials, seed, cap)}
+              title={!document ? 'Fix the problems of the budget first' : cap === null ? 'Reading the server limits' : undefined}
+            >
               Run Monte Carlo
             </Button>
           )}
         </div>
       </div>
 
+      {cap !== null ? (
+        <p className="mt-2 text-xs text-stone-600">
+          A saved version stores at most <span className="num">{formatCount(cap)}</span> trials, computed on the server with this seed: the browser runs with the same cap, so the
+          stored result is the one seen here.
+          {overCap ? (
+            <span className="text-caution-700">
+              {' '}
+              These settings ask for <span className="num">{formatCount(trials as number)}</span>; the run and the save use <span className="num">{formatCount(cap)}</span>.
+            </span>
+          ) : null}
+        </p>
+      ) : limits.isError ? (
+        <p role="alert" className="mt-2 text-xs text-caution-700">
+          The server's trials cap could not be read, so a run here might differ from the stored one; reload the page to try again.
+        </p>
+      ) : null}
       {running ? (
         <div className="mt-3" aria-live="polite">
           <div className="flex justify-between text-xs text-stone-700">
