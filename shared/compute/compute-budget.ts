@@ -2,7 +2,7 @@ import { BudgetError } from '../budget/budget-error';
 import { DEFAULTS, LIMITS } from '../budget/limits';
 import type { BudgetResult, MonteCarloResult, ValidationResult } from '../budget/result';
 import type { BudgetDocument } from '../budget/schema';
-import { gumTreatment, samplerFor } from '../distributions/registry';
+import { gumTreatment, inputKurtosis, samplerFor } from '../distributions/registry';
 import { propagateGum, type GumInput } from '../gum/propagate';
 import { compileCached } from './model-cache';
 import {
@@ -96,6 +96,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     unit: q.unit,
     kind: q.distribution.kind,
     ...treatments[i],
+    kurtosis: inputKurtosis(q.distribution),
   }));
   const estimates = inputs.map((q) => q.estimate);
   const lineValues = model.lineValues(estimates);
