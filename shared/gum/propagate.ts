@@ -64,6 +64,13 @@ export function propagateGum(
   for (const s of disagreements) {
     warnings.push(`The symbolic and numerical derivatives for "${s}" disagree: the model may not be smooth at the estimates; check the Monte Carlo result.`);
   }
+  methods.forEach((m, i) => {
+    if (m === 'numeric' && u[i] > 0 && steps[i] > u[i]) {
+      warnings.push(
+        `The numerical derivative for "${inputs[i].symbol}" needs a step (${steps[i].toPrecision(2)}) wider than u(x) to resolve the model value in floating point: where the model is not smooth within that step, c is an average slope; check the Monte Carlo result.`,
+      );
+    }
+  });
   const variance = combinedVariance(c, u, correlation);
   const standardUncertainty = Math.sqrt(Math.max(variance, 0));
   const contributionValues = c.map((ci, i) => Math.abs(ci * u[i]));

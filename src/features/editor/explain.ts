@@ -168,9 +168,9 @@ export function explainResult(result: BudgetResult, item: 'y' | 'uc' | 'nu' | 'k
         title: 'Coverage factor k',
         steps: [
           {
-            formula: 'k = t_p(ν), ν = ν_eff truncated to an integer',
-            substituted: `p = ${+(g.coverageProbability * 100).toFixed(2)} %, ν = ${g.effectiveDof === null ? '∞' : Math.floor(g.effectiveDof)}  →  k = ${g.coverageFactor.toFixed(3)}`,
-            clause: 'GUM G.3.4, G.4.1, Table G.2',
+            formula: 'k = t_p(ν_eff) at the real ν_eff',
+            substituted: `p = ${+(g.coverageProbability * 100).toFixed(2)} %, ν = ${formatDof(g.effectiveDof)}  →  k = ${g.coverageFactor.toFixed(3)}`,
+            clause: 'GUM G.3.4, G.4.1 note, Table G.2',
           },
         ],
       };
