@@ -39,10 +39,13 @@ export interface GumResult {
  * Why the GUM figures must not go to U, an interval or a statement:
  * - `first-order-vanishes`: u_c = 0 at first order while the higher-order terms
  *   of JCGM 100:2008 5.1.2 are not (e.g. a product of two zero-mean inputs);
- *   the linearization fails and y ± 0 would be false. Report the Monte Carlo result.
+ *   the linearization fails and y ± 0 would be false;
+ * - `higher-order-dominates`: the higher-order terms exceed the first-order
+ *   variance (u_c with them > √2·u_c), so the first-order u_c is off by more than 40 %.
+ * In both, report the Monte Carlo result.
  */
 export interface GumUnreportable {
-  reason: 'first-order-vanishes';
+  reason: 'first-order-vanishes' | 'higher-order-dominates';
   message: string;
 }
 

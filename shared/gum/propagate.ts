@@ -1,8 +1,9 @@
 import { BudgetError } from '../budget/budget-error';
-import type { Contribution, GumResult, GumUnreportable } from '../budget/result';
+import type { Contribution, GumResult } from '../budget/result';
 import type { CompiledModel } from '../model/compile-model';
 import { coverageFactorFor } from '../statistics/student-t';
 import { combinedVariance } from './combined-uncertainty';
+import { firstOrderRefusal } from './first-order-refusal';
 import { NORMAL_KURTOSIS, secondOrderTerms } from './second-order';
 import { centralDifference, sensitivityCoefficients } from './sensitivity';
 import { effectiveDegreesOfFreedom } from './welch-satterthwaite';
@@ -38,8 +39,8 @@ export const SECOND_ORDER_MAX_INPUTS = 100;
  * (`effectiveDegreesOfFreedom`), k = t_p(ν_eff) at the real ν_eff (G.4.1 note,
  * G.3), U = k·u_c (6.2.1) and the interval y ± U.
  * Refuses a budget in which no input the model uses has an uncertainty.
- * Marks the result `unreportable` when u_c = 0 at first order while the
- * higher-order terms are not.
+ * Marks the result `unreportable` when the higher-order terms show that the
+ * first-order u_c fails (`firstOrderRefusal`).
  */
 export function propagateGum(
   model: CompiledModel,
@@ -109,16 +110,8 @@ export function propagateGum(
     }
   }
 
-  let unreportable: GumUnreportable | undefined;
-  if (standardUncertainty === 0 && standardUncertaintySecondOrder !== null && standardUncertaintySecondOrder > 0) {
-    unreportable = {
-      reason: 'first-order-vanishes',
-      message:
-        `The first-order law of propagation gives u_c = 0 but the higher-order terms give u_c = ${standardUncertaintySecondOrder.toPrecision(3)}: ` +
-        'every sensitivity coefficient vanishes at the estimates, so y ± U from u_c would be false. Do not report it; use the Monte Carlo result.',
-    };
-    warnings.push(`NOT REPORTABLE: ${unreportable.message}`);
-  }
+  const unreportable = firstOrderRefusal(standardUncertainty, standardUncertaintySecondOrder);
+  if (unreportable) warnings.push(`NOT REPORTABLE: ${unreportable.message}`);
 
   const effectiveDof = effectiveDegreesOfFreedom(
     c,

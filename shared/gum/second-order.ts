@@ -24,8 +24,9 @@ function gradientStep(x: number, u: number): number {
  * which is the note's term at β₂ = 3 (the mixed terms i ≠ j need only the
  * variances). For y = x², x rectangular 1 ± 1: the note gives u² = 4/3 + 2/9,
  * u = 1.247; with β₂ = 9/5, u² = 4/3 + 4/45, u = 1.193, the exact value.
- * An input with β₂ = ∞ (t with ν ≤ 4) has no fourth moment: its terms are left
- * out and it is listed in `omitted`.
+ * An input with β₂ = ∞ (t with ν ≤ 4) has no fourth moment: where the model is
+ * curved in it (∂²f/∂x_i²·u or ∂³f/∂x_i³·u² above 10⁻⁶ of ∂f/∂x_i) its diagonal term is left out and it
+ * is listed in `omitted`; its mixed terms need only u² and stay.
  *
  * The second and third derivatives are central differences of the first
  * derivatives g_i = `partials[i]` (symbolic where possible): with step h_j,
@@ -57,14 +58,7 @@ export function secondOrderTerms(
 ): { variance: number; omitted: number[] } {
   const N = x.length;
   const omitted: number[] = [];
-  const enters = x.map((_, i) => {
-    if (!(u[i] > 0)) return false;
-    if (!Number.isFinite(kurtosis[i])) {
-      omitted.push(i);
-      return false;
-    }
-    return true;
-  });
+  const enters = x.map((_, i) => u[i] > 0);
   // A derivative g_i whose code does not read x_j gives exactly g_i(x) at x ± h_j e_j: both of its
   // differences are 0, so it is not evaluated (null reads: may read anything).
   const readers: number[][] = Array.from({ length: N }, () => []);
@@ -91,10 +85,17 @@ export function secondOrderTerms(
       at[j] = x[j];
       const fij = (up - down) / (2 * step);
       const fijj = (up - 2 * g0[i] + down) / (step * step);
-      const term =
-        i === j
-          ? 0.25 * (kurtosis[i] - 1) * fij * fij + (kurtosis[i] / 3) * g0[i] * fijj
-          : 0.5 * fij * fij + g0[i] * fijj;
+      let term = 0.5 * fij * fij + g0[i] * fijj;
+      if (i === j) {
+        if (!Number.isFinite(kurtosis[i])) {
+          // Straight in x_i over its spread (to 10⁻⁶ of the slope): the diagonal term is nil whatever β₂.
+          const scale = 1e-6 * Math.abs(g0[i]);
+          if (Math.abs(fij) * u[i] <= scale && Math.abs(fijj) * u[i] * u[i] <= scale) continue;
+          omitted.push(i);
+          continue;
+        }
+        term = 0.25 * (kurtosis[i] - 1) * fij * fij + (kurtosis[i] / 3) * g0[i] * fijj;
+      }
       sum += term * u[i] * u[i] * u[j] * u[j];
     }
   }

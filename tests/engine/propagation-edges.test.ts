@@ -165,6 +165,12 @@ describe('higher-order terms (JCGM 100:2008 5.1.2 note) with each input\'s kurto
     expect(r.gum.standardUncertaintySecondOrder!).toBeCloseTo(Math.sqrt(0.08 + 2e-4), 6);
   });
 
+  it('a t input with ν ≤ 4 in which the model is straight needs no fourth moment: nothing left out', () => {
+    const r = computeBudget(budget('Y = x + z^2', { x: { kind: 'student-t', value: 1, scale: 0.1, dof: 3 } as Distribution, z: N(1, 0.1) }), gumOnly);
+    expect(r.gum.secondOrderOmitted).toBeUndefined();
+    expect(r.gum.standardUncertaintySecondOrder!).toBeCloseTo(Math.sqrt(0.01 + 0.04 + 2e-4), 6);
+  });
+
   it('u_c = 0 at first order but not at second (product of two zero-mean inputs): flagged unreportable, warned', () => {
     const r = computeBudget(budget('Y = a * b', { a: N(0, 0.1), b: N(0, 0.2) }), gumOnly);
     expect(r.gum.standardUncertainty).toBe(0);
@@ -223,5 +229,20 @@ describe('numerical sensitivity coefficients at 10⁻¹² relative uncertainty (
     const exact = -1e7 / 9999999.999 ** 2;
     expect(Math.abs(r.gum.contributions[1].sensitivity / exact - 1)).toBeLessThan(1e-9);
     expect(r.warnings.filter((w) => w.includes('may not be smooth'))).toEqual([]);
+  });
+});
+
+describe('the first-order law fails against its higher-order terms (JCGM 100:2008 5.1.2 note)', () => {
+  it('terms above the first-order variance: flagged higher-order-dominates', () => {
+    // y = x², x normal 0.1 ± 0.5: first order u_c = 2·0.1·0.5 = 0.1; with the terms √(0.01 + 2·0.0625) = 0.367 (handbook Var(X²))
+    const r = computeBudget(budget('Y = x^2', { x: N(0.1, 0.5) }), gumOnly);
+    expect(r.gum.standardUncertainty).toBeCloseTo(0.1, 12);
+    expect(r.gum.standardUncertaintySecondOrder!).toBeCloseTo(Math.sqrt(0.01 + 0.125), 6);
+    expect(r.gum.unreportable?.reason).toBe('higher-order-dominates');
+  });
+
+  it('terms small against the first order: nothing flagged (H.1 end gauge: 32 → 34 nm is not flagged either)', () => {
+    const r = computeBudget(budget('Y = x^2', { x: N(1, 0.1) }), gumOnly);
+    expect(r.gum.unreportable).toBeUndefined();
   });
 });
