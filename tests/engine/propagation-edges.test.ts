@@ -117,6 +117,21 @@ describe('only constants in a budget: refused, never an internal error', () => {
     expect(() => computeBudget(budget('Y = 2 * b', { a: N(1, 0.1), b: { kind: 'constant', value: 2 } as Distribution }), { trials: 10_000 })).toThrow(BudgetError);
   });
 
+  it('u = 0 everywhere by both methods (Y = 0·a; a − b fully correlated with equal estimates): reported plainly, no internal error', () => {
+    for (const doc of [
+      budget('Y = 0 * a', { a: N(1, 0.1) }),
+      budget('Y = a - b', { a: N(1, 0.1), b: N(1, 0.1) }, { correlations: [{ between: ['a', 'b'], r: 1 }] }),
+    ]) {
+      const r = computeBudget(doc, { trials: 10_000 });
+      expect(r.gum.standardUncertainty).toBe(0);
+      expect(r.gum.expandedUncertainty).toBe(0);
+      expect(r.monteCarlo!.standardUncertainty).toBe(0);
+      // no δ exists at u = 0 (JCGM 101:2008 8.2): the intervals coincide exactly
+      expect(r.validation).toMatchObject({ dLow: 0, dHigh: 0, passed: true });
+      expect(r.warnings).toContain('Every Monte Carlo trial gave the same value: the measurand does not vary with the inputs, u = 0.');
+    }
+  });
+
   it('the CLI exits 2 with the message', () => {
     const root = join(__dirname, '..', '..');
     const dir = mkdtempSync(join(tmpdir(), 'dubito-constants-'));
