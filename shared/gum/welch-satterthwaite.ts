@@ -34,7 +34,7 @@ export function welchSatterthwaite(terms: readonly VarianceTerm[]): number {
  * with c_i·u_i ≠ 0 — exact when they are the coefficients of one least-squares
  * fit, where any linear combination of them has a variance estimate s²·(const.)
  * with the fit's ν = n − p (JCGM 100:2008 H.3.6: the predicted correction of a
- * straight-line calibration, ν = n − 2 with r(y₁, y₂) = −0.930). When the ν of
+ * straight-line calibration, ν = n − 2 with r(y₁, y₂) = −0.930, from memory). When the ν of
  * a group's members differ, the group takes the smallest of them: a
  * conservative choice (a smaller ν gives a larger k). An uncorrelated input is
  * its own group, so without correlations this is eq. G.2b input by input.

@@ -39,7 +39,7 @@ describe('Welch–Satterthwaite with correlated inputs: each correlated group is
     expect(r.warnings.join(' ')).not.toContain('only indicative');
   });
 
-  it('coefficients of one straight-line fit give ν_eff = n − 2 (JCGM 100:2008 H.3.6: ν = n − 2 for the predicted correction)', () => {
+  it('coefficients of one straight-line fit give ν_eff = n − 2 (JCGM 100:2008 H.3.6, from memory: ν = n − 2 for the predicted correction)', () => {
     // Invented calibration data, n = 6, fitted by numpy.linalg.lstsq (recomputed for this test):
     // a = 0.013, b = 0.009842857 /unit, u(a) = 0.0075957381534146, u(b) = 0.00019504055046715, r(a, b) = −0.89871703427
     const ua = 0.0075957381534145964;
