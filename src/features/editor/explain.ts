@@ -155,7 +155,9 @@ export function explainResult(result: BudgetResult, item: 'y' | 'uc' | 'nu' | 'k
             substituted:
               g.effectiveDof === null
                 ? 'every νᵢ is infinite, so ν_eff = ∞'
-                : `ν_eff = ${f(g.standardUncertainty, 3)}⁴ / (${contributions
+                : correlated
+                  ? `each group of correlated inputs is one term, with its covariances and the smallest ν of the group: ν_eff = ${formatDof(g.effectiveDof)}`
+                  : `ν_eff = ${f(g.standardUncertainty, 3)}⁴ / (${contributions
                     .filter((c) => c.dof !== null)
                     .map((c) => `${f(c.contribution, 3)}⁴/${formatDof(c.dof)}`)
                     .join(' + ')}) = ${formatDof(g.effectiveDof)}`,
