@@ -8,7 +8,8 @@ import { BudgetError } from '../../shared/budget/budget-error';
 import { computeBudget } from '../../shared/compute/compute-budget';
 import { effectiveDegreesOfFreedom, welchSatterthwaite } from '../../shared/gum/welch-satterthwaite';
 import { correlationGroups } from '../../shared/gum/correlation-groups';
-import { centralDifference, sensitivityCoefficients } from '../../shared/gum/sensitivity';
+import { centralDifference, differenceStep, modelResolutionStep, sensitivityCoefficients } from '../../shared/gum/sensitivity';
+import { firstOrderRefusal } from '../../shared/gum/first-order-refusal';
 import { SECOND_ORDER_MAX_INPUTS } from '../../shared/gum/propagate';
 import { shapeKurtosis } from '../../shared/distributions/kurtosis';
 import { compileModel } from '../../shared/model/compile-model';
@@ -218,6 +219,16 @@ describe('numerical sensitivity coefficients at 10⁻¹² relative uncertainty (
   const u = [1e-5, 1e-12];
   const compile = (model: string) => compileModel({ model, measurand: { symbol: 'y' }, inputs: [{ symbol: 'f' }, { symbol: 'delta' }], constants: [] });
 
+  it('the step: max(10⁻³u, √ε|x|, the model-resolution floor ε|y|/(10⁻⁸·slope)) (common practice of numerical differentiation)', () => {
+    // f: √ε·10⁷ = 0.149 Hz; δ: the slope that matters is max(c, s/u) = max(10⁷, 2·10⁻⁵/10⁻¹²) = 2·10⁷,
+    // so h = ε·10⁷/(10⁻⁸·2·10⁷) = 1.11·10⁻⁸ from the model value's resolution
+    expect(differenceStep(f, 1e-5)).toBeCloseTo(Math.sqrt(Number.EPSILON) * f, 15);
+    expect(modelResolutionStep(f, f, 1e-12, 2e-5)).toBeCloseTo(Number.EPSILON / 2e-8, 20);
+    expect(differenceStep(0, 1e-12, modelResolutionStep(f, f, 1e-12, 2e-5))).toBeCloseTo(1.110223e-8, 13);
+    // an ordinary budget keeps the local step 10⁻³·u: x = 1, u = 0.01
+    expect(differenceStep(1, 0.01, modelResolutionStep(1, 1, 0.01, 0.01))).toBe(1e-5);
+  });
+
   it('a step of 10⁻³·u alone lies below the resolution of a double and gives c wrong by percents', () => {
     const m = compile('y = f * (1 + delta)');
     const naive = [centralDifference(m.value, x, 0, 1e-3 * u[0]), centralDifference(m.value, x, 1, 1e-3 * u[1])];
@@ -255,6 +266,14 @@ describe('numerical sensitivity coefficients at 10⁻¹² relative uncertainty (
 });
 
 describe('the first-order law fails against its higher-order terms (JCGM 100:2008 5.1.2 note)', () => {
+  it('firstOrderRefusal: 0 against > 0, and above √2', () => {
+    expect(firstOrderRefusal(0, 0.02)?.reason).toBe('first-order-vanishes');
+    expect(firstOrderRefusal(1, 1.5)?.reason).toBe('higher-order-dominates');
+    expect(firstOrderRefusal(1, 1.4)).toBeUndefined();
+    expect(firstOrderRefusal(0, null)).toBeUndefined();
+    expect(firstOrderRefusal(0, 0)).toBeUndefined();
+  });
+
   it('terms above the first-order variance: flagged higher-order-dominates', () => {
     // y = x², x normal 0.1 ± 0.5: first order u_c = 2·0.1·0.5 = 0.1; with the terms √(0.01 + 2·0.0625) = 0.367 (handbook Var(X²))
     const r = computeBudget(budget('Y = x^2', { x: N(0.1, 0.5) }), gumOnly);
