@@ -26,9 +26,27 @@ export interface GumResult {
   expandedUncertainty: number;
   interval: [number, number];
   standardUncertaintySecondOrder: number | null;
+  /** Inputs the higher-order terms leave out (t with ν ≤ 4: no fourth moment); absent when none. */
+  secondOrderOmitted?: string[];
+  /** Set when u_c, k and U of the first-order law must not be reported (see `GumUnreportable`). */
+  unreportable?: GumUnreportable;
   contributions: Contribution[];
   /** Intermediate quantities of the model at the estimates, in coherent SI units. */
   intermediates: { symbol: string; value: number; unit: string }[];
+}
+
+/**
+ * Why the GUM figures must not go to U, an interval or a statement:
+ * - `first-order-vanishes`: u_c = 0 at first order while the higher-order terms
+ *   of JCGM 100:2008 5.1.2 are not (e.g. a product of two zero-mean inputs);
+ *   the linearization fails and y ± 0 would be false;
+ * - `higher-order-dominates`: the higher-order terms exceed the first-order
+ *   variance (u_c with them > √2·u_c), so the first-order u_c is off by more than 40 %.
+ * In both, report the Monte Carlo result.
+ */
+export interface GumUnreportable {
+  reason: 'first-order-vanishes' | 'higher-order-dominates';
+  message: string;
 }
 
 export interface HistogramBins {

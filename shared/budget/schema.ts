@@ -16,10 +16,34 @@ const symbolName = z
   });
 const unitText = z.string({ error: 'must be a unit expression such as "mg" or "kg/m^3"' }).max(100);
 
+/**
+ * Degrees of freedom ν ≥ 1. Below 1 the coverage factor t_p(ν) runs away
+ * (t₀.₉₇₅(1) = 12.7 and t_p(ν) → ∞ as ν → 0) and no longer describes a
+ * reliability of u that a laboratory could state (JCGM 100:2008 G.4.2, G.3).
+ */
+const degreesOfFreedom = () =>
+  positive().refine((v) => !(v > 0) || v >= 1, {
+    message: 'must be at least 1: below 1 degree of freedom the coverage factor t_p(ν) is unbounded (JCGM 100:2008 G.3, G.4.2)',
+  });
+
+/** Largest relative uncertainty of u: ½·(Δu/u)⁻² = 1 at Δu/u = 1/√2 (JCGM 100:2008 G.4.2). */
+export const MAX_RELATIVE_UNCERTAINTY_OF_U = Math.SQRT1_2;
+
+/**
+ * Δu/u as a fraction, 0 < Δu/u ≤ 1/√2, so that ν = ½·(Δu/u)⁻² ≥ 1 (JCGM 100:2008 G.4.2):
+ * above 1 it is a percentage typed as a number; between 1/√2 and 1 it gives ν < 1.
+ */
+const relativeUncertaintyOfU = () =>
+  positive()
+    .refine((v) => !(v > 1), { message: 'is the relative uncertainty of u as a fraction, at most 1: write 0.10 for 10 %' })
+    .refine((v) => !(v > MAX_RELATIVE_UNCERTAINTY_OF_U && v <= 1), {
+      message: 'must be at most 0.707: ν = ½·(Δu/u)⁻² falls below 1 degree of freedom, where the coverage factor is unbounded (JCGM 100:2008 G.4.2)',
+    });
+
 /** Fields every distribution kind may carry; both act on ν only (GUM G.4.2). */
 const dofOptions = {
-  dof: positive().optional(),
-  relativeUncertaintyOfU: positive().optional(),
+  dof: degreesOfFreedom().optional(),
+  relativeUncertaintyOfU: relativeUncertaintyOfU().optional(),
 };
 
 const normal = z.looseObject({
@@ -68,8 +92,8 @@ const studentT = z.looseObject({
   kind: z.literal('student-t'),
   value: finite(),
   scale: positive(),
-  dof: positive(),
-  relativeUncertaintyOfU: positive().optional(),
+  dof: degreesOfFreedom(),
+  relativeUncertaintyOfU: relativeUncertaintyOfU().optional(),
 });
 const observations = z.looseObject({
   kind: z.literal('observations'),
@@ -78,7 +102,7 @@ const observations = z.looseObject({
     .min(2, { message: 'needs at least 2 observations' })
     .max(LIMITS.observations, { message: `allows at most ${LIMITS.observations} observations` }),
   pooledSd: positive().optional(),
-  pooledDof: positive().optional(),
+  pooledDof: degreesOfFreedom().optional(),
   ...dofOptions,
 });
 const constant = z.looseObject({

@@ -2,7 +2,7 @@ import { BudgetError } from '../budget/budget-error';
 import { DEFAULTS, LIMITS } from '../budget/limits';
 import type { BudgetResult, MonteCarloResult, ValidationResult } from '../budget/result';
 import type { BudgetDocument } from '../budget/schema';
-import { gumTreatment, samplerFor } from '../distributions/registry';
+import { gumTreatment, inputKurtosis, samplerFor } from '../distributions/registry';
 import { propagateGum, type GumInput } from '../gum/propagate';
 import { compileCached } from './model-cache';
 import {
@@ -96,6 +96,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     unit: q.unit,
     kind: q.distribution.kind,
     ...treatments[i],
+    kurtosis: inputKurtosis(q.distribution),
   }));
   const estimates = inputs.map((q) => q.estimate);
   const lineValues = model.lineValues(estimates);
@@ -163,12 +164,21 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
       shortestInterval: run.shortestInterval,
       histogram: run.histogram,
     };
-    validation = validateGumInterval(
-      { y: gum.result.estimate, U: gum.result.expandedUncertainty },
-      run.interval,
-      run.standardUncertainty,
-      significantDigits,
-    );
+    if (run.standardUncertainty > 0) {
+      validation = validateGumInterval(
+        { y: gum.result.estimate, U: gum.result.expandedUncertainty },
+        run.interval,
+        run.standardUncertainty,
+        significantDigits,
+      );
+    } else {
+      // Every trial gave one value: no δ exists (JCGM 101:2008 8.2 needs u > 0), so the intervals must coincide exactly.
+      const dLow = Math.abs(gum.result.interval[0] - run.interval[0]);
+      const dHigh = Math.abs(gum.result.interval[1] - run.interval[1]);
+      const same = dLow === 0 && dHigh === 0;
+      validation = { significantDigits, tolerance: 0, dLow, dHigh, passed: same, verdict: same ? 'validated' : 'not-validated', reason: 'every Monte Carlo trial gave the same value: u = 0' };
+      warnings.push('Every Monte Carlo trial gave the same value: the measurand does not vary with the inputs, u = 0.');
+    }
   }
 
   return {

@@ -9,6 +9,7 @@ import { curvilinearTrapezoidalRule } from './curvilinear-trapezoidal';
 import { studentTRule } from './student-t';
 import { observationsRule } from './observations';
 import { constantRule } from './constant';
+import { shapeKurtosis } from './kurtosis';
 
 /** Every kind of the budget file has its rule; a kind left out fails to compile. */
 const RULES: { [K in DistributionKind]: DistributionRule<K> } = {
@@ -29,7 +30,8 @@ function ruleFor<K extends DistributionKind>(spec: DistributionOf<K>): Distribut
 
 /**
  * Effective degrees of freedom from the relative uncertainty of u:
- * ν ≈ ½·(Δu/u)⁻² (GUM G.4.2, eq. G.3).
+ * ν ≈ ½·(Δu/u)⁻² (GUM G.4.2, eq. G.3). The budget schema admits
+ * 0 < Δu/u ≤ 1/√2, so that ν ≥ 1 (see `RELATIVE_UNCERTAINTY_OF_U_LIMITS`).
  */
 export function dofFromRelativeUncertainty(relativeUncertaintyOfU: number): number {
   return 0.5 / (relativeUncertaintyOfU * relativeUncertaintyOfU);
@@ -47,6 +49,15 @@ export function gumTreatment(spec: Distribution): GumTreatment {
   }
   if (spec.dof !== undefined) return { ...base, dof: spec.dof };
   return base;
+}
+
+/**
+ * Kurtosis β₂ of the shape an input is drawn from (`shapeKurtosis`), with the
+ * ν the sampler uses (the rule's own, never an override): what the
+ * higher-order terms of the law of propagation need beyond (x, u).
+ */
+export function inputKurtosis(spec: Distribution): number {
+  return shapeKurtosis(spec, ruleFor(spec).treat(spec).dof);
 }
 
 /** The Monte Carlo sampler of an input (JCGM 101:2008 6.4); overrides of ν never change it. */

@@ -30,11 +30,33 @@ export function formatAtExponent(x: number, exponent: number): string {
   return exponent < 0 ? roundToExponent(x, exponent).toFixed(-exponent) : roundToExponent(x, exponent).toFixed(0);
 }
 
+/** Significant digits of a binary double beyond which its decimal digits are representation noise. */
+const DOUBLE_SIGNIFICANT_DIGITS = 15;
+
+/**
+ * The place 10^exponent of the last significant digit of x as written with at
+ * most 15 significant digits (0.5 → −1, 1200 → 2, 0.1 + 0.2 → −1); 0 for 0.
+ */
+export function lastDigitExponent(x: number): number {
+  if (x === 0 || !Number.isFinite(x)) return 0;
+  const [mantissa, exp] = Math.abs(x).toExponential(DOUBLE_SIGNIFICANT_DIGITS - 1).split('e');
+  const digits = mantissa.replace('.', '').replace(/0+$/, '');
+  return Number(exp) - (digits.length - 1);
+}
+
 /**
  * Rounds an estimate and its uncertainty together: the uncertainty to two
  * significant digits, the estimate to the same decimal place (JCGM 100:2008 7.2.6).
+ * An uncertainty of 0 (e.g. the difference of two fully correlated inputs) sets
+ * no decimal place, so the estimate keeps its own significant digits
+ * (`lastDigitExponent`) and the uncertainty is written at that place: 0.5 with
+ * U = 0 gives 0.5 and 0.0, never 1 and 0.
  */
 export function roundResult(estimate: number, uncertainty: number, significantDigits = 2): { estimate: string; uncertainty: string; exponent: number } {
+  if (uncertainty === 0) {
+    const exponent = Math.min(lastDigitExponent(estimate), 0);
+    return { estimate: formatAtExponent(estimate, exponent), uncertainty: formatAtExponent(0, exponent), exponent };
+  }
   const r = roundUncertainty(uncertainty, significantDigits);
   return { estimate: formatAtExponent(estimate, r.exponent), uncertainty: formatAtExponent(uncertainty, r.exponent), exponent: r.exponent };
 }

@@ -23,11 +23,15 @@ export function studentTQuantile(p: number, dof: number): number {
 
 /**
  * Coverage factor k_p = t_{(1+p)/2}(ν) for a two-sided coverage probability p
- * (GUM G.3.4, Table G.2), with ν truncated to the next lower integer (GUM G.4.1);
- * ν below 1 is used as given. ν = ∞ gives the normal factor (1.96 for p = 0.95).
+ * (GUM G.3.4, Table G.2) at the real ν, so that k is the factor of the ν_eff
+ * the result states. The note to GUM G.4.1 truncates ν_eff to an integer only
+ * for reading Table G.2 and allows interpolation; the quantile of the
+ * t-distribution is defined for every real ν > 0, and computing it there is
+ * exact where truncation makes k larger than the stated ν_eff implies.
+ * ν = ∞ gives the normal factor (1.96 for p = 0.95). Holds for ν > 0; the
+ * engine refuses ν < 1 before it gets here (budget schema, JCGM 100:2008 G.4.2).
  */
 export function coverageFactorFor(p: number, dof: number): number {
   if (!(p > 0 && p < 1)) throw new RangeError(`coverage probability must lie strictly between 0 and 1 (got ${p})`);
-  const nu = dof === Infinity ? Infinity : dof >= 1 ? Math.floor(dof) : dof;
-  return studentTQuantile((1 + p) / 2, nu);
+  return studentTQuantile((1 + p) / 2, dof);
 }

@@ -32,6 +32,13 @@ describe('budget refusals', () => {
     ['d > a', (d) => (d.inputs[1].distribution = { kind: 'curvilinear-trapezoidal', value: 2, halfWidth: 1, halfWidthUncertainty: 2 }), 'inputs[1].distribution.halfWidthUncertainty', 'must not exceed'],
     ['scale ≤ 0', (d) => (d.inputs[1].distribution = { kind: 'student-t', value: 2, scale: -1, dof: 3 }), 'inputs[1].distribution.scale', 'greater than 0'],
     ['dof ≤ 0', (d) => (d.inputs[0].distribution.dof = 0), 'inputs[0].distribution.dof', 'greater than 0'],
+    // JCGM 100:2008 G.4.2: ν = ½·(Δu/u)⁻²; 10 typed for 10 % gave ν = 0.005 and k = ∞
+    ['relativeUncertaintyOfU typed as a percentage', (d) => (d.inputs[0].distribution.relativeUncertaintyOfU = 10), 'inputs[0].distribution.relativeUncertaintyOfU', 'write 0.10 for 10 %'],
+    // Δu/u = 0.8 gives ν = 0.78 < 1
+    ['relativeUncertaintyOfU giving ν < 1', (d) => (d.inputs[0].distribution.relativeUncertaintyOfU = 0.8), 'inputs[0].distribution.relativeUncertaintyOfU', 'below 1 degree of freedom'],
+    ['dof below 1', (d) => (d.inputs[0].distribution.dof = 0.5), 'inputs[0].distribution.dof', 'at least 1'],
+    ['student-t dof below 1', (d) => (d.inputs[1].distribution = { kind: 'student-t', value: 2, scale: 1, dof: 0.9 }), 'inputs[1].distribution.dof', 'at least 1'],
+    ['pooledDof below 1', (d) => (d.inputs[1].distribution = { kind: 'observations', values: [1, 2], pooledSd: 0.1, pooledDof: 0.5 }), 'inputs[1].distribution.pooledDof', 'at least 1'],
     ['dof and relativeUncertaintyOfU', (d) => Object.assign(d.inputs[0].distribution, { dof: 3, relativeUncertaintyOfU: 0.1 }), 'inputs[0].distribution.relativeUncertaintyOfU', 'not both'],
     ['one observation', (d) => (d.inputs[1].distribution = { kind: 'observations', values: [1] }), 'inputs[1].distribution.values', 'at least 2'],
     ['non-numeric observation', (d) => (d.inputs[1].distribution = { kind: 'observations', values: [1, 'x'] }), 'inputs[1].distribution.values[1]', 'number'],

@@ -39,9 +39,19 @@ describe('coverage factors of GUM Table G.2 (from memory)', () => {
 });
 
 describe('coverageFactorFor', () => {
-  it('truncates ν to the next lower integer (GUM G.4.1)', () => {
-    expect(coverageFactorFor(0.95, 10.9)).toBe(coverageFactorFor(0.95, 10));
-    expect(coverageFactorFor(0.95, 4.01)).toBe(coverageFactorFor(0.95, 4));
+  it('takes t_p at the real ν, as the note to GUM G.4.1 allows (interpolation), so k matches the ν_eff stated', () => {
+    // scipy.stats.t.ppf(0.975, ν) (scipy 1.17, recomputed for this test):
+    // ν = 18.9987 → 2.093033747757869, between t(19) = 2.093024 and t(18) = 2.100922 (the old truncation)
+    const scipy: [number, number][] = [[2.5, 3.5746548420036817], [7.3, 2.345066736547703], [18.9987, 2.093033747757869], [42.42, 2.0174899064769707]];
+    for (const [nu, k] of scipy) {
+      expect(Math.abs(coverageFactorFor(0.95, nu) - k)).toBeLessThan(1e-7 * k);
+      expect(Math.abs(coverageFactorFor(0.95, nu) - stdlibTQuantile(0.975, nu))).toBeLessThan(1e-7 * k);
+    }
+    expect(coverageFactorFor(0.95, 18.9987)).toBeLessThan(coverageFactorFor(0.95, 18));
+    expect(coverageFactorFor(0.95, 18.9987)).toBeGreaterThan(coverageFactorFor(0.95, 19));
+    for (const nu of [1.5, 3.3, 4.01, 10.9, 99.5, 1234.5]) {
+      expect(Math.abs(coverageFactorFor(0.9545, nu) - stdlibTQuantile((1 + 0.9545) / 2, nu))).toBeLessThan(1e-7 * stdlibTQuantile((1 + 0.9545) / 2, nu));
+    }
   });
 
   it('gives the normal factor 1.959964 for ν = ∞ (handbook value of the normal quantile)', () => {

@@ -155,7 +155,9 @@ export function explainResult(result: BudgetResult, item: 'y' | 'uc' | 'nu' | 'k
             substituted:
               g.effectiveDof === null
                 ? 'every νᵢ is infinite, so ν_eff = ∞'
-                : `ν_eff = ${f(g.standardUncertainty, 3)}⁴ / (${contributions
+                : correlated
+                  ? `each group of correlated inputs is one term, with its covariances and the smallest ν of the group: ν_eff = ${formatDof(g.effectiveDof)}`
+                  : `ν_eff = ${f(g.standardUncertainty, 3)}⁴ / (${contributions
                     .filter((c) => c.dof !== null)
                     .map((c) => `${f(c.contribution, 3)}⁴/${formatDof(c.dof)}`)
                     .join(' + ')}) = ${formatDof(g.effectiveDof)}`,
@@ -168,9 +170,9 @@ export function explainResult(result: BudgetResult, item: 'y' | 'uc' | 'nu' | 'k
         title: 'Coverage factor k',
         steps: [
           {
-            formula: 'k = t_p(ν), ν = ν_eff truncated to an integer',
-            substituted: `p = ${+(g.coverageProbability * 100).toFixed(2)} %, ν = ${g.effectiveDof === null ? '∞' : Math.floor(g.effectiveDof)}  →  k = ${g.coverageFactor.toFixed(3)}`,
-            clause: 'GUM G.3.4, G.4.1, Table G.2',
+            formula: 'k = t_p(ν_eff) at the real ν_eff',
+            substituted: `p = ${+(g.coverageProbability * 100).toFixed(2)} %, ν = ${formatDof(g.effectiveDof)}  →  k = ${g.coverageFactor.toFixed(3)}`,
+            clause: 'GUM G.3.4, G.4.1 note, Table G.2',
           },
         ],
       };
