@@ -1,6 +1,6 @@
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
-import { loadConfig, type AppConfig } from './config';
+import { loadConfig, startProblem, type AppConfig } from './config';
 import { countBudgets } from './budgets/budgets-repository';
 import { listUsers } from './accounts/accounts-repository';
 import { seedDemo } from './demo-seed';
@@ -10,7 +10,10 @@ const EXAMPLES = fileURLToPath(new URL('../examples', import.meta.url));
 /** Builds the app, seeds the demo lab into an empty database (unless DUBITO_DEMO=0) and listens on PORT. */
 export async function serve(overrides: Partial<AppConfig> = {}) {
   const env = process.env;
-  const handle = await createApp(loadConfig(env, overrides));
+  const loaded = loadConfig(env, overrides);
+  const problem = startProblem(loaded);
+  if (problem) throw new Error(`refusing to start: ${problem}`);
+  const handle = await createApp(loaded);
   const { config, connection } = handle;
   const empty = countBudgets(connection.db) === 0 && listUsers(connection.db).length === 0;
   if (empty && env.DUBITO_DEMO !== '0') {

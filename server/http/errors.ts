@@ -66,3 +66,31 @@ export class UnavailableError extends AppError {
     super(503, code, message);
   }
 }
+
+/** Too many failed attempts: the client may try again after `retryAfterSeconds` (429, Retry-After). */
+export class TooManyAttemptsError extends AppError {
+  constructor(message: string, readonly retryAfterSeconds: number) {
+    super(429, 'rate_limited', message, undefined, { retryAfterSeconds });
+  }
+}
+
+/** The disk or the database file is full (507). */
+export class StorageFullError extends AppError {
+  constructor(message = 'the server has no room left to store this (disk or database full); ask the administrator to free space') {
+    super(507, 'storage_full', message);
+  }
+}
+
+/** The data folder or the database cannot be written (503). */
+export class StorageReadOnlyError extends AppError {
+  constructor(message = 'the server cannot write its data folder (read-only or no permission); ask the administrator to check it') {
+    super(503, 'storage_read_only', message);
+  }
+}
+
+/** The request could not be read as the multipart form it claims to be (400). */
+export class MalformedUploadError extends AppError {
+  constructor(message: string, field?: string) {
+    super(400, 'invalid_upload', message, field);
+  }
+}
