@@ -68,7 +68,7 @@ export class ReviewsService {
         budgetId,
         versionNumber: input.version,
         at,
-        detail: { commentId: id, symbol, ...(parentId !== null ? { parentId } : {}) },
+        detail: { commentId: id, symbol, body: input.body, ...(parentId !== null ? { parentId } : {}) },
       });
       return getComment(tx, budgetId, id)!;
     });
