@@ -23,8 +23,8 @@ export interface AuditFilter {
   offset: number;
 }
 
-/** The audit event as listed, before the service adds its readable time. */
-export type AuditRow = Omit<AuditEvent, 'time'>;
+/** The audit event as listed, before the service adds its readable time and details. */
+export type AuditRow = Omit<AuditEvent, 'time' | 'details'>;
 
 function lastEvent(db: DbLike): { id: number; hash: string | null } | undefined {
   return db.select({ id: auditEvents.id, hash: auditEvents.hash }).from(auditEvents).orderBy(desc(auditEvents.id)).limit(1).get();

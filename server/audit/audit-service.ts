@@ -52,7 +52,7 @@ export class AuditService {
 
   list(filter: AuditFilter): AuditPage {
     const { rows, total } = listAudit(this.db, filter);
-    return { events: rows.map((r) => ({ ...r, time: isoSecond(r.at) })), total, chainHead: auditChainHead(this.db) };
+    return { events: rows.map((r) => ({ ...r, time: isoSecond(r.at), details: describeDetail(r.detail) })), total, chainHead: auditChainHead(this.db) };
   }
 
   chainHead(): AuditChainHead | null {
@@ -68,7 +68,7 @@ export class AuditService {
   toCsv(events: AuditEvent[]): string {
     const head = ['event', 'time', 'actor_id', 'actor_name', 'action', 'budget_id', 'budget_title', 'version', 'details', 'hash'];
     const lines = events.map((e) =>
-      [e.id, e.time, e.actorId, e.actorName, e.action, e.budgetId, e.budgetTitle, e.versionNumber, describeDetail(e.detail), e.hash].map(csvCell).join(','),
+      [e.id, e.time, e.actorId, e.actorName, e.action, e.budgetId, e.budgetTitle, e.versionNumber, e.details, e.hash].map(csvCell).join(','),
     );
     return '\uFEFF' + [head.join(','), ...lines].join('\r\n') + '\r\n';
   }

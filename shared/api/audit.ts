@@ -15,6 +15,8 @@ export interface AuditEvent {
   budgetTitle: string | null;
   versionNumber: number | null;
   detail: Record<string, unknown>;
+  /** The particulars in words, as the CSV export has them. */
+  details: string;
   /** SHA-256 chaining this event to the one before it (see AuditChainReport). */
   hash: string | null;
 }
