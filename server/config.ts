@@ -94,6 +94,9 @@ export const PLAIN_HTTP_SIGN_IN =
   'and a browser keeps it only over HTTPS, so you would be signed out at once. Open Dubito at its https:// address; ' +
   'behind a TLS-terminating proxy, set DUBITO_TRUST_PROXY so the server believes the proxy’s X-Forwarded-Proto: https';
 
+/** The configuration cannot work; the message says what to set. */
+export class StartRefused extends Error {}
+
 /**
  * Why this configuration cannot sign anybody in, or null. The server itself speaks plain HTTP:
  * with Secure cookies it needs a TLS-terminating proxy in front and DUBITO_TRUST_PROXY to see
