@@ -1,7 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import multer from 'multer';
 import { BudgetError } from '../../shared/budget/budget-error';
-import { AppError, MalformedUploadError, NotFoundError, StorageFullError, StorageReadOnlyError, TooManyAttemptsError } from './errors';
+import { AppError, MalformedUploadError, NotFoundError, StorageFullError, StorageReadOnlyError, TooManyAttemptsError, UnavailableError } from './errors';
 
 export interface ErrorBody {
   error: { code: string; message: string; field?: string; [k: string]: unknown };
@@ -29,6 +29,9 @@ export function systemError(err: unknown): AppError | null {
   const code = typeof e?.code === 'string' ? e.code : '';
   if (FULL.has(code)) return new StorageFullError();
   if (READ_ONLY.has(code) || code.startsWith('SQLITE_READONLY')) return new StorageReadOnlyError();
+  if (code === 'SQLITE_BUSY' || code === 'SQLITE_LOCKED') {
+    return new UnavailableError('the database is held by another writer (a backup or a second server?); try again in a moment', 'storage_busy');
+  }
   if (err instanceof Error && !code) {
     for (const [pattern, message] of MULTIPART) if (pattern.test(err.message)) return new MalformedUploadError(message, 'file');
   }

@@ -89,6 +89,7 @@ describe('storage failures', () => {
     expect(systemError(err('SQLITE_FULL'))?.status).toBe(507);
     expect(systemError(err('EROFS'))?.status).toBe(503);
     expect(systemError(err('SQLITE_READONLY'))?.status).toBe(503);
+    expect(systemError(err('SQLITE_BUSY'))?.status).toBe(503);
     expect(systemError(err('ENOENT'))).toBeNull();
   });
 
