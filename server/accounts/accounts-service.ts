@@ -35,7 +35,7 @@ function toPublic(u: UserRow): PublicUser {
   return { ...toSessionUser(u), active: u.active, hasPassword: !!u.passwordHash, createdAt: u.createdAt };
 }
 
-function checkPassword(password: string, person: { email: string; name: string }): void {
+function checkPassword(password: string, person?: { email: string; name: string }): void {
   const problem = passwordProblem(password, person);
   if (problem) throw new ValidationError(problem, 'password', 'weak_password');
 }
@@ -79,11 +79,10 @@ export class AccountsService {
    */
   async authenticate(email: string, password: string, clientAddress: string): Promise<SessionUser | null> {
     const key = `sign-in:${email.trim().toLowerCase()}|${clientAddress}`;
-    this.attempts.check(key, 'sign-ins for this account from your address');
+    this.attempts.begin(key, 'sign-ins for this account from your address');
     const user = findUserByEmail(this.d.db, email);
     const ok = await verifyPassword(password, user?.passwordHash);
     if (!user || !ok || !user.active) {
-      this.attempts.failed(key);
       inTransaction(this.d.db, (tx) =>
         recordAudit(tx, { actorId: user?.id ?? null, action: 'auth.sign_in_refused', detail: { email: email.toLowerCase(), address: clientAddress } }),
       );
@@ -114,14 +113,13 @@ export class AccountsService {
    */
   async verifySignature(userId: number, password: string, context: SignatureContext = {}): Promise<boolean> {
     const key = `signature:${userId}`;
-    this.attempts.check(key, 'signatures');
+    this.attempts.begin(key, 'signatures');
     const u = findUserById(this.d.db, userId);
     const ok = (await verifyPassword(password, u?.passwordHash)) && !!u?.active;
     if (ok) {
       this.attempts.succeeded(key);
       return true;
     }
-    this.attempts.failed(key);
     inTransaction(this.d.db, (tx) =>
       recordAudit(tx, {
         actorId: userId,
@@ -259,8 +257,9 @@ export class AccountsService {
 
   /** Sets the password from an invitation or reset link; the link is then spent. */
   async completeToken(token: string, password: string): Promise<SessionUser> {
-    const holder = this.tokenHolder(token);
-    checkPassword(password, holder);
+    // The rules that need no account first, so a weak password is named even on a spent link.
+    checkPassword(password);
+    checkPassword(password, this.tokenHolder(token));
     const hash = await hashPassword(password);
     const user = inTransaction(this.d.db, (tx) => {
       const t = findUnusedToken(tx, hashToken(token));

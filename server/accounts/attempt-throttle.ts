@@ -23,7 +23,8 @@ interface Failures {
  * Growing delays for password checks: after `freeFailures` failures of a key, the next attempt is
  * refused until firstDelay·2^(failures − freeFailures) (capped at maxDelay) has passed since the
  * last failure. A correct password is accepted once the wait is over, so a key is slowed, never
- * locked; a success forgets the key.
+ * locked; a success forgets the key. Usage: `begin(key)` before checking the password,
+ * `succeeded(key)` when it was right.
  */
 export class AttemptThrottle {
   private readonly failures = new Map<string, Failures>();
@@ -40,16 +41,16 @@ export class AttemptThrottle {
     return f ? Math.max(0, f.last + this.delayAfter(f.count) - now) : 0;
   }
 
-  /** Throws TooManyAttemptsError while the key must wait. */
-  check(key: string, what: string): void {
+  /**
+   * Throws TooManyAttemptsError while the key must wait; otherwise counts the attempt as a failure
+   * until `succeeded` clears it, so attempts sent in parallel cannot all pass before any fails.
+   */
+  begin(key: string, what: string): void {
     const wait = this.waitMs(key);
     if (wait > 0) {
       const seconds = Math.ceil(wait / 1000);
       throw new TooManyAttemptsError(`too many failed ${what}; try again in ${seconds} s`, seconds);
     }
-  }
-
-  failed(key: string): void {
     const now = this.now();
     this.prune(now);
     const f = this.current(key, now);

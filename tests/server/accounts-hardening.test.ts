@@ -44,6 +44,18 @@ describe('failed sign-ins slow the guesser, never the owner', () => {
   });
 });
 
+describe('guesses sent in parallel', () => {
+  it('count before the password is checked, so no more than the free ones get through', async () => {
+    const email = s.users.metrologist.email;
+    const answers = await Promise.all(
+      Array.from({ length: 12 }, (_, i) => from('203.0.113.77').post('/api/auth/login').send({ email, password: `parallel guess ${i}` })),
+    );
+    const statuses = answers.map((r) => r.status).sort();
+    expect(statuses.filter((x) => x === 401)).toHaveLength(5);
+    expect(statuses.filter((x) => x === 429)).toHaveLength(7);
+  });
+});
+
 describe('approval signatures', () => {
   it('slows repeated wrong signatures and writes each rejection to the audit trail', async () => {
     const m = await s.as('metrologist');
