@@ -6,7 +6,7 @@ import session from 'express-session';
 import { DEFAULTS } from '../shared/budget/limits';
 import { AccountsService } from './accounts/accounts-service';
 import { accountsRoutes } from './accounts/accounts-routes';
-import { createPassport, resetLimiter, signInLimiters } from './accounts/auth-setup';
+import { createPassport, resetLimiter, signInLimiters, throttleSettings } from './accounts/auth-setup';
 import { auditRoutes } from './audit/audit-routes';
 import { AuditService } from './audit/audit-service';
 import { budgetsRoutes } from './budgets/budgets-routes';
@@ -79,6 +79,8 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     dataVersion: connection.dataVersion,
     invitationHours: config.invitationHours,
     resetHours: config.resetHours,
+    passwordAttempts: throttleSettings(config.signIn),
+    log: config.log,
   });
   const budgets = new BudgetsService(db, pool, { diffMaxBytes: config.diffMaxBytes });
   const services: Services = {
@@ -135,6 +137,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     passport,
     signInLimiters: signInLimiters(config.signIn),
     resetLimiter: resetLimiter(config.signIn),
+    cookieSecure: config.cookieSecure,
   });
   budgetsRoutes(table, services.budgets, {
     importMaxBytes: config.importMaxBytes,

@@ -89,7 +89,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     signIn: {
       windowMs: 15 * 60 * 1000,
       perAddress: int(env.DUBITO_SIGNIN_PER_ADDRESS, 30),
-      perAccount: int(env.DUBITO_SIGNIN_PER_ACCOUNT, 5),
+      freeFailures: int(env.DUBITO_SIGNIN_FREE_FAILURES, 5),
+      firstDelayMs: int(env.DUBITO_SIGNIN_DELAY_SECONDS, 2) * 1000,
+      maxDelayMs: int(env.DUBITO_SIGNIN_MAX_DELAY_SECONDS, 15 * 60) * 1000,
     },
     jsonLimitBytes: 8 * MB,
     importMaxBytes: 8 * MB,
@@ -100,4 +102,28 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     log: defaultLog,
   };
   return { ...base, ...overrides };
+}
+
+/** Why a sign-in over plain HTTP is refused when session cookies are Secure (the browser would drop the cookie). */
+export const PLAIN_HTTP_SIGN_IN =
+  'this sign-in came over plain HTTP, but the session cookie is marked Secure (DUBITO_COOKIE_SECURE, on with NODE_ENV=production) ' +
+  'and a browser keeps it only over HTTPS, so you would be signed out at once. Open Dubito at its https:// address; ' +
+  'behind a TLS-terminating proxy, set DUBITO_TRUST_PROXY so the server believes the proxy’s X-Forwarded-Proto: https';
+
+/** The configuration cannot work; the message says what to set. */
+export class StartRefused extends Error {}
+
+/**
+ * Why this configuration cannot sign anybody in, or null. The server itself speaks plain HTTP:
+ * with Secure cookies it needs a TLS-terminating proxy in front and DUBITO_TRUST_PROXY to see
+ * that the browser's connection was HTTPS.
+ */
+export function startProblem(c: Pick<AppConfig, 'cookieSecure' | 'trustProxy'>): string | null {
+  if (!c.cookieSecure || c.trustProxy !== false) return null;
+  return (
+    'secure session cookies are on (NODE_ENV=production or DUBITO_COOKIE_SECURE=1) but DUBITO_TRUST_PROXY is off. ' +
+    'Dubito serves plain HTTP; browsers keep a Secure cookie only over HTTPS, so every sign-in would answer 200 and sign nobody in. ' +
+    'Put a TLS-terminating reverse proxy in front (HTTPS) and set DUBITO_TRUST_PROXY=1 (the number of proxies) so the server sees X-Forwarded-Proto: https; ' +
+    'or, on a closed test network without TLS only, set DUBITO_COOKIE_SECURE=0'
+  );
 }

@@ -1,6 +1,6 @@
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
-import { loadConfig, type AppConfig } from './config';
+import { loadConfig, StartRefused, startProblem, type AppConfig } from './config';
 import { countBudgets } from './budgets/budgets-repository';
 import { listUsers } from './accounts/accounts-repository';
 import { seedDemo } from './demo-seed';
@@ -10,7 +10,10 @@ const EXAMPLES = fileURLToPath(new URL('../examples', import.meta.url));
 /** Builds the app, seeds the demo lab into an empty database (unless DUBITO_DEMO=0) and listens on PORT. */
 export async function serve(overrides: Partial<AppConfig> = {}) {
   const env = process.env;
-  const handle = await createApp(loadConfig(env, overrides));
+  const loaded = loadConfig(env, overrides);
+  const problem = startProblem(loaded);
+  if (problem) throw new StartRefused(`refusing to start: ${problem}`);
+  const handle = await createApp(loaded);
   const { config, connection } = handle;
   const empty = countBudgets(connection.db) === 0 && listUsers(connection.db).length === 0;
   if (empty && env.DUBITO_DEMO !== '0') {
@@ -36,7 +39,7 @@ export async function serve(overrides: Partial<AppConfig> = {}) {
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
   serve().catch((e) => {
-    console.error('[dubito] could not start:', e);
+    console.error('[dubito] could not start:', e instanceof StartRefused ? e.message : e);
     process.exit(1);
   });
 }

@@ -1,7 +1,8 @@
 import type { Request, RequestHandler } from 'express';
 import { z } from 'zod';
 import { ROLES } from '../../shared/policy/policy';
-import { UnauthenticatedError } from '../http/errors';
+import { PLAIN_HTTP_SIGN_IN } from '../config';
+import { UnauthenticatedError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import { userOf, type RouteTable } from '../http/routes';
 import { parse } from '../http/validate';
@@ -20,8 +21,17 @@ const tokenQuery = z.strictObject({ token: z.string().min(10).max(200) });
 const newUserBody = z.strictObject({ email, name, role, password: password.optional() });
 const inviteBody = z.strictObject({ email, name, role });
 const patchUserBody = z
-  .strictObject({ name: name.optional(), role: role.optional(), active: z.boolean().optional() })
-  .refine((b) => Object.keys(b).length > 0, { message: 'give name, role or active' });
+  .strictObject({
+    name: name.optional(),
+    role: role.optional(),
+    active: z.boolean().optional(),
+    reason: z.string().trim().max(1000).optional(),
+  })
+  .refine((b) => b.name !== undefined || b.role !== undefined || b.active !== undefined, { message: 'give name, role or active' })
+  .refine((b) => (b.role === undefined && b.active === undefined) || !!b.reason, {
+    message: 'say why the role or the access changes; the reason goes into the audit trail',
+    path: ['reason'],
+  });
 const idParam = z.strictObject({ id: z.coerce.number().int().positive({ message: 'must be a user id' }) });
 
 function logIn(req: Request, user: SessionUser): Promise<void> {
@@ -31,12 +41,20 @@ function logIn(req: Request, user: SessionUser): Promise<void> {
 
 export function accountsRoutes(
   t: RouteTable,
-  deps: { accounts: AccountsService; passport: ReturnType<typeof createPassport>; signInLimiters: RequestHandler[]; resetLimiter: RequestHandler },
+  deps: {
+    accounts: AccountsService;
+    passport: ReturnType<typeof createPassport>;
+    signInLimiters: RequestHandler[];
+    resetLimiter: RequestHandler;
+    /** Session cookies are Secure: a sign-in that did not come over HTTPS could never keep its session. */
+    cookieSecure: boolean;
+  },
 ): void {
   const { accounts, passport } = deps;
 
   t.add('post', '/api/auth/login', 'public', ...deps.signInLimiters, async (req, res, next) => {
     parse(loginBody, req.body);
+    if (deps.cookieSecure && !req.secure) throw new ValidationError(PLAIN_HTTP_SIGN_IN, undefined, 'https_required');
     const user = await new Promise<SessionUser | false>((resolve, reject) =>
       passport.authenticate('local', { session: false }, (err: unknown, u: SessionUser | false) => (err ? reject(err) : resolve(u)))(
         req,
@@ -64,8 +82,8 @@ export function accountsRoutes(
 
   t.add('post', '/api/auth/password-reset', 'public', deps.resetLimiter, async (req, res) => {
     const b = parse(resetBody, req.body);
-    await accounts.requestPasswordReset(b.email);
     res.status(202).json({ message: 'if the address belongs to an account, a link is on its way' });
+    accounts.requestPasswordReset(b.email);
   });
 
   t.add('get', '/api/auth/token', 'public', deps.resetLimiter, (req, res) => {
@@ -90,8 +108,8 @@ export function accountsRoutes(
 
   t.add('patch', '/api/users/:id', 'user.manage', (req, res) => {
     const { id } = parse(idParam, req.params);
-    const b = parse(patchUserBody, req.body);
-    res.json(accounts.update(userOf(req), id, b));
+    const { reason, ...patch } = parse(patchUserBody, req.body);
+    res.json(accounts.update(userOf(req), id, patch, reason));
   });
 
   t.add('post', '/api/invitations', 'user.manage', async (req, res) => {

@@ -19,9 +19,10 @@ import {
   updateUser,
   type UserRow,
 } from './accounts-repository';
+import { AttemptThrottle, type ThrottleSettings } from './attempt-throttle';
 import { hashPassword, hashToken, newToken, verifyPassword } from './password';
+import { passwordProblem } from './password-strength';
 
-export const MIN_PASSWORD = 10;
 const HOUR = 60 * 60 * 1000;
 
 type PublicUser = UserAccount;
@@ -34,10 +35,15 @@ function toPublic(u: UserRow): PublicUser {
   return { ...toSessionUser(u), active: u.active, hasPassword: !!u.passwordHash, createdAt: u.createdAt };
 }
 
-function checkPassword(password: string): void {
-  if (password.length < MIN_PASSWORD) {
-    throw new ValidationError(`password must have at least ${MIN_PASSWORD} characters`, 'password');
-  }
+function checkPassword(password: string, person?: { email: string; name: string }): void {
+  const problem = passwordProblem(password, person);
+  if (problem) throw new ValidationError(problem, 'password', 'weak_password');
+}
+
+/** Where an approval signature was asked for, for the audit trail of a rejected one. */
+export interface SignatureContext {
+  budgetId?: number;
+  versionNumber?: number;
 }
 
 export interface AccountsDeps {
@@ -49,27 +55,41 @@ export interface AccountsDeps {
   dataVersion(): number;
   invitationHours: number;
   resetHours: number;
+  /** Growing delays after failed sign-ins (per account and address) and failed signatures (per account). */
+  passwordAttempts: ThrottleSettings;
+  log: (msg: string, err?: unknown) => void;
 }
 
 export class AccountsService {
   /** The user behind each session id, read on every request; emptied whenever this service writes a user. */
   private readonly sessionUsers: RowCache<number, SessionUser | null>;
 
+  /** Failed password checks, keyed by what they try to open (see passwordAttempts). */
+  private readonly attempts: AttemptThrottle;
+
   constructor(private readonly d: AccountsDeps) {
     this.sessionUsers = new RowCache(d.dataVersion);
+    this.attempts = new AttemptThrottle(d.passwordAttempts);
   }
 
-  /** The same answer (null) for an unknown address, a wrong password, an inactive account. */
-  async authenticate(email: string, password: string): Promise<SessionUser | null> {
+  /**
+   * The same answer (null) for an unknown address, a wrong password, an inactive account.
+   * Failures slow down the next attempt on the same account from the same client address only,
+   * so failures elsewhere never keep the owner out.
+   */
+  async authenticate(email: string, password: string, clientAddress: string): Promise<SessionUser | null> {
+    const key = `sign-in:${email.trim().toLowerCase()}|${clientAddress}`;
+    this.attempts.begin(key, 'sign-ins for this account from your address');
     const user = findUserByEmail(this.d.db, email);
     const ok = await verifyPassword(password, user?.passwordHash);
     if (!user || !ok || !user.active) {
       inTransaction(this.d.db, (tx) =>
-        recordAudit(tx, { actorId: user?.id ?? null, action: 'auth.sign_in_refused', detail: { email: email.toLowerCase() } }),
+        recordAudit(tx, { actorId: user?.id ?? null, action: 'auth.sign_in_refused', detail: { email: email.toLowerCase(), address: clientAddress } }),
       );
       return null;
     }
-    inTransaction(this.d.db, (tx) => recordAudit(tx, { actorId: user.id, action: 'auth.signed_in' }));
+    this.attempts.succeeded(key);
+    inTransaction(this.d.db, (tx) => recordAudit(tx, { actorId: user.id, action: 'auth.signed_in', detail: { address: clientAddress } }));
     return toSessionUser(user);
   }
 
@@ -87,10 +107,29 @@ export class AccountsService {
     );
   }
 
-  /** Re-entered password as an electronic signature. */
-  async verifySignature(userId: number, password: string): Promise<boolean> {
+  /**
+   * Re-entered password as an electronic signature. Failures slow down the account's next
+   * signatures like failed sign-ins, and every rejected signature is written to the audit trail.
+   */
+  async verifySignature(userId: number, password: string, context: SignatureContext = {}): Promise<boolean> {
+    const key = `signature:${userId}`;
+    this.attempts.begin(key, 'signatures');
     const u = findUserById(this.d.db, userId);
-    return (await verifyPassword(password, u?.passwordHash)) && !!u?.active;
+    const ok = (await verifyPassword(password, u?.passwordHash)) && !!u?.active;
+    if (ok) {
+      this.attempts.succeeded(key);
+      return true;
+    }
+    inTransaction(this.d.db, (tx) =>
+      recordAudit(tx, {
+        actorId: userId,
+        action: 'auth.signature_rejected',
+        budgetId: context.budgetId ?? null,
+        versionNumber: context.versionNumber ?? null,
+        detail: { reason: 'the password did not match' },
+      }),
+    );
+    return false;
   }
 
   list(): PublicUser[] {
@@ -106,8 +145,12 @@ export class AccountsService {
     return u ? toSessionUser(u) : null;
   }
 
+  /**
+   * Creates an account. A password chosen through the API (an actor is given) must pass
+   * passwordProblem; accounts the system seeds itself (actor null: the demo lab) are taken as given.
+   */
   async create(actor: SessionUser | null, input: { email: string; name: string; role: Role; password?: string }): Promise<PublicUser> {
-    if (input.password !== undefined) checkPassword(input.password);
+    if (input.password !== undefined && actor) checkPassword(input.password, input);
     const hash = input.password !== undefined ? await hashPassword(input.password) : null;
     return inTransaction(this.d.db, (tx) => {
       if (findUserByEmail(tx, input.email)) throw new ConflictError('a user with this e-mail address exists', 'email_taken');
@@ -118,7 +161,8 @@ export class AccountsService {
     });
   }
 
-  update(actor: SessionUser, id: number, patch: { name?: string; role?: Role; active?: boolean }): PublicUser {
+  /** Changes a user; the reason (required by the route for a role change or a deactivation) goes into the audit trail with the change. */
+  update(actor: SessionUser, id: number, patch: { name?: string; role?: Role; active?: boolean }, reason?: string): PublicUser {
     const updated = inTransaction(this.d.db, (tx) => {
       const before = findUserById(tx, id);
       if (!before) throw new NotFoundError('no such user');
@@ -131,7 +175,7 @@ export class AccountsService {
       for (const k of ['name', 'role', 'active'] as const) {
         if (patch[k] !== undefined && before[k] !== after[k]) changes[k] = { from: before[k], to: after[k] };
       }
-      recordAudit(tx, { actorId: actor.id, action: 'user.updated', detail: { userId: id, changes } });
+      recordAudit(tx, { actorId: actor.id, action: 'user.updated', detail: { userId: id, changes, ...(reason ? { reason } : {}) } });
       return after;
     });
     this.sessionUsers.delete(id);
@@ -164,8 +208,21 @@ export class AccountsService {
     return { user: toPublic(user), expiresAt };
   }
 
-  /** Always succeeds from the caller's view, so it reveals nothing about which addresses exist. */
-  async requestPasswordReset(email: string): Promise<void> {
+  /**
+   * Always succeeds from the caller's view and does its work only after the caller has answered
+   * (next turn of the event loop), so neither the answer nor its timing says which addresses exist.
+   */
+  requestPasswordReset(email: string): void {
+    setImmediate(() => {
+      try {
+        this.issuePasswordReset(email);
+      } catch (e) {
+        this.d.log('password reset request failed', e);
+      }
+    });
+  }
+
+  private issuePasswordReset(email: string): void {
     const u = findUserByEmail(this.d.db, email);
     if (!u || !u.active || !u.passwordHash) return;
     const { token, hash } = newToken();
@@ -187,6 +244,11 @@ export class AccountsService {
 
   /** What a link is for, without using it. */
   inspectToken(token: string): TokenInfo {
+    const { kind, email, name } = this.tokenHolder(token);
+    return { kind, email, name };
+  }
+
+  private tokenHolder(token: string): TokenInfo {
     const t = findUnusedToken(this.d.db, hashToken(token));
     const u = t && t.expiresAt > Date.now() ? findUserById(this.d.db, t.userId) : undefined;
     if (!t || !u || !u.active) throw new NotFoundError('this link is invalid, used or expired', 'invalid_token');
@@ -195,7 +257,9 @@ export class AccountsService {
 
   /** Sets the password from an invitation or reset link; the link is then spent. */
   async completeToken(token: string, password: string): Promise<SessionUser> {
+    // The rules that need no account first, so a weak password is named even on a spent link.
     checkPassword(password);
+    checkPassword(password, this.tokenHolder(token));
     const hash = await hashPassword(password);
     const user = inTransaction(this.d.db, (tx) => {
       const t = findUnusedToken(tx, hashToken(token));

@@ -4,13 +4,14 @@ import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { AppError } from '../http/errors';
 import type { AccountsService } from './accounts-service';
+import type { ThrottleSettings } from './attempt-throttle';
 
 /** One passport instance per app, so two apps in one process never share state. */
 export function createPassport(accounts: AccountsService) {
   const p = new passport.Authenticator();
   p.use(
-    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
-      accounts.authenticate(email, password).then(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true, passReqToCallback: true }, (req, email, password, done) => {
+      accounts.authenticate(email, password, req.ip ?? 'unknown').then(
         (user) => done(null, user ?? false),
         (err) => done(err),
       );
@@ -27,37 +28,40 @@ export function createPassport(accounts: AccountsService) {
   return p;
 }
 
+/**
+ * Sign-in and signature limits (documented in the README under "Production"). Failed password
+ * checks of one account from one client address get growing delays (AttemptThrottle); the
+ * address as a whole gets a hard limit on failures across all accounts, against guessing many
+ * accounts from one place. The owner at another address is never slowed by either.
+ */
 export interface SignInLimits {
   windowMs: number;
-  /** Failed sign-ins allowed per client address in the window. */
+  /** Failed sign-ins allowed per client address in the window, whatever the account. */
   perAddress: number;
-  /** Failed sign-ins allowed per account (e-mail) in the window. */
-  perAccount: number;
+  /** Failures of one account from one address (or of one account's signatures) before delays begin. */
+  freeFailures: number;
+  /** First delay, doubled at each further failure. */
+  firstDelayMs: number;
+  maxDelayMs: number;
+  /** Clock of the delays (tests pass their own). */
+  now?: () => number;
 }
 
-function limited(): AppError {
-  return new AppError(429, 'rate_limited', 'too many sign-in attempts; wait a few minutes and try again');
+export function throttleSettings(l: SignInLimits): ThrottleSettings {
+  return { freeFailures: l.freeFailures, firstDelayMs: l.firstDelayMs, maxDelayMs: l.maxDelayMs, forgetAfterMs: l.windowMs, now: l.now };
 }
 
-/** Limits failed sign-ins per client address and per account. */
+/** Limits failed sign-ins per client address, whatever the account. */
 export function signInLimiters(l: SignInLimits): RequestHandler[] {
-  const common = {
-    windowMs: l.windowMs,
-    standardHeaders: 'draft-8' as const,
-    legacyHeaders: false,
-    skipSuccessfulRequests: true,
-    handler: (_req: unknown, _res: unknown, next: (e: unknown) => void) => next(limited()),
-  };
   return [
-    rateLimit({ ...common, limit: l.perAddress, identifier: 'address' }),
     rateLimit({
-      ...common,
-      limit: l.perAccount,
-      identifier: 'account',
-      keyGenerator: (req) => {
-        const email = (req.body as { email?: unknown } | undefined)?.email;
-        return `account:${typeof email === 'string' ? email.trim().toLowerCase() : ''}`;
-      },
+      windowMs: l.windowMs,
+      limit: l.perAddress,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      skipSuccessfulRequests: true,
+      identifier: 'address',
+      handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'too many failed sign-ins from your address; wait a few minutes and try again')),
     }),
   ];
 }

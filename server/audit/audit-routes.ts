@@ -22,7 +22,7 @@ const query = z.strictObject({
 export function auditRoutes(t: RouteTable, audit: AuditService): void {
   t.add('get', '/api/audit', 'audit.read', (req, res) => {
     const q = parse(query, req.query);
-    const { events, total } = audit.list({
+    const page = audit.list({
       budgetId: q.budget,
       actorId: q.actor,
       action: q.action,
@@ -31,12 +31,18 @@ export function auditRoutes(t: RouteTable, audit: AuditService): void {
       limit: q.limit,
       offset: q.offset,
     });
+    // The newest event of the whole trail: a copy kept elsewhere reveals a later removal.
+    if (page.chainHead) res.setHeader('X-Audit-Chain-Head', `${page.chainHead.id}:${page.chainHead.hash}`);
     if (q.format === 'csv') {
       res.type('text/csv; charset=utf-8');
       res.attachment('dubito-audit.csv');
-      res.send(audit.toCsv(events));
+      res.send(audit.toCsv(page.events));
       return;
     }
-    res.json({ events, total });
+    res.json(page);
+  });
+
+  t.add('get', '/api/audit/verify', 'audit.read', (_req, res) => {
+    res.json(audit.verify());
   });
 }

@@ -137,6 +137,11 @@ export const auditEvents = sqliteTable(
     versionNumber: integer('version_number'),
     /** JSON object with the particulars of the event. */
     detail: text('detail').notNull().default('{}'),
+    /**
+     * SHA-256 (hex) chaining this event to the one before it (server/audit/audit-chain.ts).
+     * Null only for events written before the chain existed, until the server seals them at start.
+     */
+    hash: text('hash'),
   },
   (t) => [
     index('audit_budget_idx').on(t.budgetId),

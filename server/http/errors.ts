@@ -67,14 +67,45 @@ export class UnavailableError extends AppError {
   }
 }
 
-/** Too much work is waiting (429 for one user, 503 for the whole server); the answer carries `Retry-After`. */
-export class BusyError extends AppError {
+/** The client may try again after `retryAfterSeconds`; the answer carries `Retry-After`. */
+export abstract class RetryLaterError extends AppError {
   constructor(
     status: 429 | 503,
     code: string,
     message: string,
     readonly retryAfterSeconds: number,
   ) {
-    super(status, code, message);
+    super(status, code, message, undefined, { retryAfterSeconds });
+  }
+}
+
+/** Too much work is waiting (429 for one user, 503 for the whole server). */
+export class BusyError extends RetryLaterError {}
+
+/** Too many failed attempts (429). */
+export class TooManyAttemptsError extends RetryLaterError {
+  constructor(message: string, retryAfterSeconds: number) {
+    super(429, 'rate_limited', message, retryAfterSeconds);
+  }
+}
+
+/** The disk or the database file is full (507). */
+export class StorageFullError extends AppError {
+  constructor(message = 'the server has no room left to store this (disk or database full); ask the administrator to free space') {
+    super(507, 'storage_full', message);
+  }
+}
+
+/** The data folder or the database cannot be written (503). */
+export class StorageReadOnlyError extends AppError {
+  constructor(message = 'the server cannot write its data folder (read-only or no permission); ask the administrator to check it') {
+    super(503, 'storage_read_only', message);
+  }
+}
+
+/** The request could not be read as the multipart form it claims to be (400). */
+export class MalformedUploadError extends AppError {
+  constructor(message: string, field?: string) {
+    super(400, 'invalid_upload', message, field);
   }
 }

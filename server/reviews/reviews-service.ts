@@ -68,7 +68,7 @@ export class ReviewsService {
         budgetId,
         versionNumber: input.version,
         at,
-        detail: { commentId: id, symbol, ...(parentId !== null ? { parentId } : {}) },
+        detail: { commentId: id, symbol, body: input.body, ...(parentId !== null ? { parentId } : {}) },
       });
       return getComment(tx, budgetId, id)!;
     });
@@ -120,7 +120,7 @@ export class ReviewsService {
       }
       if (b.status !== 'in_review') throw illegal();
       if (!input.password) throw new ValidationError('re-enter your password to sign the approval', 'password');
-      signatureOk = await this.d.accounts.verifySignature(actor.id, input.password);
+      signatureOk = await this.d.accounts.verifySignature(actor.id, input.password, { budgetId, versionNumber: b.currentVersion });
       if (!signatureOk) throw new ForbiddenError('the password does not match; the approval was not signed', 'signature_rejected');
     } else {
       if (!canReturn(actor, b)) throw new ForbiddenError('only a reviewer or an admin other than the owner returns a budget');

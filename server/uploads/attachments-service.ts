@@ -1,4 +1,4 @@
-import { existsSync, mkdirSync, renameSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { canAttach } from '../../shared/policy/policy';
@@ -66,8 +66,14 @@ export class AttachmentsService {
     if (!existsSync(target)) {
       mkdirSync(join(this.dataDir, 'attachments', sha.slice(0, 2)), { recursive: true });
       const tmp = `${target}.${randomBytes(6).toString('hex')}.tmp`;
-      writeFileSync(tmp, file.buffer, { flush: true });
-      renameSync(tmp, target);
+      try {
+        writeFileSync(tmp, file.buffer, { flush: true });
+        renameSync(tmp, target);
+      } catch (e) {
+        // A full disk leaves a partial file behind; the error handler says what happened.
+        rmSync(tmp, { force: true });
+        throw e;
+      }
     }
     const fileName = file.originalname.replace(/[\\/\u0000-\u001f]/g, '_').slice(0, 255) || 'evidence';
     return inTransaction(this.db, (tx) => {

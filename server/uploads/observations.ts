@@ -1,7 +1,7 @@
 import Papa from 'papaparse';
 import { LIMITS } from '../../shared/budget/limits';
 import type { ObservationsResult, RowError } from '../../shared/api/uploads';
-import { AppError, ValidationError } from '../http/errors';
+import { AppError, PayloadTooLargeError, ValidationError } from '../http/errors';
 
 function toNumber(cell: string, delimiter: string): number | null {
   let s = cell.trim();
@@ -14,15 +14,22 @@ function toNumber(cell: string, delimiter: string): number | null {
 /**
  * Reads one column of numbers from CSV text. A first row that is not numeric
  * in the chosen column is taken as the header. `column` is a header name or a 1-based index; it may
- * be left out when the file has a single column.
+ * be left out when the file has a single column. At most LIMITS.observations data rows are read:
+ * the parser stops one row past the cap (plus a header), so a long file costs no more than that.
  */
 export function parseObservations(text: string, column?: string): ObservationsResult {
   if (text.includes('\u0000')) throw new ValidationError('the file is not text', 'file');
-  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', delimitersToGuess: [';', '\t', '|', ','] });
+  const cap = LIMITS.observations;
+  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), {
+    skipEmptyLines: 'greedy',
+    delimitersToGuess: [';', '\t', '|', ','],
+    preview: cap + 2,
+  });
   const rows = parsed.data;
   if (rows.length === 0) throw new ValidationError('the file has no rows', 'file');
   const delimiter = parsed.meta.delimiter;
-  const width = Math.max(...rows.map((r) => r.length));
+  let width = 0;
+  for (const r of rows) if (r.length > width) width = r.length;
   const first = rows[0];
   const looksLikeHeader = first.some((c) => c.trim() !== '' && toNumber(c, delimiter) === null);
   let columns = Array.from({ length: width }, (_, i) => (looksLikeHeader ? (first[i]?.trim() ?? null) : null));
@@ -44,6 +51,9 @@ export function parseObservations(text: string, column?: string): ObservationsRe
   // The first row is a header when the chosen column does not hold a number there.
   const header = looksLikeHeader && toNumber(first[index] ?? '', delimiter) === null;
   if (!header) columns = columns.map(() => null);
+  if (rows.length - (header ? 1 : 0) > cap) {
+    throw new PayloadTooLargeError(`the file has more than ${cap.toLocaleString('en-GB')} rows; a column may hold at most ${cap.toLocaleString('en-GB')} observations`);
+  }
   const values: number[] = [];
   const errors: RowError[] = [];
   rows.forEach((r, i) => {
@@ -58,9 +68,6 @@ export function parseObservations(text: string, column?: string): ObservationsRe
     if (n === null) errors.push({ row: line, message: `"${cell.trim().slice(0, 40)}" is not a number` });
     else values.push(n);
   });
-  if (values.length > LIMITS.observations) {
-    throw new ValidationError(`a column may hold at most ${LIMITS.observations} observations`, 'file');
-  }
   for (const e of parsed.errors.slice(0, 20)) {
     if (e.row !== undefined) errors.push({ row: e.row + 1, message: e.message });
   }

@@ -29,8 +29,11 @@ export function uploadsRoutes(
   attachments: AttachmentsService,
   limits: { observationsMaxBytes: number; attachmentMaxBytes: number },
 ): void {
-  const csvUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: limits.observationsMaxBytes, files: 1, fields: 5 } }).single('file');
-  const evidenceUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: limits.attachmentMaxBytes, files: 1, fields: 5 } }).single('file');
+  // Browsers send file names as UTF-8 without saying so; busboy's default (latin1) would garble "Prüfschein.pdf".
+  const multipartForm = (fileSize: number) =>
+    multer({ storage: multer.memoryStorage(), defParamCharset: 'utf8', limits: { fileSize, files: 1, fields: 5 } }).single('file');
+  const csvUpload = multipartForm(limits.observationsMaxBytes);
+  const evidenceUpload = multipartForm(limits.attachmentMaxBytes);
 
   t.add('post', '/api/uploads/observations', 'observations.upload', requireMultipart('file'), csvUpload, (req, res) => {
     const form = parse(observationsForm, req.body ?? {});

@@ -85,8 +85,8 @@ describe('audit trail', () => {
     expect(none.events).toEqual([]);
     const csv = await auditor.get(`/api/audit?budget=${id}&format=csv`).expect(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
-    const lines = csv.text.trim().split('\r\n');
-    expect(lines[0]).toBe('id,time_utc,actor_id,actor_email,action,budget_id,version,detail');
+    const lines = csv.text.replace(/^\uFEFF/, '').trim().split('\r\n');
+    expect(lines[0]).toBe('event,time,actor_id,actor_name,action,budget_id,budget_title,version,details,hash');
     expect(lines).toHaveLength(4);
     expect(lines[2]).toContain('budget.version_saved');
   });

@@ -37,7 +37,7 @@ export async function startTestServer(overrides: Partial<AppConfig> = {}): Promi
     computeWorkers: 1,
     allowedOrigins: [ORIGIN],
     publicUrl: 'http://dubito.test',
-    signIn: { windowMs: 60_000, perAddress: 10_000, perAccount: 10_000 },
+    signIn: { windowMs: 60_000, perAddress: 10_000, freeFailures: 10_000, firstDelayMs: 1_000, maxDelayMs: 60_000 },
     log: () => {},
     ...overrides,
   });

@@ -102,6 +102,7 @@ const cases: Record<string, Case> = {
     return { url: `/api/budgets/${shared}/attachments/${a.id}`, ok: 200 };
   },
   'get /api/audit': () => ({ url: '/api/audit?action=budget', ok: 200 }),
+  'get /api/audit/verify': () => ({ url: '/api/audit/verify', ok: 200 }),
   'get /api/dev/mail': () => ({ url: '/api/dev/mail', ok: 200 }),
 };
 

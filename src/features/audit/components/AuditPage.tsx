@@ -1,5 +1,4 @@
 import { Link } from 'react-router-dom';
-import type { AuditEvent } from '../../../../shared/api/audit';
 import { errorMessage } from '../../../app/http';
 import { useListParams } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
@@ -20,25 +19,6 @@ function fromLocalInput(text: string): number | undefined {
   if (!text) return undefined;
   const t = new Date(text).getTime();
   return Number.isFinite(t) ? t : undefined;
-}
-
-function describe(e: AuditEvent): string {
-  const d = e.detail;
-  const parts: string[] = [];
-  if (typeof d.note === 'string' && d.note) parts.push(`note “${d.note}”`);
-  if (typeof d.comment === 'string') parts.push(`“${d.comment}”`);
-  if (typeof d.signedBy === 'string') parts.push(`signed by ${d.signedBy}`);
-  if (typeof d.symbol === 'string') parts.push(`on ${d.symbol}`);
-  if (typeof d.sourceBudgetId === 'number') parts.push(`from budget ${d.sourceBudgetId}, v${String(d.sourceVersion)}`);
-  if (typeof d.isTemplate === 'boolean') parts.push(d.isTemplate ? 'marked as template' : 'no longer a template');
-  if (typeof d.email === 'string') parts.push(d.email);
-  if (typeof d.role === 'string') parts.push(`as ${d.role}`);
-  if (d.changes && typeof d.changes === 'object') {
-    for (const [k, v] of Object.entries(d.changes as Record<string, { from: unknown; to: unknown }>)) parts.push(`${k}: ${String(v.from)} → ${String(v.to)}`);
-  }
-  if (typeof d.from === 'string' && typeof d.to === 'string') parts.push(`${d.from.replace('_', ' ')} → ${d.to.replace('_', ' ')}`);
-  if (typeof d.via === 'string') parts.push(`via ${d.via}`);
-  return parts.join('; ');
 }
 
 export function AuditPage() {
@@ -150,7 +130,7 @@ export function AuditPage() {
             <tbody>
               {audit.data.events.map((e) => (
                 <tr key={e.id} className="border-b border-stone-100 align-top last:border-0">
-                  <td className="num whitespace-nowrap px-3 py-1.5 text-xs text-stone-700" title={new Date(e.at).toISOString()}>
+                  <td className="num whitespace-nowrap px-3 py-1.5 text-xs text-stone-700" title={e.time}>
                     {formatDateTime(e.at)}
                   </td>
                   <td className="px-3 py-1.5 text-stone-800">{e.actorEmail ?? (e.actorId ? `user #${e.actorId}` : <span className="text-stone-500">system</span>)}</td>
@@ -167,7 +147,7 @@ export function AuditPage() {
                     )}
                   </td>
                   <td className="num px-3 py-1.5 text-right">{e.versionNumber ? `v${e.versionNumber}` : ''}</td>
-                  <td className="max-w-md break-words px-3 py-1.5 text-xs text-stone-700">{describe(e)}</td>
+                  <td className="max-w-md break-words px-3 py-1.5 text-xs text-stone-700">{e.details}</td>
                 </tr>
               ))}
             </tbody>
