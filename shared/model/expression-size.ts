@@ -51,3 +51,66 @@ export function treeDepth(node: MathNode): number {
   }
   return deepest;
 }
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type AnyNode = MathNode & Record<string, any>;
+
+/**
+ * An upper bound on the nodes of mathjs's `derivative(tree, variable)` with
+ * simplify off, from its rules: a subtree without the variable becomes 0;
+ * d(a ± b) = da ± db; c·f → c·df; the product rule copies the other factor,
+ * the quotient rule the numerator once and the denominator twice, the power
+ * and function rules their arguments up to three times. Computed in one walk
+ * over the tree (shared subtrees once) so an oversized derivative is never
+ * built: a chain of n products has an O(n²) derivative.
+ */
+export function derivativeSizeBound(tree: MathNode, variable: string): number {
+  const sizes = new Map<MathNode, number>();
+  const bounds = new Map<MathNode, { d: number; dep: boolean }>();
+  const size = (node: MathNode): number => {
+    let s = sizes.get(node);
+    if (s === undefined) {
+      s = node.type === 'FunctionNode' ? 2 : 1; // a call and its name
+      node.forEach((child) => {
+        s = (s as number) + size(child);
+      });
+      sizes.set(node, s);
+    }
+    return s;
+  };
+  const walk = (node: MathNode): { d: number; dep: boolean } => {
+    const known = bounds.get(node);
+    if (known) return known;
+    const n = node as AnyNode;
+    let result: { d: number; dep: boolean };
+    if (n.type === 'SymbolNode') {
+      result = { d: 1, dep: n.name === variable };
+    } else {
+      const args: MathNode[] = n.type === 'ParenthesisNode' ? [n.content] : n.type === 'OperatorNode' || n.type === 'FunctionNode' ? n.args : [];
+      const parts = args.map(walk);
+      const dep = parts.some((p) => p.dep);
+      const d = (i: number) => (parts[i].dep ? parts[i].d : 1);
+      const s = (i: number) => size(args[i]);
+      let bound = 1;
+      if (!dep) bound = 1;
+      else if (n.type === 'ParenthesisNode') bound = 1 + d(0);
+      else if (n.type === 'OperatorNode' && (n.fn === 'add' || n.fn === 'subtract' || n.fn === 'unaryMinus' || n.fn === 'unaryPlus')) {
+        bound = 1 + parts.reduce((t, _, i) => t + d(i), 0);
+      } else if (n.type === 'OperatorNode' && n.fn === 'multiply') {
+        // product rule over both factors; a constant factor is kept once
+        bound = 3 + d(0) + d(1) + s(0) + s(1);
+      } else if (n.type === 'OperatorNode' && n.fn === 'divide') {
+        bound = 6 + d(0) + d(1) + s(0) + 2 * s(1);
+      } else if (n.type === 'OperatorNode' && n.fn === 'pow') {
+        bound = 12 + d(0) + d(1) + 3 * s(0) + 2 * s(1);
+      } else {
+        bound = 12 + parts.reduce((t, _, i) => t + d(i) + 3 * s(i), 0);
+      }
+      result = { d: bound, dep };
+    }
+    bounds.set(node, result);
+    return result;
+  };
+  const top = walk(tree);
+  return top.dep ? top.d : 1;
+}

@@ -1,13 +1,13 @@
 import { ConstantNode, OperatorNode, ParenthesisNode, SymbolNode, derivative, type MathNode } from 'mathjs';
 import { SYMBOLIC_LIMITS } from '../budget/limits';
 import { UnsupportedInCode, toJavaScript } from './codegen';
-import { inlinedSizes, nodeCount } from './expression-size';
+import { derivativeSizeBound, inlinedSizes } from './expression-size';
 import type { ModelLine } from './parse-model';
 
 export type ScalarFunction = (x: ArrayLike<number>) => number;
 
 /** Why the partial derivatives are numerical rather than symbolic (none: symbolic where mathjs can form them). */
-export type SymbolicFallback = 'none' | 'model-size' | 'work' ;
+export type SymbolicFallback = 'none' | 'model-size' | 'work';
 
 export interface SymbolicPartials {
   /** ∂f/∂x_i (in measurand unit per input unit); null where it is left to central differences. */
@@ -17,7 +17,7 @@ export interface SymbolicPartials {
   /** Nodes of the measurand's tree with every intermediate line inlined. */
   inlinedNodes: number;
   fallback: SymbolicFallback;
-  /** Inputs whose derivative tree exceeded SYMBOLIC_LIMITS.derivativeNodes (left to differences). */
+  /** Inputs whose derivative tree could exceed SYMBOLIC_LIMITS.derivativeNodes (left to differences, never built). */
   oversizedDerivatives: number[];
 }
 
@@ -51,8 +51,8 @@ function inlineMeasurand(lines: readonly ModelLine[], inputIndex: ReadonlyMap<st
 
 function compilePartial(tree: MathNode, i: number, scale: number): { partial: ScalarFunction; reads: number[] } | 'oversized' | null {
   try {
+    if (derivativeSizeBound(tree, `x${i}`) > SYMBOLIC_LIMITS.derivativeNodes) return 'oversized';
     const d = derivative(tree, `x${i}`, { simplify: false });
-    if (nodeCount(d) > SYMBOLIC_LIMITS.derivativeNodes) return 'oversized';
     const reads = new Set<number>();
     const code = toJavaScript(d, (name) => {
       const m = /^x(\d+)$/.exec(name);
@@ -76,7 +76,8 @@ function compilePartial(tree: MathNode, i: number, scale: number): { partial: Sc
  * partials are left to central differences (JCGM 100:2008 5.1.3 allows
  * numerical sensitivity coefficients) when it exceeds SYMBOLIC_LIMITS.symbolicModelNodes,
  * when used inputs × inlined nodes exceeds SYMBOLIC_LIMITS.symbolicWork, or, per input,
- * when the derivative tree exceeds SYMBOLIC_LIMITS.derivativeNodes.
+ * when the bound on the derivative's size (`derivativeSizeBound`) exceeds
+ * SYMBOLIC_LIMITS.derivativeNodes.
  */
 export function symbolicPartials(
   lines: readonly ModelLine[],
