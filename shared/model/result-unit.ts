@@ -23,7 +23,7 @@ export function resultUnitText(lines: readonly ModelLine[], inputs: readonly Uni
     }
     let last: unknown;
     for (const line of lines) {
-      last = unitMath.evaluate((line.expression as MathNode).toString(), scope);
+      last = unitMath().evaluate((line.expression as MathNode).toString(), scope);
       scope.set(line.symbol, last);
     }
     if (typeof last === 'number') return '1';

@@ -17,6 +17,7 @@ export type TemperatureScale = TemperatureUnitScale | 'difference';
 
 const POINT_SCALES: ReadonlySet<TemperatureScale> = new Set(['celsius', 'fahrenheit', 'kelvin']);
 
+/** Whether a value is a temperature read on a scale (not a difference, not another quantity). */
 export function isScalePoint(s: TemperatureScale | undefined): s is TemperatureUnitScale {
   return s !== undefined && POINT_SCALES.has(s);
 }

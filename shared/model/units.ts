@@ -1,50 +1,72 @@
-import { all, create, type Unit } from 'mathjs';
+import { all, create, type MathJsInstance, type Unit } from 'mathjs';
 
 /**
  * The unit system of budgets: mathjs units with the changes a budget needs,
- * in a mathjs instance of its own so the rest of the program keeps mathjs as
- * shipped.
+ * in a mathjs instance of its own (`unitMath`) so the rest of the program
+ * keeps mathjs as shipped.
  * - °C and °F have the size of the kelvin and of 5/9 K and no offset: the
  *   engine never adds 273.15 K by itself (the temperature rule, see
  *   `temperature-scale.ts`).
- * - %, ppm and ppb are the numbers 10⁻², 10⁻⁶, 10⁻⁹ (SI Brochure 5.4.7), so
+ * - %, ppm and ppb are the numbers 10⁻², 10⁻⁶, 10⁻⁹ (SI Brochure 9th ed.
+ *   5.4.7, pure numbers), so
  *   `ppm/K` and `%/K` are coefficients per kelvin.
- * - rpm is the rotational frequency 1/60 s⁻¹ (ISO 80000-3, item 3-17.2: one
- *   revolution per minute); lm = cd·sr and lx = lm/m² with the steradian
- *   counted as 1 (SI Brochure 2.3.4, table 4).
+ * - rpm is the rotational frequency 1/60 s⁻¹ (ISO 80000-3 rotational
+ *   frequency, unit s⁻¹: one revolution per minute); lm = cd·sr and lx = lm/m² with the steradian
+ *   counted as 1 (SI Brochure 9th ed., table 4).
  * - dB is a level of its own kind: a level adds only to levels in dB and is
  *   no number factor (10 dB is not 10 × something); a ratio written in dB is
  *   converted in the model by the user (r = 10^(L/10) with L given without unit).
  */
-const math = create(all);
-math.createUnit('degC', { definition: '1 K', prefixes: 'none' }, { override: true });
-math.createUnit('degF', { definition: `${5 / 9} K`, prefixes: 'none' }, { override: true });
-math.createUnit('percent', { definition: '0.01', prefixes: 'none' }, { override: true });
-math.createUnit('ppm', { definition: '1e-6', prefixes: 'none' }, { override: true });
-math.createUnit('ppb', { definition: '1e-9', prefixes: 'none' }, { override: true });
-math.createUnit('rpm', { definition: `${1 / 60} Hz`, prefixes: 'none' }, { override: true });
-math.createUnit('lm', { definition: '1 cd', prefixes: 'short' }, { override: true });
-math.createUnit('lx', { definition: '1 cd/m^2', prefixes: 'short' }, { override: true });
-math.createUnit('dB', {}, { override: true });
+function createUnitSystem(): MathJsInstance {
+  const math = create(all);
+  math.createUnit('degC', { definition: '1 K', prefixes: 'none' }, { override: true });
+  math.createUnit('degF', { definition: `${5 / 9} K`, prefixes: 'none' }, { override: true });
+  math.createUnit('percent', { definition: '0.01', prefixes: 'none' }, { override: true });
+  math.createUnit('ppm', { definition: '1e-6', prefixes: 'none' }, { override: true });
+  math.createUnit('ppb', { definition: '1e-9', prefixes: 'none' }, { override: true });
+  math.createUnit('rpm', { definition: `${1 / 60} Hz`, prefixes: 'none' }, { override: true });
+  math.createUnit('lm', { definition: '1 cd', prefixes: 'short' }, { override: true });
+  math.createUnit('lx', { definition: '1 cd/m^2', prefixes: 'short' }, { override: true });
+  math.createUnit('dB', {}, { override: true });
+  return math;
+}
 
-/** The mathjs instance whose units budgets use; only unit code may use it. */
-export const unitMath = math;
+let instance: MathJsInstance | undefined;
+/** The mathjs instance whose units budgets use, made on first use (it takes a noticeable time); only unit code may use it. */
+export function unitMath(): MathJsInstance {
+  instance ??= createUnitSystem();
+  return instance;
+}
 
-const BASE_DIMENSIONS = math.Unit.BASE_DIMENSIONS as string[];
-/** Angles are dimensionless (SI Brochure 2.3.3): the angle exponent is dropped from every dimension. */
-const ANGLE = BASE_DIMENSIONS.indexOf('ANGLE');
-const BASE_SYMBOLS: Record<string, string> = Object.assign(Object.create(null) as Record<string, string>, {
-  MASS: 'kg',
-  LENGTH: 'm',
-  TIME: 's',
-  CURRENT: 'A',
-  TEMPERATURE: 'K',
-  LUMINOUS_INTENSITY: 'cd',
-  AMOUNT_OF_SUBSTANCE: 'mol',
-  BIT: 'b',
-});
-const KEPT = BASE_DIMENSIONS.map((_, i) => i).filter((i) => i !== ANGLE);
-const BASE_NAMES = KEPT.map((i) => BASE_SYMBOLS[BASE_DIMENSIONS[i]] ?? BASE_DIMENSIONS[i].replace(/_STUFF$/, ''));
+/**
+ * The base dimensions kept, by mathjs name (dB makes its own, "dB_STUFF"),
+ * with the symbol each is written with. The angle is left out: angles are
+ * dimensionless (SI Brochure 2.3.3).
+ */
+const KEPT_DIMENSIONS: readonly (readonly [string, string])[] = [
+  ['MASS', 'kg'],
+  ['LENGTH', 'm'],
+  ['TIME', 's'],
+  ['CURRENT', 'A'],
+  ['TEMPERATURE', 'K'],
+  ['LUMINOUS_INTENSITY', 'cd'],
+  ['AMOUNT_OF_SUBSTANCE', 'mol'],
+  ['BIT', 'b'],
+  ['dB_STUFF', 'dB'],
+];
+const BASE_NAMES = KEPT_DIMENSIONS.map(([, symbol]) => symbol);
+let keptIndices: number[] | undefined;
+function kept(): number[] {
+  if (!keptIndices) {
+    const base = unitMath().Unit.BASE_DIMENSIONS as string[];
+    keptIndices = KEPT_DIMENSIONS.map(([name]) => {
+      const i = base.indexOf(name);
+      if (i < 0) throw new Error(`mathjs has no base dimension ${name}`);
+      return i;
+    });
+  }
+  return keptIndices;
+}
 
 /**
  * Exponents of the base quantities: mass, length, time, current,
@@ -53,7 +75,7 @@ const BASE_NAMES = KEPT.map((i) => BASE_SYMBOLS[BASE_DIMENSIONS[i]] ?? BASE_DIME
  */
 export type Dimension = readonly number[];
 
-export const DIMENSIONLESS: Dimension = KEPT.map(() => 0);
+export const DIMENSIONLESS: Dimension = KEPT_DIMENSIONS.map(() => 0);
 
 /** Where a temperature value sits: on the Celsius or Fahrenheit scale, or in kelvin (or rankine). */
 export type TemperatureUnitScale = 'celsius' | 'fahrenheit' | 'kelvin';
@@ -106,7 +128,7 @@ export function mathjsUnitText(text: string): string {
 export function toMathUnit(text: string): Unit {
   const written = mathjsUnitText(text);
   try {
-    return math.unit(1, written);
+    return unitMath().unit(1, written);
   } catch {
     throw new Error(`unknown unit "${text.trim()}"`);
   }
@@ -115,7 +137,7 @@ export function toMathUnit(text: string): Unit {
 /** The dimension of a mathjs unit, without the angle exponent. */
 export function dimensionOf(u: Unit): Dimension {
   const dims = u.dimensions as number[];
-  return KEPT.map((i) => dims[i] ?? 0);
+  return kept().map((i) => dims[i] ?? 0);
 }
 
 function temperatureScaleOf(u: Unit, dimension: Dimension): TemperatureUnitScale | undefined {
@@ -142,18 +164,22 @@ export function parseUnit(text: string | undefined): QuantityUnit {
   return { text: raw, factor, dimension, temperatureScale: temperatureScaleOf(u, dimension) };
 }
 
+/** Whether two dimensions have the same exponents (to 10⁻⁹, for exponents such as 1/2 from sqrt). */
 export function sameDimension(a: Dimension, b: Dimension): boolean {
   return a.length === b.length && a.every((v, i) => Math.abs(v - b[i]) < 1e-9);
 }
 
+/** Whether every exponent is 0: a number, or a ratio such as % or ppm. */
 export function isDimensionless(d: Dimension): boolean {
   return sameDimension(d, DIMENSIONLESS);
 }
 
+/** The dimension of a product (sign 1) or quotient (sign −1): exponents add or subtract (ISO 80000-1). */
 export function multiplyDimensions(a: Dimension, b: Dimension, sign = 1): Dimension {
   return a.map((v, i) => v + sign * b[i]);
 }
 
+/** The dimension of a power a^p: every exponent times p. */
 export function powerDimension(a: Dimension, p: number): Dimension {
   return a.map((v) => v * p);
 }

@@ -136,7 +136,7 @@ describe('units budgets write that mathjs lacks or misreads', () => {
     expect(gum(pct).estimate).toBeCloseTo(101.95, 10);
   });
 
-  it('reads rpm as 1/60 s⁻¹ (ISO 80000-3: one revolution per minute) and lx as cd/m² with sr = 1 (SI Brochure table 4)', () => {
+  it('reads rpm as 1/60 s⁻¹ (ISO 80000-3 rotational frequency: one revolution per minute) and lx as cd/m² with sr = 1 (SI Brochure 9th ed., table 4, from memory)', () => {
     expect(parseUnit('rpm').factor).toBeCloseTo(1 / 60, 15);
     const speed = budget('f = n', { n: [N(3000, 1), 'rpm'] });
     speed.measurand.unit = 'Hz';
