@@ -65,6 +65,11 @@ function lineUnitText(kind: QuantityKind): string {
   return describeDimension(kind.dimension);
 }
 
+/** The SI factor of `lineUnitText(kind)`: 5/9 for °F, 1 for °C and coherent SI units. */
+function lineUnitFactor(kind: QuantityKind): number {
+  return kind.scale === 'fahrenheit' ? 5 / 9 : 1;
+}
+
 /** Whether `text` is a unit of the dimension and scale of `kind`, so a value labelled with it is what the label says. */
 function labels(text: string | undefined, kind: QuantityKind): boolean {
   if (text === undefined) return false;
@@ -109,7 +114,7 @@ export function compileModel(spec: ModelSpec): CompiledModel {
     const analysed = analyseDimensions(parsed.lines, kinds);
     const lineKinds = parsed.lines.map((l) => analysed.get(l.symbol) as QuantityKind);
     lineUnits = lineKinds.map(lineUnitText);
-    lineFactors = lineUnits.map((text) => parseUnit(text).factor);
+    lineFactors = lineKinds.map(lineUnitFactor);
     const y = lineKinds[lineKinds.length - 1];
     if (spec.measurand.unit && spec.measurand.unit.trim() !== '') {
       const target = unitOf(spec.measurand, 'measurand.unit');
@@ -131,8 +136,13 @@ export function compileModel(spec: ModelSpec): CompiledModel {
     } else {
       // the label must state the value: a unit text mathjs cannot tell, or of another dimension, gives way to SI base units
       const yielded = resultUnitText(parsed.lines, spec.inputs, spec.constants);
-      measurandUnit = labels(yielded, y) ? yielded : lineUnitText(y);
-      measurandFactor = parseUnit(measurandUnit).factor;
+      if (yielded !== undefined && labels(yielded, y)) {
+        measurandUnit = yielded;
+        measurandFactor = parseUnit(yielded).factor;
+      } else {
+        measurandUnit = lineUnitText(y);
+        measurandFactor = lineUnitFactor(y);
+      }
     }
     lineUnits[lineUnits.length - 1] = measurandUnit ?? '';
     lineFactors[lineFactors.length - 1] = measurandFactor;

@@ -57,7 +57,7 @@ export function analyseDimensions(lines: readonly ModelLine[], quantities: Reado
       if (scale !== null) return scale;
       const [sa, sb] = [SCALE_UNIT[a.scale as keyof typeof SCALE_UNIT], SCALE_UNIT[b.scale as keyof typeof SCALE_UNIT]];
       return fail(
-        `"${left.toString()}" is a temperature in ${sa} and "${right.toString()}" one in ${sb}: values in °C and °F are used without the offset to K, so temperatures on different scales cannot be combined (the temperature rule); give both in ${sa} or both in ${sb} (a correction of 5 mK to a value in °C is 0.005 degC)`,
+        `"${left.toString()}" is a temperature in ${sa} and "${right.toString()}" one in ${sb}: values in °C and °F are used without the offset to K, so temperatures on different scales cannot be combined (the temperature rule); give both in ${sa} or both in ${sb} (a correction of 5 mK to a value in °C is 0.005 degC; a thermodynamic temperature from t in °C is T0 + (t - t0) with T0 = 273.15 K and t0 = 0 degC)`,
         token,
       );
     };

@@ -212,6 +212,23 @@ describe('the temperature rule (°C and °F without offset; scales never mixed)'
     expect(gum(f).estimate).toBeCloseTo(10, 12);
   });
 
+  it('computes a thermodynamic temperature from one in °C as T0 + (t − t0) (SI Brochure 2.3.1: T = t + 273.15 K)', () => {
+    // ideal gas density ρ = p·M/(R·T): 101 325 Pa, 28.96 g/mol, 20 °C → 1.2041 kg/m³ (closed form below)
+    const doc = budget(
+      'T = T0 + (t - t0)\nrho = p * M / (R * T)',
+      { t: [N(20, 0.01), 'degC'], p: [N(101325, 1), 'Pa'], M: [N(28.96, 0.001), 'g/mol'] },
+      { constants: [{ symbol: 'T0', value: 273.15, unit: 'K' }, { symbol: 't0', value: 0, unit: 'degC' }, { symbol: 'R', value: 8.314462618, unit: 'J/(mol K)' }] } as never,
+    );
+    doc.measurand.unit = 'kg/m^3';
+    const r = gum(doc);
+    expect(r.intermediates[0]).toMatchObject({ symbol: 'T', unit: 'K' });
+    expect(r.intermediates[0].value).toBeCloseTo(293.15, 12);
+    expect(r.estimate).toBeCloseTo((101325 * 0.02896) / (8.314462618 * 293.15), 12);
+    // the shortcut T0 + t is the mix the rule refuses
+    const mix = budget('T = T0 + t', { t: [N(20, 0.01), 'degC'] }, { constants: [{ symbol: 'T0', value: 273.15, unit: 'K' }] } as never);
+    expect(refusal(mix).message).toContain('T0 + (t - t0)');
+  });
+
   it('states a Celsius result in °C, and refuses to show it in K', () => {
     const inputs = { t_r: [N(20, 0.01), 'degC'], dt: [N(0.005, 0.001), 'degC'] } as const;
     const r = computeBudget(budget('t = t_r + dt', { ...inputs } as never), { monteCarlo: false });
