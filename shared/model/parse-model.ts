@@ -1,6 +1,7 @@
 import { parse, type MathNode } from 'mathjs';
 import { BudgetError } from '../budget/budget-error';
 import { LIMITS } from '../budget/limits';
+import { MINUS } from '../format/signs';
 import { treeDepth } from './expression-size';
 import { RESERVED_SYMBOLS, assertSafeExpression } from './sandbox';
 
@@ -39,14 +40,14 @@ function syntaxError(lineNo: number, text: string, error: Error): BudgetError {
  * Each is one character for one, so columns stay those of the line as written.
  */
 const TYPESET_OPERATORS: ReadonlyMap<string, string> = new Map([
-  ['\u2212', '-'],
+  [MINUS, '-'],
   ['\u00d7', '*'],
   ['\u00b7', '*'],
   ['\u22c5', '*'],
 ]);
 
 function withAsciiOperators(text: string): string {
-  return text.replace(/[\u2212\u00d7\u00b7\u22c5]/g, (c) => TYPESET_OPERATORS.get(c) as string);
+  return [...text].map((c) => TYPESET_OPERATORS.get(c) ?? c).join('');
 }
 
 /**

@@ -1,4 +1,5 @@
 import { all, create, type MathJsInstance, type Unit } from 'mathjs';
+import { MINUS } from '../format/signs';
 
 /**
  * The unit system of budgets: mathjs units with the changes a budget needs,
@@ -104,10 +105,13 @@ const MISREAD = new Map<string, string>([
   ['dBm', '"dBm" is a level relative to 1 mW: write "dB" for a level, or give the power in "mW"'],
 ]);
 
+const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
+
 /**
  * Rewrites a unit as users write it into mathjs syntax: µ → u, Ω → ohm,
- * °C → degC, °F → degF, % → percent, · and × → a product. Throws for the
- * names in MISREAD with what to write instead.
+ * °C → degC, °F → degF, % → percent, · and × → a product, − → -, and
+ * superscript exponents (m², s⁻¹) → ^2, ^-1. Throws for the names in
+ * MISREAD with what to write instead.
  */
 export function mathjsUnitText(text: string): string {
   const trimmed = text.trim();
@@ -121,7 +125,9 @@ export function mathjsUnitText(text: string): string {
     .replace(/°C/g, 'degC')
     .replace(/°F/g, 'degF')
     .replace(/%/g, 'percent')
-    .replace(/[·×]/g, ' ');
+    .replace(/[·×]/g, ' ')
+    .replaceAll(MINUS, '-')
+    .replace(/⁻?[⁰¹²³⁴⁵⁶⁷⁸⁹]+/g, (e) => `^${[...e].map((c) => (c === '⁻' ? '-' : String(SUPERSCRIPT_DIGITS.indexOf(c)))).join('')}`);
 }
 
 /** The unit `text` as a mathjs Unit of size 1; throws an Error whose message says why. */

@@ -27,6 +27,16 @@ describe('units (SI Brochure, 9th ed.: prefixes and derived units)', () => {
     expect(() => parseUnit('furlongs per fortnight')).toThrow(/unknown unit/);
   });
 
+  it('reads units as typeset: superscript exponents, the minus sign, · and × between units', () => {
+    expect(parseUnit('m²').dimension).toEqual(parseUnit('m^2').dimension);
+    expect(parseUnit('kg·m⁻³').factor).toBe(1);
+    expect(parseUnit('kg·m⁻³').dimension).toEqual(parseUnit('kg/m^3').dimension);
+    expect(parseUnit('m·s^−2').dimension).toEqual(parseUnit('m/s^2').dimension);
+    expect(parseUnit('mm²').factor).toBeCloseTo(1e-6, 21);
+    expect(parseUnit('N×m').dimension).toEqual(parseUnit('J').dimension);
+    expect(parseUnit('µs⁻¹').factor).toBeCloseTo(1e6, 6);
+  });
+
   it('converts the result to the measurand unit: mol/mL → mol/L', () => {
     const doc = budget('c = n / V', { n: [N(2, 0.01), 'mmol'], V: [N(1, 0.001), 'mL'] });
     doc.measurand.unit = 'mol/L';
