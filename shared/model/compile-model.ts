@@ -71,8 +71,7 @@ function lineUnitFactor(kind: QuantityKind): number {
 }
 
 /** Whether `text` is a unit of the dimension and scale of `kind`, so a value labelled with it is what the label says. */
-function labels(text: string | undefined, kind: QuantityKind): boolean {
-  if (text === undefined) return false;
+function labels(text: string, kind: QuantityKind): boolean {
   try {
     const u = parseUnit(text);
     return sameDimension(u.dimension, kind.dimension) && fitsScale(kind.scale, u.temperatureScale);
@@ -80,6 +79,7 @@ function labels(text: string | undefined, kind: QuantityKind): boolean {
     return false;
   }
 }
+
 /**
  * Parses, checks and compiles a measurement model (JCGM 100:2008 4.1.1,
  * Y = f(X₁, …, X_N), possibly through intermediate quantities). Every value
