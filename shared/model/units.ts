@@ -98,9 +98,9 @@ const MISREAD = new Map<string, string>([
   ['pH', '"pH" is a quantity, not a unit: leave the unit of a pH value empty (or write "1"); for the inductance picohenry write "picohenry"'],
   [
     '%RH',
-    'a unit symbol carries no information about the quantity (SI Brochure 5.4.2): write "%" and say "relative humidity" in the description',
+    'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description',
   ],
-  ['RH', 'a unit symbol carries no information about the quantity (SI Brochure 5.4.2): write "%" and say "relative humidity" in the description'],
+  ['RH', 'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description'],
   ['ppt', '"ppt" means 10⁻³ to some and 10⁻¹² to others: write "1e-12" as a factor in the model, or use "ppm" or "ppb"'],
   ['dBm', '"dBm" is a level relative to 1 mW: write "dB" for a level, or give the power in "mW"'],
 ]);
