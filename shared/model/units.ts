@@ -94,13 +94,12 @@ export interface QuantityUnit {
  * Names that look like units but would be misread; each is refused with what
  * to write instead.
  */
+const QUANTITY_IN_UNIT =
+  'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description';
 const MISREAD = new Map<string, string>([
   ['pH', '"pH" is a quantity, not a unit: leave the unit of a pH value empty (or write "1"); for the inductance picohenry write "picohenry"'],
-  [
-    '%RH',
-    'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description',
-  ],
-  ['RH', 'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description'],
+  ['%RH', QUANTITY_IN_UNIT],
+  ['RH', QUANTITY_IN_UNIT],
   ['ppt', '"ppt" means 10⁻³ to some and 10⁻¹² to others: write "1e-12" as a factor in the model, or use "ppm" or "ppb"'],
   ['dBm', '"dBm" is a level relative to 1 mW: write "dB" for a level, or give the power in "mW"'],
 ]);
