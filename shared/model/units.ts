@@ -90,12 +90,12 @@ export interface QuantityUnit {
   temperatureScale?: TemperatureUnitScale;
 }
 
+const QUANTITY_IN_UNIT =
+  'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description';
 /**
  * Names that look like units but would be misread; each is refused with what
  * to write instead.
  */
-const QUANTITY_IN_UNIT =
-  'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description';
 const MISREAD = new Map<string, string>([
   ['pH', '"pH" is a quantity, not a unit: leave the unit of a pH value empty (or write "1"); for the inductance picohenry write "picohenry"'],
   ['%RH', QUANTITY_IN_UNIT],
