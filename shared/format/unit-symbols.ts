@@ -18,24 +18,25 @@ const MICRO_BASES = new Set([
   'm', 'g', 's', 'V', 'A', 'L', 'l', 'W', 'mol', 'K', 'Hz', 'F', 'H', 'Pa', 'N', 'J', 'C', 'S', 'T', 'rad', 'ohm', 'bar', 'cd', 'Wb', 'sr', 'degC',
 ]);
 
-const SYMBOLS: Record<string, string> = {
-  degC: '°C',
-  degF: '°F',
-  deg: '°',
-  ohm: 'Ω',
-  kohm: 'kΩ',
-  Mohm: 'MΩ',
-  mohm: 'mΩ',
-  percent: '%',
-  arcmin: '′',
-  arcsec: '″',
-};
+const SYMBOLS: ReadonlyMap<string, string> = new Map([
+  ['degC', '°C'],
+  ['degF', '°F'],
+  ['deg', '°'],
+  ['ohm', 'Ω'],
+  ['kohm', 'kΩ'],
+  ['Mohm', 'MΩ'],
+  ['mohm', 'mΩ'],
+  ['percent', '%'],
+  ['arcmin', '′'],
+  ['arcsec', '″'],
+]);
 
 /** The printed symbol of one unit name: "um" → "µm", "degC" → "°C", "kohm" → "kΩ"; unknown names pass through (SI Brochure 5.4.3). */
 export function unitSymbol(name: string): string {
-  if (SYMBOLS[name]) return SYMBOLS[name];
+  const symbol = SYMBOLS.get(name);
+  if (symbol !== undefined) return symbol;
   const rest = name.slice(1);
-  if (name.length > 1 && (name[0] === 'u' || name[0] === 'μ') && MICRO_BASES.has(rest)) return 'µ' + (SYMBOLS[rest] ?? rest);
+  if (name.length > 1 && (name[0] === 'u' || name[0] === 'μ') && MICRO_BASES.has(rest)) return 'µ' + (SYMBOLS.get(rest) ?? rest);
   if (name[0] === 'μ') return 'µ' + rest;
   return name;
 }

@@ -7,32 +7,37 @@ type AnyNode = MathNode & Record<string, any>;
  * JavaScript for each function a model or its derivatives may contain.
  * Derivatives bring in sec, csc, cot, sinh, cosh, sign and two-argument log.
  */
-const FUNCTION_CODE: Record<string, (args: string[]) => string> = {
-  sqrt: (a) => `Math.sqrt(${a[0]})`,
-  exp: (a) => `Math.exp(${a[0]})`,
-  log: (a) => (a.length === 2 ? `(Math.log(${a[0]}) / Math.log(${a[1]}))` : `Math.log(${a[0]})`),
-  log10: (a) => `Math.log10(${a[0]})`,
-  sin: (a) => `Math.sin(${a[0]})`,
-  cos: (a) => `Math.cos(${a[0]})`,
-  tan: (a) => `Math.tan(${a[0]})`,
-  asin: (a) => `Math.asin(${a[0]})`,
-  acos: (a) => `Math.acos(${a[0]})`,
-  atan: (a) => `Math.atan(${a[0]})`,
-  atan2: (a) => `Math.atan2(${a[0]}, ${a[1]})`,
-  abs: (a) => `Math.abs(${a[0]})`,
-  min: (a) => `Math.min(${a.join(', ')})`,
-  max: (a) => `Math.max(${a.join(', ')})`,
-  sec: (a) => `(1 / Math.cos(${a[0]}))`,
-  csc: (a) => `(1 / Math.sin(${a[0]}))`,
-  cot: (a) => `(1 / Math.tan(${a[0]}))`,
-  sinh: (a) => `Math.sinh(${a[0]})`,
-  cosh: (a) => `Math.cosh(${a[0]})`,
-  tanh: (a) => `Math.tanh(${a[0]})`,
-  sign: (a) => `Math.sign(${a[0]})`,
-  square: (a) => `((${a[0]}) * (${a[0]}))`,
-};
+const FUNCTION_CODE: ReadonlyMap<string, (args: string[]) => string> = new Map<string, (args: string[]) => string>([
+  ['sqrt', (a) => `Math.sqrt(${a[0]})`],
+  ['exp', (a) => `Math.exp(${a[0]})`],
+  ['log', (a) => (a.length === 2 ? `(Math.log(${a[0]}) / Math.log(${a[1]}))` : `Math.log(${a[0]})`)],
+  ['log10', (a) => `Math.log10(${a[0]})`],
+  ['sin', (a) => `Math.sin(${a[0]})`],
+  ['cos', (a) => `Math.cos(${a[0]})`],
+  ['tan', (a) => `Math.tan(${a[0]})`],
+  ['asin', (a) => `Math.asin(${a[0]})`],
+  ['acos', (a) => `Math.acos(${a[0]})`],
+  ['atan', (a) => `Math.atan(${a[0]})`],
+  ['atan2', (a) => `Math.atan2(${a[0]}, ${a[1]})`],
+  ['abs', (a) => `Math.abs(${a[0]})`],
+  ['min', (a) => `Math.min(${a.join(', ')})`],
+  ['max', (a) => `Math.max(${a.join(', ')})`],
+  ['sec', (a) => `(1 / Math.cos(${a[0]}))`],
+  ['csc', (a) => `(1 / Math.sin(${a[0]}))`],
+  ['cot', (a) => `(1 / Math.tan(${a[0]}))`],
+  ['sinh', (a) => `Math.sinh(${a[0]})`],
+  ['cosh', (a) => `Math.cosh(${a[0]})`],
+  ['tanh', (a) => `Math.tanh(${a[0]})`],
+  ['sign', (a) => `Math.sign(${a[0]})`],
+  ['square', (a) => `((${a[0]}) * (${a[0]}))`],
+]);
 
-const BINARY: Record<string, string> = { add: '+', subtract: '-', multiply: '*', divide: '/' };
+const BINARY: ReadonlyMap<string, string> = new Map([
+  ['add', '+'],
+  ['subtract', '-'],
+  ['multiply', '*'],
+  ['divide', '/'],
+]);
 
 export class UnsupportedInCode extends Error {}
 
@@ -76,10 +81,11 @@ export function toJavaScript(node: MathNode, symbol: (name: string) => string): 
     }
     case 'OperatorNode': {
       const args = (n.args as MathNode[]).map((a) => toJavaScript(a, symbol));
-      if (n.fn in BINARY && args.length === 2) {
+      const binary = BINARY.get(n.fn as string);
+      if (binary !== undefined && args.length === 2) {
         const identity = exactIdentity(n.fn as string, args[0], args[1]);
         if (identity !== null) return identity;
-        return `(${args[0]} ${BINARY[n.fn]} ${args[1]})`;
+        return `(${args[0]} ${binary} ${args[1]})`;
       }
       if (n.fn === 'unaryMinus') return `(-${args[0]})`;
       if (n.fn === 'unaryPlus') return args[0];
@@ -88,7 +94,7 @@ export function toJavaScript(node: MathNode, symbol: (name: string) => string): 
     }
     case 'FunctionNode': {
       const name = (n.fn as AnyNode).name as string;
-      const code = FUNCTION_CODE[name];
+      const code = FUNCTION_CODE.get(name);
       if (!code) throw new UnsupportedInCode(`function ${name}`);
       return code((n.args as MathNode[]).map((a) => toJavaScript(a, symbol)));
     }

@@ -1,10 +1,13 @@
-import { ConstantNode, OperatorNode, ParenthesisNode, SymbolNode, derivative, type MathNode } from 'mathjs';
 import { BudgetError } from '../budget/budget-error';
-import { analyseDimensions } from './dimensions';
+import { analyseDimensions, type QuantityKind } from './dimensions';
 import { parseModel, type ModelLine } from './parse-model';
 import { resultUnitText } from './result-unit';
 import { UnsupportedInCode, toJavaScript } from './codegen';
-import { describeDimension, parseUnit, sameDimension, type Dimension, type QuantityUnit } from './units';
+import { symbolicPartials, type ScalarFunction, type SymbolicFallback } from './symbolic-partials';
+import { fitsScale } from './temperature-scale';
+import { describeDimension, parseUnit, sameDimension, type QuantityUnit } from './units';
+
+export type { ScalarFunction } from './symbolic-partials';
 
 /** A quantity the model reads: an input (one column per input) or a constant. */
 export interface ModelQuantity {
@@ -21,7 +24,6 @@ export interface ModelSpec {
   constants: readonly ModelConstant[];
 }
 
-export type ScalarFunction = (x: ArrayLike<number>) => number;
 
 /** A measurement model compiled once into JavaScript. All arguments are input values in their own units. */
 export interface CompiledModel {
@@ -35,15 +37,17 @@ export interface CompiledModel {
   hasUnits: boolean;
   /** y = f(x) in the measurand's unit. */
   value: ScalarFunction;
-  /** Every line's value: intermediates in coherent SI units (see `lineUnits`), the last one y. */
+  /** Every line's value in its unit of `lineUnits`: intermediates in coherent SI units (°C or °F for a temperature on that scale), the last one y. */
   lineValues(x: ArrayLike<number>): number[];
   lineUnits: string[];
   /** out[offset + t] = f(columns[·][t]) for t < n: the Monte Carlo kernel. */
   evaluateBlock(columns: readonly Float64Array[], out: Float64Array, offset: number, n: number): void;
-  /** ∂f/∂x_i compiled from the symbolic derivative; null where mathjs could not differentiate. */
+  /** ∂f/∂x_i compiled from the symbolic derivative; null where mathjs could not differentiate or the bounds of `symbolic-partials.ts` leave it to differences. */
   partials: (ScalarFunction | null)[];
   /** For each partial, the input indices its code reads (sorted; [] for an unused input, null where there is no symbolic partial). */
   partialReads: (readonly number[] | null)[];
+  /** How the partials were formed: the inlined size of the model, why they fell back to differences, inputs whose derivative was too large. */
+  symbolicDerivatives: { inlinedNodes: number; fallback: SymbolicFallback; oversized: number[] };
 }
 
 function unitOf(q: ModelQuantity, field: string): QuantityUnit {
@@ -54,41 +58,25 @@ function unitOf(q: ModelQuantity, field: string): QuantityUnit {
   }
 }
 
-/** Replaces inputs by `x_i·k_i`, constants by their SI values and intermediates by their own trees. */
-function inlineLines(lines: readonly ModelLine[], inputIndex: Map<string, number>, factors: number[], constantsSI: Map<string, number>): MathNode[] {
-  const inlined = new Map<string, MathNode>();
-  return lines.map((line) => {
-    const tree = line.expression.transform((node, path) => {
-      if (path === 'fn' || node.type !== 'SymbolNode') return node;
-      const name = (node as SymbolNode).name;
-      const i = inputIndex.get(name);
-      if (i !== undefined) {
-        return new ParenthesisNode(new OperatorNode('*', 'multiply', [new SymbolNode(`x${i}`), new ConstantNode(factors[i])]));
-      }
-      if (constantsSI.has(name)) return new ConstantNode(constantsSI.get(name) as number);
-      const earlier = inlined.get(name);
-      if (earlier) return new ParenthesisNode(earlier);
-      return node;
-    });
-    inlined.set(line.symbol, tree);
-    return tree;
-  });
+/** The unit a line's value is stated in: °C or °F for a temperature on that scale (its own value), else coherent SI units. */
+function lineUnitText(kind: QuantityKind): string {
+  if (kind.scale === 'celsius') return 'degC';
+  if (kind.scale === 'fahrenheit') return 'degF';
+  return describeDimension(kind.dimension);
 }
 
-function symbolicPartial(tree: MathNode, i: number, scale: number): { partial: ScalarFunction; reads: number[] } | null {
+/** The SI factor of `lineUnitText(kind)`: 5/9 for °F, 1 for °C and coherent SI units. */
+function lineUnitFactor(kind: QuantityKind): number {
+  return kind.scale === 'fahrenheit' ? 5 / 9 : 1;
+}
+
+/** Whether `text` is a unit of the dimension and scale of `kind`, so a value labelled with it is what the label says. */
+function labels(text: string, kind: QuantityKind): boolean {
   try {
-    const d = derivative(tree, `x${i}`, { simplify: false });
-    const reads = new Set<number>();
-    const code = toJavaScript(d, (name) => {
-      const m = /^x(\d+)$/.exec(name);
-      if (!m) throw new UnsupportedInCode(name);
-      reads.add(Number(m[1]));
-      return `x[${m[1]}]`;
-    });
-    const partial = new Function('x', `"use strict"; return (${code}) * ${scale};`) as ScalarFunction;
-    return { partial, reads: [...reads].sort((a, b) => a - b) };
+    const u = parseUnit(text);
+    return sameDimension(u.dimension, kind.dimension) && fitsScale(kind.scale, u.temperatureScale);
   } catch {
-    return null;
+    return false;
   }
 }
 
@@ -98,7 +86,8 @@ function symbolicPartial(tree: MathNode, i: number, scale: number): { partial: S
  * is converted to coherent SI units inside the model (x_SI = k_i·x_i) and the
  * result back to the measurand's unit, so mixed units (mg and g, mol/mL and
  * mol/L) are consistent and sensitivity coefficients come out in measurand
- * unit per input unit.
+ * unit per input unit. The code computes each line once, in order, so its
+ * size grows with the model text, never with the depth of intermediates.
  */
 export function compileModel(spec: ModelSpec): CompiledModel {
   const inputSymbols = spec.inputs.map((q) => q.symbol);
@@ -116,33 +105,47 @@ export function compileModel(spec: ModelSpec): CompiledModel {
   let measurandFactor = 1;
   let measurandUnit = spec.measurand.unit;
   let lineUnits = parsed.lines.map(() => '');
+  let lineFactors = parsed.lines.map(() => 1);
   if (hasUnits) {
-    const dims = new Map<string, Dimension>();
-    spec.inputs.forEach((q, i) => dims.set(q.symbol, inputUnits[i].dimension));
-    spec.constants.forEach((c, i) => dims.set(c.symbol, constantUnits[i].dimension));
-    const lineDims = analyseDimensions(parsed.lines, dims);
-    lineUnits = parsed.lines.map((l) => describeDimension(lineDims.get(l.symbol) as Dimension));
-    const yDim = lineDims.get(spec.measurand.symbol) as Dimension;
+    const kinds = new Map<string, QuantityKind>();
+    const kindOf = (u: QuantityUnit): QuantityKind => ({ dimension: u.dimension, scale: u.temperatureScale });
+    spec.inputs.forEach((q, i) => kinds.set(q.symbol, kindOf(inputUnits[i])));
+    spec.constants.forEach((c, i) => kinds.set(c.symbol, kindOf(constantUnits[i])));
+    const analysed = analyseDimensions(parsed.lines, kinds);
+    const lineKinds = parsed.lines.map((l) => analysed.get(l.symbol) as QuantityKind);
+    lineUnits = lineKinds.map(lineUnitText);
+    lineFactors = lineKinds.map(lineUnitFactor);
+    const y = lineKinds[lineKinds.length - 1];
     if (spec.measurand.unit && spec.measurand.unit.trim() !== '') {
       const target = unitOf(spec.measurand, 'measurand.unit');
-      if (!sameDimension(target.dimension, yDim)) {
+      if (!sameDimension(target.dimension, y.dimension)) {
         throw new BudgetError(
           'unit',
-          `measurand.unit: the model yields ${describeDimension(yDim)}, which cannot be expressed in "${spec.measurand.unit}"`,
+          `measurand.unit: the model yields ${describeDimension(y.dimension)}, which cannot be expressed in "${spec.measurand.unit}"`,
+          'measurand.unit',
+        );
+      }
+      if (!fitsScale(y.scale, target.temperatureScale)) {
+        throw new BudgetError(
+          'unit',
+          `measurand.unit: the model yields a temperature on the ${y.scale} scale, which "${spec.measurand.unit}" would show without the offset between the scales (the temperature rule); write the measurand unit as ${lineUnitText(y)}`,
           'measurand.unit',
         );
       }
       measurandFactor = target.factor;
     } else {
-      measurandUnit = resultUnitText(parsed.lines, spec.inputs, spec.constants) ?? describeDimension(yDim);
-      try {
-        measurandFactor = parseUnit(measurandUnit).factor;
-      } catch {
-        measurandUnit = describeDimension(yDim);
-        measurandFactor = 1;
+      // the label must state the value: a unit text mathjs cannot tell, or of another dimension, gives way to SI base units
+      const yielded = resultUnitText(parsed.lines, spec.inputs, spec.constants);
+      if (yielded !== undefined && labels(yielded, y)) {
+        measurandUnit = yielded;
+        measurandFactor = parseUnit(yielded).factor;
+      } else {
+        measurandUnit = lineUnitText(y);
+        measurandFactor = lineUnitFactor(y);
       }
     }
     lineUnits[lineUnits.length - 1] = measurandUnit ?? '';
+    lineFactors[lineFactors.length - 1] = measurandFactor;
   }
 
   const inputIndex = new Map(inputSymbols.map((s, i) => [s, i]));
@@ -150,10 +153,8 @@ export function compileModel(spec: ModelSpec): CompiledModel {
   const symbolCode = (name: string): string => {
     const i = inputIndex.get(name);
     if (i !== undefined) return `q${i}`;
-    if (constantsSI.has(name)) {
-      const v = constantsSI.get(name) as number;
-      return v < 0 ? `(${v})` : String(v);
-    }
+    const v = constantsSI.get(name);
+    if (v !== undefined) return v < 0 ? `(${v})` : String(v);
     const l = lineIndex.get(name);
     if (l !== undefined) return `l${l}`;
     throw new UnsupportedInCode(name);
@@ -163,11 +164,12 @@ export function compileModel(spec: ModelSpec): CompiledModel {
   const last = `l${parsed.lines.length - 1}`;
   const invScale = 1 / measurandFactor;
   const readScalar = used.map(({ i }) => `const q${i} = x[${i}] * ${factors[i]};`).join('\n');
+  const stated = (i: number) => (lineFactors[i] === 1 ? `l${i}` : `l${i} * ${1 / lineFactors[i]}`);
 
   const value = new Function('x', `"use strict";\n${readScalar}\n${lineCode}\nreturn ${last} * ${invScale};`) as ScalarFunction;
   const lineValuesFn = new Function(
     'x',
-    `"use strict";\n${readScalar}\n${lineCode}\nreturn [${parsed.lines.map((_, i) => (i === parsed.lines.length - 1 ? `${last} * ${invScale}` : `l${i}`)).join(', ')}];`,
+    `"use strict";\n${readScalar}\n${lineCode}\nreturn [${parsed.lines.map((_, i) => stated(i)).join(', ')}];`,
   ) as (x: ArrayLike<number>) => number[];
   const evaluateBlock = new Function(
     'columns',
@@ -182,9 +184,7 @@ out[offset + t] = ${last} * ${invScale};
 }`,
   ) as CompiledModel['evaluateBlock'];
 
-  const trees = inlineLines(parsed.lines, inputIndex, factors, constantsSI);
-  const yTree = trees[trees.length - 1];
-  const symbolic = inputSymbols.map((s, i) => (parsed.usedSymbols.has(s) ? symbolicPartial(yTree, i, invScale) : { partial: () => 0, reads: [] }));
+  const symbolic = symbolicPartials(parsed.lines, inputSymbols, parsed.usedSymbols, factors, constantsSI, invScale);
 
   return {
     inputSymbols,
@@ -196,7 +196,8 @@ out[offset + t] = ${last} * ${invScale};
     lineValues: lineValuesFn,
     lineUnits,
     evaluateBlock,
-    partials: symbolic.map((p) => p?.partial ?? null),
-    partialReads: symbolic.map((p) => p?.reads ?? null),
+    partials: symbolic.partials,
+    partialReads: symbolic.reads,
+    symbolicDerivatives: { inlinedNodes: symbolic.inlinedNodes, fallback: symbolic.fallback, oversized: symbolic.oversizedDerivatives },
   };
 }

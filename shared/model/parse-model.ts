@@ -1,6 +1,8 @@
 import { parse, type MathNode } from 'mathjs';
 import { BudgetError } from '../budget/budget-error';
 import { LIMITS } from '../budget/limits';
+import { MINUS } from '../format/signs';
+import { treeDepth } from './expression-size';
 import { RESERVED_SYMBOLS, assertSafeExpression } from './sandbox';
 
 /** One line of a measurement model: `symbol = expression`. */
@@ -32,6 +34,52 @@ function syntaxError(lineNo: number, text: string, error: Error): BudgetError {
   return new BudgetError('model_syntax', `model line ${lineNo}${where}: ${message}`, 'model', { line: lineNo, column, token });
 }
 
+/**
+ * The operator signs of typeset mathematics as the parser reads them: the
+ * minus sign − (U+2212), × and the dot operators · and ⋅ for products.
+ * Each is one character for one, so columns stay those of the line as written.
+ */
+const TYPESET_OPERATORS: ReadonlyMap<string, string> = new Map([
+  [MINUS, '-'],
+  ['\u00d7', '*'],
+  ['\u00b7', '*'],
+  ['\u22c5', '*'],
+]);
+
+function withAsciiOperators(text: string): string {
+  return [...text].map((c) => TYPESET_OPERATORS.get(c) ?? c).join('');
+}
+
+/**
+ * Refuses a line whose parentheses or brackets nest deeper than
+ * LIMITS.modelNesting, before parsing: every stage walks the tree
+ * recursively, and such nesting is no measurement model.
+ */
+function assertNesting(text: string, lineNo: number): void {
+  let depth = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i];
+    if (c === '(' || c === '[') depth++;
+    else if (c === ')' || c === ']') depth--;
+    if (depth > LIMITS.modelNesting) {
+      throw new BudgetError('limit', `model line ${lineNo}, column ${i + 1}: parentheses nested deeper than ${LIMITS.modelNesting}; split the expression into intermediate lines`, 'model', {
+        line: lineNo,
+        column: i + 1,
+        token: c,
+      });
+    }
+  }
+}
+
+function tooDeep(lineNo: number): BudgetError {
+  return new BudgetError(
+    'limit',
+    `model line ${lineNo}: the expression is nested deeper than ${LIMITS.modelTreeDepth} operations; split it into intermediate lines`,
+    'model',
+    { line: lineNo },
+  );
+}
+
 function collectSymbols(node: MathNode, into: Set<string>): void {
   node.traverse((n, path) => {
     // a function's own name (path "fn") is not a quantity
@@ -53,21 +101,28 @@ export function parseModel(text: string, quantitySymbols: ReadonlySet<string>, m
   const usedSymbols = new Set<string>();
   const rawLines = text.split(/\r?\n/);
   const contentLines = rawLines
-    .map((raw, i) => ({ raw, lineNo: i + 1, code: raw.replace(/#.*$/, '').trim() }))
+    .map((raw, i) => {
+      const source = withAsciiOperators(raw.replace(/#.*$/, ''));
+      return { raw, source, lineNo: i + 1, code: source.trim() };
+    })
     .filter((l) => l.code.length > 0);
   if (contentLines.length === 0) throw new BudgetError('model_syntax', 'model: the model has no expression', 'model');
 
-  contentLines.forEach(({ raw, lineNo, code }, index) => {
+  contentLines.forEach(({ raw, source, lineNo, code }, index) => {
     const isLast = index === contentLines.length - 1;
+    assertNesting(source, lineNo);
     let node: AnyNode;
     try {
-      node = parse(code) as AnyNode;
+      // the untrimmed line, so mathjs's positions are columns of the line as written
+      node = parse(source) as AnyNode;
     } catch (e) {
+      if (e instanceof RangeError) throw tooDeep(lineNo);
       throw syntaxError(lineNo, raw, e as Error);
     }
+    if (treeDepth(node) > LIMITS.modelTreeDepth) throw tooDeep(lineNo);
     let symbol: string;
     let expression: MathNode;
-    const sandbox = { line: lineNo, isKnown: (name: string) => defined.has(name) };
+    const sandbox = { line: lineNo, text: source, isKnown: (name: string) => defined.has(name) };
     if (node.type === 'FunctionAssignmentNode' || node.type === 'BlockNode') assertSafeExpression(node, sandbox);
     if (node.type === 'AssignmentNode') {
       const target = node.object as AnyNode;

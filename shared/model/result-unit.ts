@@ -1,34 +1,29 @@
-import { unit as mathUnit, type MathNode } from 'mathjs';
+import type { MathNode } from 'mathjs';
 import type { ModelLine } from './parse-model';
+import { toMathUnit, unitMath } from './units';
 
 interface UnitQuantity {
   symbol: string;
   unit?: string;
 }
 
-function asMathUnit(text: string | undefined): unknown {
-  const t = (text ?? '').trim();
-  if (t === '' || t === '1') return 1;
-  try {
-    return mathUnit(1, t.replace(/[µμ]/g, 'u').replace(/\bdegC\b|°C/g, 'K'));
-  } catch {
-    return 1;
-  }
-}
-
 /**
  * The unit a model yields from the units given, without conversion (used when
  * the measurand has no unit): the model is evaluated once on unit quantities
- * of size 1 (`V · mA` stays `V mA`). Returns undefined when that cannot be
- * told, and the caller falls back to SI base units.
+ * of size 1 (`V · mA` stays `V mA`) with the budget unit system of `units.ts`.
+ * Returns undefined when that cannot be told (the caller then writes SI base
+ * units); the caller checks that the text has the dimension the model yields.
  */
 export function resultUnitText(lines: readonly ModelLine[], inputs: readonly UnitQuantity[], constants: readonly UnitQuantity[]): string | undefined {
   const scope = new Map<string, unknown>();
-  for (const q of [...inputs, ...constants]) scope.set(q.symbol, asMathUnit(q.unit));
   try {
+    for (const q of [...inputs, ...constants]) {
+      const t = (q.unit ?? '').trim();
+      scope.set(q.symbol, t === '' || t === '1' ? 1 : toMathUnit(t));
+    }
     let last: unknown;
     for (const line of lines) {
-      last = (line.expression as MathNode).compile().evaluate(scope);
+      last = unitMath().evaluate((line.expression as MathNode).toString(), scope);
       scope.set(line.symbol, last);
     }
     if (typeof last === 'number') return '1';

@@ -1,74 +1,196 @@
-import { unit as mathUnit } from 'mathjs';
+import { all, create, type MathJsInstance, type Unit } from 'mathjs';
+import { MINUS } from '../format/signs';
 
 /**
- * Exponents of the SI base quantities: mass, length, time, current,
- * temperature, luminous intensity, amount of substance. Angles are
- * dimensionless (SI Brochure 2.3.3), so the angle dimension is dropped.
+ * The unit system of budgets: mathjs units with the changes a budget needs,
+ * in a mathjs instance of its own (`unitMath`) so the rest of the program
+ * keeps mathjs as shipped.
+ * - °C and °F have the size of the kelvin and of 5/9 K and no offset: the
+ *   engine never adds 273.15 K by itself (the temperature rule, see
+ *   `temperature-scale.ts`).
+ * - %, ppm and ppb are the numbers 10⁻², 10⁻⁶, 10⁻⁹ (SI Brochure 9th ed.
+ *   5.4.7, pure numbers), so
+ *   `ppm/K` and `%/K` are coefficients per kelvin.
+ * - rpm is the rotational frequency 1/60 s⁻¹ (ISO 80000-3 rotational
+ *   frequency, unit s⁻¹: one revolution per minute); lm = cd·sr and lx = lm/m² with the steradian
+ *   counted as 1 (SI Brochure 9th ed., table 4).
+ * - dB is a level of its own kind: a level adds only to levels in dB and is
+ *   no number factor (10 dB is not 10 × something); a ratio written in dB is
+ *   converted in the model by the user (r = 10^(L/10) with L given without unit).
+ */
+function createUnitSystem(): MathJsInstance {
+  const math = create(all);
+  math.createUnit('degC', { definition: '1 K', prefixes: 'none' }, { override: true });
+  math.createUnit('degF', { definition: `${5 / 9} K`, prefixes: 'none' }, { override: true });
+  math.createUnit('percent', { definition: '0.01', prefixes: 'none' }, { override: true });
+  math.createUnit('ppm', { definition: '1e-6', prefixes: 'none' }, { override: true });
+  math.createUnit('ppb', { definition: '1e-9', prefixes: 'none' }, { override: true });
+  math.createUnit('rpm', { definition: `${1 / 60} Hz`, prefixes: 'none' }, { override: true });
+  math.createUnit('lm', { definition: '1 cd', prefixes: 'short' }, { override: true });
+  math.createUnit('lx', { definition: '1 cd/m^2', prefixes: 'short' }, { override: true });
+  math.createUnit('dB', {}, { override: true });
+  return math;
+}
+
+let instance: MathJsInstance | undefined;
+/** The mathjs instance whose units budgets use, made on first use (it takes a noticeable time); only unit code may use it. */
+export function unitMath(): MathJsInstance {
+  instance ??= createUnitSystem();
+  return instance;
+}
+
+/**
+ * The base dimensions kept, by mathjs name (dB makes its own, "dB_STUFF"),
+ * with the symbol each is written with. The angle is left out: angles are
+ * dimensionless (SI Brochure 2.3.3).
+ */
+const KEPT_DIMENSIONS: readonly (readonly [string, string])[] = [
+  ['MASS', 'kg'],
+  ['LENGTH', 'm'],
+  ['TIME', 's'],
+  ['CURRENT', 'A'],
+  ['TEMPERATURE', 'K'],
+  ['LUMINOUS_INTENSITY', 'cd'],
+  ['AMOUNT_OF_SUBSTANCE', 'mol'],
+  ['BIT', 'b'],
+  ['dB_STUFF', 'dB'],
+];
+const BASE_NAMES = KEPT_DIMENSIONS.map(([, symbol]) => symbol);
+let keptIndices: number[] | undefined;
+function kept(): number[] {
+  if (!keptIndices) {
+    const base = unitMath().Unit.BASE_DIMENSIONS as string[];
+    keptIndices = KEPT_DIMENSIONS.map(([name]) => {
+      const i = base.indexOf(name);
+      if (i < 0) throw new Error(`mathjs has no base dimension ${name}`);
+      return i;
+    });
+  }
+  return keptIndices;
+}
+
+/**
+ * Exponents of the base quantities: mass, length, time, current,
+ * temperature, luminous intensity, amount of substance, information, level
+ * in dB. Angles are dimensionless, so there is no angle exponent.
  */
 export type Dimension = readonly number[];
 
-export const DIMENSIONLESS: Dimension = [0, 0, 0, 0, 0, 0, 0];
-const BASE_NAMES = ['kg', 'm', 's', 'A', 'K', 'cd', 'mol'];
+export const DIMENSIONLESS: Dimension = KEPT_DIMENSIONS.map(() => 0);
+
+/** Where a temperature value sits: on the Celsius or Fahrenheit scale, or in kelvin (or rankine). */
+export type TemperatureUnitScale = 'celsius' | 'fahrenheit' | 'kelvin';
 
 /** A unit of a budget quantity: its SI factor (value in coherent SI units = factor × value) and dimension. */
 export interface QuantityUnit {
   text: string;
   factor: number;
   dimension: Dimension;
+  /** For a unit of temperature alone (K, mK, °C, °F): the scale its values are read on. */
+  temperatureScale?: TemperatureUnitScale;
 }
 
-const DIMENSIONLESS_UNITS: Record<string, number> = { '': 1, '1': 1, '%': 0.01, ppm: 1e-6 };
+const QUANTITY_IN_UNIT =
+  'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description';
+/**
+ * Names that look like units but would be misread; each is refused with what
+ * to write instead.
+ */
+const MISREAD = new Map<string, string>([
+  ['pH', '"pH" is a quantity, not a unit: leave the unit of a pH value empty (or write "1"); for the inductance picohenry write "picohenry"'],
+  ['%RH', QUANTITY_IN_UNIT],
+  ['RH', QUANTITY_IN_UNIT],
+  ['ppt', '"ppt" means 10⁻³ to some and 10⁻¹² to others: write "1e-12" as a factor in the model, or use "ppm" or "ppb"'],
+  ['dBm', '"dBm" is a level relative to 1 mW: write "dB" for a level, or give the power in "mW"'],
+]);
+
+const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
 
 /**
- * Normalises a unit as users write it for mathjs: µ → u, Ω → ohm, and
- * degC → K (a Celsius quantity in a budget is a temperature difference, so it
- * has the size of the kelvin and no offset; likewise degF → degR).
+ * Rewrites a unit as users write it into mathjs syntax: µ → u, Ω → ohm,
+ * °C → degC, °F → degF, % → percent, · and × → a product, − → -, and
+ * superscript exponents (m², s⁻¹) → ^2, ^-1. Throws for the names in
+ * MISREAD with what to write instead.
  */
-function normaliseUnitText(text: string): string {
-  return text
-    .trim()
+export function mathjsUnitText(text: string): string {
+  const trimmed = text.trim();
+  for (const token of trimmed.split(/[\s*/^()·×]+/)) {
+    const why = MISREAD.get(token);
+    if (why !== undefined) throw new Error(why);
+  }
+  return trimmed
     .replace(/[µμ]/g, 'u')
     .replace(/Ω/g, 'ohm')
-    .replace(/°C|\bdegC\b/g, 'K')
-    .replace(/°F|\bdegF\b/g, 'degR')
-    .replace(/·/g, ' ');
+    .replace(/°C/g, 'degC')
+    .replace(/°F/g, 'degF')
+    .replace(/%/g, 'percent')
+    .replace(/[·×]/g, ' ')
+    .replaceAll(MINUS, '-')
+    .replace(/⁻?[⁰¹²³⁴⁵⁶⁷⁸⁹]+/g, (e) => `^${[...e].map((c) => (c === '⁻' ? '-' : String(SUPERSCRIPT_DIGITS.indexOf(c)))).join('')}`);
+}
+
+/** The unit `text` as a mathjs Unit of size 1; throws an Error whose message says why. */
+export function toMathUnit(text: string): Unit {
+  const written = mathjsUnitText(text);
+  try {
+    return unitMath().unit(1, written);
+  } catch {
+    throw new Error(`unknown unit "${text.trim()}"`);
+  }
+}
+
+/** The dimension of a mathjs unit, without the angle exponent. */
+export function dimensionOf(u: Unit): Dimension {
+  const dims = u.dimensions as number[];
+  return kept().map((i) => dims[i] ?? 0);
+}
+
+function temperatureScaleOf(u: Unit, dimension: Dimension): TemperatureUnitScale | undefined {
+  if (!sameDimension(dimension, TEMPERATURE)) return undefined;
+  const names = u.units.map((part) => part.unit.name);
+  if (names.length !== 1) return undefined;
+  if (names[0] === 'degC') return 'celsius';
+  if (names[0] === 'degF') return 'fahrenheit';
+  return 'kelvin';
 }
 
 /**
- * Parses a unit expression (`mg`, `kg/m^3`, `1/degC`, `mol/L`, `%`, `1`).
+ * Parses a unit expression (`mg`, `kg/m^3`, `1/degC`, `ppm/K`, `mol/L`, `%`, `1`).
  * Throws an Error whose message says why; callers add the field.
  */
 export function parseUnit(text: string | undefined): QuantityUnit {
   const raw = text ?? '';
   const trimmed = raw.trim();
-  if (trimmed in DIMENSIONLESS_UNITS) return { text: raw, factor: DIMENSIONLESS_UNITS[trimmed], dimension: DIMENSIONLESS };
-  let u;
-  try {
-    u = mathUnit(1, normaliseUnitText(trimmed));
-  } catch {
-    throw new Error(`unknown unit "${trimmed}"`);
-  }
-  const dims = u.dimensions as number[];
-  const factor = u.value as number;
-  if (!Number.isFinite(factor) || factor <= 0) throw new Error(`unit "${trimmed}" has no usable size`);
-  return { text: raw, factor, dimension: dims.slice(0, 7) };
+  if (trimmed === '' || trimmed === '1') return { text: raw, factor: 1, dimension: DIMENSIONLESS };
+  const u = toMathUnit(trimmed);
+  const factor = u.value as unknown as number;
+  if (typeof factor !== 'number' || !Number.isFinite(factor) || factor <= 0) throw new Error(`unit "${trimmed}" has no usable size`);
+  const dimension = dimensionOf(u);
+  return { text: raw, factor, dimension, temperatureScale: temperatureScaleOf(u, dimension) };
 }
 
+/** Whether two dimensions have the same exponents (to 10⁻⁹, for exponents such as 1/2 from sqrt). */
 export function sameDimension(a: Dimension, b: Dimension): boolean {
-  return a.every((v, i) => Math.abs(v - b[i]) < 1e-9);
+  return a.length === b.length && a.every((v, i) => Math.abs(v - b[i]) < 1e-9);
 }
 
+/** Whether every exponent is 0: a number, or a ratio such as % or ppm. */
 export function isDimensionless(d: Dimension): boolean {
   return sameDimension(d, DIMENSIONLESS);
 }
 
+/** The dimension of a product (sign 1) or quotient (sign −1): exponents add or subtract (ISO 80000-1). */
 export function multiplyDimensions(a: Dimension, b: Dimension, sign = 1): Dimension {
   return a.map((v, i) => v + sign * b[i]);
 }
 
+/** The dimension of a power a^p: every exponent times p. */
 export function powerDimension(a: Dimension, p: number): Dimension {
   return a.map((v) => v * p);
 }
+
+/** The dimension of temperature alone (K). */
+export const TEMPERATURE: Dimension = DIMENSIONLESS.map((_, i) => (BASE_NAMES[i] === 'K' ? 1 : 0));
 
 /** Writes a dimension in SI base units, e.g. `kg m^-3`; `1` when dimensionless. */
 export function describeDimension(d: Dimension): string {

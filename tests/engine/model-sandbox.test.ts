@@ -69,13 +69,39 @@ describe('model sandbox refusals name the token', () => {
     expect(() => computeBudget(doc, { monteCarlo: false })).toThrow('the last line assigns "Z", but the measurand is "Y"');
   });
 
-  it('accepts intermediate lines, comments, implicit multiplication and names mathjs knows as units or constants', () => {
-    const doc = budget('# two steps\nm = 2 V  # V is an input here\nphi = m + pi - pi\nY = phi * e / e', { V: N(3, 0.1) });
+  it('accepts intermediate lines, comments and names mathjs knows as units or constants', () => {
+    const doc = budget('# two steps\nm = 2 * V  # V is an input here\nphi = m + pi - pi\nY = phi * e / e', { V: N(3, 0.1) });
     doc.measurand.symbol = 'Y';
     const r = computeBudget(doc, { monteCarlo: false });
     expect(r.gum.estimate).toBeCloseTo(6, 12);
     expect(r.gum.intermediates.map((i) => i.symbol)).toEqual(['m', 'phi']);
     expect(r.gum.contributions[0].sensitivity).toBeCloseTo(2, 12);
+  });
+
+  // Two operands side by side are a product to mathjs; in a model they are a missing operator.
+  const implicit: [string, number, number, string][] = [
+    ['y = x1 x2', 1, 7, 'x1 x2'],
+    ['m = 2 * x1\ny = m x2', 2, 6, 'm x2'],
+    ['y = 2 x1', 1, 6, '2 x1'],
+    ['y = 2x1', 1, 6, '2 x1'],
+    ['y = x1 (x2 + 1)', 1, 7, 'x1 (x2 + 1)'],
+    ['y = (x1 + 1)(x2 + 1)', 1, 12, '(x1 + 1) (x2 + 1)'],
+    ['  y = x1 + x1 x2', 1, 14, 'x1 x2'],
+    ['y = x1 * 3 mm', 1, 11, '3 mm'],
+  ];
+  it.each(implicit)('refuses the implicit multiplication in %j at line %i, column %i', (model, line, column, token) => {
+    const e = refusal(model, { x1: N(1, 0.1), x2: N(2, 0.1), mm: N(1, 0.1) } as never);
+    expect(e.code).toBe('model_syntax');
+    expect(e.message).toMatch(new RegExp(`^model line ${line}, column ${column}: an operator is missing`));
+    expect(e.location).toEqual({ line, column, token });
+  });
+
+  it('reads the typeset operators − × · ⋅ as - * * * (columns unchanged)', () => {
+    const r = computeBudget(budget('y = a − b × a · b ⋅ 2', { a: N(2, 0.1), b: N(3, 0.1) }), { monteCarlo: false });
+    expect(r.gum.estimate).toBe(2 - 3 * 2 * 3 * 2); // −34
+    expect(r.gum.contributions.map((c) => c.sensitivity)).toEqual([1 - 3 * 3 * 2, -(2 * 2 * 3 * 2)]);
+    const e = refusal('y = a − × b');
+    expect(e.message).toMatch(/^model line 1, column 9:/); // the × as written
   });
 
   it('accepts a bare expression on the last line as the measurand', () => {
