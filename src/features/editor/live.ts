@@ -4,6 +4,7 @@ import { budgetProblems } from '../../../shared/budget/budget-file';
 import type { BudgetResult } from '../../../shared/budget/result';
 import type { BudgetDocument } from '../../../shared/budget/schema';
 import { computeBudget } from '../../../shared/compute/compute-budget';
+import { nextUMove, uReadingOf, type UReading } from './u-move';
 
 export interface Problem {
   field: string;
@@ -57,13 +58,14 @@ export interface UMove {
 export function useLiveResult(doc: BudgetDocument) {
   const deferred = useDeferredValue(doc);
   const outcome = useMemo(() => evaluateDraft(deferred), [deferred]);
-  const lastU = useRef<number | null>(null);
+  const last = useRef<UReading | null>(null);
   const [move, setMove] = useState<UMove | null>(null);
   useEffect(() => {
-    const U = outcome.result?.gum.expandedUncertainty;
-    if (U === undefined) return;
-    if (lastU.current !== null && lastU.current !== U) setMove({ from: lastU.current, to: U });
-    lastU.current = U;
+    if (!outcome.result) return;
+    const reading = uReadingOf(outcome.result);
+    const before = last.current;
+    setMove((shown) => nextUMove(before, reading, shown));
+    last.current = reading;
   }, [outcome.result]);
   return { ...outcome, move, stale: deferred !== doc };
 }
