@@ -6,6 +6,7 @@ import type { BudgetResult } from '../../../../shared/budget/result';
 import type { BudgetDocument, InputQuantity } from '../../../../shared/budget/schema';
 import { addPhysicalConstant } from '../../../../shared/constants/add-constant';
 import { canEditBudget, can, isEditableStatus, type BudgetStatus } from '../../../../shared/policy/policy';
+import { versionStatus } from '../../../../shared/policy/version-status';
 import { ApiError, errorMessage } from '../../../app/http';
 import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Breadcrumb } from '../../../app/ui/breadcrumb';
@@ -325,7 +326,8 @@ function Editor({
         }
       : null;
 
-  const status = view ? <StatusBadge status={view.status} returned={view.returned} /> : <StatusBadge status="draft" />;
+  // the status of the version on screen, not the budget's: an old draft of an approved budget is not approved
+  const status = <StatusBadge status={view && shown ? versionStatus(view, shown) : 'draft'} />;
 
   return (
     <div className="mx-auto grid max-w-[1600px] grid-cols-1 gap-5 px-4 py-4 lg:grid-cols-[minmax(0,1fr)_360px] lg:px-6">
