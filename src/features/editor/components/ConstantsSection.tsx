@@ -3,8 +3,10 @@ import { PHYSICAL_CONSTANTS, type PhysicalConstant } from '../../../../shared/co
 import type { BudgetConstant } from '../../../../shared/budget/schema';
 import { Button, Field, Modal, NumberInput, TextInput } from '../../../app/ui/controls';
 import { formatSignificant } from '../../../app/ui/numbers';
+import { useToast } from '../../../app/ui/toasts';
 import { formatUnit } from '../../../app/ui/units';
 import { problemAt, type Problem } from '../live';
+import { restoreAt, useLatest } from '../undo-removal';
 
 export function ConstantsSection({
   constants,
@@ -26,6 +28,13 @@ export function ConstantsSection({
     return PHYSICAL_CONSTANTS.filter((c) => !t || c.name.toLowerCase().includes(t) || c.symbol.toLowerCase().includes(t));
   }, [q]);
   const set = (i: number, c: BudgetConstant) => onChange(constants.map((x, j) => (j === i ? c : x)));
+  const toast = useToast();
+  const latest = useLatest(constants);
+  const remove = (i: number) => {
+    const c = constants[i];
+    onChange(constants.filter((_, j) => j !== i));
+    toast(`Removed constant ${c.symbol || ''}.`, 'info', { label: 'Undo', run: () => onChange(restoreAt(latest.current, c, i)) });
+  };
   return (
     <div className="flex flex-col gap-2">
       {constants.length === 0 ? <p className="text-sm text-stone-600">No constants. Constants are exact numbers the model uses, such as a nominal value or a physical constant.</p> : null}
@@ -45,7 +54,7 @@ export function ConstantsSection({
               {(p) => <TextInput {...p} readOnly={readOnly} value={c.description ?? ''} onChange={(e) => set(i, { ...c, description: e.target.value || undefined })} />}
             </Field>
             {!readOnly ? (
-              <Button size="sm" variant="ghost" className="mt-5" onClick={() => onChange(constants.filter((_, j) => j !== i))} aria-label={`Remove constant ${c.symbol}`}>
+              <Button size="sm" variant="ghost" className="mt-5" onClick={() => remove(i)} aria-label={`Remove constant ${c.symbol}`}>
                 Remove
               </Button>
             ) : (

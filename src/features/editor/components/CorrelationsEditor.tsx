@@ -1,6 +1,8 @@
 import type { Correlation, InputQuantity } from '../../../../shared/budget/schema';
 import { Button, Field, FormError, NumberInput, Select } from '../../../app/ui/controls';
+import { useToast } from '../../../app/ui/toasts';
 import { plainMessage, problemsUnder, type Problem } from '../live';
+import { restoreAt, useLatest } from '../undo-removal';
 
 export function CorrelationsEditor({
   correlations,
@@ -18,6 +20,13 @@ export function CorrelationsEditor({
   const symbols = inputs.map((q) => q.symbol).filter(Boolean);
   const matrixProblem = problems.find((p) => p.field === 'correlations');
   const set = (i: number, c: Correlation) => onChange(correlations.map((x, j) => (j === i ? c : x)));
+  const toast = useToast();
+  const latest = useLatest(correlations);
+  const remove = (i: number) => {
+    const c = correlations[i];
+    onChange(correlations.filter((_, j) => j !== i));
+    toast(`Removed the correlation of ${c.between.join(' and ')} (r = ${c.r}).`, 'info', { label: 'Undo', run: () => onChange(restoreAt(latest.current, c, i)) });
+  };
   return (
     <div className="flex flex-col gap-2">
       {correlations.length === 0 ? (
@@ -59,7 +68,7 @@ export function CorrelationsEditor({
                   {(p) => <NumberInput {...p} readOnly={readOnly} value={c.r} onValue={(v) => set(i, { ...c, r: v as number })} />}
                 </Field>
                 {!readOnly ? (
-                  <Button size="sm" variant="ghost" className="mt-5" onClick={() => onChange(correlations.filter((_, j) => j !== i))} aria-label={`Remove correlation ${c.between.join(' and ')}`}>
+                  <Button size="sm" variant="ghost" className="mt-5" onClick={() => remove(i)} aria-label={`Remove correlation ${c.between.join(' and ')}`}>
                     Remove
                   </Button>
                 ) : (

@@ -3,9 +3,11 @@ import { arrayMove, SortableContext, sortableKeyboardCoordinates, useSortable, v
 import { CSS } from '@dnd-kit/utilities';
 import type { InputQuantity } from '../../../../shared/budget/schema';
 import { Button } from '../../../app/ui/controls';
+import { useToast } from '../../../app/ui/toasts';
 import { formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
 import { Sym, Unit } from '../../../app/ui/quantity';
 import { plainMessage, problemsUnder, type Problem } from '../live';
+import { restoreAt, useLatest } from '../undo-removal';
 import { InputForm } from './InputForm';
 import { KIND_SHORT, tryTreatment } from './kinds';
 
@@ -126,6 +128,19 @@ export function InputsList({
     const to = items.findIndex((i) => i.key === e.over!.id);
     onItems(arrayMove(items, from, to));
   };
+  // Removing takes effect at once and can be undone from the toast, readings and all.
+  const toast = useToast();
+  const latest = useLatest(items);
+  const remove = (item: KeyedInput, index: number) => {
+    const symbol = item.input.symbol || 'the input';
+    const d = item.input.distribution;
+    const readings = d.kind === 'observations' && Array.isArray(d.values) && d.values.length ? ` with its ${d.values.length} observations` : '';
+    onItems(items.filter((x) => x.key !== item.key), `Removed ${symbol}.`);
+    toast(`Removed input ${symbol}${readings}.`, 'info', { label: 'Undo', run: () => {
+        if (!latest.current.some((x) => x.key === item.key)) onItems(restoreAt(latest.current, item, index), `Restored ${symbol}.`);
+      },
+    });
+  };
   const symbolOf = (id: string | number) => items.find((i) => i.key === id)?.input.symbol ?? 'input';
   const pos = (id: string | number | undefined) => items.findIndex((i) => i.key === id) + 1;
   return (
@@ -154,7 +169,7 @@ export function InputsList({
                 open={openKeys.has(item.key)}
                 onToggle={() => onToggle(item.key)}
                 onChange={(input) => onItems(items.map((x) => (x.key === item.key ? { ...x, input } : x)))}
-                onRemove={() => onItems(items.filter((x) => x.key !== item.key), `Removed ${item.input.symbol}.`)}
+                onRemove={() => remove(item, index)}
                 problems={problems}
                 readOnly={readOnly}
                 canUpload={canUpload}
