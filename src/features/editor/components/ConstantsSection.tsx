@@ -3,6 +3,7 @@ import { PHYSICAL_CONSTANTS, type PhysicalConstant } from '../../../../shared/co
 import type { BudgetConstant } from '../../../../shared/budget/schema';
 import { Button, Field, Modal, NumberInput, TextInput } from '../../../app/ui/controls';
 import { formatSignificant } from '../../../app/ui/numbers';
+import { givenNumber } from '../../../app/ui/read-only';
 import { useToast } from '../../../app/ui/toasts';
 import { formatUnit } from '../../../app/ui/units';
 import { problemAt, type Problem } from '../live';
@@ -35,6 +36,33 @@ export function ConstantsSection({
     onChange(constants.filter((_, j) => j !== i));
     toast(`Removed constant ${c.symbol || ''}.`, 'info', { label: 'Undo', run: () => onChange(restoreAt(latest.current, c, i)) });
   };
+  if (readOnly) {
+    return constants.length === 0 ? (
+      <p className="text-sm text-stone-600">No constants.</p>
+    ) : (
+      <table className="w-full text-left text-sm">
+        <caption className="sr-only">Constants of the model</caption>
+        <thead className="text-xs text-stone-600">
+          <tr>
+            <th scope="col" className="py-1 pr-3 font-medium">Symbol</th>
+            <th scope="col" className="py-1 pr-3 text-right font-medium">Value</th>
+            <th scope="col" className="py-1 pr-3 font-medium">Unit</th>
+            <th scope="col" className="py-1 font-medium">Description</th>
+          </tr>
+        </thead>
+        <tbody>
+          {constants.map((c, i) => (
+            <tr key={i} className="border-t border-stone-200">
+              <th scope="row" className="num py-1 pr-3 font-semibold">{c.symbol}</th>
+              <td className="num py-1 pr-3 text-right">{givenNumber(c.value)}</td>
+              <td className="num py-1 pr-3">{formatUnit(c.unit)}</td>
+              <td className="py-1 text-stone-700">{c.description}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    );
+  }
   return (
     <div className="flex flex-col gap-2">
       {constants.length === 0 ? <p className="text-sm text-stone-600">No constants. Constants are exact numbers the model uses, such as a nominal value or a physical constant.</p> : null}

@@ -1,5 +1,6 @@
 import type { Correlation, InputQuantity } from '../../../../shared/budget/schema';
 import { Button, Field, FormError, NumberInput, Select } from '../../../app/ui/controls';
+import { givenNumber } from '../../../app/ui/read-only';
 import { useToast } from '../../../app/ui/toasts';
 import { plainMessage, problemsUnder, type Problem } from '../live';
 import { restoreAt, useLatest } from '../undo-removal';
@@ -27,6 +28,31 @@ export function CorrelationsEditor({
     onChange(correlations.filter((_, j) => j !== i));
     toast(`Removed the correlation of ${c.between.join(' and ')} (r = ${c.r}).`, 'info', { label: 'Undo', run: () => onChange(restoreAt(latest.current, c, i)) });
   };
+  if (readOnly) {
+    return correlations.length === 0 ? (
+      <p className="text-sm text-stone-600">All inputs are taken as uncorrelated.</p>
+    ) : (
+      <table className="w-full text-left text-sm">
+        <caption className="sr-only">Correlation coefficients between inputs</caption>
+        <thead className="text-xs text-stone-600">
+          <tr>
+            <th scope="col" className="py-1 pr-3 font-medium">Input</th>
+            <th scope="col" className="py-1 pr-3 font-medium">with</th>
+            <th scope="col" className="py-1 text-right font-medium">r</th>
+          </tr>
+        </thead>
+        <tbody>
+          {correlations.map((c, i) => (
+            <tr key={i} className="border-t border-stone-200">
+              <td className="num py-1 pr-3">{c.between[0]}</td>
+              <td className="num py-1 pr-3">{c.between[1]}</td>
+              <td className="num py-1 text-right">{givenNumber(c.r)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    );
+  }
   return (
     <div className="flex flex-col gap-2">
       {correlations.length === 0 ? (
