@@ -47,6 +47,9 @@ async function inputOrder(page: Page): Promise<string[]> {
   return labels.map((n) => /^Move (\S+)/.exec(n)?.[1] ?? n);
 }
 
+/** The input row whose header has the keyboard focus. */
+const focusedRow = (page: Page) => page.evaluate(() => (document.activeElement?.hasAttribute('aria-expanded') ? (document.activeElement.closest('li')?.getAttribute('data-input') ?? null) : null));
+
 /** The id of the demo budget that went through review: three versions, the third approved. */
 async function resistorBudget(page: Page): Promise<number> {
   return page.evaluate(async () => {
@@ -78,13 +81,17 @@ describe('input defects: pasted readings, undo, version status, read-only text',
 
     // remove the input with its readings, then undo: it comes back first, readings and all
     await expect.poll(() => inputOrder(page)).toEqual(['t_i', 'x2']);
-    await page.getByRole('button', { name: 'Remove t_i' }).click();
+    await page.getByRole('button', { name: 'Remove t_i' }).focus();
+    await page.keyboard.press('Enter');
     await expect.poll(() => inputOrder(page)).toEqual(['x2']);
+    // the keyboard lands on the row that took its place, not on the page
+    await expect.poll(() => focusedRow(page)).toBe('x2');
     const toast = page.getByRole('status').filter({ hasText: 'Removed input t_i with its 20 observations.' });
     await shows(toast);
     await shot(page, 'removed-with-undo');
     await toast.getByRole('button', { name: 'Undo' }).click();
     await expect.poll(() => inputOrder(page)).toEqual(['t_i', 'x2']);
+    await expect.poll(() => focusedRow(page)).toBe('t_i');
     await hasTexts(definition(inputItems(page).first(), 'n'), ['20']);
   }, 180_000);
 

@@ -122,7 +122,7 @@ export function ObservationsHelper({
           <div className="flex flex-col gap-2">
             <Field
               label="Observations (paste a column from a spreadsheet)"
-              error={error ?? (ambiguity ? `Not read: ${ambiguity}.` : null)}
+              error={ambiguity ? `Not read: ${ambiguity}.` : error}
               hint="One value per line, or several separated by tabs or semicolons; 50,02 and 50.02 are both read, 1 234,5 and 1,234.5 too."
             >
               {(p) => <TextArea {...p} rows={6} className="num" value={text} onChange={(e) => applyText(e.target.value)} />}
