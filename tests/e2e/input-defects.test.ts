@@ -95,6 +95,29 @@ describe('input defects: pasted readings, undo, version status, read-only text',
     await hasTexts(definition(inputItems(page).first(), 'n'), ['20']);
   }, 180_000);
 
+  it('compares U like with like: a change of the measurand unit is not reported as a change of U', async () => {
+    const page = await pageAs('metrologist@dubito.example');
+    await page.goto(`${app.baseUrl}/budgets/new`);
+    const measurand = page.getByRole('region', { name: 'Measurand' });
+    const result = page.getByRole('region', { name: 'Result' });
+    const first = inputItems(page).first();
+    await first.getByLabel('Unit').fill('mm');
+    const second = inputItems(page).nth(1);
+    await second.getByRole('button', { expanded: false }).click();
+    await second.getByLabel('Unit').fill('mm');
+    await measurand.getByLabel('Unit').fill('mm');
+    await containsText(result.getByRole('button', { name: /^U / }), 'mm');
+
+    // a real change of U is reported…
+    await first.getByLabel('Standard uncertainty u').fill('0.02');
+    await containsText(result, /Your last edit raised U by/);
+    // …the same U in micrometres is not
+    await measurand.getByLabel('Unit').fill('um');
+    await containsText(result.getByRole('button', { name: /^U / }), 'µm');
+    await countIs(result.getByText(/Your last edit/), 0);
+    await shot(page, 'unit-change');
+  }, 180_000);
+
   it('shows an old unapproved version of an approved budget as superseded, everywhere it appears', async () => {
     const page = await pageAs('metrologist@dubito.example');
     await page.goto(`${app.baseUrl}/budgets`);
