@@ -32,8 +32,8 @@ export interface ObservationLayout {
 }
 
 export interface IgnoredLine {
+  /** 1-based line number in the text. */
   line: number;
-  text: string;
   reason: string;
 }
 
@@ -183,11 +183,10 @@ export function parseObservationText(text: string): ObservationText {
       if (n !== null) values.push(n);
     }
     if (unread.length === 0) return;
-    const text = row.cells.join(separator === '\t' ? ' ' : (separator ?? ''));
     const heading = i === 0 && unread.length === row.cells.filter((c) => c !== '').length && !/\d/.test(unread.join(''));
     const what = unread.map((c) => `"${c.slice(0, 40)}"`).join(', ');
     const reason = `${what} ${unread.length > 1 ? 'are not numbers' : 'is not a number'}${heading ? ' (read as a heading)' : ''}`;
-    ignored.push({ line: row.line, text, reason });
+    ignored.push({ line: row.line, reason });
   });
   return { values, ignored, separator, decimalMark, ambiguity: null };
 }

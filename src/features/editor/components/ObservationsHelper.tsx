@@ -92,7 +92,7 @@ export function ObservationsHelper({
         onSuccess: (r) => {
           setUpload(null);
           setText(r.values.join('\n'));
-          setIgnored(r.errors.map((e) => ({ line: e.row, text: '', reason: e.message })));
+          setIgnored(r.errors.map((e) => ({ line: e.row, reason: e.message })));
           setAmbiguity(null);
           onValues(r.values);
         },
