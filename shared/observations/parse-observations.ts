@@ -49,18 +49,21 @@ export interface ObservationText {
 const SPACE = '[ \\u00a0\\u202f\\u2009]';
 const SPACES = /[ \u00a0\u202f\u2009]/g;
 
+const numberPattern = (mark: string, group: string) =>
+  new RegExp(`^([+-]?)(\\d{1,3}(?:${group}\\d{3})+|\\d+)?(?:${mark}(\\d+(?:${SPACE}\\d+)*)?)?(?:[eE]([+-]?\\d+))?$`);
+const NUMBER_PATTERN: Record<DecimalMark, RegExp> = { '.': numberPattern('\\.', `(?:,|${SPACE})`), ',': numberPattern(',', `(?:\\.|${SPACE})`) };
+
 /**
  * The number a cell writes with the given decimal mark, or null. Accepts a sign
  * (including U+2212 minus), digit groups of three separated by a space, a thin
  * space or the other mark (SI Brochure 5.4.4; 1 234,5 or 1,234.5), spaces
- * between digits after the mark, and a decimal exponent (5.002e1).
+ * between digits after the mark, and a decimal exponent (5.002e1). A single
+ * group mark without the decimal mark (1,234 read with a decimal point) is not
+ * a number here: it is the decimal mark of the other reading.
  */
 export function readObservationNumber(cell: string, decimalMark: DecimalMark): number | null {
   const s = unquote(cell.trim()).replace(/\u2212/g, '-');
-  const group = decimalMark === '.' ? `(?:,|${SPACE})` : `(?:\\.|${SPACE})`;
-  const mark = decimalMark === '.' ? '\\.' : ',';
-  const pattern = new RegExp(`^([+-]?)(\\d{1,3}(?:${group}\\d{3})+|\\d+)?(?:${mark}(\\d+(?:${SPACE}\\d+)*)?)?(?:[eE]([+-]?\\d+))?$`);
-  const m = pattern.exec(s);
+  const m = NUMBER_PATTERN[decimalMark].exec(s);
   if (!m) return null;
   const [, sign, whole, fraction, exponent] = m;
   if (!whole && !fraction) return null;

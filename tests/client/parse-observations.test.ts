@@ -66,6 +66,10 @@ describe('parseObservationText', () => {
     expect(parseObservationText(lines('1,234.5', '1,235.5')).values).toEqual([1234.5, 1235.5]);
   });
 
+  it('takes one comma in a number with no other separator as a decimal comma, even before three digits', () => {
+    expect(parseObservationText(lines('20,003', '20,004')).values).toEqual([20.003, 20.004]);
+  });
+
   it('splits at commas only when that reads more cells: 50.02,50.03 is two values', () => {
     const r = parseObservationText(lines('50.02,50.03', '50.04,50.05'));
     expect(r.separator).toBe(',');
