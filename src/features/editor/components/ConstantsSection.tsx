@@ -70,33 +70,27 @@ export function ConstantsSection({
         {constants.map((c, i) => (
           <li key={i} className="grid grid-cols-[minmax(0,1fr)_minmax(0,1.3fr)_minmax(0,1fr)_minmax(0,2fr)_auto] items-start gap-2">
             <Field label="Symbol" error={problemAt(problems, `constants[${i}].symbol`)}>
-              {(p) => <TextInput {...p} readOnly={readOnly} className="num" value={c.symbol} onChange={(e) => set(i, { ...c, symbol: e.target.value })} />}
+              {(p) => <TextInput {...p} className="num" value={c.symbol} onChange={(e) => set(i, { ...c, symbol: e.target.value })} />}
             </Field>
             <Field label="Value" error={problemAt(problems, `constants[${i}].value`)}>
-              {(p) => <NumberInput {...p} readOnly={readOnly} value={c.value} onValue={(v) => set(i, { ...c, value: v as number })} />}
+              {(p) => <NumberInput {...p} value={c.value} onValue={(v) => set(i, { ...c, value: v as number })} />}
             </Field>
             <Field label="Unit" error={problemAt(problems, `constants[${i}].unit`)}>
-              {(p) => <TextInput {...p} readOnly={readOnly} className="num" value={c.unit ?? ''} onChange={(e) => set(i, { ...c, unit: e.target.value || undefined })} />}
+              {(p) => <TextInput {...p} className="num" value={c.unit ?? ''} onChange={(e) => set(i, { ...c, unit: e.target.value || undefined })} />}
             </Field>
             <Field label="Description">
-              {(p) => <TextInput {...p} readOnly={readOnly} value={c.description ?? ''} onChange={(e) => set(i, { ...c, description: e.target.value || undefined })} />}
+              {(p) => <TextInput {...p} value={c.description ?? ''} onChange={(e) => set(i, { ...c, description: e.target.value || undefined })} />}
             </Field>
-            {!readOnly ? (
-              <Button size="sm" variant="ghost" className="mt-5" onClick={() => remove(i)} aria-label={`Remove constant ${c.symbol}`}>
-                Remove
-              </Button>
-            ) : (
-              <span />
-            )}
+            <Button size="sm" variant="ghost" className="mt-5" onClick={() => remove(i)} aria-label={`Remove constant ${c.symbol}`}>
+              Remove
+            </Button>
           </li>
         ))}
       </ul>
-      {!readOnly ? (
-        <div className="flex gap-2">
-          <Button onClick={() => onChange([...constants, { symbol: `c${constants.length + 1}`, value: 1 }])}>+ Add constant</Button>
-          <Button onClick={() => setOpen(true)}>Pick a physical constant…</Button>
-        </div>
-      ) : null}
+      <div className="flex gap-2">
+        <Button onClick={() => onChange([...constants, { symbol: `c${constants.length + 1}`, value: 1 }])}>+ Add constant</Button>
+        <Button onClick={() => setOpen(true)}>Pick a physical constant…</Button>
+      </div>
       <Modal open={open} onClose={() => setOpen(false)} title="Physical constants" wide>
         <Field label="Search by name or symbol">{(p) => <TextInput {...p} type="search" value={q} onChange={(e) => setQ(e.target.value)} autoFocus />}</Field>
         <div className="max-h-[60vh] overflow-y-auto rounded-md border border-stone-200">

@@ -71,7 +71,6 @@ export function CorrelationsEditor({
                     {(p) => (
                       <Select
                         {...p}
-                        disabled={readOnly}
                         className="num"
                         value={c.between[side]}
                         onChange={(e) => {
@@ -91,15 +90,11 @@ export function CorrelationsEditor({
                   </Field>
                 ))}
                 <Field label="r" error={rError ? plainMessage(rError) : null}>
-                  {(p) => <NumberInput {...p} readOnly={readOnly} value={c.r} onValue={(v) => set(i, { ...c, r: v as number })} />}
+                  {(p) => <NumberInput {...p} value={c.r} onValue={(v) => set(i, { ...c, r: v as number })} />}
                 </Field>
-                {!readOnly ? (
-                  <Button size="sm" variant="ghost" className="mt-5" onClick={() => remove(i)} aria-label={`Remove correlation ${c.between.join(' and ')}`}>
-                    Remove
-                  </Button>
-                ) : (
-                  <span />
-                )}
+                <Button size="sm" variant="ghost" className="mt-5" onClick={() => remove(i)} aria-label={`Remove correlation ${c.between.join(' and ')}`}>
+                  Remove
+                </Button>
                 {other.map((p, k) => (
                   <p key={k} role="alert" className="col-span-4 text-xs font-medium text-caution-700">
                     {plainMessage(p)}
@@ -116,21 +111,19 @@ export function CorrelationsEditor({
           {plainMessage(matrixProblem)}. Lower one of these coefficients, or check that they describe the same shared effect.
         </FormError>
       ) : null}
-      {!readOnly ? (
-        <div>
-          <Button
-            disabled={symbols.length < 2}
-            onClick={() => {
-              const normals = inputs.filter((q) => q.distribution.kind === 'normal').map((q) => q.symbol);
-              const pool = normals.length >= 2 ? normals : symbols;
-              onChange([...correlations, { between: [pool[0], pool[1]], r: 0.5 }]);
-            }}
-          >
-            + Add correlated pair
-          </Button>
-          <span className="ml-2 text-xs text-stone-600">Only inputs with a normal distribution can be correlated.</span>
-        </div>
-      ) : null}
+      <div>
+        <Button
+          disabled={symbols.length < 2}
+          onClick={() => {
+            const normals = inputs.filter((q) => q.distribution.kind === 'normal').map((q) => q.symbol);
+            const pool = normals.length >= 2 ? normals : symbols;
+            onChange([...correlations, { between: [pool[0], pool[1]], r: 0.5 }]);
+          }}
+        >
+          + Add correlated pair
+        </Button>
+        <span className="ml-2 text-xs text-stone-600">Only inputs with a normal distribution can be correlated.</span>
+      </div>
     </div>
   );
 }

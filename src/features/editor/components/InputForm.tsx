@@ -68,7 +68,6 @@ export function InputForm({
       {(fp) => (
         <NumberInput
           {...fp}
-          readOnly={readOnly}
           value={value !== undefined ? value : (d[field] as number | undefined)}
           onValue={onValue ?? ((v) => setDist({ [field]: v }))}
         />
@@ -85,7 +84,7 @@ export function InputForm({
     ) : (
     <Field label={label} error={extra.error} className={extra.className}>
       {(fp) => (
-        <Select {...fp} disabled={readOnly} value={value} onChange={(e) => onChoose(e.target.value as M)}>
+        <Select {...fp} value={value} onChange={(e) => onChoose(e.target.value as M)}>
           {options.map(([v, text]) => (
             <option key={v} value={v}>
               {text}
@@ -264,18 +263,17 @@ export function InputForm({
     <div className="flex flex-col gap-3">
       <div className="grid gap-3 md:grid-cols-[1fr_1fr_2fr]">
         <Field label="Symbol" error={err('symbol')}>
-          {(fp) => <TextInput {...fp} readOnly={readOnly} className="num" value={input.symbol} onChange={(e) => onChange({ ...input, symbol: e.target.value })} />}
+          {(fp) => <TextInput {...fp} className="num" value={input.symbol} onChange={(e) => onChange({ ...input, symbol: e.target.value })} />}
         </Field>
         <Field label="Unit" error={err('unit')} hint={input.unit ? `shown as ${formatUnit(input.unit) || 'dimensionless'}` : 'e.g. mm, um, degC, kg/m^3; empty = dimensionless'}>
           {(fp) => (
-            <TextInput {...fp} readOnly={readOnly} className="num" value={input.unit ?? ''} onChange={(e) => onChange({ ...input, unit: e.target.value || undefined })} />
+            <TextInput {...fp} className="num" value={input.unit ?? ''} onChange={(e) => onChange({ ...input, unit: e.target.value || undefined })} />
           )}
         </Field>
         <Field label="Description" error={err('description')}>
           {(fp) => (
             <TextInput
               {...fp}
-              readOnly={readOnly}
               value={input.description ?? ''}
               placeholder="what this quantity is and where its value comes from"
               onChange={(e) => onChange({ ...input, description: e.target.value || undefined })}
