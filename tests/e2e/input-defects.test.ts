@@ -174,5 +174,13 @@ describe('input defects: pasted readings, undo, version status, read-only text',
       await countIs(page.getByRole('region', { name }).locator('input, textarea, select'), 0);
     }
     await shot(page, 'read-only');
+
+    // constants and correlations of a budget the auditor reads are table cells
+    const dc = await page.evaluate(async () => ((await (await fetch('/api/budgets?q=DC%20voltage')).json()) as { id: number }[])[0].id);
+    await page.goto(`${app.baseUrl}/budgets/${dc}`);
+    const correlations = page.getByRole('region', { name: 'Correlations' });
+    await shows(correlations.getByRole('table', { name: 'Correlation coefficients between inputs' }));
+    await countIs(correlations.locator('input, select'), 0);
+    await shot(page, 'read-only-correlations');
   }, 180_000);
 });

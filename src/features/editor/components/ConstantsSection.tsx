@@ -3,6 +3,7 @@ import { PHYSICAL_CONSTANTS, type PhysicalConstant } from '../../../../shared/co
 import type { BudgetConstant } from '../../../../shared/budget/schema';
 import { Button, Field, Modal, NumberInput, TextInput } from '../../../app/ui/controls';
 import { formatSignificant } from '../../../app/ui/numbers';
+import { Sym } from '../../../app/ui/quantity';
 import { givenNumber } from '../../../app/ui/read-only';
 import { useToast } from '../../../app/ui/toasts';
 import { formatUnit } from '../../../app/ui/units';
@@ -53,7 +54,9 @@ export function ConstantsSection({
         <tbody>
           {constants.map((c, i) => (
             <tr key={i} className="border-t border-stone-200">
-              <th scope="row" className="num py-1 pr-3 font-semibold">{c.symbol}</th>
+              <th scope="row" className="py-1 pr-3 font-semibold">
+                <Sym s={c.symbol} />
+              </th>
               <td className="num py-1 pr-3 text-right">{givenNumber(c.value)}</td>
               <td className="num py-1 pr-3">{formatUnit(c.unit)}</td>
               <td className="py-1 text-stone-700">{c.description}</td>

@@ -1,5 +1,6 @@
 import type { Correlation, InputQuantity } from '../../../../shared/budget/schema';
 import { Button, Field, FormError, NumberInput, Select } from '../../../app/ui/controls';
+import { Sym } from '../../../app/ui/quantity';
 import { givenNumber } from '../../../app/ui/read-only';
 import { useToast } from '../../../app/ui/toasts';
 import { plainMessage, problemsUnder, type Problem } from '../live';
@@ -44,8 +45,12 @@ export function CorrelationsEditor({
         <tbody>
           {correlations.map((c, i) => (
             <tr key={i} className="border-t border-stone-200">
-              <td className="num py-1 pr-3">{c.between[0]}</td>
-              <td className="num py-1 pr-3">{c.between[1]}</td>
+              <td className="py-1 pr-3">
+                <Sym s={c.between[0]} />
+              </td>
+              <td className="py-1 pr-3">
+                <Sym s={c.between[1]} />
+              </td>
               <td className="num py-1 text-right">{givenNumber(c.r)}</td>
             </tr>
           ))}
