@@ -1,8 +1,8 @@
 import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
+import type { VersionStatus } from '../../shared/policy/version-status';
 
-/** The status a version shows on paper: the budget's status for the current version, "superseded" for older drafts. */
-export type VersionStatus = 'draft' | 'returned' | 'in_review' | 'approved' | 'superseded';
+export type { VersionStatus };
 
 export const STATUS_WORDS: Record<VersionStatus, string> = {
   draft: 'Draft',

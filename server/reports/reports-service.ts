@@ -1,10 +1,10 @@
 import { can } from '../../shared/policy/policy';
-import type { BudgetRow } from '../budgets/budgets-repository';
 import type { BudgetsService } from '../budgets/budgets-service';
 import type { ComputeSupervisor } from '../compute/supervisor';
 import { ForbiddenError, UnprocessableError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
-import type { ReportData, VersionStatus } from './report-data';
+import { versionStatus } from '../../shared/policy/version-status';
+import type { ReportData } from './report-data';
 import { reportFileName } from './report-pdf';
 
 /** The laboratory named on reports whose budget file names none. */
@@ -13,13 +13,6 @@ export const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
 export interface ReportFile {
   fileName: string;
   pdf: Buffer;
-}
-
-function versionStatus(b: BudgetRow, v: { number: number; approvedAt: number | null }): VersionStatus {
-  if (v.approvedAt !== null) return 'approved';
-  if (v.number !== b.currentVersion) return 'superseded';
-  if (b.status === 'draft') return b.returned ? 'returned' : 'draft';
-  return b.status;
 }
 
 const text = (v: unknown): string | null => (typeof v === 'string' && v.trim() ? v.trim() : null);

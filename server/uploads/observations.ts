@@ -1,15 +1,7 @@
-import Papa from 'papaparse';
 import { LIMITS } from '../../shared/budget/limits';
 import type { ObservationsResult, RowError } from '../../shared/api/uploads';
+import { readObservationLayout, readObservationNumber } from '../../shared/observations/parse-observations';
 import { AppError, PayloadTooLargeError, ValidationError } from '../http/errors';
-
-function toNumber(cell: string, delimiter: string): number | null {
-  let s = cell.trim();
-  if (delimiter !== ',' && /^[+-]?\d+,\d+([eE][+-]?\d+)?$/.test(s)) s = s.replace(',', '.');
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s)) return null;
-  const n = Number(s);
-  return Number.isFinite(n) ? n : null;
-}
 
 /**
  * Reads one column of numbers from CSV text. A first row that is not numeric
@@ -20,18 +12,16 @@ function toNumber(cell: string, delimiter: string): number | null {
 export function parseObservations(text: string, column?: string): ObservationsResult {
   if (text.includes('\u0000')) throw new ValidationError('the file is not text', 'file');
   const cap = LIMITS.observations;
-  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), {
-    skipEmptyLines: 'greedy',
-    delimitersToGuess: [';', '\t', '|', ','],
-    preview: cap + 2,
-  });
-  const rows = parsed.data;
+  // One row past the cap, plus a header, is enough to refuse a longer file.
+  const layout = readObservationLayout(text, cap + 2);
+  if (layout.ambiguity) throw new ValidationError(layout.ambiguity, 'file');
+  const rows = layout.rows.map((r) => r.cells);
   if (rows.length === 0) throw new ValidationError('the file has no rows', 'file');
-  const delimiter = parsed.meta.delimiter;
+  const toNumber = (cell: string) => readObservationNumber(cell, layout.decimalMark);
   let width = 0;
   for (const r of rows) if (r.length > width) width = r.length;
   const first = rows[0];
-  const looksLikeHeader = first.some((c) => c.trim() !== '' && toNumber(c, delimiter) === null);
+  const looksLikeHeader = first.some((c) => c.trim() !== '' && toNumber(c) === null);
   let columns = Array.from({ length: width }, (_, i) => (looksLikeHeader ? (first[i]?.trim() ?? null) : null));
 
   let index: number;
@@ -49,7 +39,7 @@ export function parseObservations(text: string, column?: string): ObservationsRe
   }
 
   // The first row is a header when the chosen column does not hold a number there.
-  const header = looksLikeHeader && toNumber(first[index] ?? '', delimiter) === null;
+  const header = looksLikeHeader && toNumber(first[index] ?? '') === null;
   if (!header) columns = columns.map(() => null);
   if (rows.length - (header ? 1 : 0) > cap) {
     throw new PayloadTooLargeError(`the file has more than ${cap.toLocaleString('en-GB')} rows; a column may hold at most ${cap.toLocaleString('en-GB')} observations`);
@@ -59,18 +49,15 @@ export function parseObservations(text: string, column?: string): ObservationsRe
   rows.forEach((r, i) => {
     if (header && i === 0) return;
     const cell = r[index];
-    const line = i + 1;
+    const line = layout.rows[i].line;
     if (cell === undefined || cell.trim() === '') {
       errors.push({ row: line, message: 'the cell is empty' });
       return;
     }
-    const n = toNumber(cell, delimiter);
+    const n = toNumber(cell);
     if (n === null) errors.push({ row: line, message: `"${cell.trim().slice(0, 40)}" is not a number` });
     else values.push(n);
   });
-  for (const e of parsed.errors.slice(0, 20)) {
-    if (e.row !== undefined) errors.push({ row: e.row + 1, message: e.message });
-  }
   errors.sort((a, b) => a.row - b.row);
   return { values, column: { index: index + 1, name: columns[index] ?? null }, columns, header, rows: rows.length - (header ? 1 : 0), errors };
 }

@@ -2,6 +2,7 @@ import { useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import type { ModelLocation } from '../../../shared/budget/budget-error';
 import type { BudgetResult } from '../../../shared/budget/result';
 import type { BudgetDocument } from '../../../shared/budget/schema';
+import { nextUMove, uReadingOf, type UReading } from './u-move';
 
 export interface Problem {
   field: string;
@@ -138,13 +139,14 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
         ? { problems: stopNote, result: null, valid: null }
         : (computed?.outcome ?? { problems: [], result: null, valid: null }));
 
-  const lastU = useRef<number | null>(null);
+  const last = useRef<UReading | null>(null);
   const [move, setMove] = useState<UMove | null>(null);
   useEffect(() => {
-    const U = outcome.result?.gum.expandedUncertainty;
-    if (U === undefined) return;
-    if (lastU.current !== null && lastU.current !== U) setMove({ from: lastU.current, to: U });
-    lastU.current = U;
+    if (!outcome.result) return;
+    const reading = uReadingOf(outcome.result);
+    const before = last.current;
+    setMove((shown) => nextUMove(before, reading, shown));
+    last.current = reading;
   }, [outcome.result]);
   return { ...outcome, move, stale: deferred !== doc || (current === null && wasStopped === null && !isStored) };
 }

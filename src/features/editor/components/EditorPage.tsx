@@ -6,11 +6,13 @@ import type { BudgetResult } from '../../../../shared/budget/result';
 import type { BudgetDocument, InputQuantity } from '../../../../shared/budget/schema';
 import { addPhysicalConstant } from '../../../../shared/constants/add-constant';
 import { canEditBudget, can, isEditableStatus, type BudgetStatus } from '../../../../shared/policy/policy';
+import { versionStatus } from '../../../../shared/policy/version-status';
 import { ApiError, errorMessage } from '../../../app/http';
 import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, ErrorNote, Field, NumberInput, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
+import { givenNumber, ReadOnlyField, ReadOnlyList } from '../../../app/ui/read-only';
 import { StatusBadge } from '../../../app/ui/status-badge';
 import { useToast } from '../../../app/ui/toasts';
 import { formatUnit } from '../../../app/ui/units';
@@ -325,7 +327,8 @@ function Editor({
         }
       : null;
 
-  const status = view ? <StatusBadge status={view.status} returned={view.returned} /> : <StatusBadge status="draft" />;
+  // the status of the version on screen, not the budget's: an old draft of an approved budget is not approved
+  const status = <StatusBadge status={view && shown ? versionStatus(view, shown) : 'draft'} />;
 
   return (
     <div className="mx-auto grid max-w-[1600px] grid-cols-1 gap-5 px-4 py-4 lg:grid-cols-[minmax(0,1fr)_360px] lg:px-6">
@@ -342,17 +345,22 @@ function Editor({
         <header className="flex flex-col gap-2">
           <Breadcrumb trail={[{ label: 'Budgets', to: '/budgets' }, { label: isNew ? 'new budget' : `budget ${budgetId}` }]} />
           <div className="flex flex-wrap items-center gap-3">
-            <label htmlFor="budget-title" className="sr-only">
-              Title
-            </label>
-            <input
-              id="budget-title"
-              value={doc.title}
-              readOnly={readOnly}
-              onChange={(e) => setDoc((d) => ({ ...d, title: e.target.value }))}
-              aria-invalid={!!problemAt(live.problems, 'title')}
-              className="min-w-0 flex-1 rounded-md border border-transparent bg-transparent px-1 py-0.5 text-xl font-semibold tracking-tight text-stone-900 hover:border-stone-300 focus:border-stone-300 aria-[invalid=true]:border-caution-500"
-            />
+            {readOnly ? (
+              <h1 className="min-w-0 flex-1 px-1 py-0.5 text-xl font-semibold tracking-tight text-stone-900">{doc.title}</h1>
+            ) : (
+              <>
+                <label htmlFor="budget-title" className="sr-only">
+                  Title
+                </label>
+                <input
+                  id="budget-title"
+                  value={doc.title}
+                  onChange={(e) => setDoc((d) => ({ ...d, title: e.target.value }))}
+                  aria-invalid={!!problemAt(live.problems, 'title')}
+                  className="min-w-0 flex-1 rounded-md border border-transparent bg-transparent px-1 py-0.5 text-xl font-semibold tracking-tight text-stone-900 hover:border-stone-300 focus:border-stone-300 aria-[invalid=true]:border-caution-500"
+                />
+              </>
+            )}
             {status}
             {view?.isTemplate ? <span className="rounded-full border border-stone-400 bg-stone-100 px-2 py-0.5 text-xs font-semibold text-stone-700">Template</span> : null}
             {!isNew ? (
@@ -449,28 +457,45 @@ function Editor({
         ) : null}
 
         <Section id="measurand" title="Measurand" description="The quantity the budget determines.">
+          {readOnly ? (
+            <ReadOnlyList className="md:grid-cols-[8rem_8rem_1fr_9rem]">
+              <ReadOnlyField label="Symbol" numeric>{doc.measurand.symbol}</ReadOnlyField>
+              <ReadOnlyField label="Unit" numeric>{formatUnit(doc.measurand.unit) || 'dimensionless'}</ReadOnlyField>
+              <ReadOnlyField label="Description">{doc.measurand.description}</ReadOnlyField>
+              <ReadOnlyField label="Coverage probability p" numeric>{givenNumber(doc.coverageProbability ?? 0.95)}</ReadOnlyField>
+            </ReadOnlyList>
+          ) : (
           <div className="grid gap-3 md:grid-cols-[8rem_8rem_1fr_9rem]">
             <Field label="Symbol" error={problemAt(live.problems, 'measurand.symbol')}>
-              {(p) => <TextInput {...p} readOnly={readOnly} className="num" value={doc.measurand.symbol} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, symbol: e.target.value } }))} />}
+              {(p) => <TextInput {...p} className="num" value={doc.measurand.symbol} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, symbol: e.target.value } }))} />}
             </Field>
             <Field label="Unit" error={problemAt(live.problems, 'measurand.unit')} hint={doc.measurand.unit ? `shown as ${formatUnit(doc.measurand.unit) || 'dimensionless'}` : 'e.g. mm'}>
               {(p) => (
-                <TextInput {...p} readOnly={readOnly} className="num" value={doc.measurand.unit ?? ''} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, unit: e.target.value || undefined } }))} />
+                <TextInput {...p} className="num" value={doc.measurand.unit ?? ''} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, unit: e.target.value || undefined } }))} />
               )}
             </Field>
             <Field label="Description" error={problemAt(live.problems, 'measurand.description')}>
               {(p) => (
-                <TextInput {...p} readOnly={readOnly} value={doc.measurand.description ?? ''} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, description: e.target.value || undefined } }))} />
+                <TextInput {...p} value={doc.measurand.description ?? ''} onChange={(e) => setDoc((d) => ({ ...d, measurand: { ...d.measurand, description: e.target.value || undefined } }))} />
               )}
             </Field>
             <Field label="Coverage probability p" error={problemAt(live.problems, 'coverageProbability')}>
-              {(p) => <NumberInput {...p} readOnly={readOnly} value={doc.coverageProbability ?? 0.95} onValue={(v) => setDoc((d) => ({ ...d, coverageProbability: v }))} />}
+              {(p) => <NumberInput {...p} value={doc.coverageProbability ?? 0.95} onValue={(v) => setDoc((d) => ({ ...d, coverageProbability: v }))} />}
             </Field>
           </div>
+          )}
         </Section>
 
         <Section id="model" title="Model">
-          <ModelEditor value={doc.model} readOnly={readOnly} problem={modelProblem} onChange={(model) => setDoc((d) => ({ ...d, model }))} />
+          {readOnly ? (
+            <ReadOnlyList>
+              <ReadOnlyField label="Model equation(s)">
+                <pre className="num overflow-x-auto whitespace-pre rounded-md bg-white px-3 py-2 leading-6">{doc.model}</pre>
+              </ReadOnlyField>
+            </ReadOnlyList>
+          ) : (
+            <ModelEditor value={doc.model} problem={modelProblem} onChange={(model) => setDoc((d) => ({ ...d, model }))} />
+          )}
         </Section>
 
         <Section id="inputs" title={`Input quantities (${doc.inputs.length})`} description={readOnly ? 'Open a row to see how the input was evaluated.' : 'Drag the handle, or focus it and press space and the arrow keys, to change the order.'}>

@@ -3,6 +3,7 @@ import { DISTRIBUTION_KINDS, type Distribution, type DistributionKind, type Inpu
 import { coverageFactorFor } from '../../../../shared/statistics/student-t';
 import { Field, NumberInput, Select, TextInput } from '../../../app/ui/controls';
 import { formatSignificant } from '../../../app/ui/numbers';
+import { givenNumber, ReadOnlyField } from '../../../app/ui/read-only';
 import { formatUnit } from '../../../app/ui/units';
 import { problemAt, type Problem } from '../live';
 import { convertKind, KIND_LABELS } from './kinds';
@@ -57,12 +58,16 @@ export function InputForm({
   const [rectMode, setRectMode] = useState<RectMode>(d.kind === 'rectangular' && d.lower !== undefined ? 'limits' : 'tolerance');
   const [dofMode, setDofMode] = useState<'inf' | 'direct' | 'reliability'>(d.relativeUncertaintyOfU !== undefined ? 'reliability' : d.dof !== undefined ? 'direct' : 'inf');
 
-  const num = (label: string, field: string, hint?: string, value?: number, onValue?: (v: number | undefined) => void) => (
+  const num = (label: string, field: string, hint?: string, value?: number, onValue?: (v: number | undefined) => void) =>
+    readOnly ? (
+      <ReadOnlyField key={field} label={label} numeric note={hint}>
+        {givenNumber(value !== undefined ? value : (d[field] as number | undefined))}
+      </ReadOnlyField>
+    ) : (
     <Field label={label} error={err(`distribution.${field}`)} hint={hint}>
       {(fp) => (
         <NumberInput
           {...fp}
-          readOnly={readOnly}
           value={value !== undefined ? value : (d[field] as number | undefined)}
           onValue={onValue ?? ((v) => setDist({ [field]: v }))}
         />
@@ -71,10 +76,15 @@ export function InputForm({
   );
 
   // One chooser shape for every "how is this given" select on the form.
-  const choice = <M extends string>(label: string, value: M, onChoose: (m: M) => void, options: readonly (readonly [M, string])[], extra: { error?: string | null; className?: string } = {}) => (
+  const choice = <M extends string>(label: string, value: M, onChoose: (m: M) => void, options: readonly (readonly [M, string])[], extra: { error?: string | null; className?: string } = {}) =>
+    readOnly ? (
+      <ReadOnlyField label={label} className={extra.className}>
+        {options.find(([v]) => v === value)?.[1]}
+      </ReadOnlyField>
+    ) : (
     <Field label={label} error={extra.error} className={extra.className}>
       {(fp) => (
-        <Select {...fp} disabled={readOnly} value={value} onChange={(e) => onChoose(e.target.value as M)}>
+        <Select {...fp} value={value} onChange={(e) => onChoose(e.target.value as M)}>
           {options.map(([v, text]) => (
             <option key={v} value={v}>
               {text}
@@ -212,38 +222,58 @@ export function InputForm({
       case 'constant':
         return num(`Value${unitSuffix}`, 'value');
       case 'observations':
-        return (
-          <div className="md:col-span-3">
-            <ObservationsHelper
-              spec={d}
-              unit={input.unit}
-              readOnly={readOnly}
-              canUpload={canUpload}
-              error={err('distribution.values')}
-              onValues={(values) => setDist({ values })}
-            />
-          </div>
-        );
+        // read-only, the observations are listed below the definition list of the other facts
+        return readOnly ? null : <div className="md:col-span-3">{observations}</div>;
     }
   };
+  const observations =
+    d.kind === 'observations' ? (
+      <ObservationsHelper spec={d} unit={input.unit} readOnly={readOnly} canUpload={canUpload} error={err('distribution.values')} onValues={(values) => setDist({ values })} />
+    ) : null;
 
   const showDof = d.kind !== 'student-t' && d.kind !== 'constant' && !(d.kind === 'normal' && normalMode === 'Up');
+  if (readOnly) {
+    const dofText =
+      d.relativeUncertaintyOfU !== undefined
+        ? `${formatSignificant(0.5 / d.relativeUncertaintyOfU ** 2, 3)}, from Δu/u = ${formatSignificant(d.relativeUncertaintyOfU * 100, 3)} % (GUM G.4.2)`
+        : d.dof !== undefined
+          ? `${d.dof}, given`
+          : d.kind === 'observations'
+            ? 'n − 1'
+            : '∞ (u is known well)';
+    return (
+      <div className="flex flex-col gap-3">
+        <dl aria-label={`Input ${input.symbol}`} className="grid gap-x-4 gap-y-2 md:grid-cols-3">
+          <ReadOnlyField label="Symbol" numeric>
+            {input.symbol}
+          </ReadOnlyField>
+          <ReadOnlyField label="Unit" numeric>
+            {input.unit ? formatUnit(input.unit) || 'dimensionless' : 'dimensionless'}
+          </ReadOnlyField>
+          <ReadOnlyField label="Description">{input.description}</ReadOnlyField>
+          {choice('Distribution', d.kind as DistributionKind, () => {}, DISTRIBUTION_KINDS.map((k) => [k, KIND_LABELS[k]] as const))}
+          {kindFields()}
+          {showDof ? <ReadOnlyField label="Degrees of freedom νᵢ">{dofText}</ReadOnlyField> : null}
+        </dl>
+        {observations}
+      </div>
+    );
+  }
   return (
     <div className="flex flex-col gap-3">
       <div className="grid gap-3 md:grid-cols-[1fr_1fr_2fr]">
         <Field label="Symbol" error={err('symbol')}>
-          {(fp) => <TextInput {...fp} readOnly={readOnly} className="num" value={input.symbol} onChange={(e) => onChange({ ...input, symbol: e.target.value })} />}
+          {(fp) => <TextInput {...fp} className="num" value={input.symbol} onChange={(e) => onChange({ ...input, symbol: e.target.value })} />}
         </Field>
         <Field label="Unit" error={err('unit')} hint={input.unit ? `shown as ${formatUnit(input.unit) || 'dimensionless'}` : 'e.g. mm, um, degC, kg/m^3; empty = dimensionless'}>
           {(fp) => (
-            <TextInput {...fp} readOnly={readOnly} className="num" value={input.unit ?? ''} onChange={(e) => onChange({ ...input, unit: e.target.value || undefined })} />
+            <TextInput {...fp} className="num" value={input.unit ?? ''} onChange={(e) => onChange({ ...input, unit: e.target.value || undefined })} />
           )}
         </Field>
         <Field label="Description" error={err('description')}>
           {(fp) => (
             <TextInput
               {...fp}
-              readOnly={readOnly}
               value={input.description ?? ''}
               placeholder="what this quantity is and where its value comes from"
               onChange={(e) => onChange({ ...input, description: e.target.value || undefined })}

@@ -1,11 +1,14 @@
+import { useRef } from 'react';
 import { closestCenter, DndContext, KeyboardSensor, PointerSensor, useSensor, useSensors, type DragEndEvent } from '@dnd-kit/core';
 import { arrayMove, SortableContext, sortableKeyboardCoordinates, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import type { InputQuantity } from '../../../../shared/budget/schema';
 import { Button } from '../../../app/ui/controls';
+import { useToast } from '../../../app/ui/toasts';
 import { formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
 import { Sym, Unit } from '../../../app/ui/quantity';
 import { plainMessage, problemsUnder, type Problem } from '../live';
+import { restoreAt, useLatest } from '../undo-removal';
 import { InputForm } from './InputForm';
 import { KIND_SHORT, tryTreatment } from './kinds';
 
@@ -126,6 +129,31 @@ export function InputsList({
     const to = items.findIndex((i) => i.key === e.over!.id);
     onItems(arrayMove(items, from, to));
   };
+  // Removing takes effect at once and can be undone from the toast, readings and all.
+  const toast = useToast();
+  const latest = useLatest(items);
+  // focus goes to the row that takes the removed one's place (or back to the restored one), never to the page
+  const listRef = useRef<HTMLOListElement>(null);
+  const addRef = useRef<HTMLDivElement>(null);
+  const focusRow = (index: number) =>
+    requestAnimationFrame(() => {
+      const toggles = listRef.current?.querySelectorAll<HTMLElement>(':scope > li button[aria-expanded]');
+      const target = toggles?.length ? toggles[Math.min(index, toggles.length - 1)] : addRef.current?.querySelector('button');
+      target?.focus();
+    });
+  const remove = (item: KeyedInput, index: number) => {
+    const symbol = item.input.symbol || 'the input';
+    const d = item.input.distribution;
+    const readings = d.kind === 'observations' && Array.isArray(d.values) && d.values.length ? ` with its ${d.values.length} observations` : '';
+    onItems(items.filter((x) => x.key !== item.key), `Removed ${symbol}.`);
+    focusRow(index);
+    toast(`Removed input ${symbol}${readings}.`, 'info', { label: 'Undo', run: () => {
+        if (latest.current.some((x) => x.key === item.key)) return;
+        onItems(restoreAt(latest.current, item, index), `Restored ${symbol}.`);
+        focusRow(index);
+      },
+    });
+  };
   const symbolOf = (id: string | number) => items.find((i) => i.key === id)?.input.symbol ?? 'input';
   const pos = (id: string | number | undefined) => items.findIndex((i) => i.key === id) + 1;
   return (
@@ -145,7 +173,7 @@ export function InputsList({
         }}
       >
         <SortableContext items={items.map((i) => i.key)} strategy={verticalListSortingStrategy}>
-          <ol className="flex flex-col gap-1.5" aria-label="Input quantities">
+          <ol ref={listRef} className="flex flex-col gap-1.5" aria-label="Input quantities">
             {items.map((item, index) => (
               <Row
                 key={item.key}
@@ -154,7 +182,7 @@ export function InputsList({
                 open={openKeys.has(item.key)}
                 onToggle={() => onToggle(item.key)}
                 onChange={(input) => onItems(items.map((x) => (x.key === item.key ? { ...x, input } : x)))}
-                onRemove={() => onItems(items.filter((x) => x.key !== item.key), `Removed ${item.input.symbol}.`)}
+                onRemove={() => remove(item, index)}
                 problems={problems}
                 readOnly={readOnly}
                 canUpload={canUpload}
@@ -165,7 +193,7 @@ export function InputsList({
         </SortableContext>
       </DndContext>
       {!readOnly ? (
-        <div>
+        <div ref={addRef}>
           <Button onClick={onAdd}>+ Add input quantity</Button>
         </div>
       ) : null}

@@ -6,7 +6,7 @@ import { plainMessage } from '../live';
  * The model in the monospace face, with line numbers; a problem marks its line
  * and underlines the offending token, and its message sits right under that line.
  */
-export function ModelEditor({ value, onChange, problem, readOnly }: { value: string; onChange(v: string): void; problem: Problem | null; readOnly?: boolean }) {
+export function ModelEditor({ value, onChange, problem }: { value: string; onChange(v: string): void; problem: Problem | null }) {
   const id = useId();
   const gutter = useRef<HTMLDivElement>(null);
   const layer = useRef<HTMLPreElement>(null);
@@ -66,7 +66,6 @@ export function ModelEditor({ value, onChange, problem, readOnly }: { value: str
           <textarea
             id={id}
             value={value}
-            readOnly={readOnly}
             onChange={(e) => onChange(e.target.value)}
             onScroll={(e) => {
               if (gutter.current) gutter.current.scrollTop = e.currentTarget.scrollTop;

@@ -1,32 +1,29 @@
-import Papa from 'papaparse';
 import { useMemo, useRef, useState } from 'react';
 import type { DistributionOf } from '../../../../shared/budget/schema';
 import { arithmeticMean, experimentalStandardDeviation } from '../../../../shared/distributions/type-a';
+import { describeIgnoredLine, parseObservationText, type IgnoredLine } from '../../../../shared/observations/parse-observations';
 import { errorMessage, ApiError } from '../../../app/http';
 import { Button, Field, Select, TextArea } from '../../../app/ui/controls';
 import { formatCount, formatSignificant } from '../../../app/ui/numbers';
+import { ReadOnlyField, ReadOnlyList } from '../../../app/ui/read-only';
 import { formatUnit } from '../../../app/ui/units';
 import { useUploadObservations } from '../api/editor';
 
-/** Reads numbers from pasted spreadsheet cells: one per line or separated by tabs, semicolons or commas (decimal comma accepted). */
-export function parsePasted(text: string): { values: number[]; bad: string[] } {
-  const parsed = Papa.parse<string[]>(text.trim(), { delimitersToGuess: ['\t', ';', ',', ' '], skipEmptyLines: 'greedy' });
-  const delimiter = parsed.meta.delimiter;
-  const values: number[] = [];
-  const bad: string[] = [];
-  for (const row of parsed.data) {
-    for (const cell of row) {
-      let s = cell.trim().replace(/[\u202f\u2009 ]/g, '').replace('\u2212', '-');
-      if (s === '') continue;
-      if (delimiter !== ',' && /^[+-]?\d+,\d+([eE][+-]?\d+)?$/.test(s)) s = s.replace(',', '.');
-      const n = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s) ? Number(s) : NaN;
-      if (Number.isFinite(n)) values.push(n);
-      else bad.push(cell.trim());
-    }
-  }
-  // a header cell at the top is not an error
-  if (bad.length === 1 && values.length > 0 && !/\d/.test(bad[0])) bad.length = 0;
-  return { values, bad };
+/** The lines of the pasted text that gave no value, each with why. */
+function IgnoredLines({ lines }: { lines: IgnoredLine[] }) {
+  if (lines.length === 0) return null;
+  return (
+    <div role="status" className="rounded-md border border-caution-500 bg-caution-50 px-2 py-1.5 text-xs text-caution-700">
+      <p className="font-semibold">
+        {lines.length} line{lines.length > 1 ? 's' : ''} not read:
+      </p>
+      <ul aria-label="Lines not read" className="num max-h-32 overflow-y-auto">
+        {lines.map((l) => (
+          <li key={l.line}>{describeIgnoredLine(l)}</li>
+        ))}
+      </ul>
+    </div>
+  );
 }
 
 /** A strip plot of the observations: one tick per value, the mean and ± s marked. */
@@ -67,9 +64,9 @@ export function ObservationsHelper({
 }) {
   const values = Array.isArray(spec.values) ? spec.values.filter((v) => Number.isFinite(v)) : [];
   const [text, setText] = useState(() => values.join('\n'));
-  const [bad, setBad] = useState<string[]>([]);
+  const [ignored, setIgnored] = useState<IgnoredLine[]>([]);
+  const [ambiguity, setAmbiguity] = useState<string | null>(null);
   const [upload, setUpload] = useState<{ name: string; columns: (string | null)[]; file: File } | null>(null);
-  const [rowErrors, setRowErrors] = useState<{ row: number; message: string }[]>([]);
   const fileRef = useRef<HTMLInputElement>(null);
   const send = useUploadObservations();
 
@@ -82,8 +79,9 @@ export function ObservationsHelper({
 
   const applyText = (t: string) => {
     setText(t);
-    const r = parsePasted(t);
-    setBad(r.bad);
+    const r = parseObservationText(t);
+    setIgnored(r.ignored);
+    setAmbiguity(r.ambiguity);
     onValues(r.values);
   };
 
@@ -93,9 +91,9 @@ export function ObservationsHelper({
       {
         onSuccess: (r) => {
           setUpload(null);
-          setRowErrors(r.errors);
           setText(r.values.join('\n'));
-          setBad([]);
+          setIgnored(r.errors.map((e) => ({ line: e.row, reason: e.message })));
+          setAmbiguity(null);
           onValues(r.values);
         },
         onError: (e) => {
@@ -110,9 +108,28 @@ export function ObservationsHelper({
   return (
     <div className="flex flex-col gap-3">
       <div className="grid gap-3 md:grid-cols-[1fr_1fr]">
-        <Field label="Observations (paste a column from a spreadsheet)" error={error ?? (bad.length ? `Not read as numbers: ${bad.slice(0, 4).join(', ')}${bad.length > 4 ? '…' : ''}` : null)} hint="One value per line, or separated by tabs or semicolons; a decimal comma is accepted.">
-          {(p) => <TextArea {...p} rows={6} className="num" value={text} readOnly={readOnly} onChange={(e) => applyText(e.target.value)} />}
-        </Field>
+        {readOnly ? (
+          <ReadOnlyList>
+            <ReadOnlyField label={`Observations (${formatCount(values.length)})${u ? `, ${u}` : ''}`}>
+              <ol aria-label="Observations" className="num grid max-h-40 grid-cols-[repeat(auto-fill,minmax(6rem,1fr))] gap-x-3 overflow-y-auto">
+                {values.map((v, i) => (
+                  <li key={i}>{String(v)}</li>
+                ))}
+              </ol>
+            </ReadOnlyField>
+          </ReadOnlyList>
+        ) : (
+          <div className="flex flex-col gap-2">
+            <Field
+              label="Observations (paste a column from a spreadsheet)"
+              error={ambiguity ? `Not read: ${ambiguity}.` : error}
+              hint="One value per line, or several separated by tabs or semicolons; 50,02 and 50.02 are both read, 1 234,5 and 1,234.5 too."
+            >
+              {(p) => <TextArea {...p} rows={6} className="num" value={text} onChange={(e) => applyText(e.target.value)} />}
+            </Field>
+            <IgnoredLines lines={ignored} />
+          </div>
+        )}
         <div className="flex flex-col gap-2 text-sm">
           {stats ? (
             <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5">
@@ -171,12 +188,6 @@ export function ObservationsHelper({
                 </Select>
               )}
             </Field>
-          ) : null}
-          {rowErrors.length ? (
-            <p className="text-xs text-caution-700">
-              {rowErrors.length} row{rowErrors.length > 1 ? 's' : ''} skipped: {rowErrors.slice(0, 3).map((r) => `row ${r.row} (${r.message})`).join('; ')}
-              {rowErrors.length > 3 ? '…' : ''}
-            </p>
           ) : null}
         </div>
       </div>

@@ -8,6 +8,7 @@ import { Button, ErrorNote, Spinner } from '../../../app/ui/controls';
 import { formatCount, formatDateTime, formatDof, formatSignificant, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
 import { StatusBadge } from '../../../app/ui/status-badge';
+import { versionStatus } from '../../../../shared/policy/version-status';
 import { formatUnit } from '../../../app/ui/units';
 import { reportPdfUrl, useReport } from '../api/report';
 
@@ -111,7 +112,7 @@ export function ReportPage({ budgetId, versionNumber, renderBudgetTable }: { bud
             <p className="text-lg font-semibold">
               Dubito<span className="text-accent-600">.</span>
             </p>
-            {approved ? <StatusBadge status="approved" /> : <StatusBadge status={b.currentVersion === v.number ? b.status : 'draft'} returned={b.currentVersion === v.number && b.returned} />}
+            <StatusBadge status={versionStatus(b, v)} />
           </div>
         </div>
         <dl className="grid grid-cols-[8rem_1fr_8rem_1fr] gap-x-3 gap-y-0.5 text-xs">

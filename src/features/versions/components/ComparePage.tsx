@@ -6,6 +6,8 @@ import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { formatDateTime, formatPercent, formatSignificant, fullPrecision, groupDigits } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
+import { StatusBadge, statusLabel } from '../../../app/ui/status-badge';
+import { versionStatus } from '../../../../shared/policy/version-status';
 import { formatUnit } from '../../../app/ui/units';
 import { useBudgetHeader, useDiff, useVersions, versionUnitQuery } from '../api/versions';
 
@@ -373,13 +375,18 @@ export function ComparePage({ budgetId, from, to }: { budgetId: number; from?: n
                         {list.map((v) => (
                           <option key={v.number} value={v.number}>
                             v{v.number} · {v.authorName} · {formatDateTime(v.createdAt)}
-                            {v.approvedAt ? ' · approved' : ''}
+                            {budget.data ? ` · ${statusLabel(versionStatus(budget.data, v)).toLowerCase()}` : ''}
                           </option>
                         ))}
                       </Select>
                     )}
                   </Field>
-                  {m ? <p className="text-xs text-stone-600">{m.note || 'no note'}</p> : null}
+                  {m ? (
+                    <p className="flex flex-wrap items-center gap-2 text-xs text-stone-600">
+                      {budget.data ? <StatusBadge status={versionStatus(budget.data, m)} /> : null}
+                      {m.note || 'no note'}
+                    </p>
+                  ) : null}
                 </div>
               );
             })}

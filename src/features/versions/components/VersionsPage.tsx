@@ -7,6 +7,7 @@ import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { StatusBadge } from '../../../app/ui/status-badge';
+import { versionStatus } from '../../../../shared/policy/version-status';
 import { useBudgetHeader, useVersions } from '../api/versions';
 
 /** Pick any two versions and open their side-by-side comparison. */
@@ -61,9 +62,9 @@ export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; bud
       />
       <div className="flex flex-wrap items-center gap-3">
         <h1 className="text-2xl font-semibold tracking-tight">Version history</h1>
-        {b ? <StatusBadge status={b.status} returned={b.returned} /> : null}
+        {b ? <StatusBadge status={b.status} returned={b.returned} prefix="budget now:" /> : null}
       </div>
-      <p className="text-sm text-stone-600">Every save creates a version; versions never change. Approved versions are marked.</p>
+      <p className="text-sm text-stone-600">Every save creates a version; versions never change. Each row shows that version's own status: an older draft that was never approved is superseded.</p>
       {versions.isPending ? (
         <Spinner label="Loading versions" />
       ) : versions.isError ? (
@@ -98,11 +99,8 @@ export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; bud
                     <td className="px-3 py-2 text-stone-800">{v.note || <span className="text-stone-500">no note</span>}</td>
                     <td className="px-3 py-2">
                       <div className="flex flex-wrap gap-1">
-                        {v.approvedAt ? (
-                          <span title={`approved ${formatDateTime(v.approvedAt)}`}>
-                            <StatusBadge status="approved" />
-                          </span>
-                        ) : null}
+                        {b ? <StatusBadge status={versionStatus(b, v)} /> : null}
+                        {v.approvedAt ? <span className="text-xs text-stone-600">{formatDateTime(v.approvedAt)}</span> : null}
                         {current ? <span className="rounded-full border border-stone-300 px-2 py-0.5 text-xs text-stone-700">current</span> : null}
                       </div>
                     </td>
