@@ -17,7 +17,7 @@ export function useMail() {
 export function useUpdateUser() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, ...patch }: { id: number; role?: Role; active?: boolean; name?: string }) => api<UserAccount>(`/api/users/${id}`, { method: 'PATCH', json: patch }),
+    mutationFn: ({ id, ...patch }: { id: number; role?: Role; active?: boolean; name?: string; reason?: string }) => api<UserAccount>(`/api/users/${id}`, { method: 'PATCH', json: patch }),
     onSuccess: () => {
       qc.invalidateQueries({ queryKey: ['users'] });
       qc.invalidateQueries({ queryKey: ['audit'] });
