@@ -160,6 +160,7 @@ export class ReviewsService {
       status: b.status,
       returned: b.returned,
       currentVersion: b.currentVersion,
+      documentSha256: v.documentSha256,
       lastReturn: b.returned && lastDecision?.decision === 'returned' ? lastDecision : null,
       decisions,
       openThreads: open,

@@ -83,6 +83,8 @@ export interface ReviewState {
   status: BudgetStatus;
   returned: boolean;
   currentVersion: number;
+  /** SHA-256 of the current version's document: what a signature covers. */
+  documentSha256: string;
   /** The reviewer's decision that sent the budget back, while it is a returned draft. */
   lastReturn: ReviewDecision | null;
   /** Every approval and return, oldest first. */

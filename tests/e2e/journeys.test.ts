@@ -219,6 +219,7 @@ describe('journey 2: review, return, resubmit and approve', () => {
     await reviewer.goto(`${app.baseUrl}/budgets/${id}`);
     await reviewer.getByRole('button', { name: 'Approve' }).click();
     const sign = reviewer.getByRole('dialog', { name: /Approve version 2/ });
+    await sign.getByLabel(/Why do you approve although/).fill('The return comment and the dm_r thread are answered by version 2.');
     await sign.getByLabel('Your password (signature)').fill('not my password');
     await sign.getByRole('button', { name: 'Sign and approve' }).click();
     await shows(sign.getByText(/password does not match/i));

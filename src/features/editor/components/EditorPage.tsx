@@ -57,6 +57,10 @@ export interface EditorSlots {
   renderHeaderActions?(props: BudgetSlotProps): ReactNode;
   /** A panel in the side column beside the budget (e.g. review threads). */
   renderSidePanel?(props: BudgetSlotProps): ReactNode;
+  /** A notice at the top of the budget (e.g. why it was returned). */
+  renderTopNotice?(props: BudgetSlotProps): ReactNode;
+  /** The evidence of the version on screen, below the side panel. */
+  renderEvidence?(props: BudgetSlotProps): ReactNode;
 }
 
 let keySeq = 0;
@@ -404,6 +408,7 @@ function Editor({
           </div>
         </header>
 
+        {slotProps && slots.renderTopNotice ? slots.renderTopNotice(slotProps) : null}
         {offered ? (
           <div role="status" className="flex flex-wrap items-center gap-3 rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
             <span className="flex-1">
@@ -569,6 +574,7 @@ function Editor({
         />
         <ExplainPanel explanation={explanation} onClose={() => setSelection(null)} />
         {slotProps && slots.renderSidePanel ? slots.renderSidePanel(slotProps) : null}
+        {slotProps && slots.renderEvidence ? slots.renderEvidence(slotProps) : null}
       </aside>
 
       <SaveDialog open={saveOpen} onClose={() => setSaveOpen(false)} onSave={(note) => doSave(note, baseVersion)} saving={save.isPending} isNew={isNew} error={saveError} />
