@@ -238,10 +238,10 @@ function Editor({
 
   const blocker = useBlocker(({ currentLocation, nextLocation }) => !readOnly && dirty && !allowLeave.current && currentLocation.pathname !== nextLocation.pathname);
 
-  const doSave = (note: string, base: number) => {
+  const doSave = (note: string, base: number, from: BudgetDocument = doc) => {
     lastNote.current = note;
     setSaveError(null);
-    const document = JSON.parse(JSON.stringify(doc)) as BudgetDocument;
+    const document = JSON.parse(JSON.stringify(from)) as BudgetDocument;
     save.mutate(isNew ? { kind: 'create', document, note } : { kind: 'update', id: budgetId!, baseVersion: base, document, note }, {
       onSuccess: (r) => {
         clearDraft(budgetId);
@@ -583,12 +583,15 @@ function Editor({
           budgetId={budgetId}
           baseVersion={baseVersion}
           currentVersion={conflict.currentVersion}
+          mine={doc}
           saving={save.isPending}
           onClose={() => setConflict(null)}
           onReload={reloadCurrent}
-          onSaveOnTop={() => {
+          onSaveMerged={(merged) => {
+            setDocState(merged);
+            setKeys(merged.inputs.map(newKey));
             setBaseVersion(conflict.currentVersion);
-            doSave(lastNote.current || 'saved on top of a newer version', conflict.currentVersion);
+            doSave(lastNote.current || `merged with version ${conflict.currentVersion}`, conflict.currentVersion, merged);
           }}
         />
       ) : null}
