@@ -159,4 +159,24 @@ describe('review and approval as a controlled act', () => {
     expect(stored.document.title).toBe(newTitle);
     expect(stored.document.measurand.description).toBe('resistance of the probe at the bath temperature');
   }, 180_000);
+
+  it('a role change asks for confirmation and a reason before anything is sent', async () => {
+    const admin = await pageAs('admin@dubito.example');
+    await admin.goto(`${app.baseUrl}/admin/users`);
+    const row = admin.getByTestId('user-trainee@dubito.example');
+    await row.getByLabel('Role of Nia Castell').selectOption('metrologist');
+    const confirm = admin.getByRole('dialog', { name: 'Change the role of Nia Castell' });
+    await containsText(confirm, /from trainee to metrologist/);
+    await confirm.getByRole('button', { name: 'Make metrologist' }).click();
+    await shows(confirm.getByText('Say why; the reason is recorded with the change.'));
+    await shot(admin, 'role-change-dialog');
+    await confirm.getByRole('button', { name: 'Cancel' }).click();
+    await countIs(admin.getByRole('dialog', { name: 'Change the role of Nia Castell' }), 0);
+    expect(await row.getByLabel('Role of Nia Castell').inputValue()).toBe('trainee');
+    const users = await admin.evaluate(async () => (await fetch('/api/users')).json());
+    expect(users.find((u: { email: string }) => u.email === 'trainee@dubito.example').role).toBe('trainee');
+
+    await row.getByRole('button', { name: 'Deactivate Nia Castell' }).click();
+    await shows(admin.getByRole('dialog', { name: 'Deactivate Nia Castell' }).getByLabel('Reason (kept in the audit trail)'));
+  }, 120_000);
 });
