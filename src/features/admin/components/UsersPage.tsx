@@ -156,6 +156,7 @@ function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
       <td className="px-3 py-2 font-medium">
         {u.name}
         {self ? <span className="ml-1 text-xs font-normal text-stone-600">(you)</span> : null}
+        {pending ? <ConfirmChangeDialog u={u} change={pending} onClose={() => setPending(null)} /> : null}
       </td>
       <td className="px-3 py-2 text-stone-700">{u.email}</td>
       <td className="px-3 py-2">
@@ -203,7 +204,6 @@ function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
             Activate
           </Button>
         )}
-        {pending ? <ConfirmChangeDialog u={u} change={pending} onClose={() => setPending(null)} /> : null}
       </td>
     </tr>
   );
