@@ -125,10 +125,10 @@ function ConfirmChangeDialog({ u, change, onClose }: { u: UserAccount; change: P
   );
 }
 
-function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
+function UserRow({ u, meId, onChange }: { u: UserAccount; meId: number; onChange(u: UserAccount, change: PendingChange): void }) {
   const update = useUpdateUser();
   const self = u.id === meId;
-  const [pending, setPending] = useState<PendingChange | null>(null);
+  const setPending = (change: PendingChange) => onChange(u, change);
   const changeRole = (role: Role) =>
     setPending({
       patch: { role },
@@ -156,7 +156,6 @@ function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
       <td className="px-3 py-2 font-medium">
         {u.name}
         {self ? <span className="ml-1 text-xs font-normal text-stone-600">(you)</span> : null}
-        {pending ? <ConfirmChangeDialog u={u} change={pending} onClose={() => setPending(null)} /> : null}
       </td>
       <td className="px-3 py-2 text-stone-700">{u.email}</td>
       <td className="px-3 py-2">
@@ -211,6 +210,7 @@ function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
 
 export function UsersPage({ meId }: { meId: number }) {
   const users = useUsers();
+  const [pending, setPending] = useState<{ u: UserAccount; change: PendingChange } | null>(null);
   return (
     <div className="mx-auto flex max-w-6xl flex-col gap-4 px-6 py-6">
       <div>
@@ -240,12 +240,13 @@ export function UsersPage({ meId }: { meId: number }) {
             </thead>
             <tbody>
               {users.data.map((u) => (
-                <UserRow key={u.id} u={u} meId={meId} />
+                <UserRow key={u.id} u={u} meId={meId} onChange={(user, change) => setPending({ u: user, change })} />
               ))}
             </tbody>
           </table>
         </div>
       )}
+      {pending ? <ConfirmChangeDialog u={pending.u} change={pending.change} onClose={() => setPending(null)} /> : null}
     </div>
   );
 }
