@@ -213,6 +213,8 @@ describe('journey 2: review, return, resubmit and approve', () => {
     await item.getByLabel('Expanded uncertainty U').fill('0.025');
     await saveVersion(author, 'dm_r: U from certificate KF-2025-077 corrected to 0.025 mg');
     await author.getByRole('button', { name: 'Submit for review' }).click();
+    // the dm_r thread and the return comment are still open: the submission lists them first
+    await author.getByRole('dialog', { name: /open comment thread/ }).getByRole('button', { name: 'Submit anyway' }).click();
     await shows(author.getByText('In review'));
     await shot(author, 'journey2', 'resubmitted');
 
