@@ -230,7 +230,12 @@ export class ReviewsService {
       const n = now.currentVersion;
       // the state the decision was taken in, judged again inside the transaction
       const open = openThreads(tx, budgetId).length;
-      const verdict = verdictOf(JSON.parse(getVersion(tx, budgetId, n)!.result) as BudgetResult)?.verdict ?? null;
+      const stored = JSON.parse(getVersion(tx, budgetId, n)!.result) as BudgetResult;
+      const verdict = verdictOf(stored)?.verdict ?? null;
+      // a thread opened since the check above still needs its reason
+      if (input.to === 'approved' && !reason && signingCaveats(open, stored).length) {
+        throw new ValidationError('a comment thread was opened meanwhile; look at it and say why you approve', 'reason', 'reason_required');
+      }
       let signature: Record<string, unknown> = {};
       if (input.to === 'in_review') {
         updateBudget(tx, budgetId, { status: 'in_review', returned: false, updatedAt: at });

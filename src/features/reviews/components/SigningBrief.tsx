@@ -126,6 +126,9 @@ export function SigningBrief({ state }: { state: ReviewState }) {
             {state.evidence.map((e) => (
               <li key={e.id} className="break-all">
                 {e.fileName} <span className="text-xs text-stone-600">({e.symbol ? `for ${e.symbol}` : 'whole budget'}, v{e.versionNumber})</span>{' '}
+                {state.baseline && e.versionNumber > state.baseline.version ? (
+                  <span className="rounded-full border border-caution-500 bg-caution-50 px-1.5 text-[11px] font-medium text-caution-700">new since v{state.baseline.version}</span>
+                ) : null}{' '}
                 <span className="num text-[11px] text-stone-600">SHA-256 {e.sha256}</span>
               </li>
             ))}
