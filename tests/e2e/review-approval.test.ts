@@ -94,6 +94,8 @@ describe('review and approval as a controlled act', () => {
     await shows(evidence.getByRole('link', { name: 'KF-GB-ref certificate.pdf' }));
     await containsText(evidence.getByText(/^SHA-256 /), `SHA-256 ${createHash('sha256').update(PDF).digest('hex')}`);
     await shot(author, 'returned-and-evidence');
+    await evidence.scrollIntoViewIfNeeded();
+    await evidence.screenshot({ path: screenshotPath('review', 'evidence-panel') });
 
     // submitting with open threads lists them first
     await author.getByRole('button', { name: 'Submit for review' }).click();
@@ -121,7 +123,9 @@ describe('review and approval as a controlled act', () => {
     await sign.getByRole('button', { name: 'Sign and approve' }).click();
     await shows(reviewer.getByText('Approved').first());
     await containsText(reviewer.getByTestId('review-decisions'), 'The certificate is attached; the threads are answered by it.');
-    await shot(reviewer, 'approved-history');
+    const history = reviewer.getByTestId('review-decisions');
+    await history.scrollIntoViewIfNeeded();
+    await history.screenshot({ path: screenshotPath('review', 'approved-history') });
 
     const stored = await reviewer.evaluate(async (budgetId) => (await fetch(`/api/budgets/${budgetId}/review`)).json(), id);
     expect(stored.status).toBe('approved');
