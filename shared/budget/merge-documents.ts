@@ -182,8 +182,14 @@ function toDocument(tree: Obj, theirs: BudgetDocument, mine: BudgetDocument): Bu
     if (list.length || field === 'inputs' || Array.isArray((mine as Obj)[field])) out[field] = list;
     else delete out[field];
   }
-  // an ordinary object again, as JSON.parse would give it
-  return JSON.parse(JSON.stringify(out)) as BudgetDocument;
+  return plain(out) as BudgetDocument;
+}
+
+/** Ordinary objects again; `Object.fromEntries` defines "__proto__" as an own key, as JSON.parse does. */
+function plain(v: unknown): unknown {
+  if (Array.isArray(v)) return v.map(plain);
+  if (!isObj(v)) return v;
+  return Object.fromEntries(Object.keys(v).map((k) => [k, plain(v[k])]));
 }
 
 /**

@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { listTheirChanges, mergeDocuments } from '../../shared/budget/merge-documents';
 import type { BudgetDocument } from '../../shared/budget/schema';
@@ -121,5 +122,62 @@ describe('three-way merge of budget documents', () => {
     const mine = copy(base());
     mine.title = 'mine only';
     expect(mergeDocuments(base(), base(), mine)).toMatchObject({ changes: [], undecided: [], document: mine });
+  });
+
+  describe('properties over random edits (fast-check)', () => {
+    const edit = fc.record({
+      title: fc.option(fc.string({ minLength: 1, maxLength: 20 }), { nil: undefined }),
+      changes: fc.array(fc.record({ i: fc.nat(3), what: fc.constantFrom('value', 'unit', 'remove'), x: fc.double({ noNaN: true, noDefaultInfinity: true, min: -1e3, max: 1e3 }) }), { maxLength: 4 }),
+      add: fc.boolean(),
+    });
+    type Edit = typeof edit extends fc.Arbitrary<infer T> ? T : never;
+    function apply(e: Edit, tag: string): BudgetDocument {
+      const d = base();
+      if (e.title !== undefined) d.title = e.title;
+      for (const c of e.changes) {
+        const q = d.inputs[c.i];
+        if (!q) continue;
+        if (c.what === 'value') (q.distribution as { value: number }).value = c.x;
+        else if (c.what === 'unit') q.unit = `${tag}${c.i}`;
+        else d.inputs.splice(c.i, 1);
+      }
+      if (e.add) d.inputs.push({ symbol: `n_${tag}`, distribution: { kind: 'normal', value: 1, u: 0.1 } });
+      return d;
+    }
+    const bySymbol = (d: BudgetDocument) => Object.fromEntries(d.inputs.map((q) => [q.symbol, q]));
+    const content = (d: BudgetDocument) => ({ ...d, inputs: bySymbol(d) });
+
+    it('with nothing changed on my side, keeping every change of theirs gives theirs', () => {
+      fc.assert(
+        fc.property(edit, (e) => {
+          const theirs = apply(e, 't');
+          const m = mergeDocuments(base(), theirs, base());
+          expect(m.undecided).toEqual([]);
+          expect(content(m.document!)).toEqual(content(theirs));
+        }),
+      );
+    });
+
+    it('with nothing changed on their side, nothing is listed and mine is saved as it is', () => {
+      fc.assert(
+        fc.property(edit, (e) => {
+          const mine = apply(e, 'm');
+          expect(mergeDocuments(base(), base(), mine)).toEqual({ changes: [], undecided: [], document: mine });
+        }),
+      );
+    });
+
+    it('dropping every change of theirs gives back mine; each listed change has a value that differs from base', () => {
+      fc.assert(
+        fc.property(edit, edit, (et, em) => {
+          const theirs = apply(et, 't');
+          const mine = apply(em, 'm');
+          const changes = listTheirChanges(base(), theirs, mine);
+          for (const c of changes) expect(JSON.stringify(c.theirs)).not.toBe(JSON.stringify(c.base));
+          const dropAll = Object.fromEntries(changes.map((c) => [c.id, 'mine' as const]));
+          expect(content(mergeDocuments(base(), theirs, mine, dropAll).document!)).toEqual(content(mine));
+        }),
+      );
+    });
   });
 });
