@@ -164,6 +164,7 @@ export class ReviewsService {
       lastReturn: b.returned && lastDecision?.decision === 'returned' ? lastDecision : null,
       decisions,
       openThreads: open,
+      result: { measurand: result.measurand, gum: result.gum },
       validation: verdictOf(result),
       warnings: result.warnings,
       evidence: evidenceOf(db, budgetId, b.currentVersion),

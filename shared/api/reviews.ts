@@ -1,5 +1,5 @@
 /** Payloads of the review routes (comments, replies, transitions, review state, queue). Types only. */
-import type { ValidationVerdict } from '../budget/result';
+import type { GumResult, ValidationVerdict } from '../budget/result';
 import type { BudgetStatus } from '../policy/policy';
 import type { BudgetDiff } from './diff';
 
@@ -91,6 +91,8 @@ export interface ReviewState {
   decisions: ReviewDecision[];
   /** The first comment of every unresolved thread, oldest first. */
   openThreads: Comment[];
+  /** The stored GUM result of the current version, for the statement the signature covers. */
+  result: { measurand: { symbol: string; unit?: string }; gum: GumResult };
   /** Clause 8 verdict of the stored result; null when it has no Monte Carlo run. */
   validation: { verdict: ValidationVerdict; reason: string | null } | null;
   warnings: string[];

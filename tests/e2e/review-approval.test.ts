@@ -112,6 +112,7 @@ describe('review and approval as a controlled act', () => {
     const sign = reviewer.getByRole('dialog', { name: /Approve version 1/ });
     await shows(sign.getByTestId('signing-brief'));
     await shows(sign.getByTestId('open-threads').getByText('Attach the comparator calibration certificate.'));
+    await containsText(sign.getByTestId('signing-statement'), /^L = \(50\.\d+ ± 0\.\d+\) mm/);
     await containsText(sign.getByTestId('signing-verdict'), /Monte Carlo/);
     await shows(sign.getByText('KF-GB-ref certificate.pdf'));
     await containsText(sign.getByTestId('signing-meaning'), /ISO\/IEC 17025/);

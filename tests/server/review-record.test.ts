@@ -130,6 +130,10 @@ describe('signing shows what is signed and asks why when it should', () => {
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
     const state = (await r.get(`/api/budgets/${id}/review`).expect(200)).body;
     expect(state.baseline).toEqual({ version: 1, basis: 'seen' });
+    // the figures shown for signing are the stored ones of the current version
+    const stored = (await r.get(`/api/budgets/${id}`).expect(200)).body;
+    expect(state.result.gum.expandedUncertainty).toBe(stored.result.gum.expandedUncertainty);
+    expect(state.documentSha256).toBe(stored.version.documentSha256);
     expect(state.changes.inputs.changed).toEqual([{ key: 'a', changes: [{ field: 'distribution.u', from: 0.002, to: 0.003 }] }]);
     expect(state.evidence).toEqual([expect.objectContaining({ fileName: 'new certificate.pdf', symbol: 'a', sha256: sha256(PDF), versionNumber: 2 })]);
     // another reviewer never commented: nothing approved yet, so no baseline

@@ -1,8 +1,10 @@
 import type { BudgetDiff, FieldChange } from '../../../../shared/api/diff';
 import type { Comment, ReviewDecision, ReviewState } from '../../../../shared/api/reviews';
 import type { ValidationVerdict } from '../../../../shared/budget/result';
+import { certificateStatement } from '../../../../shared/gum/statement';
 import { formatDateTime, formatSignificant } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
+import { formatUnit } from '../../../app/ui/units';
 
 /** The clause 8 verdict in words, with whether it asks the signer for a reason. */
 export const VERDICT_WORDS: Record<ValidationVerdict, { label: string; ok: boolean }> = {
@@ -70,6 +72,12 @@ export function SigningBrief({ state }: { state: ReviewState }) {
   const lines = state.changes ? changeLines(state.changes) : [];
   return (
     <div className="flex flex-col gap-3" data-testid="signing-brief">
+      <section aria-label="Result" className="flex flex-col gap-1">
+        <Heading>Result of version {state.currentVersion} as stored</Heading>
+        <p data-testid="signing-statement" className="rounded-md bg-stone-50 px-2 py-1 text-sm text-stone-900">
+          {certificateStatement(state.result.measurand.symbol, formatUnit(state.result.measurand.unit) || undefined, state.result.gum)}
+        </p>
+      </section>
       <section aria-label="Validation" className="flex flex-col gap-1">
         <Heading>Monte Carlo verdict (JCGM 101:2008 clause 8)</Heading>
         <p
