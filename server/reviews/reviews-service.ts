@@ -177,10 +177,7 @@ export class ReviewsService {
   /** In-review budgets the actor may approve: neither owned nor written by them, oldest first. */
   queue(actor: SessionUser): ReviewQueueItem[] {
     const rows = inReview(this.d.db).filter((r) => canApprove(actor, { ownerId: r.ownerId, status: 'in_review', isTemplate: r.isTemplate }, r.authorId));
-    const counts = openThreadCounts(
-      this.d.db,
-      rows.map((r) => r.budgetId),
-    );
+    const counts = openThreadCounts(this.d.db, rows.map((r) => r.budgetId));
     return rows.map(({ ownerId: _o, authorId: _a, isTemplate: _t, ...r }) => ({ ...r, openThreads: counts.get(r.budgetId) ?? 0 }));
   }
 
