@@ -1,5 +1,7 @@
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { signingCaveats } from '../../server/reviews/reviews-service';
+import type { BudgetResult } from '../../shared/budget/result';
 import { PDF, PNG } from './fixtures';
 import { PASSWORD, sampleDocument, startTestServer, type TestServer } from './helpers';
 
@@ -185,5 +187,34 @@ describe('returns, threads and the queue', () => {
     expect(adminQueue.map((q) => q.budgetId)).not.toContain(own);
     expect((await (await s.as('reviewer')).get('/api/reviews/queue').expect(200)).body.map((q: { budgetId: number }) => q.budgetId)).toContain(own);
     await (await s.as('metrologist')).get('/api/reviews/queue').expect(403);
+  });
+});
+
+describe('when signing needs a reason', () => {
+  const result = (validation: BudgetResult['validation']) => ({ validation }) as BudgetResult;
+  const v = { significantDigits: 2, tolerance: 5e-5, dLow: 1e-5, dHigh: 2e-5 };
+
+  it('needs none for a validated result without open threads', () => {
+    expect(signingCaveats(0, result({ ...v, passed: true, verdict: 'validated' }))).toEqual([]);
+  });
+
+  it('names each cause: open threads, a failed, inconclusive or impossible validation, or none at all', () => {
+    expect(signingCaveats(3, result({ ...v, passed: true, verdict: 'validated' })).map((c) => c.message)).toEqual(['3 comment threads are still open']);
+    expect(signingCaveats(0, result({ ...v, passed: false, verdict: 'not-validated' })).map((c) => c.code)).toEqual(['not_validated']);
+    expect(signingCaveats(0, result({ ...v, passed: false, verdict: 'inconclusive', reason: 'the numerical tolerance of the Monte Carlo interval is of the size of δ' }))[0]).toEqual({
+      code: 'inconclusive',
+      message: 'the validation by the Monte Carlo method is inconclusive: the numerical tolerance of the Monte Carlo interval is of the size of δ',
+    });
+    expect(signingCaveats(1, result({ ...v, passed: false, verdict: 'not-possible' })).map((c) => c.code)).toEqual(['open_threads', 'not_possible']);
+    expect(signingCaveats(0, result(null)).map((c) => c.code)).toEqual(['no_monte_carlo']);
+    // results stored before verdicts existed carry only `passed`
+    expect(signingCaveats(0, result({ ...v, passed: false })).map((c) => c.code)).toEqual(['not_validated']);
+    expect(signingCaveats(0, result({ ...v, passed: true }))).toEqual([]);
+  });
+
+  it('lists evidence only of versions that exist', async () => {
+    const id = await draft();
+    const r = await (await s.as('auditor')).get(`/api/budgets/${id}/attachments?version=2`).expect(404);
+    expect(r.body.error.message).toBe(`budget ${id} has no version 2`);
   });
 });
