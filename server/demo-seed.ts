@@ -103,7 +103,11 @@ export async function seedDemo(s: Services, opts: { examplesDir: string; log: (m
   s.reviews.resolveComment(metrologist, r.id, c2.id, true);
   await s.budgets.save(metrologist, r.id, { baseVersion: 2, document: resistorVersion(3), note: 'reference from the 2025 certificate' });
   await s.reviews.transition(metrologist, r.id, { to: 'in_review' });
-  await s.reviews.transition(reviewer, r.id, { to: 'approved', password: DEMO_PASSWORD });
+  await s.reviews.transition(reviewer, r.id, {
+    to: 'approved',
+    password: DEMO_PASSWORD,
+    reason: 'Version 3 takes the reference value from the 2025 certificate, which answers the open R_s thread and the return comment.',
+  });
 
   // A trainee's draft cloned from a template.
   await s.budgets.clone(trainee, gauge.id, { title: 'Gauge block KF-GB-50-114 (training)' });

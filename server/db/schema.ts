@@ -113,6 +113,9 @@ export const attachments = sqliteTable(
     budgetId: integer('budget_id')
       .notNull()
       .references(() => budgets.id),
+    /** The version the evidence was added to; it belongs to that version and every later one. */
+    versionNumber: integer('version_number').notNull().default(1),
+    /** Input symbol the evidence is about, or null for the whole budget. */
     symbol: text('symbol'),
     fileName: text('file_name').notNull(),
     size: integer('size').notNull(),
@@ -124,6 +127,33 @@ export const attachments = sqliteTable(
     createdAt: integer('created_at').notNull().default(now),
   },
   (t) => [index('attachments_budget_idx').on(t.budgetId)],
+);
+
+/**
+ * Review decisions on a version: an approval with the reason given for signing over open
+ * comments or an unvalidated result, or a return to draft with the reviewer's reason.
+ */
+export const reviewDecisions = sqliteTable(
+  'review_decisions',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    budgetId: integer('budget_id')
+      .notNull()
+      .references(() => budgets.id),
+    versionNumber: integer('version_number').notNull(),
+    decision: text('decision', { enum: ['approved', 'returned'] }).notNull(),
+    actorId: integer('actor_id')
+      .notNull()
+      .references(() => users.id),
+    /** Why: required for a return, and for an approval over open threads or a result Monte Carlo did not validate. */
+    reason: text('reason'),
+    /** Open comment threads at the moment of the decision. */
+    openThreads: integer('open_threads').notNull().default(0),
+    /** The JCGM 101 clause 8 verdict of the stored result at that moment, or null when there was none. */
+    validationVerdict: text('validation_verdict'),
+    at: integer('at').notNull().default(now),
+  },
+  (t) => [index('review_decisions_budget_idx').on(t.budgetId, t.versionNumber)],
 );
 
 export const auditEvents = sqliteTable(

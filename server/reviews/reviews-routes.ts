@@ -19,6 +19,7 @@ const transition = z.strictObject({
   to: z.enum(['in_review', 'approved', 'draft'], { error: 'must be in_review, approved or draft' }),
   comment: z.string().max(10_000).optional(),
   password: z.string().max(1000).optional(),
+  reason: z.string({ error: 'must be text' }).max(10_000).optional(),
 });
 
 export function reviewsRoutes(t: RouteTable, reviews: ReviewsService): void {
@@ -38,6 +39,15 @@ export function reviewsRoutes(t: RouteTable, reviews: ReviewsService): void {
     const p = parse(commentParams, req.params);
     const b = parse(patchComment, req.body);
     res.json(reviews.resolveComment(userOf(req), p.id, p.cid, b.resolved));
+  });
+
+  t.add('get', '/api/budgets/:id/review', 'budget.read', (req, res) => {
+    const { id } = parse(idParams, req.params);
+    res.json(reviews.state(userOf(req), id));
+  });
+
+  t.add('get', '/api/reviews/queue', 'budget.approve', (req, res) => {
+    res.json(reviews.queue(userOf(req)));
   });
 
   t.add('post', '/api/budgets/:id/transitions', 'budget.transition', async (req, res) => {

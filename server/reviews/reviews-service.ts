@@ -1,14 +1,51 @@
-import type { Comment, NewComment, TransitionOutput, TransitionTarget } from '../../shared/api/reviews';
+import type { Comment, NewComment, ReviewQueueItem, ReviewState, SigningCaveat, TransitionOutput, TransitionTarget } from '../../shared/api/reviews';
+import type { BudgetResult, ValidationVerdict } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import { canApprove, canResolveComment, canReturn, canSubmit, type BudgetStatus } from '../../shared/policy/policy';
 import type { AccountsService } from '../accounts/accounts-service';
 import { recordAudit } from '../audit/audit-repository';
-import { getBudget, getVersion, recordApproval, updateBudget, type BudgetRow } from '../budgets/budgets-repository';
-import { inTransaction, type Db } from '../db/connection';
+import { diffBudgets } from '../budgets/budget-diff';
+import { getBudget, getVersion, recordApproval, updateBudget, type BudgetRow, type VersionRow } from '../budgets/budgets-repository';
+import { inTransaction, type Db, type DbLike } from '../db/connection';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import type { MailService } from '../mail/mail-service';
-import { getComment, insertComment, listComments, setResolved } from './reviews-repository';
+import {
+  evidenceOf,
+  getComment,
+  inReview,
+  insertComment,
+  insertDecision,
+  lastVersionSeenBy,
+  listComments,
+  listDecisions,
+  openThreadCounts,
+  openThreads,
+  setThreadResolved,
+} from './reviews-repository';
+
+/** The clause 8 verdict of a stored result; results stored before verdicts existed carry only `passed`. */
+export function verdictOf(result: BudgetResult): { verdict: ValidationVerdict; reason: string | null } | null {
+  const v = result.validation;
+  if (!v) return null;
+  return { verdict: v.verdict ?? (v.passed ? 'validated' : 'not-validated'), reason: v.reason ?? null };
+}
+
+/**
+ * Why signing this version needs a reason: open threads, or a GUM result the
+ * Monte Carlo method did not validate (JCGM 101:2008 clause 8), could not
+ * decide on, or was not run for.
+ */
+export function signingCaveats(open: number, result: BudgetResult): SigningCaveat[] {
+  const out: SigningCaveat[] = [];
+  if (open > 0) out.push({ code: 'open_threads', message: `${open} comment thread${open === 1 ? ' is' : 's are'} still open` });
+  const v = verdictOf(result);
+  if (!v) out.push({ code: 'no_monte_carlo', message: 'the Monte Carlo method was not run, so the GUM result is not validated (JCGM 101:2008 clause 8)' });
+  else if (v.verdict === 'not-validated') out.push({ code: 'not_validated', message: 'the Monte Carlo method did not validate the GUM result (JCGM 101:2008 clause 8)' });
+  else if (v.verdict === 'inconclusive') out.push({ code: 'inconclusive', message: `the validation by the Monte Carlo method is inconclusive${v.reason ? `: ${v.reason}` : ''}` });
+  else if (v.verdict === 'not-possible') out.push({ code: 'not_possible', message: `the GUM result could not be validated${v.reason ? `: ${v.reason}` : ''}` });
+  return out;
+}
 
 export interface ReviewsDeps {
   db: Db;
@@ -62,37 +99,86 @@ export class ReviewsService {
       }
       const at = Date.now();
       const id = insertComment(tx, { budgetId, versionNumber: input.version, symbol, parentId, authorId: actor.id, body: input.body, at });
+      // a new word in a resolved thread is a new question: the thread opens again
+      const reopens = parentId !== null && getComment(tx, budgetId, parentId)!.resolved;
+      if (reopens) setThreadResolved(tx, parentId!, false, actor.id, at);
       recordAudit(tx, {
         actorId: actor.id,
         action: 'comment.created',
         budgetId,
         versionNumber: input.version,
         at,
-        detail: { commentId: id, symbol, body: input.body, ...(parentId !== null ? { parentId } : {}) },
+        detail: { commentId: id, symbol, body: input.body, ...(parentId !== null ? { parentId } : {}), ...(reopens ? { reopenedThread: parentId } : {}) },
       });
       return getComment(tx, budgetId, id)!;
     });
   }
 
+  /**
+   * Resolves or reopens the whole thread the comment belongs to, recording who
+   * and when on each of its comments. The permission is judged on the thread's
+   * first comment (its author may close their own question).
+   */
   resolveComment(actor: SessionUser, budgetId: number, commentId: number, resolved: boolean): Comment {
     return inTransaction(this.d.db, (tx) => {
       const b = getBudget(tx, budgetId);
       const c = b && getComment(tx, budgetId, commentId);
       if (!b || !c) throw new NotFoundError('no such comment');
-      if (!canResolveComment(actor, b, c.authorId)) throw new ForbiddenError('only the author, the owner or a reviewer may resolve this comment');
-      if (c.resolved === resolved) return c;
+      const root = c.parentId === null ? c : (getComment(tx, budgetId, c.parentId) ?? c);
+      if (!canResolveComment(actor, b, root.authorId)) throw new ForbiddenError('only the author, the owner or a reviewer may resolve this thread');
+      if (root.resolved === resolved) return getComment(tx, budgetId, commentId)!;
       const at = Date.now();
-      setResolved(tx, commentId, resolved, actor.id, at);
+      setThreadResolved(tx, root.id, resolved, actor.id, at);
       recordAudit(tx, {
         actorId: actor.id,
         action: resolved ? 'comment.resolved' : 'comment.reopened',
         budgetId,
-        versionNumber: c.versionNumber,
+        versionNumber: root.versionNumber,
         at,
-        detail: { commentId },
+        detail: { commentId: root.id, thread: true },
       });
       return getComment(tx, budgetId, commentId)!;
     });
+  }
+
+  /** What a signature on the current version covers, and the decisions so far. */
+  state(actor: SessionUser, budgetId: number): ReviewState {
+    const b = this.budget(budgetId);
+    const db = this.d.db;
+    const v = getVersion(db, budgetId, b.currentVersion)!;
+    const result = JSON.parse(v.result) as BudgetResult;
+    const open = openThreads(db, budgetId);
+    const decisions = listDecisions(db, budgetId);
+    const lastDecision = decisions[decisions.length - 1];
+    const seen = lastVersionSeenBy(db, budgetId, actor.id, b.currentVersion);
+    const approved = b.approvedVersion !== null && b.approvedVersion < b.currentVersion ? b.approvedVersion : null;
+    const baseline = seen !== null ? { version: seen, basis: 'seen' as const } : approved !== null ? { version: approved, basis: 'approved' as const } : null;
+    const load = (x: VersionRow) => ({ number: x.number, document: JSON.parse(x.document) as Record<string, unknown>, result: JSON.parse(x.result) as BudgetResult });
+    const changes = baseline && baseline.version < b.currentVersion ? diffBudgets(load(getVersion(db, budgetId, baseline.version)!), load(v)) : null;
+    return {
+      budgetId,
+      status: b.status,
+      returned: b.returned,
+      currentVersion: b.currentVersion,
+      documentSha256: v.documentSha256,
+      lastReturn: b.returned && lastDecision?.decision === 'returned' ? lastDecision : null,
+      decisions,
+      openThreads: open,
+      result: { measurand: result.measurand, gum: result.gum },
+      validation: verdictOf(result),
+      warnings: result.warnings,
+      evidence: evidenceOf(db, budgetId, b.currentVersion),
+      baseline,
+      changes,
+      caveats: signingCaveats(open.length, result),
+    };
+  }
+
+  /** In-review budgets the actor may approve: neither owned nor written by them, oldest first. */
+  queue(actor: SessionUser): ReviewQueueItem[] {
+    const rows = inReview(this.d.db).filter((r) => canApprove(actor, { ownerId: r.ownerId, status: 'in_review', isTemplate: r.isTemplate }, r.authorId));
+    const counts = openThreadCounts(this.d.db, rows.map((r) => r.budgetId));
+    return rows.map(({ ownerId: _o, authorId: _a, isTemplate: _t, ...r }) => ({ ...r, openThreads: counts.get(r.budgetId) ?? 0 }));
   }
 
   /**
@@ -103,9 +189,10 @@ export class ReviewsService {
   async transition(
     actor: SessionUser,
     budgetId: number,
-    input: { to: TransitionTarget; comment?: string; password?: string },
+    input: { to: TransitionTarget; comment?: string; password?: string; reason?: string },
   ): Promise<TransitionOutput> {
     const b = this.budget(budgetId);
+    const reason = input.reason?.trim() || null;
     const illegal = () => new ConflictError(`a budget that is ${b.status.replace('_', ' ')} cannot go to ${input.to.replace('_', ' ')}`, 'invalid_transition');
     let signatureOk = false;
     if (input.to === 'in_review') {
@@ -119,6 +206,10 @@ export class ReviewsService {
         );
       }
       if (b.status !== 'in_review') throw illegal();
+      const caveats = signingCaveats(openThreads(this.d.db, budgetId).length, JSON.parse(v.result) as BudgetResult);
+      if (caveats.length && !reason) {
+        throw new ValidationError(`say why you approve although ${caveats.map((c) => c.message).join(', and ')}`, 'reason', 'reason_required');
+      }
       if (!input.password) throw new ValidationError('re-enter your password to sign the approval', 'password');
       signatureOk = await this.d.accounts.verifySignature(actor.id, input.password, { budgetId, versionNumber: b.currentVersion });
       if (!signatureOk) throw new ForbiddenError('the password does not match; the approval was not signed', 'signature_rejected');
@@ -135,13 +226,25 @@ export class ReviewsService {
       }
       const at = Date.now();
       const n = now.currentVersion;
+      // the state the decision was taken in, judged again inside the transaction
+      const open = openThreads(tx, budgetId).length;
+      const stored = JSON.parse(getVersion(tx, budgetId, n)!.result) as BudgetResult;
+      const verdict = verdictOf(stored)?.verdict ?? null;
+      // a thread opened since the check above still needs its reason
+      if (input.to === 'approved' && !reason && signingCaveats(open, stored).length) {
+        throw new ValidationError('a comment thread was opened meanwhile; look at it and say why you approve', 'reason', 'reason_required');
+      }
+      let signature: Record<string, unknown> = {};
       if (input.to === 'in_review') {
         updateBudget(tx, budgetId, { status: 'in_review', returned: false, updatedAt: at });
       } else if (input.to === 'approved' && signatureOk) {
         recordApproval(tx, budgetId, n, actor.id, at);
         updateBudget(tx, budgetId, { status: 'approved', approvedVersion: n, returned: false, updatedAt: at });
+        insertDecision(tx, { budgetId, versionNumber: n, decision: 'approved', actorId: actor.id, reason, openThreads: open, validationVerdict: verdict, at });
+        signature = { reason, openThreads: open, validationVerdict: verdict, evidence: this.evidenceHashes(tx, budgetId, n) };
       } else {
         updateBudget(tx, budgetId, { status: 'draft', returned: true, updatedAt: at });
+        insertDecision(tx, { budgetId, versionNumber: n, decision: 'returned', actorId: actor.id, reason: input.comment!.trim(), openThreads: open, validationVerdict: verdict, at });
       }
       if (input.comment?.trim()) {
         insertComment(tx, { budgetId, versionNumber: n, symbol: null, authorId: actor.id, body: input.comment.trim(), at });
@@ -153,13 +256,23 @@ export class ReviewsService {
         budgetId,
         versionNumber: n,
         at,
-        detail: { from: now.status, to: input.to, ...(input.comment ? { comment: input.comment.trim() } : {}), ...(signatureOk ? { signedBy: actor.email } : {}) },
+        detail: {
+          from: now.status,
+          to: input.to,
+          ...(input.comment ? { comment: input.comment.trim() } : {}),
+          ...(signatureOk ? { signedBy: actor.email, ...signature } : {}),
+        },
       });
       return { status: (input.to === 'draft' ? 'draft' : input.to) as BudgetStatus, version: n, returned: input.to === 'draft' };
     });
 
     this.notify(actor, b, input.to, out.version, input.comment);
     return out;
+  }
+
+  /** The evidence a signature covers, by file name and SHA-256. */
+  private evidenceHashes(db: DbLike, budgetId: number, n: number): { fileName: string; sha256: string }[] {
+    return evidenceOf(db, budgetId, n).map((e) => ({ fileName: e.fileName, sha256: e.sha256 }));
   }
 
   private notify(actor: SessionUser, b: BudgetRow, to: TransitionTarget, version: number, comment?: string): void {

@@ -1,17 +1,42 @@
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, lte } from 'drizzle-orm';
+import type { Attachment } from '../../shared/api/uploads';
 import type { DbLike } from '../db/connection';
-import { attachments } from '../db/schema';
+import { attachments, users } from '../db/schema';
 
-export type AttachmentRow = typeof attachments.$inferSelect;
+const columns = {
+  id: attachments.id,
+  budgetId: attachments.budgetId,
+  versionNumber: attachments.versionNumber,
+  symbol: attachments.symbol,
+  fileName: attachments.fileName,
+  size: attachments.size,
+  sha256: attachments.sha256,
+  mediaType: attachments.mediaType,
+  uploadedBy: attachments.uploadedBy,
+  uploaderName: users.name,
+  createdAt: attachments.createdAt,
+};
 
-export function insertAttachment(db: DbLike, a: Omit<typeof attachments.$inferInsert, 'id'>): AttachmentRow {
-  return db.insert(attachments).values(a).returning().get();
+export function insertAttachment(db: DbLike, a: Omit<typeof attachments.$inferInsert, 'id'>): number {
+  return db.insert(attachments).values(a).returning({ id: attachments.id }).get().id;
 }
 
-export function listAttachments(db: DbLike, budgetId: number): AttachmentRow[] {
-  return db.select().from(attachments).where(eq(attachments.budgetId, budgetId)).orderBy(asc(attachments.id)).all();
+/** The evidence of a version: what was added to it and to every earlier version. */
+export function listAttachments(db: DbLike, budgetId: number, upToVersion: number): Attachment[] {
+  return db
+    .select(columns)
+    .from(attachments)
+    .innerJoin(users, eq(users.id, attachments.uploadedBy))
+    .where(and(eq(attachments.budgetId, budgetId), lte(attachments.versionNumber, upToVersion)))
+    .orderBy(asc(attachments.id))
+    .all();
 }
 
-export function getAttachment(db: DbLike, budgetId: number, id: number): AttachmentRow | undefined {
-  return db.select().from(attachments).where(and(eq(attachments.budgetId, budgetId), eq(attachments.id, id))).get();
+export function getAttachment(db: DbLike, budgetId: number, id: number): Attachment | undefined {
+  return db
+    .select(columns)
+    .from(attachments)
+    .innerJoin(users, eq(users.id, attachments.uploadedBy))
+    .where(and(eq(attachments.budgetId, budgetId), eq(attachments.id, id)))
+    .get();
 }

@@ -1,14 +1,16 @@
 import { existsSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
-import { canAttach } from '../../shared/policy/policy';
+import type { AddedAttachment, Attachment } from '../../shared/api/uploads';
+import type { BudgetDocument } from '../../shared/budget/schema';
+import { canAttach, isEditableStatus } from '../../shared/policy/policy';
 import { recordAudit } from '../audit/audit-repository';
-import { getBudget } from '../budgets/budgets-repository';
+import { getBudget, getVersion, insertVersion, updateBudget } from '../budgets/budgets-repository';
 import { sha256Hex } from '../budgets/canonical';
 import { inTransaction, type Db } from '../db/connection';
-import { ForbiddenError, NotFoundError, UnsupportedMediaTypeError, ValidationError } from '../http/errors';
+import { ConflictError, ForbiddenError, NotFoundError, UnsupportedMediaTypeError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
-import { getAttachment, insertAttachment, listAttachments, type AttachmentRow } from './attachments-repository';
+import { getAttachment, insertAttachment, listAttachments } from './attachments-repository';
 
 /** Evidence types Dubito keeps, recognised by their first bytes, not by the name or the claimed type. */
 const SIGNATURES: { type: string; test(b: Buffer): boolean }[] = [
@@ -46,14 +48,25 @@ export class AttachmentsService {
     return b;
   }
 
-  list(budgetId: number): AttachmentRow[] {
-    this.budget(budgetId);
-    return listAttachments(this.db, budgetId);
+  /** The evidence of a version (the current one by default). */
+  list(budgetId: number, version?: number): Attachment[] {
+    const b = this.budget(budgetId);
+    const n = version ?? b.currentVersion;
+    if (n > b.currentVersion) throw new NotFoundError(`budget ${budgetId} has no version ${n}`);
+    return listAttachments(this.db, budgetId, n);
   }
 
-  add(actor: SessionUser, budgetId: number, file: UploadedFile | undefined, symbol: string | null): AttachmentRow {
+  /**
+   * Evidence is part of the version it is added to. An approved version never
+   * changes, so evidence for it starts a new draft version (same document and
+   * result) that carries the file; a budget in review is frozen and takes none.
+   * A symbol must name an input quantity of the version.
+   */
+  add(actor: SessionUser, budgetId: number, file: UploadedFile | undefined, symbol: string | null): AddedAttachment {
     const b = this.budget(budgetId);
     if (!canAttach(actor, b)) throw new ForbiddenError('only those who may edit this budget attach evidence');
+    if (!isEditableStatus(b.status)) throw new ConflictError('the budget is in review; evidence can be added once it is approved or returned', 'in_review');
+    if (symbol !== null) this.checkSymbol(budgetId, b.currentVersion, symbol);
     if (!file) throw new ValidationError('send the file in the "file" field', 'file');
     if (file.size === 0) throw new ValidationError('the file is empty', 'file');
     const sniffed = sniffType(file.buffer);
@@ -77,14 +90,63 @@ export class AttachmentsService {
     }
     const fileName = file.originalname.replace(/[\\/\u0000-\u001f]/g, '_').slice(0, 255) || 'evidence';
     return inTransaction(this.db, (tx) => {
+      const now = getBudget(tx, budgetId)!;
+      if (now.currentVersion !== b.currentVersion || now.status !== b.status) {
+        throw new ConflictError('the budget changed meanwhile; reload it and attach the file again', 'stale_version', { currentVersion: now.currentVersion });
+      }
       const at = Date.now();
-      const a = insertAttachment(tx, { budgetId, symbol, fileName, size: file.size, sha256: sha, mediaType: sniffed, uploadedBy: actor.id, createdAt: at });
-      recordAudit(tx, { actorId: actor.id, action: 'attachment.added', budgetId, at, detail: { attachmentId: a.id, fileName, sha256: sha, size: file.size, symbol } });
-      return a;
+      const current = getVersion(tx, budgetId, now.currentVersion)!;
+      let n = now.currentVersion;
+      const newVersion = current.approvedAt !== null;
+      if (newVersion) {
+        n += 1;
+        const note = `evidence added: ${fileName}`;
+        insertVersion(tx, {
+          budgetId,
+          number: n,
+          authorId: actor.id,
+          createdAt: at,
+          note,
+          document: current.document,
+          result: current.result,
+          seed: current.seed,
+          engineVersion: current.engineVersion,
+          documentSha256: current.documentSha256,
+        });
+        updateBudget(tx, budgetId, { currentVersion: n, status: 'draft', updatedAt: at });
+        recordAudit(tx, {
+          actorId: actor.id,
+          action: 'budget.version_saved',
+          budgetId,
+          versionNumber: n,
+          at,
+          detail: { statusBefore: now.status, documentSha256: current.documentSha256, note },
+        });
+      } else {
+        updateBudget(tx, budgetId, { updatedAt: at });
+      }
+      const id = insertAttachment(tx, { budgetId, versionNumber: n, symbol, fileName, size: file.size, sha256: sha, mediaType: sniffed, uploadedBy: actor.id, createdAt: at });
+      recordAudit(tx, {
+        actorId: actor.id,
+        action: 'attachment.added',
+        budgetId,
+        versionNumber: n,
+        at,
+        detail: { attachmentId: id, fileName, sha256: sha, size: file.size, symbol, ...(newVersion ? { newVersion: true } : {}) },
+      });
+      return { ...getAttachment(tx, budgetId, id)!, newVersion };
     });
   }
 
-  file(budgetId: number, id: number): { row: AttachmentRow; path: string } {
+  private checkSymbol(budgetId: number, version: number, symbol: string): void {
+    const doc = JSON.parse(getVersion(this.db, budgetId, version)!.document) as BudgetDocument;
+    const inputs = doc.inputs.map((q) => q.symbol);
+    if (!inputs.includes(symbol)) {
+      throw new ValidationError(`"${symbol}" is not an input quantity of version ${version}; attach to one of ${inputs.join(', ')} or to the whole budget`, 'symbol');
+    }
+  }
+
+  file(budgetId: number, id: number): { row: Attachment; path: string } {
     this.budget(budgetId);
     const row = getAttachment(this.db, budgetId, id);
     if (!row) throw new NotFoundError('no such attachment');

@@ -1,5 +1,7 @@
-/** Payloads of the review routes (comments, replies, transitions). Types only. */
+/** Payloads of the review routes (comments, replies, transitions, review state, queue). Types only. */
+import type { GumResult, ValidationVerdict } from '../budget/result';
 import type { BudgetStatus } from '../policy/policy';
+import type { BudgetDiff } from './diff';
 
 /** A review comment: `GET|POST /api/budgets/:id/comments`, `PATCH …/comments/:cid`. */
 export interface Comment {
@@ -13,8 +15,10 @@ export interface Comment {
   authorId: number;
   authorName: string;
   body: string;
+  /** Threads resolve as a whole: every comment of a thread carries its state. */
   resolved: boolean;
   resolvedBy: number | null;
+  resolvedByName: string | null;
   resolvedAt: number | null;
   createdAt: number;
 }
@@ -31,10 +35,87 @@ export interface NewComment {
 export type TransitionTarget = 'in_review' | 'approved' | 'draft';
 
 /** `POST /api/budgets/:id/transitions`. */
-export type TransitionInput = { to: 'in_review' } | { to: 'approved'; password: string } | { to: 'draft'; comment: string };
+export type TransitionInput =
+  | { to: 'in_review' }
+  /** `reason` is required when threads are open or the Monte Carlo method did not validate the result. */
+  | { to: 'approved'; password: string; reason?: string }
+  | { to: 'draft'; comment: string };
 
 export interface TransitionOutput {
   status: BudgetStatus;
   version: number;
   returned: boolean;
+}
+
+/** An approval or a return of one version, as recorded with the signature. */
+export interface ReviewDecision {
+  id: number;
+  budgetId: number;
+  versionNumber: number;
+  decision: 'approved' | 'returned';
+  actorId: number;
+  actorName: string;
+  /** The return comment, or why the version was approved over open threads or an unvalidated result. */
+  reason: string | null;
+  openThreads: number;
+  validationVerdict: ValidationVerdict | null;
+  at: number;
+}
+
+/** Why signing needs a reason, in words, with a code the client may test. */
+export interface SigningCaveat {
+  code: 'open_threads' | 'not_validated' | 'inconclusive' | 'not_possible' | 'no_monte_carlo';
+  message: string;
+}
+
+/** One piece of evidence as the approve dialog lists it. */
+export interface EvidenceRef {
+  id: number;
+  fileName: string;
+  symbol: string | null;
+  sha256: string;
+  versionNumber: number;
+}
+
+/** `GET /api/budgets/:id/review`: what a signature on the current version covers, and the decisions so far. */
+export interface ReviewState {
+  budgetId: number;
+  status: BudgetStatus;
+  returned: boolean;
+  currentVersion: number;
+  /** SHA-256 of the current version's document: what a signature covers. */
+  documentSha256: string;
+  /** The reviewer's decision that sent the budget back, while it is a returned draft. */
+  lastReturn: ReviewDecision | null;
+  /** Every approval and return, oldest first. */
+  decisions: ReviewDecision[];
+  /** The first comment of every unresolved thread, oldest first. */
+  openThreads: Comment[];
+  /** The stored GUM result of the current version, for the statement the signature covers. */
+  result: { measurand: { symbol: string; unit?: string }; gum: GumResult };
+  /** Clause 8 verdict of the stored result; null when it has no Monte Carlo run. */
+  validation: { verdict: ValidationVerdict; reason: string | null } | null;
+  warnings: string[];
+  evidence: EvidenceRef[];
+  /**
+   * What the caller compares against: the last version they commented on, returned or
+   * approved (`seen`), else the last approved version (`approved`); null for neither.
+   */
+  baseline: { version: number; basis: 'seen' | 'approved' } | null;
+  /** The changes from the baseline to the current version; null without a baseline or when it is the current one. */
+  changes: BudgetDiff | null;
+  /** Approving needs a reason when this is not empty. */
+  caveats: SigningCaveat[];
+}
+
+/** One row of `GET /api/reviews/queue`: an in-review budget the caller may approve. */
+export interface ReviewQueueItem {
+  budgetId: number;
+  title: string;
+  ownerName: string;
+  version: number;
+  authorName: string;
+  /** When it went into review (the budget's last change). */
+  since: number;
+  openThreads: number;
 }

@@ -9,6 +9,10 @@ import { MonteCarloPanel } from '../features/monte-carlo/components/MonteCarloPa
 import { VersionsPage } from '../features/versions/components/VersionsPage';
 import { ComparePage } from '../features/versions/components/ComparePage';
 import { ReviewActions } from '../features/reviews/components/ReviewActions';
+import { ReviewQueue } from '../features/reviews/components/ReviewQueue';
+import { ReturnedNotice } from '../features/reviews/components/ReturnedNotice';
+import { EvidencePanel } from '../features/evidence/components/EvidencePanel';
+import { canAttach, isEditableStatus } from '../../shared/policy/policy';
 import { CommentBadge, ReviewPanel, type ThreadKey } from '../features/reviews/components/ReviewPanel';
 import { TemplatesPage, TemplateToggle } from '../features/templates/components/TemplatesPage';
 import { AuditPage } from '../features/audit/components/AuditPage';
@@ -50,18 +54,26 @@ function AppShellWithContext({ me }: { me: Me }) {
   return <AppShell me={me} outlet={<Outlet context={me} />} />;
 }
 
+/** The home page: a reviewer's queue above the list of budgets. */
 function BudgetsRoute() {
   const me = useMeFromShell();
-  return <BudgetsListPage role={me.role} />;
+  return (
+    <>
+      <ReviewQueue role={me.role} />
+      <BudgetsListPage role={me.role} />
+    </>
+  );
 }
 
 function EditorRoute() {
   const { id, n } = useParams();
-  return <EditorWithReview key={`${id}-${n ?? 'current'}`} id={id} n={n} />;
+  // evidence on an approved version makes a new draft version: the editor starts again from it
+  const [generation, setGeneration] = useState(0);
+  return <EditorWithReview key={`${id}-${n ?? 'current'}-${generation}`} id={id} n={n} onNewVersion={() => setGeneration((g) => g + 1)} />;
 }
 
 /** The editor with the review feature in its slots: comment badges on rows, the thread beside the table, the review actions. */
-function EditorWithReview({ id, n }: { id?: string; n?: string }) {
+function EditorWithReview({ id, n, onNewVersion }: { id?: string; n?: string; onNewVersion(): void }) {
   const me = useMeFromShell();
   const budgetId = id && id !== 'new' ? Number(id) : undefined;
   const [thread, setThread] = useState<ThreadKey | null>(null);
@@ -83,6 +95,19 @@ function EditorWithReview({ id, n }: { id?: string; n?: string }) {
                 </>
               ),
               renderSidePanel: (ctx) => <ReviewPanel ctx={ctx} me={me} thread={thread} onThread={setThread} />,
+              renderTopNotice: (ctx) => (ctx.viewingOld ? null : <ReturnedNotice budgetId={ctx.budgetId} meId={me.id} />),
+              renderEvidence: (ctx) => (
+                <EvidencePanel
+                  ctx={{
+                    budgetId: ctx.budgetId,
+                    version: ctx.version,
+                    symbols: ctx.symbols,
+                    mayAttach: !ctx.viewingOld && !ctx.dirty && isEditableStatus(ctx.facts.status) && canAttach(me, ctx.facts),
+                    approved: ctx.facts.status === 'approved',
+                  }}
+                  onNewVersion={onNewVersion}
+                />
+              ),
             }
       }
     />

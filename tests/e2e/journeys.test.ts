@@ -220,12 +220,15 @@ describe('journey 2: review, return, resubmit and approve', () => {
     await item.getByLabel('Expanded uncertainty U').fill('0.025');
     await saveVersion(author, 'dm_r: U from certificate KF-2025-077 corrected to 0.025 mg');
     await author.getByRole('button', { name: 'Submit for review' }).click();
+    // the dm_r thread and the return comment are still open: the submission lists them first
+    await author.getByRole('dialog', { name: /open comment thread/ }).getByRole('button', { name: 'Submit anyway' }).click();
     await shows(author.getByText('In review'));
     await shot(author, 'journey2', 'resubmitted');
 
     await reviewer.goto(`${app.baseUrl}/budgets/${id}`);
     await reviewer.getByRole('button', { name: 'Approve' }).click();
     const sign = reviewer.getByRole('dialog', { name: /Approve version 2/ });
+    await sign.getByLabel(/Why do you approve although/).fill('The return comment and the dm_r thread are answered by version 2.');
     await sign.getByLabel('Your password (signature)').fill('not my password');
     await sign.getByRole('button', { name: 'Sign and approve' }).click();
     await shows(sign.getByText(/password does not match/i));

@@ -80,7 +80,7 @@ describe('mail through the in-process SMTP server', () => {
     expect(requested[0].text).toContain(`http://dubito.test/budgets/${id}`);
     await r.post(`/api/budgets/${id}/transitions`).send({ to: 'draft', comment: 'Please add the resolution.' }).expect(200);
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
-    await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(200);
+    await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
     const toOwner = (await mailTo(s.users.metrologist.email)).map((x) => x.subject);
     expect(toOwner).toContain('Returned: Mailed budget');
     expect(toOwner).toContain('Approved: Mailed budget');

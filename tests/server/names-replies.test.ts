@@ -16,7 +16,7 @@ async function approvedBudget(title: string): Promise<number> {
   const m = await s.as('metrologist');
   const id = (await m.post('/api/budgets').send({ document: sampleDocument(title), note: '' }).expect(201)).body.id as number;
   await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
-  await (await s.as('reviewer')).post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(200);
+  await (await s.as('reviewer')).post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
   return id;
 }
 

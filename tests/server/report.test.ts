@@ -125,7 +125,7 @@ describe('GET /api/budgets/:id/versions/:n/report.pdf', () => {
     const b = await s.services.budgets.create(s.users.metrologist, { document: reportDocument('Approved bar'), note: '' });
     await s.services.reviews.transition(s.users.metrologist, b.id, { to: 'in_review' });
     const reviewer = await s.as('reviewer');
-    await reviewer.post(`/api/budgets/${b.id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(200);
+    await reviewer.post(`/api/budgets/${b.id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
     const res = await binary((await s.as('auditor')).get(`/api/budgets/${b.id}/versions/1/report.pdf`)).expect(200);
     const text = await pdfText(res.body as Buffer);
     expect(text).toContain('Approved');

@@ -78,11 +78,13 @@ const cases: Record<string, Case> = {
     const c = s.services.reviews.addComment(author, shared, { version: 1, body: 'to resolve' });
     return { url: `/api/budgets/${shared}/comments/${c.id}`, body: { resolved: true }, ok: 200 };
   },
+  'get /api/budgets/:id/review': () => ({ url: `/api/budgets/${shared}/review`, ok: 200 }),
+  'get /api/reviews/queue': () => ({ url: '/api/reviews/queue', ok: 200 }),
   'post /api/budgets/:id/transitions': async (role) => {
     if (role === 'reviewer') {
       const id = await ownDraft('metrologist');
       await s.services.reviews.transition(s.users.metrologist, id, { to: 'in_review' });
-      return { url: `/api/budgets/${id}/transitions`, body: { to: 'approved', password: PASSWORD }, ok: 200 };
+      return { url: `/api/budgets/${id}/transitions`, body: { to: 'approved', reason: 'the open points are minor', password: PASSWORD }, ok: 200 };
     }
     return { url: `/api/budgets/${await ownDraft(role)}/transitions`, body: { to: 'in_review' }, ok: 200 };
   },
@@ -160,13 +162,13 @@ describe('rules beyond the role', () => {
     const created = await admin.post('/api/budgets').send({ document: sampleDocument('Admin own'), note: '' }).expect(201);
     const id = created.body.id;
     await admin.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
-    const own = await admin.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(403);
+    const own = await admin.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(403);
     expect(own.body.error.message).toMatch(/own or wrote/);
     const reviewer = await s.as('reviewer');
-    const bad = await reviewer.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: 'wrong password' }).expect(403);
+    const bad = await reviewer.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: 'wrong password' }).expect(403);
     expect(bad.body.error.code).toBe('signature_rejected');
     expect((await admin.get(`/api/budgets/${id}`)).body.status).toBe('in_review');
-    await reviewer.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(200);
+    await reviewer.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
     const after = (await admin.get(`/api/budgets/${id}/versions/1`)).body;
     expect(after.approvedBy).toBe(s.users.reviewer.id);
   });
@@ -180,7 +182,7 @@ describe('rules beyond the role', () => {
     await admin.post(`/api/budgets/${t.body.id}/transitions`).send({ to: 'in_review' }).expect(200);
     const a2 = s.anonymous();
     await a2.post('/api/auth/login').send({ email: 'admin2@lab.test', password: PASSWORD }).expect(200);
-    await a2.post(`/api/budgets/${t.body.id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(403);
+    await a2.post(`/api/budgets/${t.body.id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(403);
   });
 
   it('trainees edit only their own drafts and never approve', async () => {
@@ -192,12 +194,12 @@ describe('rules beyond the role', () => {
     await trainee.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
     await trainee.put(`/api/budgets/${id}`).send({ baseVersion: 2, document: sampleDocument('Trainee 3'), note: '' }).expect(403);
     const reviewer = await s.as('reviewer');
-    await reviewer.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(200);
+    await reviewer.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
     // Approved: a trainee may not start a new draft from it; a metrologist owner could.
     await trainee.put(`/api/budgets/${id}`).send({ baseVersion: 2, document: sampleDocument('Trainee 3'), note: '' }).expect(403);
     const other = await s.services.budgets.create(s.users.metrologist, { document: sampleDocument('M'), note: '' });
     await s.services.reviews.transition(s.users.metrologist, other.id, { to: 'in_review' });
-    await trainee.post(`/api/budgets/${other.id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(403);
+    await trainee.post(`/api/budgets/${other.id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(403);
   });
 
   it('editing an approved budget makes a new draft and keeps the approved version', async () => {
@@ -210,7 +212,7 @@ describe('rules beyond the role', () => {
     await r.post(`/api/budgets/${id}/transitions`).send({ to: 'draft', comment: 'Add the resolution term.' }).expect(200);
     expect((await m.get(`/api/budgets/${id}`)).body.returned).toBe(true);
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
-    await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: PASSWORD }).expect(200);
+    await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
     const approved = (await m.get(`/api/budgets/${id}/versions/1`)).body;
     await m.put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument('After approval'), note: 'next' }).expect(200);
     const b = (await m.get(`/api/budgets/${id}`)).body;

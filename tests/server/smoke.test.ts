@@ -23,7 +23,7 @@ describe('a budget goes from draft to approved', () => {
     expect(saved.body.version).toBe(2);
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
     const r = await s.as('reviewer');
-    await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: 'dubito-demo' }).expect(200);
+    await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: 'dubito-demo' }).expect(200);
     const after = await m.get(`/api/budgets/${id}`).expect(200);
     expect(after.body.status).toBe('approved');
     expect(after.body.approvedVersion).toBe(2);

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import type { UserAccount } from '../../../../shared/api/accounts';
 import { ROLES, type Role } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
-import { Button, EmptyState, ErrorNote, Field, Select, Spinner, SubmitButton, TextInput } from '../../../app/ui/controls';
+import { Button, EmptyState, ErrorNote, Field, FormDialog, Select, Spinner, SubmitButton, TextArea, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { useToast } from '../../../app/ui/toasts';
 import { useInvite, useUpdateUser, useUsers } from '../api/admin';
@@ -76,12 +76,81 @@ function InviteForm() {
   );
 }
 
-function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
+/** A change of access waiting for its confirmation and reason. */
+interface PendingChange {
+  patch: { role?: Role; active?: boolean };
+  title: string;
+  consequence: string;
+  submitLabel: string;
+  done: string;
+  danger: boolean;
+}
+
+/** Confirms a role change or a (de)activation and asks why; the reason goes into the audit trail. */
+function ConfirmChangeDialog({ u, change, onClose }: { u: UserAccount; change: PendingChange; onClose(): void }) {
   const update = useUpdateUser();
   const toast = useToast();
+  const [reason, setReason] = useState('');
+  const [touched, setTouched] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  return (
+    <FormDialog
+      onClose={onClose}
+      title={change.title}
+      submitLabel={change.submitLabel}
+      pendingLabel="Applying…"
+      pending={update.isPending}
+      variant={change.danger ? 'danger' : 'primary'}
+      onSubmit={() => {
+        setTouched(true);
+        if (!reason.trim()) return;
+        setError(null);
+        update.mutate(
+          { id: u.id, ...change.patch, reason: reason.trim() },
+          {
+            onSuccess: () => {
+              toast(change.done);
+              onClose();
+            },
+            onError: (e) => setError(errorMessage(e)),
+          },
+        );
+      }}
+    >
+      <p className="text-sm text-stone-700">{change.consequence}</p>
+      <Field label="Reason (kept in the audit trail)" error={touched && !reason.trim() ? 'Say why; the reason is recorded with the change.' : error}>
+        {(p) => <TextArea {...p} rows={3} value={reason} maxLength={2000} onChange={(e) => setReason(e.target.value)} autoFocus />}
+      </Field>
+    </FormDialog>
+  );
+}
+
+function UserRow({ u, meId, onChange }: { u: UserAccount; meId: number; onChange(u: UserAccount, change: PendingChange): void }) {
+  const update = useUpdateUser();
   const self = u.id === meId;
-  const run = (patch: { role?: Role; active?: boolean }, done: string) =>
-    update.mutate({ id: u.id, ...patch }, { onSuccess: () => toast(done), onError: (e) => toast(errorMessage(e), 'error') });
+  const setPending = (change: PendingChange) => onChange(u, change);
+  const changeRole = (role: Role) =>
+    setPending({
+      patch: { role },
+      title: `Change the role of ${u.name}`,
+      consequence: `${u.name} goes from ${ROLE_WORD[u.role].toLowerCase()} to ${ROLE_WORD[role].toLowerCase()}. Their open sessions end at once, and what they may do changes from their next sign-in.`,
+      submitLabel: `Make ${ROLE_WORD[role].toLowerCase()}`,
+      done: `${u.name} is now ${ROLE_WORD[role].toLowerCase()}. Their sessions were ended.`,
+      danger: false,
+    });
+  const setActive = (active: boolean) =>
+    setPending(
+      active
+        ? { patch: { active }, title: `Activate ${u.name}`, consequence: `${u.name} can sign in again with their role of ${ROLE_WORD[u.role].toLowerCase()}.`, submitLabel: 'Activate', done: `${u.name} can sign in again.`, danger: false }
+        : {
+            patch: { active },
+            title: `Deactivate ${u.name}`,
+            consequence: `${u.name} is signed out at once and can no longer sign in. Their budgets, comments and signatures stay on record.`,
+            submitLabel: 'Deactivate',
+            done: `${u.name} is deactivated and signed out.`,
+            danger: true,
+          },
+    );
   return (
     <tr data-testid={`user-${u.email}`} className={`border-b border-stone-100 last:border-0 ${u.active ? '' : 'bg-stone-50 text-stone-600'}`}>
       <td className="px-3 py-2 font-medium">
@@ -98,7 +167,7 @@ function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
           value={u.role}
           disabled={self || update.isPending}
           title={self ? 'You cannot change your own role' : undefined}
-          onChange={(e) => run({ role: e.target.value as Role }, `${u.name} is now ${ROLE_WORD[e.target.value as Role].toLowerCase()}. Their sessions were ended.`)}
+          onChange={(e) => changeRole(e.target.value as Role)}
           className="w-40"
         >
           {ROLES.map((r) => (
@@ -126,11 +195,11 @@ function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
       <td className="whitespace-nowrap px-3 py-2 text-xs text-stone-700">{formatDateTime(u.createdAt)}</td>
       <td className="px-3 py-2 text-right">
         {self ? null : u.active ? (
-          <Button size="sm" variant="danger" disabled={update.isPending} onClick={() => run({ active: false }, `${u.name} is deactivated and signed out.`)} aria-label={`Deactivate ${u.name}`}>
+          <Button size="sm" variant="danger" disabled={update.isPending} onClick={() => setActive(false)} aria-label={`Deactivate ${u.name}`}>
             Deactivate
           </Button>
         ) : (
-          <Button size="sm" disabled={update.isPending} onClick={() => run({ active: true }, `${u.name} can sign in again.`)} aria-label={`Activate ${u.name}`}>
+          <Button size="sm" disabled={update.isPending} onClick={() => setActive(true)} aria-label={`Activate ${u.name}`}>
             Activate
           </Button>
         )}
@@ -141,6 +210,7 @@ function UserRow({ u, meId }: { u: UserAccount; meId: number }) {
 
 export function UsersPage({ meId }: { meId: number }) {
   const users = useUsers();
+  const [pending, setPending] = useState<{ u: UserAccount; change: PendingChange } | null>(null);
   return (
     <div className="mx-auto flex max-w-6xl flex-col gap-4 px-6 py-6">
       <div>
@@ -170,12 +240,13 @@ export function UsersPage({ meId }: { meId: number }) {
             </thead>
             <tbody>
               {users.data.map((u) => (
-                <UserRow key={u.id} u={u} meId={meId} />
+                <UserRow key={u.id} u={u} meId={meId} onChange={(user, change) => setPending({ u: user, change })} />
               ))}
             </tbody>
           </table>
         </div>
       )}
+      {pending ? <ConfirmChangeDialog u={pending.u} change={pending.change} onClose={() => setPending(null)} /> : null}
     </div>
   );
 }

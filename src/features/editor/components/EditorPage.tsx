@@ -59,6 +59,10 @@ export interface EditorSlots {
   renderHeaderActions?(props: BudgetSlotProps): ReactNode;
   /** A panel in the side column beside the budget (e.g. review threads). */
   renderSidePanel?(props: BudgetSlotProps): ReactNode;
+  /** A notice at the top of the budget (e.g. why it was returned). */
+  renderTopNotice?(props: BudgetSlotProps): ReactNode;
+  /** The evidence of the version on screen, below the side panel. */
+  renderEvidence?(props: BudgetSlotProps): ReactNode;
 }
 
 let keySeq = 0;
@@ -236,10 +240,10 @@ function Editor({
 
   const blocker = useBlocker(({ currentLocation, nextLocation }) => !readOnly && dirty && !allowLeave.current && currentLocation.pathname !== nextLocation.pathname);
 
-  const doSave = (note: string, base: number) => {
+  const doSave = (note: string, base: number, from: BudgetDocument = doc) => {
     lastNote.current = note;
     setSaveError(null);
-    const document = JSON.parse(JSON.stringify(doc)) as BudgetDocument;
+    const document = JSON.parse(JSON.stringify(from)) as BudgetDocument;
     save.mutate(isNew ? { kind: 'create', document, note } : { kind: 'update', id: budgetId!, baseVersion: base, document, note }, {
       onSuccess: (r) => {
         clearDraft(budgetId);
@@ -412,6 +416,7 @@ function Editor({
           </div>
         </header>
 
+        {slotProps && slots.renderTopNotice ? slots.renderTopNotice(slotProps) : null}
         {offered ? (
           <div role="status" className="flex flex-wrap items-center gap-3 rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
             <span className="flex-1">
@@ -594,6 +599,7 @@ function Editor({
         />
         <ExplainPanel explanation={explanation} onClose={() => setSelection(null)} />
         {slotProps && slots.renderSidePanel ? slots.renderSidePanel(slotProps) : null}
+        {slotProps && slots.renderEvidence ? slots.renderEvidence(slotProps) : null}
       </aside>
 
       <SaveDialog open={saveOpen} onClose={() => setSaveOpen(false)} onSave={(note) => doSave(note, baseVersion)} saving={save.isPending} isNew={isNew} error={saveError} />
@@ -602,12 +608,15 @@ function Editor({
           budgetId={budgetId}
           baseVersion={baseVersion}
           currentVersion={conflict.currentVersion}
+          mine={doc}
           saving={save.isPending}
           onClose={() => setConflict(null)}
           onReload={reloadCurrent}
-          onSaveOnTop={() => {
+          onSaveMerged={(merged) => {
+            setDocState(merged);
+            setKeys(merged.inputs.map(newKey));
             setBaseVersion(conflict.currentVersion);
-            doSave(lastNote.current || 'saved on top of a newer version', conflict.currentVersion);
+            doSave(lastNote.current || `merged with version ${conflict.currentVersion}`, conflict.currentVersion, merged);
           }}
         />
       ) : null}

@@ -6,7 +6,8 @@ import { Button, ErrorNote, Field, Spinner, SubmitButton, TextArea } from '../..
 import { formatDateTime } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
 import { useToast } from '../../../app/ui/toasts';
-import { useAddComment, useComments, useResolveComment } from '../api/reviews';
+import { useAddComment, useComments, useResolveComment, useReviewState } from '../api/reviews';
+import { DecisionLine } from './SigningBrief';
 
 interface Me {
   id: number;
@@ -130,7 +131,8 @@ function CommentItem({
       <div className="mt-1.5 flex flex-wrap items-center gap-2">
         {c.resolved ? (
           <span className="inline-flex items-center gap-1 rounded-full border border-stone-300 px-2 text-xs font-medium text-stone-700">
-            <span aria-hidden>✓</span> Resolved
+            <span aria-hidden>✓</span> Resolved{c.resolvedByName ? ` by ${c.resolvedBy === me.id ? 'you' : c.resolvedByName}` : ''}
+            {c.resolvedAt ? `, ${formatDateTime(c.resolvedAt)}` : ''}
           </span>
         ) : (
           <span className="inline-flex items-center gap-1 rounded-full border border-caution-500 bg-caution-50 px-2 text-xs font-medium text-caution-700">
@@ -144,8 +146,8 @@ function CommentItem({
           </Button>
         ) : null}
         {mayResolve ? (
-          <Button size="sm" disabled={busy} onClick={() => onResolve(c, !c.resolved)} aria-label={c.resolved ? `Reopen comment ${c.id}` : `Resolve comment ${c.id}`}>
-            {c.resolved ? 'Reopen' : 'Resolve'}
+          <Button size="sm" disabled={busy} onClick={() => onResolve(c, !c.resolved)} aria-label={c.resolved ? `Reopen the thread of comment ${c.id}` : `Resolve the thread of comment ${c.id}`}>
+            {c.resolved ? 'Reopen thread' : 'Resolve thread'}
           </Button>
         ) : null}
       </div>
@@ -232,7 +234,7 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
               byId={byId}
               me={me}
               currentVersion={ctx.currentVersion}
-              mayResolve={canResolveComment(me, ctx.facts, c.authorId)}
+              mayResolve={c.parentId === null && canResolveComment(me, ctx.facts, c.authorId)}
               busy={resolve.isPending}
               onReply={
                 mayComment
@@ -246,7 +248,7 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
                 resolve.mutate(
                   { id: x.id, resolved },
                   {
-                    onSuccess: () => toast(resolved ? 'Comment resolved.' : 'Comment reopened.', 'info'),
+                    onSuccess: () => toast(resolved ? 'Thread resolved.' : 'Thread reopened.', 'info'),
                     onError: (e) => toast(errorMessage(e), 'error'),
                   },
                 )
@@ -306,8 +308,10 @@ function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: Me; thre
 /** The review column beside the budget: the open thread of a row, or the overview of every thread. */
 export function ReviewPanel({ ctx, me, thread, onThread }: { ctx: ReviewContext; me: Me; thread: ThreadKey | null; onThread(t: ThreadKey | null): void }) {
   const comments = useComments(ctx.budgetId);
+  const review = useReviewState(ctx.budgetId);
+  const decisions = review.data?.decisions ?? [];
   const all = comments.data ?? [];
-  const open = all.filter((c) => !c.resolved).length;
+  const open = all.filter((c) => !c.resolved && c.parentId === null).length;
   const bySymbol = new Map<string, { total: number; open: number }>();
   for (const c of all) {
     if (!c.symbol) continue;
@@ -323,7 +327,7 @@ export function ReviewPanel({ ctx, me, thread, onThread }: { ctx: ReviewContext;
           Review
         </h2>
         <span className="text-xs text-stone-600">
-          {all.length} comment{all.length === 1 ? '' : 's'}, {open} open
+          {all.length} comment{all.length === 1 ? '' : 's'}, {open} open thread{open === 1 ? '' : 's'}
         </span>
       </div>
       {thread && thread !== GENERAL ? (
@@ -353,6 +357,16 @@ export function ReviewPanel({ ctx, me, thread, onThread }: { ctx: ReviewContext;
             <p className="text-xs text-stone-600">To comment on one contribution, use the comment badge beside its symbol in the budget table.</p>
           )}
           <Thread ctx={ctx} me={me} thread={GENERAL} />
+          {decisions.length ? (
+            <section aria-label="Review decisions" data-testid="review-decisions">
+              <p className="mb-1 text-xs font-medium text-stone-700">Approvals and returns</p>
+              <ul className="flex flex-col gap-1">
+                {[...decisions].reverse().map((d) => (
+                  <DecisionLine key={d.id} d={d} />
+                ))}
+              </ul>
+            </section>
+          ) : null}
         </div>
       )}
     </section>
