@@ -1,6 +1,6 @@
 import { BudgetError } from '../budget/budget-error';
 import { DEFAULTS, LIMITS } from '../budget/limits';
-import type { BudgetResult, MonteCarloResult, ValidationResult } from '../budget/result';
+import type { BudgetResult, MonteCarloResult, UndefinedMoments, ValidationResult } from '../budget/result';
 import type { BudgetDocument } from '../budget/schema';
 import { gumTreatment, samplerFor } from '../distributions/registry';
 import { propagateGum, type GumInput } from '../gum/propagate';
@@ -13,7 +13,9 @@ import {
   type MonteCarloRun,
   type PhaseTimer,
 } from '../montecarlo/run-monte-carlo';
-import { validateGumInterval } from '../montecarlo/validation';
+import { validateGumInterval, validationNotPossible } from '../montecarlo/validation';
+import type { Sampler } from '../distributions/distribution';
+import { reportedResult, reportingChoice } from './reported-result';
 import { RESERVED_SYMBOLS } from '../model/sandbox';
 import { correlationMatrix } from './correlation-matrix';
 import { ENGINE_VERSION } from './engine-version';
@@ -71,6 +73,51 @@ function runMethod(run: () => MonteCarloRun): MonteCarloRun {
 }
 
 /**
+ * The inputs drawn from a t-distribution with ν ≤ 2 (JCGM 101:2008 6.4.9):
+ * t_ν has a variance only for ν > 2, so the output then has none, and the
+ * Monte Carlo u, the δ of clause 8 and any comparison built on them are
+ * meaningless. Null when every sampled distribution has a variance.
+ */
+function undefinedMomentsOf(symbols: string[], samplers: (Sampler | null)[]): UndefinedMoments | null {
+  const heavy = samplers
+    .map((s, i) => ({ symbol: symbols[i], dof: s?.tDof }))
+    .filter((x): x is { symbol: string; dof: number } => x.dof !== undefined && x.dof <= 2);
+  if (heavy.length === 0) return null;
+  const smallestDof = Math.min(...heavy.map((x) => x.dof));
+  const named = heavy.map((x) => `"${x.symbol}" (ν = ${+x.dof.toPrecision(4)})`).join(', ');
+  return {
+    smallestDof,
+    symbols: heavy.map((x) => x.symbol),
+    reason:
+      `the variance of t_ν is undefined for ν ≤ 2 (JCGM 101:2008 6.4.9), and ${named} ${heavy.length > 1 ? 'are' : 'is'} drawn from such a ` +
+      't-distribution, so the Monte Carlo standard uncertainty and the tolerance δ do not exist',
+  };
+}
+
+/** Warnings for inputs whose t-distribution has ν ≤ 2: few observations, or a small stated ν. */
+function fewDegreesOfFreedomWarnings(doc: BudgetDocument): string[] {
+  const warnings: string[] = [];
+  doc.inputs.forEach((q) => {
+    const d = q.distribution;
+    if (d.kind === 'observations' && d.pooledSd === undefined && d.values.length <= 3) {
+      warnings.push(
+        `The input "${q.symbol}" has only ${d.values.length} observations (ν = ${d.values.length - 1}): a t-distribution with ν ≤ 2 has no variance, ` +
+          'so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). Take at least 4 observations, or give a pooled standard deviation with its degrees of freedom.',
+      );
+      return;
+    }
+    const sampledDof = d.kind === 'student-t' ? d.dof : d.kind === 'normal' ? d.dof : d.kind === 'observations' ? d.pooledDof : undefined;
+    if (sampledDof !== undefined && sampledDof <= 2) {
+      warnings.push(
+        `The input "${q.symbol}" is drawn from a t-distribution with ν = ${+sampledDof.toPrecision(4)} ≤ 2, which has no variance, ` +
+          'so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). Check the stated degrees of freedom.',
+      );
+    }
+  });
+  return warnings;
+}
+
+/**
  * Computes a validated budget: the GUM law of propagation (JCGM 100:2008),
  * then, unless switched off, the Monte Carlo method (JCGM 101:2008 clause 7,
  * fixed trials or the adaptive procedure of 7.9) and the validation of the
@@ -113,6 +160,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
   const p = doc.coverageProbability ?? DEFAULTS.coverageProbability;
   const gum = propagateGum(model, inputs, correlation, p);
   warnings.push(...gum.warnings);
+  warnings.push(...fewDegreesOfFreedomWarnings(doc));
 
   let monteCarlo: MonteCarloResult | null = null;
   let validation: ValidationResult | null = null;
@@ -122,8 +170,16 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     const cap = Math.min(options.trialsCap ?? LIMITS.trials, LIMITS.trials);
     const significantDigits = doc.monteCarlo?.significantDigits ?? DEFAULTS.significantDigits;
     const correlatedIndices = correlation ? inputs.map((_, i) => i).filter((i) => correlation[i].some((r, j) => j !== i && r !== 0)) : [];
+    const samplers = doc.inputs.map((q, i) => (correlatedIndices.includes(i) ? null : samplerFor(q.distribution)));
+    const withDof = correlatedIndices.filter((i) => doc.inputs[i].distribution.dof !== undefined).map((i) => `"${doc.inputs[i].symbol}"`);
+    if (withDof.length) {
+      warnings.push(
+        `The correlated inputs ${withDof.join(', ')} state degrees of freedom but are drawn jointly from a Gaussian (JCGM 101:2008 6.4.8), not from t; ` +
+          'the Monte Carlo interval may be narrower than the GUM one.',
+      );
+    }
     const plan: MonteCarloPlan = {
-      samplers: doc.inputs.map((q, i) => (correlatedIndices.includes(i) ? null : samplerFor(q.distribution))),
+      samplers,
       correlated: correlation && correlatedIndices.length
         ? {
             indices: correlatedIndices,
@@ -153,23 +209,43 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     if (run.adaptive && !run.adaptive.stabilized) {
       warnings.push(`The adaptive Monte Carlo procedure did not stabilise within ${cap} trials; the results are less reliable than requested.`);
     }
+    const undefinedMoments = undefinedMomentsOf(
+      doc.inputs.map((q) => q.symbol),
+      samplers,
+    );
     monteCarlo = {
       trials: run.trials,
       seed,
       adaptive,
+      ...(run.adaptive
+        ? {
+            stability: {
+              sequenceLength: run.adaptive.sequenceLength,
+              sequences: run.adaptive.sequences,
+              spread: run.adaptive.spread,
+              tolerance: run.adaptive.tolerance,
+              stabilized: run.adaptive.stabilized,
+            },
+          }
+        : {}),
+      ...(undefinedMoments ? { undefinedMoments } : {}),
       estimate: run.estimate,
       standardUncertainty: run.standardUncertainty,
       interval: run.interval,
       shortestInterval: run.shortestInterval,
       histogram: run.histogram,
     };
-    validation = validateGumInterval(
-      { y: gum.result.estimate, U: gum.result.expandedUncertainty },
-      run.interval,
-      run.standardUncertainty,
-      significantDigits,
-    );
+    const gumInterval = { y: gum.result.estimate, U: gum.result.expandedUncertainty };
+    validation = undefinedMoments
+      ? validationNotPossible(gumInterval, run.interval, significantDigits, undefinedMoments.reason)
+      : run.standardUncertainty > 0
+        ? validateGumInterval(gumInterval, run.interval, run.standardUncertainty, significantDigits, {
+            endpointUncertainty: run.endpointUncertainty,
+            trials: run.trials,
+          })
+        : validationNotPossible(gumInterval, run.interval, significantDigits, 'the Monte Carlo output does not vary (u = 0), so δ of JCGM 101:2008 8.2 does not exist');
   }
+  const reported = reportedResult(gum.result, monteCarlo, validation, reportingChoice(doc.reporting));
 
   return {
     engineVersion: ENGINE_VERSION,
@@ -177,6 +253,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     gum: gum.result,
     monteCarlo,
     validation,
+    reported,
     warnings,
   };
 }

@@ -71,9 +71,15 @@ export interface AdaptiveReport {
 }
 
 /** A finished run: the reported figures (JCGM 101:2008 7.6–7.7) plus the model values themselves. */
-export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive'> {
+export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive' | 'stability' | 'undefinedMoments'> {
   /** The M model values; the interval search may reorder them. */
   values: Float64Array;
+  /**
+   * Numerical standard uncertainties of the symmetric interval's endpoints:
+   * order-statistic binomial bounds for a fixed run, the standard deviations of
+   * the sequence averages (7.9.4 e) for an adaptive run of two or more sequences.
+   */
+  endpointUncertainty: [number, number];
   /** Present for the adaptive procedure only. */
   adaptive?: AdaptiveReport;
 }
@@ -209,9 +215,16 @@ function summarize(values: Float64Array, moments: MomentAccumulator, p: number, 
   const buckets = Number.isInteger(bins) && bins >= 1 && max > min ? countInBuckets(values, bucketCountFor(bins), min, max) : null;
   const histogram = buckets ? histogramFromBuckets(buckets, bins) : histogramBins(values, bins, range);
   if (timer) since = addElapsed(timer, 'histogram', since);
-  const { symmetric, shortest } = coverageIntervals(values, p, range, buckets);
+  const { symmetric, shortest, symmetricUncertainty } = coverageIntervals(values, p, range, buckets);
   if (timer) addElapsed(timer, 'intervals', since);
-  return { estimate: mean, standardUncertainty: standardDeviation, interval: symmetric, shortestInterval: shortest, histogram };
+  return {
+    estimate: mean,
+    standardUncertainty: standardDeviation,
+    interval: symmetric,
+    shortestInterval: shortest,
+    histogram,
+    endpointUncertainty: symmetricUncertainty,
+  };
 }
 
 /**
@@ -314,10 +327,14 @@ export function runAdaptiveMonteCarlo(plan: MonteCarloPlan, options: AdaptiveMon
     const { standardDeviation } = allMoments.result();
     tolerance = standardDeviation > 0 ? numericalTolerance(standardDeviation, significantDigits) : 0;
   }
+  const summary = summarize(used, allMoments, p, options.binCount, options.timer);
+  // With two or more sequences their spread is the numerical uncertainty of the pooled result (7.9.4 e).
+  const endpointUncertainty: [number, number] = h >= 2 ? [spread.low, spread.high] : summary.endpointUncertainty;
   return {
     trials: h * M,
     seed,
-    ...summarize(used, allMoments, p, options.binCount, options.timer),
+    ...summary,
+    endpointUncertainty,
     values: used,
     adaptive: { sequenceLength: M, sequences: h, tolerance, spread, stabilized },
   };

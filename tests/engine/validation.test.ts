@@ -33,8 +33,8 @@ describe('validateGumInterval (JCGM 101:2008 8.3)', () => {
   it('passes when both end-point differences are within δ', () => {
     // Additive model of four N(0,1): GUM 0 ± 3.92, Monte Carlo [−3.92, 3.92] (JCGM 101:2008 9.2.2, from memory).
     const r = validateGumInterval({ y: 0, U: 3.92 }, [-3.92, 3.92], 2.0, 2);
-    expect(r).toEqual({ significantDigits: 2, tolerance: r.tolerance, dLow: 0, dHigh: 0, passed: true });
-    expect(r.tolerance).toBeCloseTo(0.05, 15);
+    expect(r).toEqual({ significantDigits: 2, tolerance: r.tolerance, dLow: 0, dHigh: 0, passed: true, verdict: 'validated' });
+    expect(r.tolerance!).toBeCloseTo(0.05, 15);
   });
 
   it('fails on one side only and reports both differences', () => {
@@ -44,7 +44,7 @@ describe('validateGumInterval (JCGM 101:2008 8.3)', () => {
     expect(r.dHigh).toBeCloseTo(Math.abs(1.234 + 0.106 - 1.3835), 12);
     expect(r.passed).toBe(false);
     const oneSide = validateGumInterval({ y: 0, U: 1 }, [-1.01, 1.2], 0.5, 1); // δ = 0.05
-    expect(oneSide.dLow).toBeLessThanOrEqual(oneSide.tolerance);
+    expect(oneSide.dLow).toBeLessThanOrEqual(oneSide.tolerance!);
     expect(oneSide.passed).toBe(false);
   });
 });
