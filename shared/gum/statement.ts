@@ -74,7 +74,8 @@ export function certificateStatement(
   if (reported.basis === 'monte-carlo') {
     const [low, high] = reported.interval;
     const trials = reported.trials !== undefined ? ` with ${reported.trials} trials` : '';
-    const u = reported.standardUncertainty !== null ? ` The standard uncertainty is ${at(reported.standardUncertainty)}${unit}.` : '';
+    const su = reported.standardUncertainty;
+    const u = su !== null ? ` The standard uncertainty is ${formatAtExponent(su, roundUncertainty(su).exponent)}${unit}.` : '';
     const replaced = reported.replacedGum ? ` This interval replaces the result of the law of propagation of uncertainty (JCGM 100:2008), ${replacedBecause(reported)}` : '';
     return (
       `${symbol} = ${y}${unit}, with the coverage interval [${at(low)}, ${at(high)}]${unit} for a coverage probability of ${percent(reported.coverageProbability)}: ` +
