@@ -89,7 +89,7 @@ describe('dubito compute', () => {
     );
     const r = dubito('compute', file, '--format', 'table', '--adaptive');
     expect(r.status).toBe(0);
-    expect(r.stdout).toMatch(/adaptive \(JCGM 101:2008 7\.9\): h = \d+ sequences of M = 10000; s\(y\) = .* δ = 0\.0050 {2}stabilized: yes/); // u = 1.4 → δ = 0.005
+    expect(r.stdout).toMatch(/adaptive \(JCGM 101:2008 7\.9\): h = \d+ sequences of M = 10000; s\(y\) = .* δ = 0\.050 {2}stabilized: yes/); // u = 1.4: c = 14, ℓ = −1, δ = 0.05 (JCGM 101:2008 8.2)
     expect(r.stdout).toContain('reported: GUM figures, k fixed at 2');
     expect(r.stdout).toContain('coverage factor k = 2.00, which for a normal distribution corresponds to a coverage probability of approximately 95 %');
   });
