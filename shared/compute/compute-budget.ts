@@ -191,28 +191,36 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
       evaluateBlock: model.evaluateBlock,
     };
     const common = { seed, coverageProbability: p, onProgress: options.onProgress, shouldStop: options.shouldStop, timer: options.timer };
-    const adaptive = requested === 'adaptive';
+    const undefinedMoments = undefinedMomentsOf(
+      doc.inputs.map((q) => q.symbol),
+      samplers,
+    );
+    // The adaptive procedure judges stability by u (7.9.4), which does not exist here: run a fixed number instead.
+    const adaptive = requested === 'adaptive' && !undefinedMoments;
+    if (requested === 'adaptive' && undefinedMoments) {
+      warnings.push(
+        `The adaptive Monte Carlo procedure judges stability by the standard uncertainty, which does not exist here; ` +
+          `${Math.min(DEFAULTS.trials, cap)} trials were run instead (JCGM 101:2008 7.9.4).`,
+      );
+    }
+    const trials = requested === 'adaptive' ? DEFAULTS.trials : requested;
     const minimum = minimumTrials(p);
-    if (!adaptive && requested < minimum) {
+    if (!adaptive && trials < minimum) {
       throw new BudgetError(
         'limit',
         `monteCarlo.trials: at least ${minimum} trials are needed for a ${+(p * 100).toFixed(4)} % coverage interval (100/(1 − p), JCGM 101:2008 7.9.2)`,
         'monteCarlo.trials',
       );
     }
-    if (!adaptive && requested > cap) warnings.push(`Monte Carlo trials capped at ${cap} (requested ${requested}).`);
+    if (!adaptive && trials > cap) warnings.push(`Monte Carlo trials capped at ${cap} (requested ${trials}).`);
     const run = runMethod(() =>
       adaptive
         ? runAdaptiveMonteCarlo(plan, { ...common, significantDigits, maxTrials: cap })
-        : runMonteCarlo(plan, { ...common, trials: Math.min(requested, cap) }),
+        : runMonteCarlo(plan, { ...common, trials: Math.min(trials, cap) }),
     );
     if (run.adaptive && !run.adaptive.stabilized) {
       warnings.push(`The adaptive Monte Carlo procedure did not stabilise within ${cap} trials; the results are less reliable than requested.`);
     }
-    const undefinedMoments = undefinedMomentsOf(
-      doc.inputs.map((q) => q.symbol),
-      samplers,
-    );
     monteCarlo = {
       trials: run.trials,
       seed,

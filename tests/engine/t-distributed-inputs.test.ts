@@ -70,6 +70,13 @@ describe('few observations: ν = n − 1 ≤ 2 leaves the Monte Carlo u undefine
     expect(statement).not.toMatch(/standard uncertainty is/);
   });
 
+  it('an adaptive run falls back to a fixed number of trials: its criterion needs u (JCGM 101:2008 7.9.4)', () => {
+    const r = computeBudget(budget('Y = a', { a: observations([10.0, 10.1, 10.05]) }), { trials: 'adaptive', trialsCap: 50_000 });
+    expect(r.monteCarlo).toMatchObject({ adaptive: false, trials: 50_000 });
+    expect(r.monteCarlo!.stability).toBeUndefined();
+    expect(r.warnings.some((w) => /adaptive Monte Carlo procedure judges stability by the standard uncertainty/.test(w))).toBe(true);
+  });
+
   it('the same for a student-t input with dof ≤ 2 and a normal input stated with ν = 2', () => {
     for (const d of [
       { kind: 'student-t', value: 1, scale: 0.1, dof: 2 },
