@@ -94,25 +94,23 @@ function undefinedMomentsOf(symbols: string[], samplers: (Sampler | null)[]): Un
   };
 }
 
-/** Warnings for inputs whose t-distribution has ν ≤ 2: few observations, or a small stated ν. */
-function fewDegreesOfFreedomWarnings(doc: BudgetDocument): string[] {
+/** Warnings for the inputs drawn from t with ν ≤ 2 (see undefinedMomentsOf): few observations, or a small stated ν. */
+function fewDegreesOfFreedomWarnings(doc: BudgetDocument, samplers: (Sampler | null)[]): string[] {
   const warnings: string[] = [];
-  doc.inputs.forEach((q) => {
+  doc.inputs.forEach((q, i) => {
+    const dof = samplers[i]?.tDof;
+    if (dof === undefined || dof > 2) return;
     const d = q.distribution;
-    if (d.kind === 'observations' && d.pooledSd === undefined && d.values.length <= 3) {
-      warnings.push(
-        `The input "${q.symbol}" has only ${d.values.length} observations (ν = ${d.values.length - 1}): a t-distribution with ν ≤ 2 has no variance, ` +
-          'so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). Take at least 4 observations, or give a pooled standard deviation with its degrees of freedom.',
-      );
-      return;
-    }
-    const sampledDof = d.kind === 'student-t' ? d.dof : d.kind === 'normal' ? d.dof : d.kind === 'observations' ? d.pooledDof : undefined;
-    if (sampledDof !== undefined && sampledDof <= 2) {
-      warnings.push(
-        `The input "${q.symbol}" is drawn from a t-distribution with ν = ${+sampledDof.toPrecision(4)} ≤ 2, which has no variance, ` +
-          'so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). Check the stated degrees of freedom.',
-      );
-    }
+    const n = d.kind === 'observations' ? d.values.length : 0;
+    warnings.push(
+      (d.kind === 'observations' && n - 1 === dof
+        ? `The input "${q.symbol}" has only ${n} observations (ν = ${dof}): `
+        : `The input "${q.symbol}" is drawn from a t-distribution with ν = ${+dof.toPrecision(4)} ≤ 2: `) +
+        'a t-distribution with ν ≤ 2 has no variance, so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). ' +
+        (d.kind === 'observations' && n - 1 === dof
+          ? 'Take at least 4 observations, or give a pooled standard deviation with its degrees of freedom.'
+          : 'Check the stated degrees of freedom.'),
+    );
   });
   return warnings;
 }
@@ -160,7 +158,10 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
   const p = doc.coverageProbability ?? DEFAULTS.coverageProbability;
   const gum = propagateGum(model, inputs, correlation, p);
   warnings.push(...gum.warnings);
-  warnings.push(...fewDegreesOfFreedomWarnings(doc));
+  // Correlated inputs are drawn jointly (JCGM 101:2008 6.4.8), the others by their own sampler.
+  const correlatedIndices = correlation ? inputs.map((_, i) => i).filter((i) => correlation[i].some((r, j) => j !== i && r !== 0)) : [];
+  const samplers = doc.inputs.map((q, i) => (correlatedIndices.includes(i) ? null : samplerFor(q.distribution)));
+  warnings.push(...fewDegreesOfFreedomWarnings(doc, samplers));
 
   let monteCarlo: MonteCarloResult | null = null;
   let validation: ValidationResult | null = null;
@@ -169,8 +170,6 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     const seed = String(options.seed ?? doc.monteCarlo?.seed ?? DEFAULTS.seed);
     const cap = Math.min(options.trialsCap ?? LIMITS.trials, LIMITS.trials);
     const significantDigits = doc.monteCarlo?.significantDigits ?? DEFAULTS.significantDigits;
-    const correlatedIndices = correlation ? inputs.map((_, i) => i).filter((i) => correlation[i].some((r, j) => j !== i && r !== 0)) : [];
-    const samplers = doc.inputs.map((q, i) => (correlatedIndices.includes(i) ? null : samplerFor(q.distribution)));
     const withDof = correlatedIndices.filter((i) => doc.inputs[i].distribution.dof !== undefined).map((i) => `"${doc.inputs[i].symbol}"`);
     if (withDof.length) {
       warnings.push(
