@@ -44,10 +44,15 @@ export interface HistogramBins {
  * and the tolerance δ they were judged against (stable when every 2s ≤ δ).
  */
 export interface AdaptiveStability {
+  /** Trials M per sequence (7.9.4 a). */
   sequenceLength: number;
+  /** Number h of sequences run. */
   sequences: number;
+  /** Standard deviations s of the averages of y, u(y), y_low, y_high over the h sequences (7.9.4 e). */
   spread: { estimate: number; standardUncertainty: number; low: number; high: number };
+  /** δ from u(y) of all h·M values (7.9.4 f). */
   tolerance: number;
+  /** True when every 2s ≤ δ; false when the cap on trials stopped the run first. */
   stabilized: boolean;
 }
 

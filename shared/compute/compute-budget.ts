@@ -224,17 +224,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
       trials: run.trials,
       seed,
       adaptive,
-      ...(run.adaptive
-        ? {
-            stability: {
-              sequenceLength: run.adaptive.sequenceLength,
-              sequences: run.adaptive.sequences,
-              spread: run.adaptive.spread,
-              tolerance: run.adaptive.tolerance,
-              stabilized: run.adaptive.stabilized,
-            },
-          }
-        : {}),
+      ...(run.adaptive ? { stability: run.adaptive } : {}),
       ...(undefinedMoments ? { undefinedMoments } : {}),
       estimate: run.estimate,
       standardUncertainty: run.standardUncertainty,

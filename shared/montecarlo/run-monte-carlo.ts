@@ -1,4 +1,4 @@
-import type { MonteCarloResult } from '../budget/result';
+import type { AdaptiveStability, MonteCarloResult } from '../budget/result';
 import type { Sampler } from '../distributions/distribution';
 import { UniformGenerator } from '../random/uniform-generator';
 import { correlatedNormalSampler, type CorrelatedSampler } from './correlated-normal';
@@ -57,19 +57,6 @@ export interface AdaptiveMonteCarloOptions extends Omit<MonteCarloOptions, 'tria
   maxTrials: number;
 }
 
-export interface AdaptiveReport {
-  /** Trials M per sequence (JCGM 101:2008 7.9.4 a). */
-  sequenceLength: number;
-  /** Number h of sequences run. */
-  sequences: number;
-  /** δ from u(y) of all h·M values (7.9.4 f). */
-  tolerance: number;
-  /** Standard deviations s of the averages of y, u(y), y_low, y_high (7.9.4 e). */
-  spread: { estimate: number; standardUncertainty: number; low: number; high: number };
-  /** True when every 2s ≤ δ; false when maxTrials stopped the run first. */
-  stabilized: boolean;
-}
-
 /** A finished run: the reported figures (JCGM 101:2008 7.6–7.7) plus the model values themselves. */
 export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive' | 'stability' | 'undefinedMoments'> {
   /** The M model values; the interval search may reorder them. */
@@ -81,7 +68,7 @@ export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive' | 'stab
    */
   endpointUncertainty: [number, number];
   /** Present for the adaptive procedure only. */
-  adaptive?: AdaptiveReport;
+  adaptive?: AdaptiveStability;
 }
 
 /** The run was cancelled through `shouldStop`; `done` trials had been completed. */
