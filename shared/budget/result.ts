@@ -111,9 +111,8 @@ export interface ValidationResult {
   reason?: string;
   /**
    * Numerical standard uncertainties of the Monte Carlo endpoints y_low, y_high
-   * (how much they would move with another seed at this number of trials):
-   * from the order-statistic binomial bounds for a fixed number of trials, from
-   * the spread of the sequences for the adaptive procedure (JCGM 101:2008 7.9.4).
+   * (how much they would move with another seed at this number of trials),
+   * from order-statistic binomial bounds on all the values, for adaptive runs too.
    */
   endpointUncertainty?: [number, number];
 }

@@ -7,9 +7,10 @@ import { fillStudentT } from '../random/student-t-draws';
  * given (the registry applies `dof` to the GUM ν).
  * Draws (JCGM 101:2008 6.4.7): value + u·z, z ~ N(0, 1).
  * With `dof` = ν (a certificate stating U, k and ν_eff), draws the scaled and
- * shifted t-distribution value + u·t_ν with scale u = U/k (JCGM 101:2008 6.4.9.7):
- * the same distribution the GUM uses when it takes k = t_p(ν) for this input,
- * so that the two methods agree for a correct budget. Its standard deviation
+ * shifted t-distribution value + u·t_ν with scale u = U/k (JCGM 101:2008 6.4.9.7;
+ * the clause number is recalled, its logic checked: it is the distribution the
+ * GUM assumes when it takes k = t_p(ν) for this input, so x ± t_p(ν)·U/k is its
+ * exact 100p % interval and the two methods agree for a correct budget). Its standard deviation
  * is u·√(ν/(ν − 2)), defined for ν > 2 only. `relativeUncertaintyOfU` changes
  * only the GUM ν: it states doubt about u, not a t-distributed quantity.
  */

@@ -62,9 +62,11 @@ export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive' | 'stab
   /** The M model values; the interval search may reorder them. */
   values: Float64Array;
   /**
-   * Numerical standard uncertainties of the symmetric interval's endpoints:
-   * order-statistic binomial bounds for a fixed run, the standard deviations of
-   * the sequence averages (7.9.4 e) for an adaptive run of two or more sequences.
+   * Numerical standard uncertainties of the symmetric interval's endpoints from
+   * order-statistic binomial bounds on all the values, for fixed and adaptive
+   * runs alike: the adaptive procedure's sequence spread (7.9.4 e) often rests on
+   * h = 2 or 3 sequences, and a standard deviation of h values is itself uncertain
+   * by about 1/√(2(h − 1)) (71 % at h = 2).
    */
   endpointUncertainty: [number, number];
   /** Present for the adaptive procedure only. */
@@ -314,14 +316,10 @@ export function runAdaptiveMonteCarlo(plan: MonteCarloPlan, options: AdaptiveMon
     const { standardDeviation } = allMoments.result();
     tolerance = standardDeviation > 0 ? numericalTolerance(standardDeviation, significantDigits) : 0;
   }
-  const summary = summarize(used, allMoments, p, options.binCount, options.timer);
-  // With two or more sequences their spread is the numerical uncertainty of the pooled result (7.9.4 e).
-  const endpointUncertainty: [number, number] = h >= 2 ? [spread.low, spread.high] : summary.endpointUncertainty;
   return {
     trials: h * M,
     seed,
-    ...summary,
-    endpointUncertainty,
+    ...summarize(used, allMoments, p, options.binCount, options.timer),
     values: used,
     adaptive: { sequenceLength: M, sequences: h, tolerance, spread, stabilized },
   };

@@ -213,9 +213,10 @@ describe('adaptive runs report their stability in the result (JCGM 101:2008 7.9.
     for (const s of Object.values(st.spread)) expect(2 * s).toBeLessThanOrEqual(st.tolerance);
   });
 
-  it('the sequences\' spread of y_low, y_high is the endpoints\' numerical uncertainty in the verdict', () => {
-    const st = r.monteCarlo!.stability!;
-    expect(r.validation!.endpointUncertainty).toEqual([st.spread.low, st.spread.high]);
+  it('the verdict takes the endpoints\' numerical uncertainty from all h·M values: √(α(1 − α)/(hM))/g, g = φ(1.96)/2 (not the rough spread of h sequences)', () => {
+    const hM = r.monteCarlo!.trials;
+    const expected = Math.sqrt((0.025 * 0.975) / hM) / 0.02922;
+    for (const u of r.validation!.endpointUncertainty!) expect(Math.abs(u / expected - 1)).toBeLessThan(0.35);
   });
 
   it('a fixed run has no stability', () => {
