@@ -211,10 +211,14 @@ function verdict(r: ReportData): { text: string; style: TextStyle } | null {
   if (!v) return null;
   const unit = formatUnit(r.result.measurand.unit ?? r.document.measurand.unit);
   const d = (x: number) => (unit ? `${formatSignificant(x, 2)} ${unit}` : formatSignificant(x, 2));
+  if (v.tolerance === null || v.verdict === 'inconclusive') {
+    return { text: `Verdict: the GUM result is not confirmed: ${v.reason} (JCGM 101:2008 8).`, style: { face: 'sans', size: 9, color: COLOR.warning } };
+  }
+  const tolerance = v.tolerance;
   const text = v.passed
-    ? `Verdict: the GUM result is confirmed. Both ends of the GUM coverage interval lie within the tolerance δ = ${d(v.tolerance)} of the Monte Carlo interval ` +
+    ? `Verdict: the GUM result is confirmed. Both ends of the GUM coverage interval lie within the tolerance δ = ${d(tolerance)} of the Monte Carlo interval ` +
       `(d_{low} = ${d(v.dLow)}, d_{high} = ${d(v.dHigh)}; ${v.significantDigits} significant digits, JCGM 101:2008 8.2), so the law of propagation of uncertainty is adequate for this model.`
-    : `Verdict: the GUM result is not confirmed. At least one end of the GUM coverage interval differs from the Monte Carlo interval by more than the tolerance δ = ${d(v.tolerance)} ` +
+    : `Verdict: the GUM result is not confirmed. At least one end of the GUM coverage interval differs from the Monte Carlo interval by more than the tolerance δ = ${d(tolerance)} ` +
       `(d_{low} = ${d(v.dLow)}, d_{high} = ${d(v.dHigh)}; JCGM 101:2008 8.2). State the Monte Carlo interval, or review the model and the input distributions before this budget is used.`;
   return { text, style: { face: 'sans', size: 9, color: v.passed ? COLOR.ink : COLOR.warning } };
 }

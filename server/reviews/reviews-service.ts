@@ -1,3 +1,4 @@
+import { reportedOf } from '../../shared/compute/reported-result';
 import type { Comment, NewComment, ReviewQueueItem, ReviewState, SigningCaveat, TransitionOutput, TransitionTarget } from '../../shared/api/reviews';
 import type { BudgetResult, ValidationVerdict } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
@@ -164,7 +165,7 @@ export class ReviewsService {
       lastReturn: b.returned && lastDecision?.decision === 'returned' ? lastDecision : null,
       decisions,
       openThreads: open,
-      result: { measurand: result.measurand, gum: result.gum },
+      result: { measurand: result.measurand, gum: result.gum, reported: reportedOf(result) },
       validation: verdictOf(result),
       warnings: result.warnings,
       evidence: evidenceOf(db, budgetId, b.currentVersion),

@@ -1,5 +1,5 @@
 /** Payloads of the review routes (comments, replies, transitions, review state, queue). Types only. */
-import type { GumResult, ValidationVerdict } from '../budget/result';
+import type { GumResult, ReportedResult, ValidationVerdict } from '../budget/result';
 import type { BudgetStatus } from '../policy/policy';
 import type { BudgetDiff } from './diff';
 
@@ -91,8 +91,8 @@ export interface ReviewState {
   decisions: ReviewDecision[];
   /** The first comment of every unresolved thread, oldest first. */
   openThreads: Comment[];
-  /** The stored GUM result of the current version, for the statement the signature covers. */
-  result: { measurand: { symbol: string; unit?: string }; gum: GumResult };
+  /** The stored result of the current version: the GUM figures and what it reports, for the statement the signature covers. */
+  result: { measurand: { symbol: string; unit?: string }; gum: GumResult; reported: ReportedResult };
   /** Clause 8 verdict of the stored result; null when it has no Monte Carlo run. */
   validation: { verdict: ValidationVerdict; reason: string | null } | null;
   warnings: string[];

@@ -32,4 +32,6 @@ export type BudgetErrorCode =
   | 'unit'
   | 'not_finite'
   | 'correlation'
-  | 'limit';
+  | 'limit'
+  /** No figure the engine can stand behind could be reported (see reportedResult). */
+  | 'unreportable';

@@ -62,11 +62,32 @@ export interface HistogramBins {
  * and the tolerance δ they were judged against (stable when every 2s ≤ δ).
  */
 export interface AdaptiveStability {
+  /** Trials M per sequence (7.9.4 a). */
   sequenceLength: number;
+  /** Number h of sequences run. */
   sequences: number;
+  /** Standard deviations s of the averages of y, u(y), y_low, y_high over the h sequences (7.9.4 e). */
   spread: { estimate: number; standardUncertainty: number; low: number; high: number };
+  /** δ from u(y) of all h·M values (7.9.4 f). */
   tolerance: number;
+  /** True when every 2s ≤ δ; false when the cap on trials stopped the run first. */
   stabilized: boolean;
+}
+
+/**
+ * Set when an input is drawn from a scaled and shifted t-distribution with
+ * ν ≤ 2 (JCGM 101:2008 6.4.9): the output then has no variance (ν ≤ 2) and,
+ * for ν ≤ 1, no expectation. `estimate` and `standardUncertainty` of the run
+ * are the sample's average and standard deviation only, estimates of nothing;
+ * the coverage intervals (quantiles) remain defined.
+ */
+export interface UndefinedMoments {
+  /** The smallest ν among the inputs drawn from a t-distribution. */
+  smallestDof: number;
+  /** The inputs concerned. */
+  symbols: string[];
+  /** In words, for the result and the statement. */
+  reason: string;
 }
 
 export interface MonteCarloResult {
@@ -75,6 +96,8 @@ export interface MonteCarloResult {
   adaptive: boolean;
   /** Present for adaptive runs only (JCGM 101:2008 7.9). */
   stability?: AdaptiveStability;
+  /** Present when the output has no variance (see `UndefinedMoments`); then `standardUncertainty` must not be shown as u. */
+  undefinedMoments?: UndefinedMoments;
   estimate: number;
   standardUncertainty: number;
   interval: [number, number];
@@ -94,14 +117,22 @@ export type ValidationVerdict = 'validated' | 'not-validated' | 'inconclusive' |
 
 export interface ValidationResult {
   significantDigits: number;
-  tolerance: number;
+  /** δ of the Monte Carlo u (JCGM 101:2008 8.2); null for `not-possible`, where that u does not exist. */
+  tolerance: number | null;
   dLow: number;
   dHigh: number;
   /** True only for the verdict `validated`. */
   passed: boolean;
+  /** Always set by the engine; absent only in results stored before verdicts existed (read `passed`). */
   verdict?: ValidationVerdict;
-  /** Why the verdict is `inconclusive` or `not-possible`, in words. */
+  /** Why the verdict is `not-validated`, `inconclusive` or `not-possible`, in words. */
   reason?: string;
+  /**
+   * Numerical standard uncertainties of the Monte Carlo endpoints y_low, y_high
+   * (how much they would move with another seed at this number of trials),
+   * from order-statistic binomial bounds on all the values, for adaptive runs too.
+   */
+  endpointUncertainty?: [number, number];
 }
 
 /**
@@ -112,11 +143,26 @@ export interface ValidationResult {
  */
 export type ReportingBasis = 't-effective-dof' | 'k-fixed' | 'monte-carlo';
 
+/** The lab's choice in the budget file (`reporting`), with its defaults applied. */
+export interface ReportingChoice {
+  /** How U is formed from u_c when the GUM figures are reported. */
+  basis: 't-effective-dof' | 'k-fixed';
+  /** k for the basis `k-fixed`. */
+  k?: number;
+  /** What is reported when the GUM result is not validated (any verdict but `validated`). */
+  whenNotValidated: 'report-gum' | 'report-monte-carlo';
+}
+
 /** The figures that go to the certificate, and how they were obtained. */
 export interface ReportedResult {
   basis: ReportingBasis;
   estimate: number;
-  standardUncertainty: number;
+  /** u; null when the Monte Carlo interval is reported and the output has no variance (`monteCarlo.undefinedMoments`). */
+  standardUncertainty: number | null;
+  /**
+   * p of the interval: the budget's p, except for `k-fixed`, where it is the
+   * probability that k gives for a t-distribution with ν_eff (a normal one for ν_eff = ∞).
+   */
   coverageProbability: number;
   /** k; null when the interval is the Monte Carlo one. */
   coverageFactor: number | null;
@@ -127,6 +173,11 @@ export interface ReportedResult {
   replacedGum: boolean;
   /** GUM figures reported although the Monte Carlo method did not validate them (or could not). */
   unvalidated: boolean;
+  /** For `replacedGum` or `unvalidated`: the verdict and its reason, for the statement. */
+  validationVerdict?: ValidationVerdict;
+  validationReason?: string;
+  /** Trials of the Monte Carlo run whose interval is reported (basis `monte-carlo`). */
+  trials?: number;
 }
 
 export interface BudgetResult {

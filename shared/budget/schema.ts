@@ -198,6 +198,39 @@ export const monteCarloSchema = z.looseObject({
   significantDigits: z.number().int().min(1).max(4).optional(),
 });
 
+/**
+ * How the lab reports U (EA-4/02 M:2022 5; ILAC P14): `basis` "t-effective-dof"
+ * (k = t_p(ν_eff), the default) or "k-fixed" with `k` (conventionally 2);
+ * `whenNotValidated` "report-gum" (the default: the GUM figures, stated as not
+ * validated) or "report-monte-carlo" (the Monte Carlo interval replaces them,
+ * JCGM 101:2008 8.4).
+ */
+export const reportingSchema = z
+  .looseObject({
+    basis: z
+      .enum(['t-effective-dof', 'k-fixed'], {
+        error:
+          'must be "t-effective-dof" (k = t_p(ν_eff)) or "k-fixed" (with k); to report the Monte Carlo interval when the GUM result is not validated, set whenNotValidated to "report-monte-carlo"',
+      })
+      .optional(),
+    k: finite()
+      .refine((k) => k >= 1, { message: 'must be at least 1 (conventionally 2): a smaller k gives an interval narrower than u' })
+      .optional(),
+    whenNotValidated: z
+      .enum(['report-gum', 'report-monte-carlo'], {
+        error: 'must be "report-gum" (state the GUM figures as not validated) or "report-monte-carlo" (report the Monte Carlo interval instead)',
+      })
+      .optional(),
+  })
+  .superRefine((r, ctx) => {
+    if (r.basis === 'k-fixed' && r.k === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['k'], message: 'is required with basis "k-fixed": give the coverage factor, conventionally 2' });
+    }
+    if (r.basis !== 'k-fixed' && r.k !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['basis'], message: 'must be "k-fixed" when k is given; remove k to use k = t_p(ν_eff)' });
+    }
+  });
+
 export const budgetDocumentSchema = z.looseObject({
   format: z.literal('dubito-budget/1', { error: 'format must be "dubito-budget/1"' }),
   title: z.string({ error: 'title must be text' }).min(1, { message: 'title must not be empty' }).max(300),
@@ -220,6 +253,7 @@ export const budgetDocumentSchema = z.looseObject({
     .refine((p) => p > 0 && p < 1, { message: 'must lie strictly between 0 and 1' })
     .optional(),
   monteCarlo: monteCarloSchema.optional(),
+  reporting: reportingSchema.optional(),
 });
 
 export type BudgetDocument = z.infer<typeof budgetDocumentSchema>;
@@ -229,3 +263,4 @@ export type Distribution = z.infer<typeof distributionSchema>;
 export type DistributionKind = Distribution['kind'];
 export type DistributionOf<K extends DistributionKind> = Extract<Distribution, { kind: K }>;
 export type Correlation = z.infer<typeof correlationSchema>;
+export type ReportingSpec = z.infer<typeof reportingSchema>;

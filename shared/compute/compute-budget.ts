@@ -1,6 +1,6 @@
 import { BudgetError } from '../budget/budget-error';
 import { DEFAULTS, LIMITS } from '../budget/limits';
-import type { BudgetResult, MonteCarloResult, ValidationResult } from '../budget/result';
+import type { BudgetResult, MonteCarloResult, UndefinedMoments, ValidationResult } from '../budget/result';
 import type { BudgetDocument } from '../budget/schema';
 import { gumTreatment, inputKurtosis, samplerFor } from '../distributions/registry';
 import { propagateGum, type GumInput } from '../gum/propagate';
@@ -13,7 +13,9 @@ import {
   type MonteCarloRun,
   type PhaseTimer,
 } from '../montecarlo/run-monte-carlo';
-import { validateGumInterval } from '../montecarlo/validation';
+import { validateGumInterval, validationNotPossible } from '../montecarlo/validation';
+import type { Sampler } from '../distributions/distribution';
+import { reportedResult, reportingChoice } from './reported-result';
 import { RESERVED_SYMBOLS } from '../model/sandbox';
 import { correlationMatrix } from './correlation-matrix';
 import { ENGINE_VERSION } from './engine-version';
@@ -71,6 +73,49 @@ function runMethod(run: () => MonteCarloRun): MonteCarloRun {
 }
 
 /**
+ * The inputs drawn from a t-distribution with ν ≤ 2 (JCGM 101:2008 6.4.9):
+ * t_ν has a variance only for ν > 2, so the output then has none, and the
+ * Monte Carlo u, the δ of clause 8 and any comparison built on them are
+ * meaningless. Null when every sampled distribution has a variance.
+ */
+function undefinedMomentsOf(symbols: string[], samplers: (Sampler | null)[]): UndefinedMoments | null {
+  const heavy = samplers
+    .map((s, i) => ({ symbol: symbols[i], dof: s?.tDof }))
+    .filter((x): x is { symbol: string; dof: number } => x.dof !== undefined && x.dof <= 2);
+  if (heavy.length === 0) return null;
+  const smallestDof = Math.min(...heavy.map((x) => x.dof));
+  const named = heavy.map((x) => `"${x.symbol}" (ν = ${+x.dof.toPrecision(4)})`).join(', ');
+  return {
+    smallestDof,
+    symbols: heavy.map((x) => x.symbol),
+    reason:
+      `the variance of t_ν is undefined for ν ≤ 2 (JCGM 101:2008 6.4.9), and ${named} ${heavy.length > 1 ? 'are' : 'is'} drawn from such a ` +
+      't-distribution, so the Monte Carlo standard uncertainty and the tolerance δ do not exist',
+  };
+}
+
+/** Warnings for the inputs drawn from t with ν ≤ 2 (see undefinedMomentsOf): few observations, or a small stated ν. */
+function fewDegreesOfFreedomWarnings(doc: BudgetDocument, samplers: (Sampler | null)[]): string[] {
+  const warnings: string[] = [];
+  doc.inputs.forEach((q, i) => {
+    const dof = samplers[i]?.tDof;
+    if (dof === undefined || dof > 2) return;
+    const d = q.distribution;
+    const n = d.kind === 'observations' ? d.values.length : 0;
+    warnings.push(
+      (d.kind === 'observations' && n - 1 === dof
+        ? `The input "${q.symbol}" has only ${n} observations (ν = ${dof}): `
+        : `The input "${q.symbol}" is drawn from a t-distribution with ν = ${+dof.toPrecision(4)} ≤ 2: `) +
+        'a t-distribution with ν ≤ 2 has no variance, so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). ' +
+        (d.kind === 'observations' && n - 1 === dof
+          ? 'Take at least 4 observations, or give a pooled standard deviation with its degrees of freedom.'
+          : 'Check the stated degrees of freedom.'),
+    );
+  });
+  return warnings;
+}
+
+/**
  * Computes a validated budget: the GUM law of propagation (JCGM 100:2008),
  * then, unless switched off, the Monte Carlo method (JCGM 101:2008 clause 7,
  * fixed trials or the adaptive procedure of 7.9) and the validation of the
@@ -114,6 +159,10 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
   const p = doc.coverageProbability ?? DEFAULTS.coverageProbability;
   const gum = propagateGum(model, inputs, correlation, p);
   warnings.push(...gum.warnings);
+  // Correlated inputs are drawn jointly (JCGM 101:2008 6.4.8), the others by their own sampler.
+  const correlatedIndices = correlation ? inputs.map((_, i) => i).filter((i) => correlation[i].some((r, j) => j !== i && r !== 0)) : [];
+  const samplers = doc.inputs.map((q, i) => (correlatedIndices.includes(i) ? null : samplerFor(q.distribution)));
+  warnings.push(...fewDegreesOfFreedomWarnings(doc, samplers));
 
   let monteCarlo: MonteCarloResult | null = null;
   let validation: ValidationResult | null = null;
@@ -122,9 +171,15 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     const seed = String(options.seed ?? doc.monteCarlo?.seed ?? DEFAULTS.seed);
     const cap = Math.min(options.trialsCap ?? LIMITS.trials, LIMITS.trials);
     const significantDigits = doc.monteCarlo?.significantDigits ?? DEFAULTS.significantDigits;
-    const correlatedIndices = correlation ? inputs.map((_, i) => i).filter((i) => correlation[i].some((r, j) => j !== i && r !== 0)) : [];
+    const withDof = correlatedIndices.filter((i) => doc.inputs[i].distribution.dof !== undefined).map((i) => `"${doc.inputs[i].symbol}"`);
+    if (withDof.length) {
+      warnings.push(
+        `The correlated inputs ${withDof.join(', ')} state degrees of freedom but are drawn jointly from a Gaussian (JCGM 101:2008 6.4.8), not from t; ` +
+          'the Monte Carlo interval may be narrower than the GUM one.',
+      );
+    }
     const plan: MonteCarloPlan = {
-      samplers: doc.inputs.map((q, i) => (correlatedIndices.includes(i) ? null : samplerFor(q.distribution))),
+      samplers,
       correlated: correlation && correlatedIndices.length
         ? {
             indices: correlatedIndices,
@@ -136,20 +191,32 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
       evaluateBlock: model.evaluateBlock,
     };
     const common = { seed, coverageProbability: p, onProgress: options.onProgress, shouldStop: options.shouldStop, timer: options.timer };
-    const adaptive = requested === 'adaptive';
+    const undefinedMoments = undefinedMomentsOf(
+      doc.inputs.map((q) => q.symbol),
+      samplers,
+    );
+    // The adaptive procedure judges stability by u (7.9.4), which does not exist here: run a fixed number instead.
+    const adaptive = requested === 'adaptive' && !undefinedMoments;
+    if (requested === 'adaptive' && undefinedMoments) {
+      warnings.push(
+        `The adaptive Monte Carlo procedure judges stability by the standard uncertainty, which does not exist here; ` +
+          `${Math.min(DEFAULTS.trials, cap)} trials were run instead (JCGM 101:2008 7.9.4).`,
+      );
+    }
+    const trials = requested === 'adaptive' ? DEFAULTS.trials : requested;
     const minimum = minimumTrials(p);
-    if (!adaptive && requested < minimum) {
+    if (!adaptive && trials < minimum) {
       throw new BudgetError(
         'limit',
         `monteCarlo.trials: at least ${minimum} trials are needed for a ${+(p * 100).toFixed(4)} % coverage interval (100/(1 − p), JCGM 101:2008 7.9.2)`,
         'monteCarlo.trials',
       );
     }
-    if (!adaptive && requested > cap) warnings.push(`Monte Carlo trials capped at ${cap} (requested ${requested}).`);
+    if (!adaptive && trials > cap) warnings.push(`Monte Carlo trials capped at ${cap} (requested ${trials}).`);
     const run = runMethod(() =>
       adaptive
         ? runAdaptiveMonteCarlo(plan, { ...common, significantDigits, maxTrials: cap })
-        : runMonteCarlo(plan, { ...common, trials: Math.min(requested, cap) }),
+        : runMonteCarlo(plan, { ...common, trials: Math.min(trials, cap) }),
     );
     if (run.adaptive && !run.adaptive.stabilized) {
       warnings.push(`The adaptive Monte Carlo procedure did not stabilise within ${cap} trials; the results are less reliable than requested.`);
@@ -158,28 +225,40 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
       trials: run.trials,
       seed,
       adaptive,
+      ...(run.adaptive ? { stability: run.adaptive } : {}),
+      ...(undefinedMoments ? { undefinedMoments } : {}),
       estimate: run.estimate,
       standardUncertainty: run.standardUncertainty,
       interval: run.interval,
       shortestInterval: run.shortestInterval,
       histogram: run.histogram,
     };
-    if (run.standardUncertainty > 0) {
-      validation = validateGumInterval(
-        { y: gum.result.estimate, U: gum.result.expandedUncertainty },
-        run.interval,
-        run.standardUncertainty,
-        significantDigits,
-      );
+    const gumInterval = { y: gum.result.estimate, U: gum.result.expandedUncertainty };
+    if (undefinedMoments) {
+      validation = validationNotPossible(gumInterval, run.interval, significantDigits, undefinedMoments.reason);
+    } else if (run.standardUncertainty > 0) {
+      validation = validateGumInterval(gumInterval, run.interval, run.standardUncertainty, significantDigits, {
+        endpointUncertainty: run.endpointUncertainty,
+        trials: run.trials,
+      });
     } else {
       // Every trial gave one value: no δ exists (JCGM 101:2008 8.2 needs u > 0), so the intervals must coincide exactly.
       const dLow = Math.abs(gum.result.interval[0] - run.interval[0]);
       const dHigh = Math.abs(gum.result.interval[1] - run.interval[1]);
       const same = dLow === 0 && dHigh === 0;
-      validation = { significantDigits, tolerance: 0, dLow, dHigh, passed: same, verdict: same ? 'validated' : 'not-validated', reason: 'every Monte Carlo trial gave the same value: u = 0' };
+      validation = {
+        significantDigits,
+        tolerance: 0,
+        dLow,
+        dHigh,
+        passed: same,
+        verdict: same ? 'validated' : 'not-validated',
+        reason: 'every Monte Carlo trial gave the same value (u = 0): the intervals are compared exactly',
+      };
       warnings.push('Every Monte Carlo trial gave the same value: the measurand does not vary with the inputs, u = 0.');
     }
   }
+  const reported = reportedResult(gum.result, monteCarlo, validation, reportingChoice(doc.reporting));
 
   return {
     engineVersion: ENGINE_VERSION,
@@ -187,6 +266,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     gum: gum.result,
     monteCarlo,
     validation,
+    reported,
     warnings,
   };
 }

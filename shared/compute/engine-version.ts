@@ -4,4 +4,6 @@
 // u can differ from 0.2.0 in the last digits, a value within rounding of a bin edge can change bins.
 // 0.3.0: rectangular, triangular, trapezoidal and arcsine inputs drawn from 32-bit uniforms (one generator output per uniform
 // instead of two), so a seed gives other Monte Carlo numbers than 0.2.1.
-export const ENGINE_VERSION = 'dubito-engine/0.3.0';
+// 0.4.0: normal inputs with `dof` drawn from the scaled and shifted t (JCGM 101:2008 6.4.9.7), so such budgets give other
+// Monte Carlo numbers than 0.3.0; validation verdicts with the endpoints' numerical uncertainty; `reported`.
+export const ENGINE_VERSION = 'dubito-engine/0.4.0';

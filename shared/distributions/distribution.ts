@@ -12,6 +12,12 @@ export interface GumTreatment {
 export interface Sampler {
   /** Fills out[0..n) with n independent draws. */
   fill(rng: UniformGenerator, out: Float64Array, n: number): void;
+  /**
+   * ν of the scaled and shifted t-distribution drawn (JCGM 101:2008 6.4.9);
+   * absent for other distributions. The draws have a variance only for ν > 2
+   * and an expectation only for ν > 1.
+   */
+  tDof?: number;
 }
 
 /** One distribution kind of the budget file: its GUM treatment and its Monte Carlo sampler. */

@@ -19,6 +19,7 @@ export const observationsRule: DistributionRule<'observations'> = {
   sampler(spec) {
     const { mean, scale, dof } = observationStatistics(spec);
     return {
+      tDof: dof,
       fill(rng, out, n) {
         fillStudentT(rng, out, n, dof);
         for (let i = 0; i < n; i++) out[i] = mean + scale * out[i];

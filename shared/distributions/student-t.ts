@@ -15,6 +15,7 @@ export const studentTRule: DistributionRule<'student-t'> = {
   sampler(spec) {
     const { value, scale, dof } = spec;
     return {
+      tDof: dof,
       fill(rng, out, n) {
         fillStudentT(rng, out, n, dof);
         for (let i = 0; i < n; i++) out[i] = value + scale * out[i];

@@ -1,28 +1,94 @@
-import type { GumResult } from '../budget/result';
-import { formatAtExponent, roundUncertainty } from './rounding';
+import type { ReportedResult, ValidationVerdict } from '../budget/result';
+import { formatAtExponent, roundResult, roundUncertainty } from './rounding';
+
+/** "95 %" or "95.45 %": the budget's p as given, up to two decimals. */
+function percent(p: number): string {
+  return `${+(p * 100).toFixed(2)} %`;
+}
+
+/** The distribution k refers to (JCGM 100:2008 G.3–G.4): normal for ν_eff = ∞, else t with ⌊ν_eff⌋. */
+function distributionOf(effectiveDof: number | null): string {
+  // Beyond a few hundred degrees of freedom t_p differs from the normal quantile only in the third digit of k.
+  return effectiveDof === null
+    ? 'a normal distribution'
+    : effectiveDof >= 1000
+      ? 'a t-distribution with more than 1000 effective degrees of freedom'
+      : `a t-distribution with ν_eff = ${Math.floor(effectiveDof)} effective degrees of freedom`;
+}
+
+/** Why the GUM result stands without the Monte Carlo validation, in one sentence. */
+function withoutValidation(verdict: ValidationVerdict | undefined, reason: string | undefined): string {
+  switch (verdict) {
+    case 'inconclusive':
+      return (
+        ' This result is reported although the Monte Carlo method of JCGM 101:2008 did not validate it: the comparison ' +
+        '(clause 8) was inconclusive at the number of trials used.'
+      );
+    case 'not-possible':
+      return ` This result is reported although the Monte Carlo method of JCGM 101:2008 could not validate it: ${reason ?? 'the comparison of clause 8 was not possible'}.`;
+    default:
+      return (
+        ' This result is reported although the Monte Carlo method of JCGM 101:2008 did not validate it: the GUM coverage ' +
+        'interval differs from the Monte Carlo one by more than the numerical tolerance (clause 8).'
+      );
+  }
+}
+
+/** Why the Monte Carlo interval replaced the GUM result, ending the sentence. */
+function replacedBecause(reported: ReportedResult): string {
+  switch (reported.validationVerdict) {
+    case 'inconclusive':
+      return 'whose validation by the Monte Carlo method was inconclusive (JCGM 101:2008 clause 8).';
+    case 'not-possible':
+      return `which could not be validated: ${reported.validationReason ?? 'the comparison of JCGM 101:2008 clause 8 was not possible'}.`;
+    default:
+      return 'which the Monte Carlo method did not validate (JCGM 101:2008 clause 8).';
+  }
+}
 
 /**
- * The result as a certificate states it: y = (value ± U) unit, with U rounded
- * to two significant digits and y to the same place (JCGM 100:2008 7.2.6,
- * 7.2.3), followed by the sentence on k, ν_eff and p (JCGM 100:2008 7.2.3;
- * wording of EA-4/02 M:2022 5.2).
+ * The result as a certificate states it, from the reported figures only
+ * (`BudgetResult.reported`, see reportedResult):
+ * - GUM basis: "y = (value ± U) unit", U rounded to two significant digits and
+ *   y to the same place (JCGM 100:2008 7.2.6, 7.2.3), then the sentence on k,
+ *   ν_eff and p (JCGM 100:2008 7.2.3; wording of EA-4/02 M:2022 5.2). For a
+ *   fixed k, p is the one k gives for t with ν_eff, to the whole percent
+ *   ("approximately 95 %" for k = 2 and ν_eff = ∞);
+ * - `unvalidated`: one more sentence saying that the Monte Carlo method did
+ *   not validate the result, or could not, and why;
+ * - Monte Carlo basis: y with the probabilistically symmetric coverage interval
+ *   (JCGM 101:2008 7.7), endpoints rounded to the place of U's second
+ *   significant digit; with `replacedGum`, that it replaces the GUM result and why.
  */
-export function certificateStatement(symbol: string, unit: string | undefined, gum: GumResult): string {
-  const r = roundUncertainty(gum.expandedUncertainty);
-  const y = formatAtExponent(gum.estimate, r.exponent);
-  const U = formatAtExponent(gum.expandedUncertainty, r.exponent);
-  const u = unit && unit !== '1' ? ` ${unit}` : '';
-  const pct = `${+(gum.coverageProbability * 100).toFixed(2)} %`;
-  const k = gum.coverageFactor.toFixed(2);
-  // Beyond a few hundred degrees of freedom t_p differs from the normal quantile only in the third digit of k.
-  const dof =
-    gum.effectiveDof === null
-      ? 'a normal distribution'
-      : gum.effectiveDof >= 1000
-        ? 'a t-distribution with more than 1000 effective degrees of freedom'
-        : `a t-distribution with ν_eff = ${Math.floor(gum.effectiveDof)} effective degrees of freedom`;
-  return (
-    `${symbol} = (${y} ± ${U})${u}. The reported expanded uncertainty is the combined standard uncertainty ` +
-    `multiplied by the coverage factor k = ${k}, which for ${dof} corresponds to a coverage probability of approximately ${pct}.`
-  );
+export function certificateStatement(
+  measurand: { symbol: string; unit?: string },
+  reported: ReportedResult,
+  effectiveDof: number | null,
+): string {
+  const { symbol } = measurand;
+  const unit = measurand.unit && measurand.unit !== '1' ? ` ${measurand.unit}` : '';
+  // GUM 7.2.6: U to two significant digits and y to the same place; U = 0 keeps y's own digits.
+  const rounded = roundResult(reported.estimate, reported.expandedUncertainty);
+  const at = (x: number) => formatAtExponent(x, rounded.exponent);
+  const y = rounded.estimate;
+
+  if (reported.basis === 'monte-carlo') {
+    const [low, high] = reported.interval;
+    const trials = reported.trials !== undefined ? ` with ${reported.trials} trials` : '';
+    const su = reported.standardUncertainty;
+    const u = su !== null ? ` The standard uncertainty is ${formatAtExponent(su, roundUncertainty(su).exponent)}${unit}.` : '';
+    const replaced = reported.replacedGum ? ` This interval replaces the result of the law of propagation of uncertainty (JCGM 100:2008), ${replacedBecause(reported)}` : '';
+    return (
+      `${symbol} = ${y}${unit}, with the coverage interval [${at(low)}, ${at(high)}]${unit} for a coverage probability of ${percent(reported.coverageProbability)}: ` +
+      `the probabilistically symmetric interval obtained by the Monte Carlo method of JCGM 101:2008${trials}.${u}${replaced}`
+    );
+  }
+
+  const U = rounded.uncertainty;
+  const k = (reported.coverageFactor ?? NaN).toFixed(2);
+  const pct = reported.basis === 'k-fixed' ? `${Math.round(reported.coverageProbability * 100)} %` : percent(reported.coverageProbability);
+  const statement =
+    `${symbol} = (${y} ± ${U})${unit}. The reported expanded uncertainty is the combined standard uncertainty ` +
+    `multiplied by the coverage factor k = ${k}, which for ${distributionOf(effectiveDof)} corresponds to a coverage probability of approximately ${pct}.`;
+  return reported.unvalidated ? statement + withoutValidation(reported.validationVerdict, reported.validationReason) : statement;
 }

@@ -190,10 +190,39 @@ function symmetricFromTails(t: Tails, q: number): [number, number] {
 }
 
 /**
+ * Numerical standard uncertainty of the order statistic y_(k) as an estimate
+ * of the α = k/M quantile η_α of the output, without assuming its shape: the
+ * number of the M values below η_α is binomial, mean Mα and standard deviation
+ * s = √(Mα(1 − α)), so η_α lies between y_(k−s) and y_(k+s) with about 68 %
+ * probability, and u(y_(k)) ≈ (y_(k+s) − y_(k−s))/2. This is the distribution-free
+ * form of √(α(1 − α)/M)/g(η_α), g the output density (asymptotic normality of
+ * sample quantiles). Ranks are kept within the M − q values of the tail that
+ * holds y_(k); the half-width is then scaled to s ranks.
+ */
+function orderStatisticUncertainty(t: Tails, q: number, k: number): number {
+  const { M } = t;
+  const alpha = k / M;
+  const s = Math.max(1, Math.ceil(Math.sqrt(M * alpha * (1 - alpha))));
+  // Both tails hold at least their M − q values, whichever way they were found.
+  const [first, last] = k <= M - q ? [1, M - q] : [q + 1, M];
+  const below = Math.max(first, k - s);
+  const above = Math.min(last, k + s);
+  if (above === below) return 0;
+  return ((orderStatistic(t, above) - orderStatistic(t, below)) * s) / (above - below);
+}
+
+function symmetricUncertaintyFromTails(t: Tails, q: number): [number, number] {
+  const r = symmetricRank(t.M, q);
+  return [orderStatisticUncertainty(t, q, r), orderStatisticUncertainty(t, q, r + q)];
+}
+
+/**
  * Both coverage intervals for coverage probability p from M model values
  * (JCGM 101:2008 7.7): with y_(1) ≤ … ≤ y_(M), the interval is [y_(r), y_(r+q)];
  * symmetric: r = (M − q)/2 or (M − q + 1)/2 (7.7.2); shortest: the r* that
- * minimises y_(r+q) − y_(r) (7.7.3). May reorder `values` in place.
+ * minimises y_(r+q) − y_(r) (7.7.3). `symmetricUncertainty` gives the numerical
+ * standard uncertainties of the symmetric endpoints (see orderStatisticUncertainty).
+ * May reorder `values` in place.
  * `range` passes min and max when the caller has them already, `buckets` the
  * counts of the values when the caller has counted them (see value-buckets).
  * Cost: two or three passes over the M values plus sorting 2·(M − q) values.
@@ -203,10 +232,14 @@ export function coverageIntervals(
   p: number,
   range?: { min: number; max: number },
   buckets?: ValueBuckets | null,
-): { symmetric: [number, number]; shortest: [number, number] } {
+): { symmetric: [number, number]; shortest: [number, number]; symmetricUncertainty: [number, number] } {
   const q = checkArguments(values.length, p);
   const tails = tailsOf(values, q, range, buckets);
-  return { symmetric: symmetricFromTails(tails, q), shortest: shortestFromTails(tails, q) };
+  return {
+    symmetric: symmetricFromTails(tails, q),
+    shortest: shortestFromTails(tails, q),
+    symmetricUncertainty: symmetricUncertaintyFromTails(tails, q),
+  };
 }
 
 /** Probabilistically symmetric 100p % coverage interval (JCGM 101:2008 7.7.2). Reorders `values` in place. */

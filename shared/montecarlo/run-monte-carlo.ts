@@ -1,4 +1,4 @@
-import type { MonteCarloResult } from '../budget/result';
+import type { AdaptiveStability, MonteCarloResult } from '../budget/result';
 import type { Sampler } from '../distributions/distribution';
 import { UniformGenerator } from '../random/uniform-generator';
 import { correlatedNormalSampler, type CorrelatedSampler } from './correlated-normal';
@@ -57,25 +57,20 @@ export interface AdaptiveMonteCarloOptions extends Omit<MonteCarloOptions, 'tria
   maxTrials: number;
 }
 
-export interface AdaptiveReport {
-  /** Trials M per sequence (JCGM 101:2008 7.9.4 a). */
-  sequenceLength: number;
-  /** Number h of sequences run. */
-  sequences: number;
-  /** δ from u(y) of all h·M values (7.9.4 f). */
-  tolerance: number;
-  /** Standard deviations s of the averages of y, u(y), y_low, y_high (7.9.4 e). */
-  spread: { estimate: number; standardUncertainty: number; low: number; high: number };
-  /** True when every 2s ≤ δ; false when maxTrials stopped the run first. */
-  stabilized: boolean;
-}
-
 /** A finished run: the reported figures (JCGM 101:2008 7.6–7.7) plus the model values themselves. */
-export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive'> {
+export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive' | 'stability' | 'undefinedMoments'> {
   /** The M model values; the interval search may reorder them. */
   values: Float64Array;
+  /**
+   * Numerical standard uncertainties of the symmetric interval's endpoints from
+   * order-statistic binomial bounds on all the values, for fixed and adaptive
+   * runs alike: the adaptive procedure's sequence spread (7.9.4 e) often rests on
+   * h = 2 or 3 sequences, and a standard deviation of h values is itself uncertain
+   * by about 1/√(2(h − 1)) (71 % at h = 2).
+   */
+  endpointUncertainty: [number, number];
   /** Present for the adaptive procedure only. */
-  adaptive?: AdaptiveReport;
+  adaptive?: AdaptiveStability;
 }
 
 /** The run was cancelled through `shouldStop`; `done` trials had been completed. */
@@ -209,9 +204,16 @@ function summarize(values: Float64Array, moments: MomentAccumulator, p: number, 
   const buckets = Number.isInteger(bins) && bins >= 1 && max > min ? countInBuckets(values, bucketCountFor(bins), min, max) : null;
   const histogram = buckets ? histogramFromBuckets(buckets, bins) : histogramBins(values, bins, range);
   if (timer) since = addElapsed(timer, 'histogram', since);
-  const { symmetric, shortest } = coverageIntervals(values, p, range, buckets);
+  const { symmetric, shortest, symmetricUncertainty } = coverageIntervals(values, p, range, buckets);
   if (timer) addElapsed(timer, 'intervals', since);
-  return { estimate: mean, standardUncertainty: standardDeviation, interval: symmetric, shortestInterval: shortest, histogram };
+  return {
+    estimate: mean,
+    standardUncertainty: standardDeviation,
+    interval: symmetric,
+    shortestInterval: shortest,
+    histogram,
+    endpointUncertainty: symmetricUncertainty,
+  };
 }
 
 /**

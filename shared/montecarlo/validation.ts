@@ -19,19 +19,103 @@ export function numericalTolerance(u: number, nDig: number): number {
   return Math.pow(10, l) / 2;
 }
 
+/** Two significant digits for the figures quoted in a verdict's reason. */
+function figure(x: number): string {
+  return Number(x.toPrecision(2)).toString();
+}
+
+/**
+ * How far a Monte Carlo endpoint may move with another seed, as a multiple of
+ * its numerical standard uncertainty: 2, the factor JCGM 101:2008 7.9.4 uses
+ * when it asks 2s ≤ δ of the adaptive procedure (about 95 %).
+ */
+export const ENDPOINT_COVERAGE_FACTOR = 2;
+
+export interface ValidationOptions {
+  /**
+   * Numerical standard uncertainties u(y_low), u(y_high) of the Monte Carlo
+   * endpoints (see MonteCarloRun.endpointUncertainty). Without them the
+   * verdict is d against δ alone.
+   */
+  endpointUncertainty?: readonly [number, number];
+  /** Trials of the run, for the reason of an inconclusive verdict. */
+  trials?: number;
+}
+
 /**
  * Validates the GUM coverage interval y ± U against the Monte Carlo interval
  * [y_low, y_high] (JCGM 101:2008 8.3): d_low = |y − U − y_low|,
- * d_high = |y + U − y_high|; passed when both are ≤ δ of the Monte Carlo u (8.2).
+ * d_high = |y + U − y_high|, compared with δ of the Monte Carlo u (8.2).
+ * The Monte Carlo endpoints are themselves uncertain (JCGM 101:2008 7.9, 8.2:
+ * the comparison presumes them accurate to δ); with e = 2·u(endpoint):
+ * - `validated` when d_low + e_low ≤ δ and d_high + e_high ≤ δ;
+ * - `not-validated` when d_low − e_low > δ or d_high − e_high > δ;
+ * - `inconclusive` otherwise: another seed at this number of trials could give
+ *   the other verdict, and more trials decide it. An adaptive run stable to δ
+ *   (7.9) can still be inconclusive: 2s ≤ δ does not resolve a d close to δ.
+ * Without endpoint uncertainties, validated when both d ≤ δ (8.3 as written).
+ * `passed` is true only for `validated`.
  */
 export function validateGumInterval(
   gum: { y: number; U: number },
   mcInterval: readonly [number, number],
   u: number,
   nDig: number,
+  options: ValidationOptions = {},
 ): ValidationResult {
   const tolerance = numericalTolerance(u, nDig);
   const dLow = Math.abs(gum.y - gum.U - mcInterval[0]);
   const dHigh = Math.abs(gum.y + gum.U - mcInterval[1]);
-  return { significantDigits: nDig, tolerance, dLow, dHigh, passed: dLow <= tolerance && dHigh <= tolerance };
+  const base = { significantDigits: nDig, tolerance, dLow, dHigh };
+  const [uLow, uHigh] = options.endpointUncertainty ?? [0, 0];
+  const eLow = ENDPOINT_COVERAGE_FACTOR * uLow;
+  const eHigh = ENDPOINT_COVERAGE_FACTOR * uHigh;
+  const withUncertainty = options.endpointUncertainty ? { endpointUncertainty: [uLow, uHigh] as [number, number] } : {};
+  if (dLow + eLow <= tolerance && dHigh + eHigh <= tolerance) {
+    return { ...base, passed: true, verdict: 'validated', ...withUncertainty };
+  }
+  if (dLow - eLow > tolerance || dHigh - eHigh > tolerance) {
+    return {
+      ...base,
+      passed: false,
+      verdict: 'not-validated',
+      reason:
+        `the GUM interval differs from the Monte Carlo interval by more than δ = ${figure(tolerance)} ` +
+        `(d_low = ${figure(dLow)}, d_high = ${figure(dHigh)}; JCGM 101:2008 8)`,
+      ...withUncertainty,
+    };
+  }
+  const at = options.trials !== undefined ? ` at ${options.trials} trials` : '';
+  return {
+    ...base,
+    passed: false,
+    verdict: 'inconclusive',
+    reason:
+      `inconclusive${at}: d_low = ${figure(dLow)} and d_high = ${figure(dHigh)} lie within the Monte Carlo endpoints' numerical ` +
+      `uncertainty (2u = ${figure(eLow)}, ${figure(eHigh)}) of δ = ${figure(tolerance)}, so another seed could give the other verdict; ` +
+      'run more trials (four times as many halve that uncertainty)',
+    ...withUncertainty,
+  };
+}
+
+/**
+ * The clause 8 comparison cannot be made: the Monte Carlo u, and so δ, does
+ * not exist (an input drawn from a t-distribution with ν ≤ 2 has no variance,
+ * JCGM 101:2008 6.4.9). d_low and d_high are still given: both intervals exist.
+ */
+export function validationNotPossible(
+  gum: { y: number; U: number },
+  mcInterval: readonly [number, number],
+  nDig: number,
+  reason: string,
+): ValidationResult {
+  return {
+    significantDigits: nDig,
+    tolerance: null,
+    dLow: Math.abs(gum.y - gum.U - mcInterval[0]),
+    dHigh: Math.abs(gum.y + gum.U - mcInterval[1]),
+    passed: false,
+    verdict: 'not-possible',
+    reason,
+  };
 }

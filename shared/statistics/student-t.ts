@@ -35,3 +35,17 @@ export function coverageFactorFor(p: number, dof: number): number {
   if (!(p > 0 && p < 1)) throw new RangeError(`coverage probability must lie strictly between 0 and 1 (got ${p})`);
   return studentTQuantile((1 + p) / 2, dof);
 }
+
+/**
+ * The two-sided coverage probability of a coverage factor k for a
+ * t-distribution with ν degrees of freedom: p = 2·F_ν(k) − 1 (the inverse of
+ * coverageFactorFor, GUM G.3.4), with ν truncated as there (GUM G.4.1); the
+ * normal probability for ν = ∞ (k = 2 → 0.9545, EA-4/02 M:2022 5.1).
+ */
+export function coverageProbabilityFor(k: number, dof: number): number {
+  if (!(k > 0 && Number.isFinite(k))) throw new RangeError(`coverage factor must be finite and greater than 0 (got ${k})`);
+  if (!(dof > 0)) throw new RangeError(`degrees of freedom must be greater than 0 (got ${dof})`);
+  const nu = dof === Infinity ? Infinity : dof >= 1 ? Math.floor(dof) : dof;
+  const F = nu > NORMAL_LIMIT_DOF ? jStat.normal.cdf(k, 0, 1) : jStat.studentt.cdf(k, nu);
+  return 2 * F - 1;
+}

@@ -53,6 +53,47 @@ describe('dubito compute', () => {
     expect(adaptive.monteCarlo.trials).toBeGreaterThanOrEqual(20000);
   });
 
+  it('prints the verdict "not possible" with its reason, no Monte Carlo u, and what is reported, for 3 observations (JCGM 101:2008 6.4.9)', () => {
+    const file = tempFile(
+      JSON.stringify({
+        format: 'dubito-budget/1',
+        title: 'three readings',
+        measurand: { symbol: 'Y', unit: 'mm' },
+        model: 'Y = a',
+        inputs: [{ symbol: 'a', unit: 'mm', distribution: { kind: 'observations', values: [10.0, 10.1, 10.05] } }],
+        monteCarlo: { trials: 20000, seed: 'cli' },
+      }),
+    );
+    const r = dubito('compute', file, '--format', 'table');
+    expect(r.status).toBe(0);
+    expect(r.stdout).toContain('y and u undefined (no variance)');
+    expect(r.stdout).toContain('GUM validated against Monte Carlo: not possible\n  the variance of t_ν is undefined for ν ≤ 2');
+    expect(r.stdout).toContain('reported: GUM figures, k = t_p(ν_eff) (NOT validated by the Monte Carlo method)');
+    expect(r.stdout).toContain('Y = (10.05 ± 0.12) mm.'); // k = t_0.975(2) = 4.30 (GUM Table G.2, from memory), u = 0.05/√3
+    expect(r.stdout).toContain('warning: The input "a" has only 3 observations (ν = 2)');
+  });
+
+  it('prints the adaptive stability (JCGM 101:2008 7.9.4) and a fixed k from the budget\'s reporting choice', () => {
+    const file = tempFile(
+      JSON.stringify({
+        format: 'dubito-budget/1',
+        title: 'sum',
+        measurand: { symbol: 'Y' },
+        model: 'Y = a + b',
+        inputs: [
+          { symbol: 'a', distribution: { kind: 'normal', value: 0, u: 1 } },
+          { symbol: 'b', distribution: { kind: 'normal', value: 0, u: 1 } },
+        ],
+        reporting: { basis: 'k-fixed', k: 2 },
+      }),
+    );
+    const r = dubito('compute', file, '--format', 'table', '--adaptive');
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/adaptive \(JCGM 101:2008 7\.9\): h = \d+ sequences of M = 10000; s\(y\) = .* δ = 0\.050 {2}stabilized: yes/); // u = 1.4: c = 14, ℓ = −1, δ = 0.05 (JCGM 101:2008 8.2)
+    expect(r.stdout).toContain('reported: GUM figures, k fixed at 2');
+    expect(r.stdout).toContain('coverage factor k = 2.00, which for a normal distribution corresponds to a coverage probability of approximately 95 %');
+  });
+
   const refusals: [string, string[], RegExp][] = [
     ['a file that is not JSON', [tempFile('{ "format": ')], /not a JSON document/],
     ['a missing file', ['/nonexistent/budget.json'], /cannot read .*no such file/],

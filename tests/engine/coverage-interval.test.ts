@@ -12,8 +12,15 @@ import { meanAndStandardDeviation } from '../../shared/montecarlo/summary';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
 import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
 
-/** Reference by full sort, straight from the wording of JCGM 101:2008 7.7.1–7.7.3 (1-based ranks). */
-function byFullSort(values: Float64Array, p: number): { symmetric: [number, number]; shortest: [number, number] } {
+/**
+ * Reference by full sort, straight from the wording of JCGM 101:2008 7.7.1–7.7.3 (1-based ranks),
+ * and the endpoints' numerical uncertainty: (y_(k+s) − y_(k−s))/2 with s = ⌈√(Mα(1 − α))⌉,
+ * α = k/M, the binomial spread of the rank of the α-quantile (ranks kept within each tail's M − q values).
+ */
+function byFullSort(
+  values: Float64Array,
+  p: number,
+): { symmetric: [number, number]; shortest: [number, number]; symmetricUncertainty: [number, number] } {
   const y = Float64Array.from(values).sort();
   const M = y.length;
   const pM = p * M;
@@ -21,7 +28,17 @@ function byFullSort(values: Float64Array, p: number): { symmetric: [number, numb
   const r = Number.isInteger((M - q) / 2) ? (M - q) / 2 : (M - q + 1) / 2;
   let best = 1;
   for (let s = 1; s <= M - q; s++) if (y[s + q - 1] - y[s - 1] < y[best + q - 1] - y[best - 1]) best = s;
-  return { symmetric: [y[r - 1], y[r + q - 1]], shortest: [y[best - 1], y[best + q - 1]] };
+  const spread = (k: number, first: number, last: number) => {
+    const s = Math.max(1, Math.ceil(Math.sqrt(k * (1 - k / M))));
+    const lo = Math.max(first, k - s);
+    const hi = Math.min(last, k + s);
+    return hi === lo ? 0 : ((y[hi - 1] - y[lo - 1]) * s) / (hi - lo);
+  };
+  return {
+    symmetric: [y[r - 1], y[r + q - 1]],
+    shortest: [y[best - 1], y[best + q - 1]],
+    symmetricUncertainty: [spread(r, 1, M - q), spread(r + q, q + 1, M)],
+  };
 }
 
 function uniforms(seed: string, n: number): Float64Array {

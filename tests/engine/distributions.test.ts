@@ -180,9 +180,41 @@ describe('samplers: mean and variance at 10⁶ draws within 5 standard errors', 
   });
 });
 
-describe('dof never changes sampling', () => {
+describe('a normal input stated with U, k and ν (JCGM 101:2008 6.4.9.7, from memory)', () => {
+  // 6.4.9.7 (from memory): a certificate giving x, U_p, k_p and ν_eff is assigned t_ν(x, (U_p/k_p)²), ν = ν_eff.
+  // The clause's logic checks out: the GUM interval x ± t_p(ν)·U_p/k_p is exactly the 100p % interval of
+  // that scaled and shifted t, so both methods state the same interval for a correct budget.
+  const spec: Distribution = { kind: 'normal', value: 5, U: 0.2571, k: 2.571, dof: 5 };
+
+  it('draws value + (U/k)·t_ν: variance (U/k)²·ν/(ν − 2) = 0.01·5/3 (JCGM 101:2008 6.4.9.2)', () => {
+    expectMoments(draw(spec), 5, (0.01 * 5) / 3);
+  });
+
+  it('its 95 % quantile is value + (U/k)·t_0.975(5) = 5 + 0.1·2.5706 (GUM Table G.2, from memory; scipy.stats.t.ppf(0.975, 5) = 2.570582)', () => {
+    const x = draw(spec, 'q', 400_000).sort();
+    const upper = x[Math.round(0.975 * x.length) - 1];
+    // binomial spread of the 97.5 % order statistic at 4·10⁵ draws: √(0.975·0.025/4e5)/g ≈ 0.0009 (g = t₅ density at 2.57 / 0.1)
+    expect(Math.abs(upper - (5 + 0.1 * 2.570582))).toBeLessThan(0.004);
+  });
+
+  it('declares its ν to the driver (Sampler.tDof), as student-t and observations do', () => {
+    expect(samplerFor(spec).tDof).toBe(5);
+    expect(samplerFor({ kind: 'normal', value: 5, u: 0.1 }).tDof).toBeUndefined();
+    expect(samplerFor({ kind: 'student-t', value: 0, scale: 1, dof: 2 }).tDof).toBe(2);
+    expect(samplerFor({ kind: 'observations', values: [1, 2, 4] }).tDof).toBe(2);
+    expect(samplerFor({ kind: 'observations', values: [1, 2, 4], pooledSd: 1, pooledDof: 30 }).tDof).toBe(30);
+  });
+
+  it('relativeUncertaintyOfU leaves a normal input Gaussian', () => {
+    const { relativeUncertaintyOfU: _r, ...plain } = { kind: 'normal', value: 1, u: 0.1, relativeUncertaintyOfU: 0.25 } as const;
+    expect(Array.from(draw({ kind: 'normal', value: 1, u: 0.1, relativeUncertaintyOfU: 0.25 }, 'same', 1000))).toEqual(
+      Array.from(draw(plain as Distribution, 'same', 1000)),
+    );
+  });
+});
+
+describe('dof changes the sampling of no kind but normal', () => {
   it.each<Distribution>([
-    { kind: 'normal', value: 1, u: 0.1, dof: 3 },
     { kind: 'rectangular', lower: 0, upper: 1, relativeUncertaintyOfU: 0.1 },
     { kind: 'observations', values: observations, dof: 100 },
   ])('$kind', (spec) => {

@@ -63,7 +63,7 @@ describe('steps of the law of propagation', () => {
 
   it('writes the certificate statement (EA-4/02 M:2022 5.2 wording)', () => {
     const r = computeBudget(budget('Y = a', { a: N(10.0123, 0.0151, { dof: 9 }) }), { monteCarlo: false });
-    const s = certificateStatement('Y', 'mm', r.gum);
+    const s = certificateStatement({ symbol: 'Y', unit: 'mm' }, r.reported!, r.gum.effectiveDof);
     expect(s).toContain('Y = (10.012 ± 0.034) mm'); // k = t₉₅(9) = 2.26 (Table G.2, from memory)
     expect(s).toContain('k = 2.26');
     expect(s).toContain('ν_eff = 9');

@@ -10,6 +10,8 @@ import {
 } from '../../shared/montecarlo/run-monte-carlo';
 import { correlatedNormalSampler, NotPositiveSemiDefinite } from '../../shared/montecarlo/correlated-normal';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
+import { computeBudget } from '../../shared/compute/compute-budget';
+import { budget, N } from '../support/budget-builder';
 import { sampleCorrelation, sampleMoments } from './moments';
 
 /** Y = X₁ + … + X_N as a compiled block. */
@@ -169,5 +171,57 @@ describe('runAdaptiveMonteCarlo (JCGM 101:2008 7.9.4)', () => {
     expect(run.adaptive!.sequences).toBe(3);
     expect(run.trials).toBe(300_000);
     expect(run.adaptive!.stabilized).toBe(false);
+  });
+});
+
+describe('numerical uncertainty of the coverage interval endpoints (JCGM 101:2008 7.9, 8)', () => {
+  it('four N(0, 1) at 10⁶ trials: u(y_low) ≈ √(α(1 − α)/M)/g(y_low) = 0.000156/0.02922 = 0.00534 (α = 0.025, g = φ(1.96)/2)', () => {
+    const run = runMonteCarlo(sumPlan(fourStandardNormals), { trials: 1_000_000, seed: 'jcgm-9.2.2', coverageProbability: 0.95 });
+    // the order-statistic estimate uses about 2√(Mα) = 312 ranks: its own relative spread is a few per cent
+    for (const u of run.endpointUncertainty) expect(Math.abs(u / 0.005342 - 1)).toBeLessThan(0.1);
+  });
+
+  it('agrees with the spread of y_low over 30 seeds at 5·10⁴ trials (closed form 0.0239)', () => {
+    const lows: number[] = [];
+    const estimates: number[] = [];
+    for (let i = 0; i < 30; i++) {
+      const run = runMonteCarlo(sumPlan(fourStandardNormals), { trials: 50_000, seed: `spread-${i}`, coverageProbability: 0.95 });
+      lows.push(run.interval[0]);
+      estimates.push(run.endpointUncertainty[0]);
+    }
+    const mean = lows.reduce((a, b) => a + b, 0) / lows.length;
+    const sd = Math.sqrt(lows.reduce((a, x) => a + (x - mean) ** 2, 0) / (lows.length - 1));
+    const estimated = estimates.reduce((a, b) => a + b, 0) / estimates.length;
+    // √(0.025·0.975/5e4)/0.02922 = 0.0239; a standard deviation from 30 values is good to about ±13 % (common practice: 1/√(2(n − 1)))
+    expect(Math.abs(estimated / 0.0239 - 1)).toBeLessThan(0.1);
+    expect(Math.abs(sd / estimated - 1)).toBeLessThan(0.4);
+  });
+});
+
+describe('adaptive runs report their stability in the result (JCGM 101:2008 7.9.4)', () => {
+  const r = computeBudget(
+    budget('Y = X1 + X2 + X3 + X4', { X1: N(0, 1), X2: N(0, 1), X3: N(0, 1), X4: N(0, 1) }, { monteCarlo: { trials: 'adaptive', seed: 'adaptive' } }),
+  );
+
+  it('h, M, the standard deviations of the sequence averages and δ; stable when every 2s ≤ δ', () => {
+    const st = r.monteCarlo!.stability!;
+    expect(st.sequenceLength).toBe(10_000); // max(⌈100/0.05⌉, 10⁴) (7.9.4 a)
+    expect(st.sequences).toBeGreaterThanOrEqual(2);
+    expect(r.monteCarlo!.trials).toBe(st.sequences * st.sequenceLength);
+    expect(st.tolerance).toBeCloseTo(0.05, 12); // u ≈ 2.0 → δ = 0.05
+    expect(st.stabilized).toBe(true);
+    for (const s of Object.values(st.spread)) expect(2 * s).toBeLessThanOrEqual(st.tolerance);
+  });
+
+  it('the verdict takes the endpoints\' numerical uncertainty from all h·M values: √(α(1 − α)/(hM))/g, g = φ(1.96)/2 (not the rough spread of h sequences)', () => {
+    const hM = r.monteCarlo!.trials;
+    const expected = Math.sqrt((0.025 * 0.975) / hM) / 0.02922;
+    for (const u of r.validation!.endpointUncertainty!) expect(Math.abs(u / expected - 1)).toBeLessThan(0.35);
+  });
+
+  it('a fixed run has no stability', () => {
+    const fixed = computeBudget(budget('Y = a', { a: N(0, 1) }, { monteCarlo: { trials: 10_000, seed: 'f' } }));
+    expect(fixed.monteCarlo!.stability).toBeUndefined();
+    expect(fixed.monteCarlo!.adaptive).toBe(false);
   });
 });

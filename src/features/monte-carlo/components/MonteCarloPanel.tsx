@@ -22,15 +22,23 @@ function Verdict({ result, unit }: { result: BudgetResult; unit: string }) {
   const v = result.validation;
   if (!v) return null;
   const d = (x: number) => `${formatSignificant(x, 2)}${unit ? ` ${unit}` : ''}`;
-  const ends = [v.dLow > v.tolerance ? 'lower' : null, v.dHigh > v.tolerance ? 'upper' : null].filter(Boolean);
+  if (v.tolerance === null || v.verdict === 'inconclusive') {
+    return (
+      <p className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
+        <span className="font-semibold">⚠ The GUM result is not validated</span> ({v.verdict === 'inconclusive' ? 'inconclusive' : 'comparison not possible'}): {v.reason}. JCGM 101:2008 clause 8.
+      </p>
+    );
+  }
+  const tolerance = v.tolerance;
+  const ends = [v.dLow > tolerance ? 'lower' : null, v.dHigh > tolerance ? 'upper' : null].filter(Boolean);
   return v.passed ? (
     <p className="rounded-md border border-accent-600 bg-accent-50 px-3 py-2 text-sm text-accent-700">
-      <span className="font-semibold">✓ The GUM result is validated.</span> Both ends of the GUM interval lie within δ = {d(v.tolerance)} of the Monte Carlo interval (d
+      <span className="font-semibold">✓ The GUM result is validated.</span> Both ends of the GUM interval lie within δ = {d(tolerance)} of the Monte Carlo interval (d
       <sub>low</sub> = {d(v.dLow)}, d<sub>high</sub> = {d(v.dHigh)}; δ is half a unit in the {v.significantDigits === 1 ? 'first' : `${v.significantDigits}nd`} significant digit of u(y)). JCGM 101:2008 clause 8.
     </p>
   ) : (
     <p className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
-      <span className="font-semibold">⚠ The GUM result is not validated.</span> At the {ends.join(' and ')} end{ends.length > 1 ? 's' : ''} the GUM interval differs from the Monte Carlo interval by more than δ = {d(v.tolerance)} (d
+      <span className="font-semibold">⚠ The GUM result is not validated.</span> At the {ends.join(' and ')} end{ends.length > 1 ? 's' : ''} the GUM interval differs from the Monte Carlo interval by more than δ = {d(tolerance)} (d
       <sub>low</sub> = {d(v.dLow)}, d<sub>high</sub> = {d(v.dHigh)}). Report the Monte Carlo interval, or look for a non-linear model or a dominant non-Gaussian input. JCGM 101:2008 clause 8.
     </p>
   );

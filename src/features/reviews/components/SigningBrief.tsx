@@ -75,7 +75,7 @@ export function SigningBrief({ state }: { state: ReviewState }) {
       <section aria-label="Result" className="flex flex-col gap-1">
         <Heading>Result of version {state.currentVersion} as stored</Heading>
         <p data-testid="signing-statement" className="rounded-md bg-stone-50 px-2 py-1 text-sm text-stone-900">
-          {certificateStatement(state.result.measurand.symbol, formatUnit(state.result.measurand.unit) || undefined, state.result.gum)}
+          {certificateStatement({ symbol: state.result.measurand.symbol, unit: formatUnit(state.result.measurand.unit) || undefined }, state.result.reported, state.result.gum.effectiveDof)}
         </p>
       </section>
       <section aria-label="Validation" className="flex flex-col gap-1">
