@@ -1,7 +1,7 @@
 import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import { formatAtExponent, roundUncertainty } from '../../shared/gum/rounding';
-import { certificateStatement } from '../../shared/gum/statement';
+import { resultStatement } from '../../shared/gum/statement';
 import { reportedOf } from '../../shared/compute/reported-result';
 
 const g = (x: number | null, digits = 4) => (x === null ? '∞' : Number.isFinite(x) ? x.toPrecision(digits) : String(x));
@@ -71,14 +71,18 @@ export function formatBudgetTable(doc: BudgetDocument, result: BudgetResult): st
     if (verdict !== 'validated' && validation.reason) lines.push(`  ${validation.reason}`);
   }
   const reported = reportedOf(result);
-  const basis = {
-    't-effective-dof': 'GUM figures, k = t_p(ν_eff)',
-    'k-fixed': `GUM figures, k fixed at ${reported.coverageFactor}`,
-    'monte-carlo': 'the Monte Carlo interval',
-  }[reported.basis];
-  const flag = reported.replacedGum ? ' (replaces the GUM result)' : reported.unvalidated ? ' (NOT validated by the Monte Carlo method)' : '';
-  lines.push(`reported: ${basis}${flag}`);
-  lines.push('', certificateStatement({ symbol: result.measurand.symbol, unit: unit || undefined }, reported, gum.effectiveDof));
+  if (reported) {
+    const basis = {
+      't-effective-dof': 'GUM figures, k = t_p(ν_eff)',
+      'k-fixed': `GUM figures, k fixed at ${reported.coverageFactor}`,
+      'monte-carlo': 'the Monte Carlo interval',
+    }[reported.basis];
+    const flag = reported.replacedGum ? ' (replaces the GUM result)' : reported.unvalidated ? ' (NOT validated by the Monte Carlo method)' : '';
+    lines.push(`reported: ${basis}${flag}`);
+  } else {
+    lines.push('reported: nothing (the GUM figures do not hold; run the Monte Carlo method)');
+  }
+  lines.push('', resultStatement({ symbol: result.measurand.symbol, unit: unit || undefined }, result));
   for (const w of result.warnings) lines.push(`warning: ${w}`);
   return `${lines.join('\n')}\n`;
 }

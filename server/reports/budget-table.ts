@@ -1,8 +1,7 @@
 import type { Contribution } from '../../shared/budget/result';
 import type { Distribution, InputQuantity } from '../../shared/budget/schema';
 import { budgetKindLabel } from '../../shared/format/distribution-labels';
-import { certificateStatement } from '../../shared/gum/statement';
-import { reportedOf } from '../../shared/compute/reported-result';
+import { resultStatement } from '../../shared/gum/statement';
 import { COLOR, STYLE, rule, type Cursor } from './layout';
 import { drawLine, drawParagraph, type TextStyle } from './pdf-text';
 import type { ReportData } from './report-data';
@@ -21,11 +20,7 @@ import {
 /** The statement for a certificate (GUM 7.2.6 rounding), with the unit typeset and digits grouped. */
 export function reportStatement(r: ReportData): string {
   const m = r.result.measurand;
-  const text = certificateStatement(
-    { symbol: m.symbol, unit: formatUnit(m.unit ?? r.document.measurand.unit) || undefined },
-    reportedOf(r.result),
-    r.result.gum.effectiveDof,
-  );
+  const text = resultStatement({ symbol: m.symbol, unit: formatUnit(m.unit ?? r.document.measurand.unit) || undefined }, r.result);
   return groupNumbersIn(text).replace(/ν_eff/g, 'ν_{eff}');
 }
 

@@ -1,4 +1,7 @@
 import { reportedOf } from '../../shared/compute/reported-result';
+import { superscript } from '../../shared/format/superscript';
+import { unitPieces, writeUnit } from '../../shared/format/unit-symbols';
+import { resultStatement } from '../../shared/gum/statement';
 import type { Comment, NewComment, ReviewQueueItem, ReviewState, SigningCaveat, TransitionOutput, TransitionTarget } from '../../shared/api/reviews';
 import type { BudgetResult, ValidationVerdict } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
@@ -165,7 +168,12 @@ export class ReviewsService {
       lastReturn: b.returned && lastDecision?.decision === 'returned' ? lastDecision : null,
       decisions,
       openThreads: open,
-      result: { measurand: result.measurand, gum: result.gum, reported: reportedOf(result) },
+      result: {
+        measurand: result.measurand,
+        gum: result.gum,
+        reported: reportedOf(result),
+        statement: resultStatement({ symbol: result.measurand.symbol, unit: writeUnit(unitPieces(result.measurand.unit), superscript) || undefined }, result),
+      },
       validation: verdictOf(result),
       warnings: result.warnings,
       evidence: evidenceOf(db, budgetId, b.currentVersion),

@@ -92,7 +92,7 @@ export interface ReviewState {
   /** The first comment of every unresolved thread, oldest first. */
   openThreads: Comment[];
   /** The stored result of the current version: the GUM figures and what it reports, for the statement the signature covers. */
-  result: { measurand: { symbol: string; unit?: string }; gum: GumResult; reported: ReportedResult };
+  result: { measurand: { symbol: string; unit?: string }; gum: GumResult; reported: ReportedResult | null; statement: string };
   /** Clause 8 verdict of the stored result; null when it has no Monte Carlo run. */
   validation: { verdict: ValidationVerdict; reason: string | null } | null;
   warnings: string[];

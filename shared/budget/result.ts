@@ -186,7 +186,11 @@ export interface BudgetResult {
   gum: GumResult;
   monteCarlo: MonteCarloResult | null;
   validation: ValidationResult | null;
-  /** What is reported; absent in results stored before the reporting choice existed (read as the GUM figures). */
-  reported?: ReportedResult;
+  /**
+   * What is reported. Absent in results stored before the reporting choice existed (read as the
+   * GUM figures); null when nothing can be reported: the GUM figures are unusable
+   * (`gum.unreportable`) and no Monte Carlo run was made to replace them.
+   */
+  reported?: ReportedResult | null;
   warnings: string[];
 }

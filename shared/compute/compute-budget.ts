@@ -15,7 +15,7 @@ import {
 } from '../montecarlo/run-monte-carlo';
 import { validateGumInterval, validationNotPossible } from '../montecarlo/validation';
 import type { Sampler } from '../distributions/distribution';
-import { reportedResult, reportingChoice } from './reported-result';
+import { gumUnusableReason, reportedResult, reportingChoice } from './reported-result';
 import { RESERVED_SYMBOLS } from '../model/sandbox';
 import { correlationMatrix } from './correlation-matrix';
 import { ENGINE_VERSION } from './engine-version';
@@ -258,7 +258,9 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
       warnings.push('Every Monte Carlo trial gave the same value: the measurand does not vary with the inputs, u = 0.');
     }
   }
-  const reported = reportedResult(gum.result, monteCarlo, validation, reportingChoice(doc.reporting));
+  // Without a Monte Carlo run, unusable GUM figures leave nothing to report: the result says so (null)
+  // and its warnings say why, so the budget table can still be shown.
+  const reported = !monteCarlo && gumUnusableReason(gum.result) ? null : reportedResult(gum.result, monteCarlo, validation, reportingChoice(doc.reporting));
 
   return {
     engineVersion: ENGINE_VERSION,

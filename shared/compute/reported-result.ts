@@ -107,7 +107,7 @@ export function reportedResult(
     if (!monteCarlo) {
       throw new BudgetError(
         'unreportable',
-        `no expanded uncertainty can be reported: ${unusable}. Run the Monte Carlo method (JCGM 101:2008), whose coverage interval holds there`,
+        `no expanded uncertainty can be reported: ${unusable.replace(/\.$/, '')}. Run the Monte Carlo method (JCGM 101:2008), whose coverage interval holds there`,
         'monteCarlo',
       );
     }
@@ -136,6 +136,8 @@ export function reportedResult(
  * the reporting choice existed, the default choice applied to its GUM and
  * Monte Carlo figures (the verdict read from `passed`).
  */
-export function reportedOf(result: BudgetResult): ReportedResult {
-  return result.reported ?? reportedResult(result.gum, result.monteCarlo, result.validation, reportingChoice(undefined));
+export function reportedOf(result: BudgetResult): ReportedResult | null {
+  if (result.reported !== undefined) return result.reported;
+  if (!result.monteCarlo && gumUnusableReason(result.gum)) return null;
+  return reportedResult(result.gum, result.monteCarlo, result.validation, reportingChoice(undefined));
 }

@@ -1,4 +1,5 @@
-import type { ReportedResult, ValidationVerdict } from '../budget/result';
+import type { BudgetResult, ReportedResult, ValidationVerdict } from '../budget/result';
+import { reportedOf } from '../compute/reported-result';
 import { formatAtExponent, roundResult, roundUncertainty } from './rounding';
 
 /** "95 %" or "95.45 %": the budget's p as given, up to two decimals. */
@@ -17,6 +18,12 @@ function distributionOf(effectiveDof: number | null): string {
 }
 
 /** Why the GUM result stands without the Monte Carlo validation, in one sentence. */
+/** A reason set inside a sentence: its own first capital and final stop removed. */
+function clause(reason: string): string {
+  const r = reason.trim().replace(/\.+$/, '');
+  return /^[A-Z][a-z]/.test(r) ? r[0].toLowerCase() + r.slice(1) : r;
+}
+
 function withoutValidation(verdict: ValidationVerdict | undefined, reason: string | undefined): string {
   switch (verdict) {
     case 'inconclusive':
@@ -25,7 +32,7 @@ function withoutValidation(verdict: ValidationVerdict | undefined, reason: strin
         '(clause 8) was inconclusive at the number of trials used.'
       );
     case 'not-possible':
-      return ` This result is reported although the Monte Carlo method of JCGM 101:2008 could not validate it: ${reason ?? 'the comparison of clause 8 was not possible'}.`;
+      return ` This result is reported although the Monte Carlo method of JCGM 101:2008 could not validate it: ${reason ? clause(reason) : 'the comparison of clause 8 was not possible'}.`;
     default:
       return (
         ' This result is reported although the Monte Carlo method of JCGM 101:2008 did not validate it: the GUM coverage ' +
@@ -40,7 +47,7 @@ function replacedBecause(reported: ReportedResult): string {
     case 'inconclusive':
       return 'whose validation by the Monte Carlo method was inconclusive (JCGM 101:2008 clause 8).';
     case 'not-possible':
-      return `which could not be validated: ${reported.validationReason ?? 'the comparison of JCGM 101:2008 clause 8 was not possible'}.`;
+      return `which could not be validated: ${reported.validationReason ? clause(reported.validationReason) : 'the comparison of JCGM 101:2008 clause 8 was not possible'}.`;
     default:
       return 'which the Monte Carlo method did not validate (JCGM 101:2008 clause 8).';
   }
@@ -91,4 +98,18 @@ export function certificateStatement(
     `${symbol} = (${y} ± ${U})${unit}. The reported expanded uncertainty is the combined standard uncertainty ` +
     `multiplied by the coverage factor k = ${k}, which for ${distributionOf(effectiveDof)} corresponds to a coverage probability of approximately ${pct}.`;
   return reported.unvalidated ? statement + withoutValidation(reported.validationVerdict, reported.validationReason) : statement;
+}
+
+/**
+ * The statement for the certificate of a computed result, or, where nothing can be
+ * reported (`reported` null: the GUM figures do not hold and no Monte Carlo run
+ * replaced them), the refusal in words with what to do.
+ */
+export function resultStatement(measurand: { symbol: string; unit?: string }, result: BudgetResult): string {
+  const reported = reportedOf(result);
+  if (!reported) {
+    const why = result.gum.unreportable?.message.replace(/\.$/, '') ?? 'the GUM figures do not hold for this model';
+    return `No expanded uncertainty can be stated for ${measurand.symbol}: ${why}. Run the Monte Carlo method (JCGM 101:2008), whose coverage interval holds there.`;
+  }
+  return certificateStatement(measurand, reported, result.gum.effectiveDof);
 }

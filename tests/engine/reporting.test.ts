@@ -5,7 +5,7 @@ import type { GumResult, MonteCarloResult, ValidationResult } from '../../shared
 import type { BudgetDocument } from '../../shared/budget/schema';
 import { computeBudget } from '../../shared/compute/compute-budget';
 import { reportedResult, reportingChoice } from '../../shared/compute/reported-result';
-import { certificateStatement } from '../../shared/gum/statement';
+import { certificateStatement, resultStatement } from '../../shared/gum/statement';
 import { coverageProbabilityFor } from '../../shared/statistics/student-t';
 import { budget, N, R } from '../support/budget-builder';
 
@@ -132,21 +132,29 @@ describe('reportedResult never reports GUM figures the engine knows to be unusab
     const r = computeBudget(budget(model, { a: N(0, 1) }, { monteCarlo: { trials: 200_000, seed: 'stationary' } }));
     expect(r.gum.standardUncertainty).toBe(0);
     expect(r.reported).toMatchObject({ basis: 'monte-carlo', replacedGum: true, validationVerdict: 'not-possible' });
-    expect(r.reported!.validationReason).toMatch(/first-order combined standard uncertainty is 0 while the second-order one is not/);
+    expect(r.reported!.validationReason).toMatch(/first-order law of propagation gives u_c = 0 but the higher-order terms give u_c = 1\.41/);
     expect(Math.abs(r.reported!.interval[1] - 5.0239)).toBeLessThan(0.05);
-    expect(certificateStatement({ symbol: 'Y' }, r.reported!, r.gum.effectiveDof)).toMatch(/replaces .* which could not be validated: the first-order/);
+    expect(certificateStatement({ symbol: 'Y' }, r.reported!, r.gum.effectiveDof)).toMatch(/replaces .* which could not be validated: the first-order law/);
   });
 
-  it('refuses without a Monte Carlo run, naming the reason and what to do', () => {
+  it('reports nothing without a Monte Carlo run, and the statement says why and what to do', () => {
+    const r = computeBudget(budget(model, { a: N(0, 1) }), { monteCarlo: false });
+    expect(r.reported).toBeNull();
+    expect(r.warnings.some((w) => w.startsWith('NOT REPORTABLE'))).toBe(true);
+    expect(resultStatement({ symbol: 'Y' }, r)).toMatch(/^No expanded uncertainty can be stated for Y: .*every sensitivity coefficient vanishes.* Run the Monte Carlo method/);
+  });
+
+  it('refuses to build reported figures from unusable GUM figures without a Monte Carlo run', () => {
+    const r = computeBudget(budget(model, { a: N(0, 1) }), { monteCarlo: false });
     let error: unknown;
     try {
-      computeBudget(budget(model, { a: N(0, 1) }), { monteCarlo: false });
+      reportedResult(r.gum, null, null, reportingChoice(undefined));
     } catch (e) {
       error = e;
     }
     expect(error).toBeInstanceOf(BudgetError);
     expect(error).toMatchObject({ code: 'unreportable', field: 'monteCarlo' });
-    expect((error as Error).message).toMatch(/stationary at the estimates .* Run the Monte Carlo method/);
+    expect((error as Error).message).toMatch(/every sensitivity coefficient vanishes.* Run the Monte Carlo method/);
   });
 
   it('refuses non-finite GUM figures the same way', () => {

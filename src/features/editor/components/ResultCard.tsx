@@ -1,6 +1,5 @@
 import type { BudgetResult } from '../../../../shared/budget/result';
-import { certificateStatement } from '../../../../shared/gum/statement';
-import { reportedOf } from '../../../../shared/compute/reported-result';
+import { resultStatement } from '../../../../shared/gum/statement';
 import { roundUncertainty } from '../../../../shared/gum/rounding';
 import { formatAt, formatDof, formatSignificant, fullPrecision } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
@@ -89,7 +88,7 @@ export function ResultCard({
       ) : null}
       <div className="mt-3 rounded-md bg-stone-50 p-2">
         <p className="text-xs font-medium text-stone-700">Statement for the certificate</p>
-        <p className="mt-1 text-sm leading-snug text-stone-900">{prettyStatement(certificateStatement({ symbol: result.measurand.symbol, unit: u || undefined }, reportedOf(result), g.effectiveDof))}</p>
+        <p className="mt-1 text-sm leading-snug text-stone-900">{prettyStatement(resultStatement({ symbol: result.measurand.symbol, unit: u || undefined }, result))}</p>
       </div>
       {secondOrder ? (
         <p role="note" className="mt-2 rounded-md border border-caution-500 bg-caution-50 px-2 py-1 text-xs text-caution-700">

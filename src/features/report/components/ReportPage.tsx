@@ -2,8 +2,7 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { BudgetResult, HistogramBins } from '../../../../shared/budget/result';
 import type { BudgetDocument } from '../../../../shared/budget/schema';
-import { certificateStatement } from '../../../../shared/gum/statement';
-import { reportedOf } from '../../../../shared/compute/reported-result';
+import { resultStatement } from '../../../../shared/gum/statement';
 import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Spinner } from '../../../app/ui/controls';
 import { formatCount, formatDateTime, formatDof, formatSignificant, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
@@ -85,7 +84,7 @@ export function ReportPage({ budgetId, versionNumber, renderBudgetTable }: { bud
   const r = v.result;
   const doc = v.document;
   const unit = formatUnit(r.measurand.unit);
-  const statement = certificateStatement({ symbol: r.measurand.symbol, unit: unit || undefined }, reportedOf(r), r.gum.effectiveDof);
+  const statement = resultStatement({ symbol: r.measurand.symbol, unit: unit || undefined }, r);
   const approved = v.approvedAt !== null;
   const mc = r.monteCarlo;
 

@@ -1,10 +1,8 @@
 import type { BudgetDiff, FieldChange } from '../../../../shared/api/diff';
 import type { Comment, ReviewDecision, ReviewState } from '../../../../shared/api/reviews';
 import type { ValidationVerdict } from '../../../../shared/budget/result';
-import { certificateStatement } from '../../../../shared/gum/statement';
 import { formatDateTime, formatSignificant } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
-import { formatUnit } from '../../../app/ui/units';
 
 /** The clause 8 verdict in words, with whether it asks the signer for a reason. */
 export const VERDICT_WORDS: Record<ValidationVerdict, { label: string; ok: boolean }> = {
@@ -75,7 +73,7 @@ export function SigningBrief({ state }: { state: ReviewState }) {
       <section aria-label="Result" className="flex flex-col gap-1">
         <Heading>Result of version {state.currentVersion} as stored</Heading>
         <p data-testid="signing-statement" className="rounded-md bg-stone-50 px-2 py-1 text-sm text-stone-900">
-          {certificateStatement({ symbol: state.result.measurand.symbol, unit: formatUnit(state.result.measurand.unit) || undefined }, state.result.reported, state.result.gum.effectiveDof)}
+          {state.result.statement}
         </p>
       </section>
       <section aria-label="Validation" className="flex flex-col gap-1">
