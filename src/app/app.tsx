@@ -1,26 +1,36 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { lazy, Suspense, type ComponentType } from 'react';
 import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
 import type { Me } from '../../shared/api/accounts';
-import { SignInPage } from '../features/auth/components/SignInPage';
-import { ForgotPasswordPage, SetPasswordPage } from '../features/auth/components/PasswordPages';
-import { BudgetsListPage } from '../features/budgets/components/BudgetsListPage';
-import { EditorPage } from '../features/editor/components/EditorPage';
-import { MonteCarloPanel } from '../features/monte-carlo/components/MonteCarloPanel';
-import { VersionsPage } from '../features/versions/components/VersionsPage';
-import { ComparePage } from '../features/versions/components/ComparePage';
-import { ReviewActions } from '../features/reviews/components/ReviewActions';
-import { CommentBadge, ReviewPanel, type ThreadKey } from '../features/reviews/components/ReviewPanel';
-import { TemplatesPage, TemplateToggle } from '../features/templates/components/TemplatesPage';
-import { AuditPage } from '../features/audit/components/AuditPage';
-import { MailboxPage } from '../features/admin/components/MailboxPage';
-import { UsersPage } from '../features/admin/components/UsersPage';
-import { ReportPage } from '../features/report/components/ReportPage';
-import { BudgetTable, SharesChart } from '../features/editor/components/BudgetTable';
 import { ApiError } from './http';
+import { PageLoading, RouteError } from './route-loading';
+import { useSignedInUser } from './routes/signed-in-user';
 import { AppShell, NotFound, RequireAction, RequireSignIn } from './shell';
 import { ToastProvider } from './ui/toasts';
-import { useOutletContext } from 'react-router-dom';
-import { useState } from 'react';
+
+/**
+ * A page loaded with its own chunk the first time its route is opened, so the
+ * sign-in page carries none of the editor, the engine or the chart library.
+ */
+function lazyPage<M, K extends keyof M>(load: () => Promise<M>, name: K) {
+  // React.lazy's own bound is ComponentType<any>; the page's props stay checked through M[K].
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+  return lazy(async () => ({ default: (await load())[name] as M[K] & ComponentType<any> }));
+}
+
+const SignInPage = lazyPage(() => import('../features/auth/components/SignInPage'), 'SignInPage');
+const ForgotPasswordPage = lazyPage(() => import('../features/auth/components/PasswordPages'), 'ForgotPasswordPage');
+const SetPasswordPage = lazyPage(() => import('../features/auth/components/PasswordPages'), 'SetPasswordPage');
+const BudgetsListPage = lazyPage(() => import('../features/budgets/components/BudgetsListPage'), 'BudgetsListPage');
+const VersionsPage = lazyPage(() => import('../features/versions/components/VersionsPage'), 'VersionsPage');
+const ComparePage = lazyPage(() => import('../features/versions/components/ComparePage'), 'ComparePage');
+const TemplatesPage = lazyPage(() => import('../features/templates/components/TemplatesPage'), 'TemplatesPage');
+const AuditPage = lazyPage(() => import('../features/audit/components/AuditPage'), 'AuditPage');
+const MailboxPage = lazyPage(() => import('../features/admin/components/MailboxPage'), 'MailboxPage');
+const UsersPage = lazyPage(() => import('../features/admin/components/UsersPage'), 'UsersPage');
+// Routes that compose several features live in one module each, so their parts arrive in one chunk, not one after another.
+const EditorRoute = lazy(() => import('./routes/editor-route'));
+const ReportRoute = lazy(() => import('./routes/report-route'));
 
 const queryClient = new QueryClient({
   defaultOptions: {
@@ -32,10 +42,6 @@ const queryClient = new QueryClient({
   },
 });
 
-function useMeFromShell(): Me {
-  return useOutletContext<Me>();
-}
-
 function SignedIn() {
   return (
     <RequireSignIn>
@@ -46,79 +52,44 @@ function SignedIn() {
   );
 }
 
+/** The shell stays on screen while a page's chunk loads; only the page area waits. */
 function AppShellWithContext({ me }: { me: Me }) {
-  return <AppShell me={me} outlet={<Outlet context={me} />} />;
-}
-
-function BudgetsRoute() {
-  const me = useMeFromShell();
-  return <BudgetsListPage role={me.role} />;
-}
-
-function EditorRoute() {
-  const { id, n } = useParams();
-  return <EditorWithReview key={`${id}-${n ?? 'current'}`} id={id} n={n} />;
-}
-
-/** The editor with the review feature in its slots: comment badges on rows, the thread beside the table, the review actions. */
-function EditorWithReview({ id, n }: { id?: string; n?: string }) {
-  const me = useMeFromShell();
-  const budgetId = id && id !== 'new' ? Number(id) : undefined;
-  const [thread, setThread] = useState<ThreadKey | null>(null);
   return (
-    <EditorPage
+    <AppShell
       me={me}
-      budgetId={budgetId}
-      versionNumber={n ? Number(n) : undefined}
-      renderMonteCarlo={(props) => <MonteCarloPanel {...props} />}
-      slots={
-        budgetId === undefined
-          ? undefined
-          : {
-              renderRowAdornment: (symbol) => <CommentBadge budgetId={budgetId} symbol={symbol} open={thread === symbol} onOpen={(s) => setThread((t) => (t === s ? null : s))} />,
-              renderHeaderActions: (ctx) => (
-                <>
-                  <ReviewActions ctx={ctx} me={me} />
-                  {ctx.viewingOld ? null : <TemplateToggle budgetId={ctx.budgetId} isTemplate={ctx.facts.isTemplate} role={me.role} />}
-                </>
-              ),
-              renderSidePanel: (ctx) => <ReviewPanel ctx={ctx} me={me} thread={thread} onThread={setThread} />,
-            }
+      outlet={
+        <Suspense fallback={<PageLoading />}>
+          <Outlet context={me} />
+        </Suspense>
       }
     />
   );
 }
 
+/** A page outside the shell (sign-in, passwords), with its own wait while its chunk loads. */
+function publicPage(path: string, element: React.ReactNode) {
+  return { path, errorElement: <RouteError />, element: <Suspense fallback={<PageLoading />}>{element}</Suspense> };
+}
+
+function BudgetsRoute() {
+  const me = useSignedInUser();
+  return <BudgetsListPage role={me.role} />;
+}
+
 function VersionsRoute() {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
   const { id } = useParams();
   return <VersionsPage me={me} budgetId={Number(id)} />;
 }
 
 function TemplatesRoute() {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
   return <TemplatesPage role={me.role} />;
 }
 
 function UsersRoute() {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
   return <UsersPage meId={me.id} />;
-}
-
-function ReportRoute() {
-  const { id, n } = useParams();
-  return (
-    <ReportPage
-      budgetId={Number(id)}
-      versionNumber={Number(n)}
-      renderBudgetTable={(result, document) => (
-        <>
-          <BudgetTable result={result} inputs={document.inputs} onSelect={() => {}} />
-          <SharesChart result={result} onSelect={() => {}} />
-        </>
-      )}
-    />
-  );
 }
 
 function CompareRoute() {
@@ -129,7 +100,7 @@ function CompareRoute() {
 }
 
 function Guarded({ action, children }: { action: Parameters<typeof RequireAction>[0]['action']; children: React.ReactNode }) {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
   return (
     <RequireAction me={me} action={action}>
       {children}
@@ -143,27 +114,34 @@ function guarded(path: string, action: Parameters<typeof Guarded>[0]['action'], 
 }
 
 const router = createBrowserRouter([
-  { path: '/sign-in', element: <SignInPage /> },
-  { path: '/forgot-password', element: <ForgotPasswordPage /> },
-  { path: '/set-password', element: <SetPasswordPage mode="invitation" /> },
-  { path: '/reset-password', element: <SetPasswordPage mode="reset" /> },
+  publicPage('/sign-in', <SignInPage />),
+  publicPage('/forgot-password', <ForgotPasswordPage />),
+  publicPage('/set-password', <SetPasswordPage mode="invitation" />),
+  publicPage('/reset-password', <SetPasswordPage mode="reset" />),
   {
     path: '/',
     element: <SignedIn />,
+    errorElement: <RouteError />,
     children: [
-      { index: true, element: <Navigate to="/budgets" replace /> },
-      { path: 'budgets', element: <BudgetsRoute /> },
-      guarded('budgets/new', 'budget.create', <EditorRoute />),
-      { path: 'budgets/:id', element: <EditorRoute /> },
-      { path: 'budgets/:id/versions', element: <VersionsRoute /> },
-      { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
-      { path: 'budgets/:id/compare', element: <CompareRoute /> },
-      { path: 'budgets/:id/versions/:n/report', element: <ReportRoute /> },
-      guarded('templates', 'budget.read', <TemplatesRoute />),
-      guarded('audit', 'audit.read', <AuditPage />),
-      guarded('admin/users', 'user.manage', <UsersRoute />),
-      guarded('admin/mail', 'mail.read', <MailboxPage />),
-      { path: '*', element: <NotFound /> },
+      {
+        // A page that fails (or whose chunk cannot be loaded) shows its error inside the shell, navigation intact.
+        errorElement: <RouteError />,
+        children: [
+          { index: true, element: <Navigate to="/budgets" replace /> },
+          { path: 'budgets', element: <BudgetsRoute /> },
+          guarded('budgets/new', 'budget.create', <EditorRoute />),
+          { path: 'budgets/:id', element: <EditorRoute /> },
+          { path: 'budgets/:id/versions', element: <VersionsRoute /> },
+          { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
+          { path: 'budgets/:id/compare', element: <CompareRoute /> },
+          { path: 'budgets/:id/versions/:n/report', element: <ReportRoute /> },
+          guarded('templates', 'budget.read', <TemplatesRoute />),
+          guarded('audit', 'audit.read', <AuditPage />),
+          guarded('admin/users', 'user.manage', <UsersRoute />),
+          guarded('admin/mail', 'mail.read', <MailboxPage />),
+          { path: '*', element: <NotFound /> },
+        ],
+      },
     ],
   },
 ]);
