@@ -150,7 +150,8 @@ export function App() {
   return (
     <QueryClientProvider client={queryClient}>
       <ToastProvider>
-        <RouterProvider router={router} />
+        {/* Without transitions a click shows the page area's loading state at once, instead of leaving the old page up, unanswered, while the next page's chunk arrives. */}
+        <RouterProvider router={router} useTransitions={false} />
       </ToastProvider>
     </QueryClientProvider>
   );
