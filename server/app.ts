@@ -19,7 +19,7 @@ import { DrizzleSessionStore } from './db/session-store';
 import { putSettingIfAbsent } from './db/settings-repository';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { sameOriginOnly } from './http/origin-check';
-import { staticClient } from './http/static-client';
+import { NO_STORE, staticClient } from './http/static-client';
 import { RouteTable, type RouteInfo } from './http/routes';
 import { mailRoutes } from './mail/mail-routes';
 import { MailService } from './mail/mail-service';
@@ -126,7 +126,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
   api.use(passport.session());
   api.use(sameOriginOnly(config.allowedOrigins));
   api.use((_req, res, next) => {
-    res.setHeader('Cache-Control', 'no-store');
+    res.setHeader('Cache-Control', NO_STORE);
     next();
   });
 

@@ -3,7 +3,7 @@ import { extname, join, resolve } from 'node:path';
 import express, { type Request, type Response, type Router } from 'express';
 
 /** A year: the longest lifetime caches honour; a fingerprinted file never changes under its name. */
-export const IMMUTABLE = 'public, max-age=31536000, immutable';
+const IMMUTABLE = 'public, max-age=31536000, immutable';
 /** The page that names the current fingerprints, and the API, must never be answered from a cache. */
 export const NO_STORE = 'no-store';
 
@@ -16,7 +16,7 @@ const PRECOMPRESSED = [
 /** Vite names every emitted asset `<name>-<8-character content hash>.<ext>`. */
 const FINGERPRINT = /-[A-Za-z0-9_-]{8}\.[a-z0-9]+$/;
 
-export function isFingerprinted(path: string): boolean {
+function isFingerprinted(path: string): boolean {
   return path.startsWith('/assets/') && FINGERPRINT.test(path);
 }
 
