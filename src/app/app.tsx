@@ -1,5 +1,5 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { lazy, Suspense, type ComponentType } from 'react';
+import { lazy, Suspense, useEffect, type ComponentType } from 'react';
 import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
 import type { Me } from '../../shared/api/accounts';
 import { ApiError } from './http';
@@ -29,7 +29,8 @@ const AuditPage = lazyPage(() => import('../features/audit/components/AuditPage'
 const MailboxPage = lazyPage(() => import('../features/admin/components/MailboxPage'), 'MailboxPage');
 const UsersPage = lazyPage(() => import('../features/admin/components/UsersPage'), 'UsersPage');
 // Routes that compose several features live in one module each, so their parts arrive in one chunk, not one after another.
-const EditorRoute = lazy(() => import('./routes/editor-route'));
+const loadEditorRoute = () => import('./routes/editor-route');
+const EditorRoute = lazy(loadEditorRoute);
 const ReportRoute = lazy(() => import('./routes/report-route'));
 
 const queryClient = new QueryClient({
@@ -73,6 +74,15 @@ function publicPage(path: string, element: React.ReactNode) {
 
 function BudgetsRoute() {
   const me = useSignedInUser();
+  // Opening a budget is what the list is for: fetch the editor's chunk once the browser is idle, so that click is instant.
+  useEffect(() => {
+    const fetchEditor = () => void loadEditorRoute().catch(() => {}); // a failure shows when the editor is opened
+    if (typeof requestIdleCallback === 'function') {
+      const handle = requestIdleCallback(fetchEditor);
+      return () => cancelIdleCallback(handle);
+    }
+    fetchEditor();
+  }, []);
   return <BudgetsListPage role={me.role} />;
 }
 

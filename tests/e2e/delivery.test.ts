@@ -74,9 +74,13 @@ describe('the client is delivered in pieces', () => {
     expect(scripts.filter((s) => s.bytes > 0)).toEqual([]);
   });
 
-  it('a new budget opens the editor without the chart library; the engine worker computes its result', async () => {
+  it('the list fetches the editor ahead; a new budget opens it without the chart library and the engine worker computes its result', async () => {
     const { page, scripts } = await watchedPage();
+    const editorFetched = page.waitForRequest(/editor-route-[^/]*\.js$/);
     await signIn(page, app.baseUrl, 'metrologist@dubito.example');
+    // The list fetches the editor's code while idle, before any budget is opened.
+    await editorFetched;
+    expect(page.url()).toMatch(/\/budgets$/);
     await page.goto(`${app.baseUrl}/budgets/new`);
     await page.getByText('No Monte Carlo result yet').waitFor();
     // The live recompute runs in a Web Worker served like any chunk: a GUM result proves it arrived and ran.
@@ -88,10 +92,10 @@ describe('the client is delivered in pieces', () => {
 
   it('a page whose code cannot be fetched offers a reload inside the shell', async () => {
     const { page } = await watchedPage();
-    await signIn(page, app.baseUrl, 'metrologist@dubito.example');
-    await page.getByRole('heading', { name: 'Budgets' }).waitFor();
     // As after an update: the tab asks for a chunk the server no longer has.
     await page.route(/editor-route-[^/]*\.js$/, (route) => route.fulfill({ status: 404, body: 'Not found' }));
+    await signIn(page, app.baseUrl, 'metrologist@dubito.example');
+    await page.getByRole('heading', { name: 'Budgets' }).waitFor();
     await page.locator('a[href^="/budgets/"]').first().click();
     await page.getByRole('alert').filter({ hasText: 'This page could not be loaded' }).waitFor();
     expect(await page.getByRole('button', { name: 'Reload' }).isVisible()).toBe(true);
