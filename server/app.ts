@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import compression from 'compression';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import { DEFAULTS } from '../shared/budget/limits';
@@ -18,6 +19,7 @@ import { DrizzleSessionStore } from './db/session-store';
 import { putSettingIfAbsent } from './db/settings-repository';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { sameOriginOnly } from './http/origin-check';
+import { NO_STORE, staticClient } from './http/static-client';
 import { RouteTable, type RouteInfo } from './http/routes';
 import { mailRoutes } from './mail/mail-routes';
 import { MailService } from './mail/mail-service';
@@ -99,6 +101,8 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
   // API answers are `no-store`; hashing every body for an entity tag would be wasted (static files keep theirs).
   app.set('etag', false);
   app.set('trust proxy', config.trustProxy);
+  // gzip or brotli for whatever is not already compressed: the API's JSON, and client files the build left plain.
+  app.use(compression());
   app.use((_req, res, next) => {
     res.setHeader('X-Content-Type-Options', 'nosniff');
     res.setHeader('Referrer-Policy', 'same-origin');
@@ -124,7 +128,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
   api.use(passport.session());
   api.use(sameOriginOnly(config.allowedOrigins));
   api.use((_req, res, next) => {
-    res.setHeader('Cache-Control', 'no-store');
+    res.setHeader('Cache-Control', NO_STORE);
     next();
   });
 
@@ -155,18 +159,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
   app.use(api);
   app.use('/api', apiNotFound);
 
-  if (config.staticDir && existsSync(join(config.staticDir, 'index.html'))) {
-    const dir = resolve(config.staticDir);
-    // Cross-origin isolation lets the Monte Carlo worker share a stop flag with the page (SharedArrayBuffer),
-    // so Cancel stops the engine between blocks; everything the client loads is same-origin.
-    app.use((_req, res, next) => {
-      res.setHeader('Cross-Origin-Opener-Policy', 'same-origin');
-      res.setHeader('Cross-Origin-Embedder-Policy', 'require-corp');
-      next();
-    });
-    app.use(express.static(dir, { index: false, maxAge: '1h' }));
-    app.get('/{*splat}', (_req, res) => res.sendFile(join(dir, 'index.html')));
-  }
+  if (config.staticDir && existsSync(join(config.staticDir, 'index.html'))) app.use(staticClient(config.staticDir));
   app.use(errorHandler(config.log));
 
   let closed = false;

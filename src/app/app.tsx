@@ -1,30 +1,38 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { lazy, Suspense, useEffect, type ComponentType } from 'react';
 import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
 import type { Me } from '../../shared/api/accounts';
-import { SignInPage } from '../features/auth/components/SignInPage';
-import { ForgotPasswordPage, SetPasswordPage } from '../features/auth/components/PasswordPages';
-import { BudgetsListPage } from '../features/budgets/components/BudgetsListPage';
-import { EditorPage } from '../features/editor/components/EditorPage';
-import { MonteCarloPanel } from '../features/monte-carlo/components/MonteCarloPanel';
-import { VersionsPage } from '../features/versions/components/VersionsPage';
-import { ComparePage } from '../features/versions/components/ComparePage';
-import { ReviewActions } from '../features/reviews/components/ReviewActions';
-import { ReviewQueue } from '../features/reviews/components/ReviewQueue';
-import { ReturnedNotice } from '../features/reviews/components/ReturnedNotice';
-import { EvidencePanel } from '../features/evidence/components/EvidencePanel';
-import { canAttach, isEditableStatus } from '../../shared/policy/policy';
-import { CommentBadge, ReviewPanel, type ThreadKey } from '../features/reviews/components/ReviewPanel';
-import { TemplatesPage, TemplateToggle } from '../features/templates/components/TemplatesPage';
-import { AuditPage } from '../features/audit/components/AuditPage';
-import { MailboxPage } from '../features/admin/components/MailboxPage';
-import { UsersPage } from '../features/admin/components/UsersPage';
-import { ReportPage } from '../features/report/components/ReportPage';
-import { BudgetTable, SharesChart } from '../features/editor/components/BudgetTable';
 import { ApiError } from './http';
+import { PageLoading, RouteError } from './route-loading';
+import { useSignedInUser } from './routes/signed-in-user';
 import { AppShell, NotFound, RequireAction, RequireSignIn } from './shell';
 import { ToastProvider } from './ui/toasts';
-import { useOutletContext } from 'react-router-dom';
-import { useState } from 'react';
+
+/**
+ * A page loaded with its own chunk the first time its route is opened, so the
+ * sign-in page carries none of the editor, the engine or the chart library.
+ */
+function lazyPage<M, K extends keyof M>(load: () => Promise<M>, name: K) {
+  // React.lazy's own bound is ComponentType<any>; the page's props stay checked through M[K].
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+  return lazy(async () => ({ default: (await load())[name] as M[K] & ComponentType<any> }));
+}
+
+const SignInPage = lazyPage(() => import('../features/auth/components/SignInPage'), 'SignInPage');
+const ForgotPasswordPage = lazyPage(() => import('../features/auth/components/PasswordPages'), 'ForgotPasswordPage');
+const SetPasswordPage = lazyPage(() => import('../features/auth/components/PasswordPages'), 'SetPasswordPage');
+const BudgetsListPage = lazyPage(() => import('../features/budgets/components/BudgetsListPage'), 'BudgetsListPage');
+const ReviewQueue = lazyPage(() => import('../features/reviews/components/ReviewQueue'), 'ReviewQueue');
+const VersionsPage = lazyPage(() => import('../features/versions/components/VersionsPage'), 'VersionsPage');
+const ComparePage = lazyPage(() => import('../features/versions/components/ComparePage'), 'ComparePage');
+const TemplatesPage = lazyPage(() => import('../features/templates/components/TemplatesPage'), 'TemplatesPage');
+const AuditPage = lazyPage(() => import('../features/audit/components/AuditPage'), 'AuditPage');
+const MailboxPage = lazyPage(() => import('../features/admin/components/MailboxPage'), 'MailboxPage');
+const UsersPage = lazyPage(() => import('../features/admin/components/UsersPage'), 'UsersPage');
+// Routes that compose several features live in one module each, so their parts arrive in one chunk, not one after another.
+const loadEditorRoute = () => import('./routes/editor-route');
+const EditorRoute = lazy(loadEditorRoute);
+const ReportRoute = lazy(() => import('./routes/report-route'));
 
 const queryClient = new QueryClient({
   defaultOptions: {
@@ -36,10 +44,6 @@ const queryClient = new QueryClient({
   },
 });
 
-function useMeFromShell(): Me {
-  return useOutletContext<Me>();
-}
-
 function SignedIn() {
   return (
     <RequireSignIn>
@@ -50,13 +54,37 @@ function SignedIn() {
   );
 }
 
+/** The shell stays on screen while a page's chunk loads; only the page area waits. */
 function AppShellWithContext({ me }: { me: Me }) {
-  return <AppShell me={me} outlet={<Outlet context={me} />} />;
+  return (
+    <AppShell
+      me={me}
+      outlet={
+        <Suspense fallback={<PageLoading />}>
+          <Outlet context={me} />
+        </Suspense>
+      }
+    />
+  );
+}
+
+/** A page outside the shell (sign-in, passwords), with its own wait while its chunk loads. */
+function publicPage(path: string, element: React.ReactNode) {
+  return { path, errorElement: <RouteError />, element: <Suspense fallback={<PageLoading />}>{element}</Suspense> };
 }
 
 /** The home page: a reviewer's queue above the list of budgets. */
 function BudgetsRoute() {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
+  // Opening a budget is what the list is for: fetch the editor's chunk once the browser is idle, so that click is instant.
+  useEffect(() => {
+    const fetchEditor = () => void loadEditorRoute().catch(() => {}); // a failure shows when the editor is opened
+    if (typeof requestIdleCallback === 'function') {
+      const handle = requestIdleCallback(fetchEditor);
+      return () => cancelIdleCallback(handle);
+    }
+    fetchEditor();
+  }, []);
   return (
     <>
       <ReviewQueue role={me.role} />
@@ -65,85 +93,20 @@ function BudgetsRoute() {
   );
 }
 
-function EditorRoute() {
-  const { id, n } = useParams();
-  // evidence on an approved version makes a new draft version: the editor starts again from it
-  const [generation, setGeneration] = useState(0);
-  return <EditorWithReview key={`${id}-${n ?? 'current'}-${generation}`} id={id} n={n} onNewVersion={() => setGeneration((g) => g + 1)} />;
-}
-
-/** The editor with the review feature in its slots: comment badges on rows, the thread beside the table, the review actions. */
-function EditorWithReview({ id, n, onNewVersion }: { id?: string; n?: string; onNewVersion(): void }) {
-  const me = useMeFromShell();
-  const budgetId = id && id !== 'new' ? Number(id) : undefined;
-  const [thread, setThread] = useState<ThreadKey | null>(null);
-  return (
-    <EditorPage
-      me={me}
-      budgetId={budgetId}
-      versionNumber={n ? Number(n) : undefined}
-      renderMonteCarlo={(props) => <MonteCarloPanel {...props} />}
-      slots={
-        budgetId === undefined
-          ? undefined
-          : {
-              renderRowAdornment: (symbol) => <CommentBadge budgetId={budgetId} symbol={symbol} open={thread === symbol} onOpen={(s) => setThread((t) => (t === s ? null : s))} />,
-              renderHeaderActions: (ctx) => (
-                <>
-                  <ReviewActions ctx={ctx} me={me} />
-                  {ctx.viewingOld ? null : <TemplateToggle budgetId={ctx.budgetId} isTemplate={ctx.facts.isTemplate} role={me.role} />}
-                </>
-              ),
-              renderSidePanel: (ctx) => <ReviewPanel ctx={ctx} me={me} thread={thread} onThread={setThread} />,
-              renderTopNotice: (ctx) => (ctx.viewingOld ? null : <ReturnedNotice budgetId={ctx.budgetId} meId={me.id} />),
-              renderEvidence: (ctx) => (
-                <EvidencePanel
-                  ctx={{
-                    budgetId: ctx.budgetId,
-                    version: ctx.version,
-                    symbols: ctx.symbols,
-                    mayAttach: !ctx.viewingOld && !ctx.dirty && isEditableStatus(ctx.facts.status) && canAttach(me, ctx.facts),
-                    approved: ctx.facts.status === 'approved',
-                  }}
-                  onNewVersion={onNewVersion}
-                />
-              ),
-            }
-      }
-    />
-  );
-}
-
 function VersionsRoute() {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
   const { id } = useParams();
   return <VersionsPage me={me} budgetId={Number(id)} />;
 }
 
 function TemplatesRoute() {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
   return <TemplatesPage role={me.role} />;
 }
 
 function UsersRoute() {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
   return <UsersPage meId={me.id} />;
-}
-
-function ReportRoute() {
-  const { id, n } = useParams();
-  return (
-    <ReportPage
-      budgetId={Number(id)}
-      versionNumber={Number(n)}
-      renderBudgetTable={(result, document) => (
-        <>
-          <BudgetTable result={result} inputs={document.inputs} onSelect={() => {}} />
-          <SharesChart result={result} onSelect={() => {}} />
-        </>
-      )}
-    />
-  );
 }
 
 function CompareRoute() {
@@ -154,7 +117,7 @@ function CompareRoute() {
 }
 
 function Guarded({ action, children }: { action: Parameters<typeof RequireAction>[0]['action']; children: React.ReactNode }) {
-  const me = useMeFromShell();
+  const me = useSignedInUser();
   return (
     <RequireAction me={me} action={action}>
       {children}
@@ -168,27 +131,34 @@ function guarded(path: string, action: Parameters<typeof Guarded>[0]['action'], 
 }
 
 const router = createBrowserRouter([
-  { path: '/sign-in', element: <SignInPage /> },
-  { path: '/forgot-password', element: <ForgotPasswordPage /> },
-  { path: '/set-password', element: <SetPasswordPage mode="invitation" /> },
-  { path: '/reset-password', element: <SetPasswordPage mode="reset" /> },
+  publicPage('/sign-in', <SignInPage />),
+  publicPage('/forgot-password', <ForgotPasswordPage />),
+  publicPage('/set-password', <SetPasswordPage mode="invitation" />),
+  publicPage('/reset-password', <SetPasswordPage mode="reset" />),
   {
     path: '/',
     element: <SignedIn />,
+    errorElement: <RouteError />,
     children: [
-      { index: true, element: <Navigate to="/budgets" replace /> },
-      { path: 'budgets', element: <BudgetsRoute /> },
-      guarded('budgets/new', 'budget.create', <EditorRoute />),
-      { path: 'budgets/:id', element: <EditorRoute /> },
-      { path: 'budgets/:id/versions', element: <VersionsRoute /> },
-      { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
-      { path: 'budgets/:id/compare', element: <CompareRoute /> },
-      { path: 'budgets/:id/versions/:n/report', element: <ReportRoute /> },
-      guarded('templates', 'budget.read', <TemplatesRoute />),
-      guarded('audit', 'audit.read', <AuditPage />),
-      guarded('admin/users', 'user.manage', <UsersRoute />),
-      guarded('admin/mail', 'mail.read', <MailboxPage />),
-      { path: '*', element: <NotFound /> },
+      {
+        // A page that fails (or whose chunk cannot be loaded) shows its error inside the shell, navigation intact.
+        errorElement: <RouteError />,
+        children: [
+          { index: true, element: <Navigate to="/budgets" replace /> },
+          { path: 'budgets', element: <BudgetsRoute /> },
+          guarded('budgets/new', 'budget.create', <EditorRoute />),
+          { path: 'budgets/:id', element: <EditorRoute /> },
+          { path: 'budgets/:id/versions', element: <VersionsRoute /> },
+          { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
+          { path: 'budgets/:id/compare', element: <CompareRoute /> },
+          { path: 'budgets/:id/versions/:n/report', element: <ReportRoute /> },
+          guarded('templates', 'budget.read', <TemplatesRoute />),
+          guarded('audit', 'audit.read', <AuditPage />),
+          guarded('admin/users', 'user.manage', <UsersRoute />),
+          guarded('admin/mail', 'mail.read', <MailboxPage />),
+          { path: '*', element: <NotFound /> },
+        ],
+      },
     ],
   },
 ]);
@@ -197,7 +167,8 @@ export function App() {
   return (
     <QueryClientProvider client={queryClient}>
       <ToastProvider>
-        <RouterProvider router={router} />
+        {/* Without transitions a click shows the page area's loading state at once, instead of leaving the old page up, unanswered, while the next page's chunk arrives. */}
+        <RouterProvider router={router} useTransitions={false} />
       </ToastProvider>
     </QueryClientProvider>
   );
