@@ -1,0 +1,22 @@
+/*
+ * The status of a budget version in one word or phrase, the same on screen and on paper.
+ */
+
+/** The status a version shows: the budget's status for the current version, "superseded" for older unapproved ones. */
+export type VersionStatus = 'draft' | 'returned' | 'in_review' | 'approved' | 'superseded';
+
+export const STATUS_WORDS: Record<VersionStatus, string> = {
+  draft: 'Draft',
+  returned: 'Draft (returned by the reviewer)',
+  in_review: 'In review',
+  approved: 'Approved',
+  superseded: 'Superseded draft',
+};
+
+/** Whether a version in this status carries the "not approved" mark on screen, in print and in the PDF. */
+export function isUnapproved(status: VersionStatus): boolean {
+  return status !== 'approved';
+}
+
+/** The words printed across every page of an unapproved version. */
+export const DRAFT_MARK = 'DRAFT — not approved';
