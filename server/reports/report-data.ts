@@ -1,16 +1,9 @@
 import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
 
-/** The status a version shows on paper: the budget's status for the current version, "superseded" for older drafts. */
-export type VersionStatus = 'draft' | 'returned' | 'in_review' | 'approved' | 'superseded';
+import type { VersionStatus } from '../../shared/presentation/status';
 
-export const STATUS_WORDS: Record<VersionStatus, string> = {
-  draft: 'Draft',
-  returned: 'Draft (returned by the reviewer)',
-  in_review: 'In review',
-  approved: 'Approved',
-  superseded: 'Superseded draft',
-};
+export { STATUS_WORDS, type VersionStatus } from '../../shared/presentation/status';
 
 /** Everything the report shows, gathered by the service; the renderer reads nothing else. */
 export interface ReportData {

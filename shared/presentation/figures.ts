@@ -121,11 +121,16 @@ export function significantFigure(x: number, sig = 2): Figure {
   return fromNumeral(significant(x, sig), Number.isFinite(x) ? x : null);
 }
 
-/** A number as it was entered in the budget file, digits grouped; a power of ten outside 10⁻³ … 10⁶. */
+/** A number as it was entered in the budget file, digits grouped: 0.0005 stays "0.0005"; a power of ten where JavaScript would write one (below 10⁻⁶, from 10²¹). */
 export function given(x: number): Figure {
-  const a = Math.abs(x);
-  if (x === 0 || (a >= 1e-3 && a < 1e6)) return plainFigure(groupDigits(String(x)), x);
+  if (!/e/i.test(String(x))) return plainFigure(groupDigits(String(x)), x);
   return fromNumeral(significant(x, Math.min(15, x.toExponential().split('e')[0].replace(/[-.]/g, '').length)), x);
+}
+
+/** A named figure as an equation: "ν_eff = 29", but "ν_eff > 1000" where the figure is a bound. */
+export function relation(name: string, f: Figure): Figure {
+  const op = /^[<>≤≥]/.test(f.text) ? ' ' : ' = ';
+  return { text: `${name}${op}${f.text}`, markup: `${name}${op}${f.markup}`, value: f.value };
 }
 
 /** A count, whole and grouped: 200000 → "200 000" (SI Brochure 5.4.4). */
@@ -143,6 +148,12 @@ export function relativeChange(r: number): Figure {
 /** A change of a share, in percentage points with its sign and one decimal. */
 export function pointsChange(d: number): Figure {
   return plainFigure(`${d > 0 ? '+' : d < 0 ? MINUS : ''}${groupDigits(Math.abs(d * 100).toFixed(1))} points`, d);
+}
+
+/** A duration for progress and run times: "850 ms", "4.2 s" below ten seconds, whole seconds above. */
+export function duration(ms: number): Figure {
+  if (ms < 1000) return plainFigure(`${Math.round(ms)} ms`, ms);
+  return plainFigure(`${(ms / 1000).toFixed(ms < 10_000 ? 1 : 0)} s`, ms);
 }
 
 /** The unrounded value for a tooltip, true minus sign; "∞" for none. */

@@ -19,7 +19,8 @@ import {
   type Figure,
 } from './figures';
 import { divisor, statedAs } from './stated';
-import { sensitivityShown, unitText, type ShownCoefficient, type UnitText } from './units';
+import { parseUnit, sameDimension } from '../model/units';
+import { sensitivityShown, unitText, withUnit, type ShownCoefficient, type UnitText } from './units';
 import { verdictView, type VerdictView } from './verdict';
 
 /*
@@ -84,8 +85,8 @@ export interface RankedTerm {
 export interface BudgetView {
   rows: BudgetRow[];
   ranked: RankedTerm[];
-  /** The largest term in words: "u(T) contributes 72 % of the variance." */
-  dominant: string;
+  /** The largest term in words: "u(T) contributes 72 % of the variance u_c²." */
+  dominant: Text;
   totals: {
     standardUncertainty: Figure;
     effectiveDof: Figure;
@@ -108,6 +109,8 @@ export interface MonteCarloView {
   rows: { label: string; gum: Figure | null; monteCarlo: Figure }[];
   /** For adaptive runs, how stable the figures are (JCGM 101:2008 7.9.4). */
   stability: string | null;
+  /** The decimal place of the comparison's figures (10^place), for the axis of a chart beside them. */
+  place: number;
 }
 
 export interface ResultModel {
@@ -120,6 +123,10 @@ export interface ResultModel {
   validation: VerdictView | null;
   /** Warnings that name no single input. */
   warnings: string[];
+  /** The model as written, and each intermediate quantity's value at the estimates with its unit. */
+  model: { text: string; intermediates: { symbol: string; value: Figure }[] };
+  /** The constants of the model, one line each: "g_n = 9.806 65 m/s² — standard acceleration of gravity". */
+  constants: Text[];
   correlations: { symbols: string[]; matrix: Figure[][] } | null;
   /** The readings of Type A inputs, for the appendix. */
   observations: { symbol: string; unit: UnitText; values: Figure[] }[];
@@ -215,21 +222,20 @@ function budgetView(document: BudgetDocument, result: BudgetResult): BudgetView 
     return { symbol: c.symbol, share: share(c.varianceShare), cumulative: share(Math.min(1, running)) };
   });
   const [first, second] = sorted;
-  let dominant = 'No input contributes to the variance.';
-  if (first && first.varianceShare > 0) {
-    dominant = `u(${first.symbol}) contributes ${share(first.varianceShare).text} of the variance u_c²`;
-    dominant +=
-      first.varianceShare < 0.5 && second && second.varianceShare > 0
-        ? `; with u(${second.symbol}), ${share(first.varianceShare + second.varianceShare).text}.`
-        : '.';
-  }
+  const dominantIn = (uc: string) => {
+    if (!first || !(first.varianceShare > 0)) return 'No input contributes to the variance.';
+    const tail =
+      first.varianceShare < 0.5 && second && second.varianceShare > 0 ? `; with u(${second.symbol}), ${share(first.varianceShare + second.varianceShare).text}.` : '.';
+    return `u(${first.symbol}) contributes ${share(first.varianceShare).text} of the variance ${uc}²${tail}`;
+  };
+  const dominant = { text: dominantIn('u_c'), markup: dominantIn('u_{c}') };
   const correlated = (document.correlations ?? []).length > 0;
   const methods = new Set(g.contributions.map((k) => k.sensitivityMethod));
   const how = methods.has('numeric') ? (methods.has('symbolic') ? 'symbolic where possible, otherwise numerical differentiation' : 'numerical differentiation') : 'symbolic differentiation';
   const combine = (s: 'text' | 'markup') => {
     const i = s === 'markup' ? (x: string) => `_{${x}}` : (x: string) => `_${x}`;
     return (
-      `c${i('i')} = ∂f/∂x${i('i')} at the estimates (${how}, GUM 5.1.3); u${i('c')}² = Σ c${i('i')}² u²(x${i('i')})` +
+      `c${i('i')}, the partial derivative of the model with respect to x${i('i')} at the estimates (${how}, GUM 5.1.3); u${i('c')}² = Σ c${i('i')}² u²(x${i('i')})` +
       (correlated ? ` + 2 ΣΣ c${i('i')} c${i('j')} u(x${i('i')}) u(x${i('j')}) r(x${i('i')}, x${i('j')}) (GUM 5.2.2)` : ' (GUM 5.1.2)') +
       `; ν${i('eff')} by the Welch–Satterthwaite formula (GUM G.4.1); share = (c${i('i')} u(x${i('i')}))² / Σ (c${i('j')} u(x${i('j')}))².`
     );
@@ -264,6 +270,7 @@ function monteCarloView(result: BudgetResult): MonteCarloView | null {
     adaptive: mc.adaptive,
     heading: `${count(mc.trials).text} trials${mc.adaptive ? ' (adaptive)' : ''}`,
     probability: p,
+    place,
     rows: [
       { label: 'Estimate y', gum: atDecimalPlace(g.estimate, place), monteCarlo: atDecimalPlace(mc.estimate, place) },
       { label: 'Standard uncertainty u(y)', gum: uncertainty(g.standardUncertainty), monteCarlo: uncertainty(mc.standardUncertainty) },
@@ -286,9 +293,48 @@ function correlationsView(document: BudgetDocument): ResultModel['correlations']
   return { symbols, matrix: symbols.map((a) => symbols.map((b) => given(r(a, b)))) };
 }
 
+/**
+ * The intermediates come in coherent SI units; each is shown in the unit the budget itself uses for
+ * that dimension (the measurand's, else the first input's), so t_bath reads in °C beside inputs in °C.
+ */
+function intermediatesView(document: BudgetDocument, result: BudgetResult): { symbol: string; value: Figure }[] {
+  const own = [result.measurand.unit ?? document.measurand.unit, ...document.inputs.map((q) => q.unit)].filter((u): u is string => !!u);
+  const parse = (u: string) => {
+    try {
+      return parseUnit(u);
+    } catch {
+      return null;
+    }
+  };
+  return result.gum.intermediates.map((q) => {
+    const si = parse(q.unit);
+    const match = si ? own.map((u) => ({ u, p: parse(u) })).find((o) => o.p && sameDimension(o.p.dimension, si.dimension)) : undefined;
+    if (si && match?.p) return { symbol: q.symbol, value: withUnit(significantFigure((q.value * si.factor) / match.p.factor, 6), unitText(match.u)) };
+    return { symbol: q.symbol, value: withUnit(significantFigure(q.value, 6), unitText(q.unit)) };
+  });
+}
+
+function constantsView(document: BudgetDocument): Text[] {
+  return (document.constants ?? []).map((k) => {
+    const v = withUnit(given(k.value), unitText(k.unit));
+    const d = k.description ? ` — ${k.description}` : '';
+    return { text: `${k.symbol} = ${v.text}${d}`, markup: `${k.symbol} = ${v.markup}${d}` };
+  });
+}
+
+/** The Monte Carlo comparison and its verdict alone, for a run that has no budget document beside it (a run in the browser). */
+export function presentMonteCarlo(result: BudgetResult, measurandUnit?: string): Pick<ResultModel, 'monteCarlo' | 'validation'> & { unit: UnitText } {
+  const unit = unitText(result.measurand.unit ?? measurandUnit);
+  return {
+    unit,
+    monteCarlo: monteCarloView(result),
+    validation: result.validation ? verdictView(result.validation, unit, result.reported) : null,
+  };
+}
+
 /** Builds what a reader sees of a computed budget: the single source of every figure on screen, paper and terminal. */
 export function presentResult(document: BudgetDocument, result: BudgetResult): ResultModel {
-  const unit = unitText(result.measurand.unit ?? document.measurand.unit);
+  const { unit, monteCarlo, validation } = presentMonteCarlo(result, document.measurand.unit);
   const budget = budgetView(document, result);
   const symbols = new Set(result.gum.contributions.map((c) => c.symbol));
   return {
@@ -296,9 +342,11 @@ export function presentResult(document: BudgetDocument, result: BudgetResult): R
     reported: reportedFigures(result),
     statement: statementOf(result, unit),
     budget,
-    monteCarlo: monteCarloView(result),
-    validation: result.validation ? verdictView(result.validation, unit, result.reported) : null,
+    monteCarlo,
+    validation,
     warnings: result.warnings.filter((w) => ![...symbols].some((s) => mentions(w, s))),
+    model: { text: document.model, intermediates: intermediatesView(document, result) },
+    constants: constantsView(document),
     correlations: correlationsView(document),
     observations: document.inputs.flatMap((q) =>
       q.distribution.kind === 'observations' ? [{ symbol: q.symbol, unit: unitText(q.unit), values: q.distribution.values.map((v) => given(v)) }] : [],

@@ -20,3 +20,14 @@ export function isUnapproved(status: VersionStatus): boolean {
 
 /** The words printed across every page of an unapproved version. */
 export const DRAFT_MARK = 'DRAFT — not approved';
+
+/** The status of version `number` of a budget whose current version and status are given. */
+export function versionStatus(
+  budget: { currentVersion: number; status: 'draft' | 'in_review' | 'approved'; returned: boolean },
+  version: { number: number; approvedAt: number | null },
+): VersionStatus {
+  if (version.approvedAt !== null) return 'approved';
+  if (version.number !== budget.currentVersion) return 'superseded';
+  if (budget.status === 'draft') return budget.returned ? 'returned' : 'draft';
+  return budget.status;
+}

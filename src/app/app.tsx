@@ -15,7 +15,7 @@ import { AuditPage } from '../features/audit/components/AuditPage';
 import { MailboxPage } from '../features/admin/components/MailboxPage';
 import { UsersPage } from '../features/admin/components/UsersPage';
 import { ReportPage } from '../features/report/components/ReportPage';
-import { BudgetTable, SharesChart } from '../features/editor/components/BudgetTable';
+import { BudgetWithContributions } from '../features/editor/components/BudgetTable';
 import { ApiError } from './http';
 import { AppShell, NotFound, RequireAction, RequireSignIn } from './shell';
 import { ToastProvider } from './ui/toasts';
@@ -111,12 +111,7 @@ function ReportRoute() {
     <ReportPage
       budgetId={Number(id)}
       versionNumber={Number(n)}
-      renderBudgetTable={(result, document) => (
-        <>
-          <BudgetTable result={result} inputs={document.inputs} onSelect={() => {}} />
-          <SharesChart result={result} onSelect={() => {}} />
-        </>
-      )}
+      renderBudgetTable={(model) => <BudgetWithContributions model={model} />}
     />
   );
 }

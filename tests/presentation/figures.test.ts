@@ -144,3 +144,21 @@ describe('the value as stated and its divisor', () => {
     expect(divisor(d).text).toBe('√4');
   });
 });
+
+describe('figures named in a sentence', () => {
+  it('a bound reads as a bound', async () => {
+    const { relation } = await import('../../shared/presentation/figures');
+    expect(relation('ν_eff', dof(2004)).text).toBe('ν_eff > 1000');
+    expect(relation('ν_eff', dof(29)).text).toBe('ν_eff = 29');
+    expect(given(0.0005).text).toBe('0.0005');
+  });
+});
+
+describe('durations', () => {
+  it('milliseconds, then seconds with one decimal below ten', async () => {
+    const { duration } = await import('../../shared/presentation/figures');
+    expect(duration(850).text).toBe('850 ms');
+    expect(duration(4230).text).toBe('4.2 s');
+    expect(duration(42_600).text).toBe('43 s');
+  });
+});

@@ -4,8 +4,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { ROLES } from '../../shared/policy/policy';
-import { reportStatement } from '../../server/reports/budget-table';
-import { CAUTION } from '../../server/reports/report-pdf';
+import { CAUTION, presentResult } from '../../shared/presentation/result-model';
+import type { ReportData } from '../../server/reports/report-data';
 import { formatUnit, groupDigits, plainText, ratioUnit } from '../../server/reports/typeset';
 import { PASSWORD, sampleDocument, startTestServer, type TestServer } from './helpers';
 
@@ -27,6 +27,8 @@ function reportDocument(title: string, factor = 1) {
     ],
   });
 }
+
+const reportStatement = (r: ReportData) => presentResult(r.document, r.result).statement.markup;
 
 /** Binary body of a supertest request. */
 function binary(req: request.Test): request.Test {
