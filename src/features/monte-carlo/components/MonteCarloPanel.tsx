@@ -16,7 +16,7 @@ const BROWSER_CAP = 5_000_000;
 const seconds = (ms: number): string => duration(ms).text;
 
 /** The clause 8 comparison in words, from the result model. */
-function Verdict({ view }: { view: VerdictView | null }) {
+export function Verdict({ view }: { view: VerdictView | null }) {
   if (!view) return null;
   const tone =
     view.tone === 'good' ? 'border-accent-600 bg-accent-50 text-accent-700' : view.tone === 'warning' ? 'border-caution-500 bg-caution-50 text-caution-700' : 'border-stone-300 bg-white text-stone-800';
@@ -32,7 +32,7 @@ function Verdict({ view }: { view: VerdictView | null }) {
 }
 
 /** GUM and Monte Carlo figures side by side, at one decimal place (from the result model). */
-function Comparison({ view, unit }: { view: MonteCarloView; unit: string }) {
+export function Comparison({ view, unit }: { view: MonteCarloView; unit: string }) {
   return (
     <table className="w-full text-sm" data-testid="mc-comparison">
       <caption className="sr-only">GUM and Monte Carlo results side by side</caption>
