@@ -214,7 +214,7 @@ function budgetRow(c: Contribution, q: InputQuantity | undefined, measurandUnit:
 function budgetView(document: BudgetDocument, result: BudgetResult): BudgetView {
   const g = result.gum;
   const inputs = new Map(document.inputs.map((q) => [q.symbol, q]));
-  const rows = g.contributions.map((c) => budgetRow(c, inputs.get(c.symbol), result.measurand.unit, result.warnings));
+  const rows = g.contributions.map((c) => budgetRow(c, inputs.get(c.symbol), result.measurand.unit, result.warnings.map(groupNumbersIn)));
   const sorted = [...g.contributions].sort((a, b) => b.varianceShare - a.varianceShare || a.symbol.localeCompare(b.symbol));
   let running = 0;
   const ranked = sorted.map((c) => {
@@ -344,7 +344,7 @@ export function presentResult(document: BudgetDocument, result: BudgetResult): R
     budget,
     monteCarlo,
     validation,
-    warnings: result.warnings.filter((w) => ![...symbols].some((s) => mentions(w, s))),
+    warnings: result.warnings.filter((w) => ![...symbols].some((s) => mentions(w, s))).map(groupNumbersIn),
     model: { text: document.model, intermediates: intermediatesView(document, result) },
     constants: constantsView(document),
     correlations: correlationsView(document),

@@ -88,15 +88,15 @@ export function BudgetTable({
               className={`cursor-pointer border-b border-stone-100 last:border-0 focus:outline-none focus-visible:ring-2 focus-visible:ring-accent-600 ${isSel ? 'bg-accent-50' : 'hover:bg-stone-50'}`}
             >
               <tr>
-                <th scope="rowgroup" colSpan={7} className="px-2 pt-1.5 text-left font-normal">
-                  <span className="inline-flex flex-wrap items-baseline gap-x-2">
+                <th scope="row" colSpan={7} className="px-2 pt-1.5 text-left font-normal">
+                  <span data-testid="budget-symbol">
                     <Sym s={r.symbol} className="font-semibold text-stone-900" />
-                    {adornment ? adornment(r.symbol) : null}
-                    <span className="text-xs text-stone-600">
-                      {r.description ? `${r.description} · ` : ''}
-                      {r.kind} · x = <span className="num">{r.estimate.text}</span>
-                      {r.unit.text ? ` ${r.unit.text}` : ''}
-                    </span>
+                  </span>
+                  {adornment ? adornment(r.symbol) : null}
+                  <span className="ml-2 text-xs text-stone-600">
+                    {r.description ? `${r.description} · ` : ''}
+                    {r.kind} · x = <span className="num">{r.estimate.text}</span>
+                    {r.unit.text ? ` ${r.unit.text}` : ''}
                   </span>
                 </th>
               </tr>
@@ -176,7 +176,7 @@ export function ContributionsChart({ model, selected, onSelect }: { model: Resul
   const Y = (f: number) => H - pad.b - f * (H - pad.t - pad.b);
   const X = (i: number) => pad.l + slot * (i + 0.5);
   return (
-    <figure className="rounded-md border border-stone-200 bg-white p-3" data-testid="contributions-chart">
+    <figure className="w-full max-w-lg rounded-md border border-stone-200 bg-white p-3" data-testid="contributions-chart">
       <figcaption className="mb-1 text-sm font-medium text-stone-900">{model.budget.dominant.text}</figcaption>
       <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`Shares of the variance, largest first: ${terms.map((t) => `${t.symbol} ${t.share.text}`).join(', ')}`}>
         {[0, 0.5, 1].map((f) => (
