@@ -332,6 +332,13 @@ export function presentMonteCarlo(result: BudgetResult, measurandUnit?: string):
   };
 }
 
+/** The value of every quantity the model defines, with its unit, by symbol: the intermediates and the measurand. */
+export function modelValues(m: ResultModel): Record<string, string> {
+  const values: Record<string, string> = Object.fromEntries(m.model.intermediates.map((q) => [q.symbol, q.value.text]));
+  values[m.measurand.symbol] = withUnit(m.reported.estimate, m.measurand.unit).text;
+  return values;
+}
+
 /** Builds what a reader sees of a computed budget: the single source of every figure on screen, paper and terminal. */
 export function presentResult(document: BudgetDocument, result: BudgetResult): ResultModel {
   const { unit, monteCarlo, validation } = presentMonteCarlo(result, document.measurand.unit);

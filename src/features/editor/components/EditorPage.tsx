@@ -11,7 +11,7 @@ import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, ErrorNote, Field, NumberInput, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
-import { presentResult } from '../../../../shared/presentation/result-model';
+import { modelValues, presentResult } from '../../../../shared/presentation/result-model';
 import { StatusBadge } from '../../../app/ui/status-badge';
 import { useToast } from '../../../app/ui/toasts';
 import { formatUnit } from '../../../app/ui/units';
@@ -25,6 +25,7 @@ import { CorrelationsEditor } from './CorrelationsEditor';
 import { ExplainPanel } from './ExplainPanel';
 import { InputsList, type KeyedInput } from './InputsList';
 import { ModelEditor } from './ModelEditor';
+import { RecordFields } from './RecordFields';
 import { ResultCard } from './ResultCard';
 import { ConflictDialog, LeaveDialog, SaveDialog } from './SaveDialogs';
 
@@ -469,10 +470,11 @@ function Editor({
               {(p) => <NumberInput {...p} readOnly={readOnly} value={doc.coverageProbability ?? 0.95} onValue={(v) => setDoc((d) => ({ ...d, coverageProbability: v }))} />}
             </Field>
           </div>
+          <RecordFields doc={doc} readOnly={readOnly} onChange={(patch) => setDoc((d) => ({ ...d, ...patch }))} />
         </Section>
 
         <Section id="model" title="Model">
-          <ModelEditor value={doc.model} readOnly={readOnly} problem={modelProblem} onChange={(model) => setDoc((d) => ({ ...d, model }))} />
+          <ModelEditor value={doc.model} values={model ? modelValues(model) : undefined} readOnly={readOnly} problem={modelProblem} onChange={(model) => setDoc((d) => ({ ...d, model }))} />
         </Section>
 
         <Section id="inputs" title={`Input quantities (${doc.inputs.length})`} description={readOnly ? 'Open a row to see how the input was evaluated.' : 'Drag the handle, or focus it and press space and the arrow keys, to change the order.'}>
