@@ -2,7 +2,7 @@ import type { Figure } from '../../shared/presentation/figures';
 import type { ResultModel } from '../../shared/presentation/result-model';
 import { withUnit } from '../../shared/presentation/units';
 import { COLOR, STYLE, rule, type Cursor } from './layout';
-import { drawLine, drawParagraph, type TextStyle } from './pdf-text';
+import { drawLine, drawParagraph, textWidth, type TextStyle } from './pdf-text';
 import type { ReportData } from './report-data';
 
 /*
@@ -145,7 +145,14 @@ export function budgetTable(c: Cursor, m: ResultModel): void {
     while (d.length > 4 && drawLine(doc, d, 0, -100, STYLE.small, { markup: false }) > room) d = `${d.slice(0, -2).trimEnd()}…`;
     drawLine(doc, d, c.left + sw + 8, top + 10, STYLE.small, { markup: false });
     const base = top + 22;
-    drawLine(doc, row.stated.markup, at('stated', 'left'), base, { ...cell, face: 'mono', color: COLOR.muted });
+    // the value as stated keeps to its column: a smaller size first, then the sans face, which is narrower
+    const statedRoom = cols[0].width + cols[1].width - 30;
+    let stated: TextStyle = { ...cell, color: COLOR.muted };
+    for (const candidate of [stated, { ...stated, size: 7 }, { ...stated, face: 'sans' as const, size: 7.4 }]) {
+      stated = candidate;
+      if (textWidth(doc, row.stated.markup, candidate) <= statedRoom) break;
+    }
+    drawLine(doc, row.stated.markup, at('stated', 'left'), base, stated);
     drawLine(doc, row.divisor.markup, at('divisor', 'right'), base, cell, { align: 'right' });
     drawLine(doc, withUnit(row.standardUncertainty, row.unit).markup, at('u', 'right'), base, cell, { align: 'right' });
     const cu = row.sensitivity.unit.markup;
