@@ -45,3 +45,13 @@ export function atPlace(x: number, exponent: number): Numeral {
 export function writeNumeral(n: Numeral, raise: (exponent: string) => string): string {
   return n.power === null ? n.digits : `${n.digits}×10${raise(String(n.power).replace('-', MINUS))}`;
 }
+
+/** x rounded to `sig` significant digits, as a number to put in an input field: 0.0057735 → 0.00577 (sig 3). */
+export function roundSignificant(x: number, sig: number): number {
+  return Number.isFinite(x) && x !== 0 ? Number(x.toPrecision(sig)) : x;
+}
+
+/** x rounded to `decimals` decimal places, as a number to put in an input field. */
+export function roundDecimals(x: number, decimals: number): number {
+  return Number.isFinite(x) ? Number(x.toFixed(decimals)) : x;
+}
