@@ -14,7 +14,7 @@ export function contributionsChart(c: Cursor, m: ResultModel): void {
   const { doc } = c;
   const terms = m.budget.ranked;
   const plotH = 110;
-  const h = plotH + 62;
+  const h = plotH + 72;
   c.need(h);
   const top = c.y;
   c.y += drawParagraph(doc, m.budget.dominant.markup, c.left, top, c.width, { face: 'bold', size: 9, color: COLOR.ink });
@@ -35,10 +35,10 @@ export function contributionsChart(c: Cursor, m: ResultModel): void {
     const cx = L + slot * (i + 0.5);
     const v = t.share.value ?? 0;
     if (v > 0) doc.save().rect(cx - barW / 2, Y(v), barW, Math.max(0.6, B - Y(v))).fill(i === 0 ? COLOR.accent : COLOR.accentLight).restore();
-    drawLine(doc, t.share.markup, cx, Y(v) - 3, { face: 'mono', size: 7, color: COLOR.ink }, { align: 'center' });
     let label = t.symbol;
     while (label.length > 3 && drawLine(doc, label, 0, -100, { face: 'mono', size: 7.4 }, { markup: false }) > slot - 2) label = `${label.slice(0, -2)}…`;
     drawLine(doc, label, cx, B + 10, { face: 'mono', size: 7.4, color: COLOR.ink }, { align: 'center', markup: false });
+    drawLine(doc, t.share.markup, cx, B + 19, { face: 'mono', size: 7, color: COLOR.muted }, { align: 'center' });
     points.push([cx, Y(t.cumulative.value ?? 0)]);
   });
   if (points.length > 1) {
@@ -47,8 +47,8 @@ export function contributionsChart(c: Cursor, m: ResultModel): void {
     doc.stroke().restore();
     for (const [px, py] of points) doc.save().circle(px, py, 1.8).fill(COLOR.accent).restore();
   }
-  drawLine(doc, 'share of the variance u_{c}² per input, largest first; the line is the running total', (L + R) / 2, B + 22, STYLE.small, { align: 'center' });
-  c.y = B + 30;
+  drawLine(doc, 'share of the variance u_{c}² per input, largest first; the line is the running total', (L + R) / 2, B + 31, STYLE.small, { align: 'center' });
+  c.y = B + 39;
 }
 
 /** Round steps 1, 2, 5 × 10^k for about `n` ticks. */

@@ -170,11 +170,13 @@ export function ContributionsChart({ model, selected, onSelect }: { model: Resul
   const terms = model.budget.ranked;
   const W = 300;
   const H = 170;
-  const pad = { l: 30, r: 8, t: 14, b: 34 };
+  const pad = { l: 30, r: 8, t: 10, b: 46 };
   const slot = (W - pad.l - pad.r) / Math.max(1, terms.length);
   const barW = Math.min(28, slot * 0.64);
   const Y = (f: number) => H - pad.b - f * (H - pad.t - pad.b);
   const X = (i: number) => pad.l + slot * (i + 0.5);
+  // a monospace character of the 9-unit labels is about 5.4 units wide
+  const maxChars = Math.max(3, Math.floor((slot - 2) / 5.4));
   return (
     <figure className="w-full max-w-lg rounded-md border border-stone-200 bg-white p-3" data-testid="contributions-chart">
       <figcaption className="mb-1 text-sm font-medium text-stone-900">{model.budget.dominant.text}</figcaption>
@@ -205,13 +207,13 @@ export function ContributionsChart({ model, selected, onSelect }: { model: Resul
               }}
               className="cursor-pointer focus:outline-none"
             >
-              <rect x={X(i) - slot / 2} y={pad.t} width={slot} height={H - pad.t - pad.b + 26} fill={sel ? '#eef4f8' : 'transparent'} />
+              <rect x={X(i) - slot / 2} y={pad.t} width={slot} height={H - pad.t - pad.b + 40} fill={sel ? '#eef4f8' : 'transparent'} />
               <rect x={X(i) - barW / 2} y={Y(v)} width={barW} height={Math.max(0.8, H - pad.b - Y(v))} fill={i === 0 ? '#1f5a85' : '#b9cada'} />
-              <text x={X(i)} y={Y(v) - 3} fontSize="9" textAnchor="middle" fill="#1c1917" fontFamily="JetBrains Mono, monospace">
-                {t.share.text}
-              </text>
               <text x={X(i)} y={H - pad.b + 12} fontSize="9" textAnchor="middle" fill="#1c1917" fontFamily="JetBrains Mono, monospace">
-                {t.symbol.length > 9 ? `${t.symbol.slice(0, 8)}…` : t.symbol}
+                {t.symbol.length > maxChars ? `${t.symbol.slice(0, maxChars - 1)}…` : t.symbol}
+              </text>
+              <text x={X(i)} y={H - pad.b + 23} fontSize="9" textAnchor="middle" fill="#44403c" fontFamily="JetBrains Mono, monospace">
+                {t.share.text}
               </text>
             </g>
           );
