@@ -116,6 +116,16 @@ export function coefficient(c: number): Figure {
   return fromNumeral({ digits: trimZeros(n.digits).replace(/[\u202f]$/, ''), power: n.power }, c);
 }
 
+/**
+ * An intermediate quantity of the model at the estimates, shown beside the model to follow it:
+ * six significant digits with trailing zeros dropped, as it carries no uncertainty of its own here.
+ * 20.008 → "20.008", 1.7295612e-5 → "1.729 56×10⁻⁵".
+ */
+export function intermediate(x: number): Figure {
+  const n = significant(x, 6);
+  return fromNumeral({ digits: trimZeros(n.digits).replace(/[\u202f]$/, ''), power: n.power }, Number.isFinite(x) ? x : null);
+}
+
 /** A number with `sig` significant digits (tolerances, bin widths, axis values). */
 export function significantFigure(x: number, sig = 2): Figure {
   return fromNumeral(significant(x, sig), Number.isFinite(x) ? x : null);

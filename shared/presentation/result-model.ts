@@ -10,6 +10,7 @@ import {
   dof,
   estimate,
   given,
+  intermediate,
   interval,
   placeOf,
   probability,
@@ -295,10 +296,10 @@ function correlationsView(document: BudgetDocument): ResultModel['correlations']
 
 /**
  * The intermediates come in coherent SI units; each is shown in the unit the budget itself uses for
- * that dimension (the measurand's, else the first input's), so t_bath reads in °C beside inputs in °C.
+ * that dimension (the first input's of that dimension, else the measurand's), so t_bath reads in °C beside inputs in °C.
  */
 function intermediatesView(document: BudgetDocument, result: BudgetResult): { symbol: string; value: Figure }[] {
-  const own = [result.measurand.unit ?? document.measurand.unit, ...document.inputs.map((q) => q.unit)].filter((u): u is string => !!u);
+  const own = [...document.inputs.map((q) => q.unit), result.measurand.unit ?? document.measurand.unit].filter((u): u is string => !!u);
   const parse = (u: string) => {
     try {
       return parseUnit(u);
@@ -309,8 +310,8 @@ function intermediatesView(document: BudgetDocument, result: BudgetResult): { sy
   return result.gum.intermediates.map((q) => {
     const si = parse(q.unit);
     const match = si ? own.map((u) => ({ u, p: parse(u) })).find((o) => o.p && sameDimension(o.p.dimension, si.dimension)) : undefined;
-    if (si && match?.p) return { symbol: q.symbol, value: withUnit(significantFigure((q.value * si.factor) / match.p.factor, 6), unitText(match.u)) };
-    return { symbol: q.symbol, value: withUnit(significantFigure(q.value, 6), unitText(q.unit)) };
+    if (si && match?.p) return { symbol: q.symbol, value: withUnit(intermediate((q.value * si.factor) / match.p.factor), unitText(match.u)) };
+    return { symbol: q.symbol, value: withUnit(intermediate(q.value), unitText(q.unit)) };
   });
 }
 

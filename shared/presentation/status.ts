@@ -31,3 +31,12 @@ export function versionStatus(
   if (budget.status === 'draft') return budget.returned ? 'returned' : 'draft';
   return budget.status;
 }
+
+/** The laboratory named on reports whose budget file names none (the demo lab). */
+export const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
+
+/** The laboratory a report names: the budget file's `lab` when it gives one. */
+export function labOf(document: object, fallback = DEFAULT_LAB): string {
+  const lab = (document as { lab?: unknown }).lab;
+  return typeof lab === 'string' && lab.trim() ? lab.trim() : fallback;
+}

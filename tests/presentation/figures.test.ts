@@ -162,3 +162,12 @@ describe('durations', () => {
     expect(duration(42_600).text).toBe('43 s');
   });
 });
+
+describe('intermediate quantities beside the model', () => {
+  it('six significant digits without trailing zeros', async () => {
+    const { intermediate } = await import('../../shared/presentation/figures');
+    expect(intermediate(20.008).text).toBe('20.008');
+    expect(intermediate(100.156).text).toBe('100.156');
+    expect(intermediate(1.7295612e-5).text).toBe('1.729\u202f56×10⁻⁵');
+  });
+});

@@ -2,7 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { api } from '../../../app/http';
 import { Button, Field, FormDialog, Modal, Spinner, TextArea } from '../../../app/ui/controls';
-import { formatDateTime, formatSignificant } from '../../../app/ui/numbers';
+import { formatDateTime, formatUncertainty } from '../../../app/ui/numbers';
 import { editorVersionsQuery } from '../api/editor';
 
 export function SaveDialog({
@@ -123,8 +123,8 @@ export function ConflictDialog({
             ))}
             {d.result.expandedUncertainty.from !== d.result.expandedUncertainty.to ? (
               <li>
-                U from <span className="num">{formatSignificant(d.result.expandedUncertainty.from ?? NaN, 3)}</span> to{' '}
-                <span className="num">{formatSignificant(d.result.expandedUncertainty.to ?? NaN, 3)}</span>
+                U from <span className="num">{formatUncertainty(d.result.expandedUncertainty.from ?? NaN)}</span> to{' '}
+                <span className="num">{formatUncertainty(d.result.expandedUncertainty.to ?? NaN)}</span>
               </li>
             ) : null}
           </ul>

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
 import { presentResult } from '../../../../shared/presentation/result-model';
-import { versionStatus } from '../../../../shared/presentation/status';
+import { labOf, versionStatus } from '../../../../shared/presentation/status';
 import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Spinner } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
@@ -32,7 +32,6 @@ export function ReportPage({ budgetId, versionNumber, renderBudgetTable }: { bud
   const b = budget.data;
   const doc = v.document;
   const mc = v.result.monteCarlo;
-  const lab = typeof (doc as { lab?: unknown }).lab === 'string' ? ((doc as { lab?: string }).lab as string) : 'Kestrel Fen Metrology Laboratory';
   return (
     <div className="mx-auto flex max-w-[210mm] flex-col gap-5 bg-white px-8 py-6 text-stone-900 print:max-w-none print:px-0 print:py-0">
       <div className="no-print flex flex-wrap items-center gap-2 rounded-md border border-stone-200 bg-stone-50 px-3 py-2 text-sm">
@@ -50,7 +49,7 @@ export function ReportPage({ budgetId, versionNumber, renderBudgetTable }: { bud
         renderBudgetTable={renderBudgetTable}
         histogram={mc ? { bins: mc.histogram, gum: v.result.gum.interval, mc: mc.interval } : undefined}
         facts={{
-          lab,
+          lab: labOf(doc),
           budgetId,
           title: doc.title,
           version: v.number,
