@@ -137,7 +137,8 @@ export function BudgetTable({
             </tbody>
           );
         })}
-        <tfoot className="border-t-2 border-stone-300 bg-stone-50 text-sm">
+        {/* a body, not a footer: printed, a footer would repeat the totals under every page's rows */}
+        <tbody className="border-t-2 border-stone-300 bg-stone-50 text-sm">
           {(
             [
               [<>combined standard uncertainty u<sub>c</sub> = √Σ (cᵢu(xᵢ))²</>, b.totals.standardUncertainty, yUnit],
@@ -156,7 +157,7 @@ export function BudgetTable({
               <td colSpan={2} />
             </tr>
           ))}
-        </tfoot>
+        </tbody>
       </table>
     </div>
   );
