@@ -44,7 +44,7 @@ export function formatBudgetTable(doc: BudgetDocument, result: BudgetResult): st
     '',
     `${m.measurand.symbol} = ${withUnit(rf.estimate, unit).text}   u_c = ${withUnit(rf.standardUncertainty, unit).text}   ${relation('ν_eff', rf.effectiveDof).text}   ` +
       `${rf.coverageFactor ? `k = ${rf.coverageFactor.text}   ` : ''}U = ${withUnit(rf.expandedUncertainty, unit).text}   p = ${rf.coverageProbability.text}`,
-    `U obtained by: ${rf.basisWords}`,
+    `U from ${rf.basisWords}`,
     ...rf.notes,
   ];
   for (const r of b.rows) for (const w of r.warnings) lines.push(`warning (${r.symbol}): ${w}`);

@@ -18,7 +18,7 @@ export function resultSection(c: Cursor, m: ResultModel): void {
   const pad = 10;
   const stStyle: TextStyle = { face: 'sans', size: 10, color: COLOR.ink };
   const stH = drawParagraph(doc, m.statement.markup, c.left + pad, 0, c.width - 2 * pad, stStyle, { dryRun: true });
-  const notes = [`U obtained by ${f.basisWords}.`, ...f.notes].join(' ');
+  const notes = [`U from ${f.basisWords}.`, ...f.notes].join(' ');
   const notesH = drawParagraph(doc, notes, 0, 0, c.width - 2 * pad, STYLE.small, { dryRun: true });
   const boxH = pad + stH + 8 + 30 + notesH + pad;
   c.need(boxH);

@@ -40,7 +40,7 @@ export interface Text {
 /** The figures that go to the certificate, and how they were obtained. */
 export interface ReportedFigures {
   basis: ReportingBasis;
-  /** How U was obtained, in words. */
+  /** How U was obtained, in words that follow "U from": "k = t_p(ν_eff) of the t-distribution (GUM G.4)". */
   basisWords: string;
   estimate: Figure;
   standardUncertainty: Figure;
@@ -139,9 +139,9 @@ export const CAUTION =
   'These results support, and do not replace, the laboratory’s documented procedure and the requirements of ISO/IEC 17025.';
 
 const BASIS_WORDS: Record<ReportingBasis, string> = {
-  't-effective-dof': 'k = t_p(ν_eff) from the t-distribution (GUM G.4)',
+  't-effective-dof': 'k = t_p(ν_eff) of the t-distribution (GUM G.4)',
   'k-fixed': 'k fixed by the laboratory',
-  'monte-carlo': 'Monte Carlo coverage interval (JCGM 101:2008 7.7)',
+  'monte-carlo': 'the Monte Carlo coverage interval (JCGM 101:2008 7.7)',
 };
 
 /** The reported figures; results stored before the reporting choice existed reported the GUM figures. */
