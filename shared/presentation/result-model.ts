@@ -256,7 +256,7 @@ function budgetView(document: BudgetDocument, result: BudgetResult): BudgetView 
   };
 }
 
-function monteCarloView(result: BudgetResult): MonteCarloView | null {
+function monteCarloView(result: BudgetResult, unit: UnitText): MonteCarloView | null {
   const mc = result.monteCarlo;
   if (!mc) return null;
   const g = result.gum;
@@ -265,6 +265,7 @@ function monteCarloView(result: BudgetResult): MonteCarloView | null {
   const place = Math.min(placeOf(mc.standardUncertainty) ?? 0, placeOf(g.standardUncertainty) ?? placeOf(mc.standardUncertainty) ?? 0);
   const p = probability(g.coverageProbability);
   const s = mc.stability;
+  const spread = (x: number) => withUnit(significantFigure(x), unit).text;
   return {
     trials: count(mc.trials),
     seed: mc.seed,
@@ -280,8 +281,8 @@ function monteCarloView(result: BudgetResult): MonteCarloView | null {
     ],
     stability: s
       ? `${s.stabilized ? 'Stable' : 'Not stable'}: ${count(s.sequences).text} sequences of ${count(s.sequenceLength).text} trials; twice the standard deviation of the sequence averages ` +
-        `(y ${significantFigure(2 * s.spread.estimate).text}, u ${significantFigure(2 * s.spread.standardUncertainty).text}, ends ${significantFigure(2 * s.spread.low).text} and ${significantFigure(2 * s.spread.high).text}) ` +
-        `${s.stabilized ? 'is within' : 'exceeds'} the tolerance δ = ${significantFigure(s.tolerance).text} (JCGM 101:2008 7.9.4).`
+        `(y ${spread(2 * s.spread.estimate)}, u ${spread(2 * s.spread.standardUncertainty)}, ends ${spread(2 * s.spread.low)} and ${spread(2 * s.spread.high)}) ` +
+        `${s.stabilized ? 'is within' : 'exceeds'} the tolerance δ = ${spread(s.tolerance)} (JCGM 101:2008 7.9.4).`
       : null,
   };
 }
@@ -328,7 +329,7 @@ export function presentMonteCarlo(result: BudgetResult, measurandUnit?: string):
   const unit = unitText(result.measurand.unit ?? measurandUnit);
   return {
     unit,
-    monteCarlo: monteCarloView(result),
+    monteCarlo: monteCarloView(result, unit),
     validation: result.validation ? verdictView(result.validation, unit, result.reported) : null,
   };
 }

@@ -110,3 +110,16 @@ describe('two versions compared', () => {
     expect(byLabel['Coverage factor k'].change).toBeNull();
   });
 });
+
+describe('an adaptive Monte Carlo run', () => {
+  it('says how stable its figures are (JCGM 101:2008 7.9.4)', async () => {
+    const { presentMonteCarlo } = await import('../../shared/presentation/result-model');
+    const mc = computeBudget(document, { trials: 10_000, seed: 'adaptive-words' }).monteCarlo!;
+    const stability = { sequenceLength: 10_000, sequences: 24, spread: { estimate: 0.004, standardUncertainty: 0.003, low: 0.011, high: 0.012 }, tolerance: 0.05, stabilized: true };
+    const view = presentMonteCarlo({ ...result, monteCarlo: { ...mc, adaptive: true, trials: 240_000, stability } }).monteCarlo!;
+    expect(view.heading).toBe('240\u202f000 trials (adaptive)');
+    expect(view.stability).toBe(
+      'Stable: 24 sequences of 10\u202f000 trials; twice the standard deviation of the sequence averages (y 0.0080 mK, u 0.0060 mK, ends 0.022 mK and 0.024 mK) is within the tolerance δ = 0.050 mK (JCGM 101:2008 7.9.4).',
+    );
+  });
+});
