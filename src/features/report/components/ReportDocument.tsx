@@ -152,7 +152,7 @@ export function ReportDocument({ model: m, facts, histogram, renderBudgetTable }
           <p className="text-sm leading-relaxed" data-testid="report-statement">
             {m.statement.text}
           </p>
-          <dl className="num mt-2 grid grid-cols-3 gap-x-4 gap-y-0.5 border-t border-stone-300 pt-1 text-sm sm:grid-cols-6" data-testid="report-figures">
+          <dl className="num mt-2 grid grid-cols-[auto_1fr_auto_1fr] gap-x-3 gap-y-0.5 border-t border-stone-300 pt-1 text-sm sm:grid-cols-[auto_1fr_auto_1fr_auto_1fr] [&_dd]:whitespace-nowrap" data-testid="report-figures">
             <Row label={m.measurand.symbol}>{u(f.estimate)}</Row>
             <Row label="u_c">{u(f.standardUncertainty)}</Row>
             <Row label="ν_eff">{f.effectiveDof.text}</Row>
