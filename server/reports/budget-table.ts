@@ -1,5 +1,6 @@
 import type { Figure } from '../../shared/presentation/figures';
 import type { ResultModel } from '../../shared/presentation/result-model';
+import { symbolMarkup } from '../../shared/format/symbols';
 import { withUnit } from '../../shared/presentation/units';
 import { COLOR, STYLE, rule, type Cursor } from './layout';
 import { drawLine, drawParagraph, textWidth, type TextStyle } from './pdf-text';
@@ -27,7 +28,7 @@ export function resultSection(c: Cursor, m: ResultModel): void {
   doc.save().rect(c.left, top, 2.2, boxH).fill(COLOR.accent).restore();
   drawParagraph(doc, m.statement.markup, c.left + pad, top + pad, c.width - 2 * pad, stStyle);
   const figures: [string, Figure][] = [
-    [m.measurand.symbol, withUnit(f.estimate, u)],
+    [symbolMarkup(m.measurand.symbol), withUnit(f.estimate, u)],
     ['u_{c}', withUnit(f.standardUncertainty, u)],
     ['ν_{eff}', f.effectiveDof],
     ...(f.coverageFactor ? ([['k', f.coverageFactor]] as [string, Figure][]) : []),
@@ -68,7 +69,7 @@ export function modelSection(c: Cursor, r: ReportData, m: ResultModel): void {
   wrapped.forEach((l, i) => drawLine(doc, l, c.left + pad, c.y + pad + 8 + i * lineH, style, { markup: false }));
   // the value of each intermediate quantity at the estimates, beside the text
   const sideX = c.left + c.width * 0.64;
-  intermediates.forEach((q, i) => drawLine(doc, `${q.symbol} = ${q.value.markup}`, sideX, c.y + pad + 8 + i * lineH, { ...style, color: COLOR.muted }));
+  intermediates.forEach((q, i) => drawLine(doc, `${symbolMarkup(q.symbol)} = ${q.value.markup}`, sideX, c.y + pad + 8 + i * lineH, { ...style, color: COLOR.muted }));
   c.y += h + 6;
   const consts = r.document.constants ?? [];
   if (consts.length) {
@@ -138,7 +139,7 @@ export function budgetTable(c: Cursor, m: ResultModel): void {
       drawHead();
     }
     const top = c.y;
-    const sw = drawLine(doc, row.symbol, c.left, top + 10, { face: 'mono-bold', size: 8.4, color: COLOR.ink }, { markup: false });
+    const sw = drawLine(doc, symbolMarkup(row.symbol), c.left, top + 10, { face: 'mono-bold', size: 8.4, color: COLOR.ink });
     const desc = [row.description, row.kind].filter(Boolean).join(' · ');
     let d = desc;
     const room = c.width - sw - 10;
@@ -172,7 +173,7 @@ export function budgetTable(c: Cursor, m: ResultModel): void {
   const t = b.totals;
   const u = m.measurand.unit;
   const totals: [string, Figure][] = [
-    [`combined standard uncertainty u_{c}(${m.measurand.symbol}) = √Σ`, withUnit(t.standardUncertainty, u)],
+    [`combined standard uncertainty u_{c}(${symbolMarkup(m.measurand.symbol)}) = √Σ`, withUnit(t.standardUncertainty, u)],
     ['effective degrees of freedom ν_{eff} (GUM G.4.1)', t.effectiveDof],
     [`coverage factor k for p = ${t.coverageProbability.markup}`, t.coverageFactor],
     ['expanded uncertainty U = k·u_{c}', withUnit(t.expandedUncertainty, u)],

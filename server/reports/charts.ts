@@ -1,7 +1,8 @@
 import { atDecimalPlace, count, share, significantFigure } from '../../shared/presentation/figures';
 import type { ResultModel } from '../../shared/presentation/result-model';
 import { COLOR, STYLE, type Cursor, rule } from './layout';
-import { drawLine, drawParagraph, type Doc, type TextStyle } from './pdf-text';
+import { drawLine, drawParagraph, textWidth, type Doc, type TextStyle } from './pdf-text';
+import { symbolMarkup, symbolParts } from '../../shared/format/symbols';
 import type { ReportData } from './report-data';
 
 const tick: TextStyle = { face: 'mono', size: 6.8, color: COLOR.muted };
@@ -35,9 +36,11 @@ export function contributionsChart(c: Cursor, m: ResultModel): void {
     const cx = L + slot * (i + 0.5);
     const v = t.share.value ?? 0;
     if (v > 0) doc.save().rect(cx - barW / 2, Y(v), barW, Math.max(0.6, B - Y(v))).fill(i === 0 ? COLOR.accent : COLOR.accentLight).restore();
-    let label = t.symbol;
-    while (label.length > 3 && drawLine(doc, label, 0, -100, { face: 'mono', size: 7.4 }, { markup: false }) > slot - 2) label = `${label.slice(0, -2)}…`;
-    drawLine(doc, label, cx, B + 10, { face: 'mono', size: 7.4, color: COLOR.ink }, { align: 'center', markup: false });
+    const { base, sub } = symbolParts(t.symbol);
+    let tail = sub ?? '';
+    const label = () => (sub === null ? base : `${base}_{${tail}}`);
+    while (tail.length > 2 && textWidth(doc, label(), { face: 'mono', size: 7.4 }) > slot - 2) tail = `${tail.slice(0, -2)}…`;
+    drawLine(doc, label(), cx, B + 10, { face: 'mono', size: 7.4, color: COLOR.ink }, { align: 'center' });
     drawLine(doc, t.share.markup, cx, B + 19, { face: 'mono', size: 7, color: COLOR.muted }, { align: 'center' });
     points.push([cx, Y(t.cumulative.value ?? 0)]);
   });
@@ -84,7 +87,7 @@ export function histogramChart(c: Cursor, r: ReportData, m: ResultModel): void {
   const { start, width, counts } = mc.histogram;
   const total = counts.reduce((a, b) => a + b, 0);
   const unit = m.measurand.unit.markup;
-  const symbol = m.measurand.symbol;
+  const symbol = symbolMarkup(m.measurand.symbol);
 
   const plotH = 168;
   const h = plotH + 70;

@@ -1,4 +1,5 @@
 import PDFDocument from 'pdfkit';
+import { symbolMarkup } from '../../shared/format/symbols';
 import { presentResult, type ResultModel } from '../../shared/presentation/result-model';
 import { budgetTable, modelSection, resultSection } from './budget-table';
 import { contributionsChart, histogramChart, monteCarloFigures } from './charts';
@@ -67,7 +68,7 @@ function appendix(c: Cursor, m: ResultModel, n: number): number {
     c.heading(++n, 'Appendix: observations', 40);
     for (const o of m.observations) {
       const values = o.values.map((v) => v.markup).join(',  ');
-      c.paragraph(`${o.symbol}${o.unit.markup ? ` in ${o.unit.markup}` : ''}, ${o.values.length} readings`, { face: 'bold', size: 8.5, color: COLOR.ink }, { markup: true });
+      c.paragraph(`${symbolMarkup(o.symbol)}${o.unit.markup ? ` in ${o.unit.markup}` : ''}, ${o.values.length} readings`, { face: 'bold', size: 8.5, color: COLOR.ink }, { markup: true });
       c.paragraph(values, { face: 'mono', size: 8, color: COLOR.ink }, { indent: 10 });
       c.gap(4);
     }
@@ -79,11 +80,11 @@ function appendix(c: Cursor, m: ResultModel, n: number): number {
     const labelW = 80;
     const colW = Math.min(60, (c.width - labelW) / k.symbols.length);
     c.need(13 * (k.symbols.length + 1) + 4);
-    k.symbols.forEach((s, j) => drawLine(doc, s, c.left + labelW + (j + 1) * colW - 4, c.y + 9, { face: 'mono-bold', size: 7.6, color: COLOR.ink }, { align: 'right', markup: false }));
+    k.symbols.forEach((s, j) => drawLine(doc, symbolMarkup(s), c.left + labelW + (j + 1) * colW - 4, c.y + 9, { face: 'mono-bold', size: 7.6, color: COLOR.ink }, { align: 'right' }));
     c.y += 13;
     rule(doc, c.left, c.left + labelW + colW * k.symbols.length, c.y, COLOR.rule, 0.5);
     k.matrix.forEach((row, i) => {
-      drawLine(doc, k.symbols[i], c.left, c.y + 9.5, { face: 'mono-bold', size: 7.6, color: COLOR.ink }, { markup: false });
+      drawLine(doc, symbolMarkup(k.symbols[i]), c.left, c.y + 9.5, { face: 'mono-bold', size: 7.6, color: COLOR.ink });
       row.forEach((f, j) => drawLine(doc, f.markup, c.left + labelW + (j + 1) * colW - 4, c.y + 9.5, { face: 'mono', size: 7.6, color: j === i ? COLOR.faint : COLOR.ink }, { align: 'right' }));
       c.y += 13;
     });

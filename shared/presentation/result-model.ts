@@ -2,6 +2,7 @@ import type { BudgetResult, Contribution, ReportedResult, ReportingBasis } from 
 import type { BudgetDocument, InputQuantity } from '../budget/schema';
 import { groupNumbersIn } from '../format/digit-groups';
 import { budgetKindLabel } from '../format/distribution-labels';
+import { symbolMarkup } from '../format/symbols';
 import { certificateStatement } from '../gum/statement';
 import {
   atDecimalPlace,
@@ -186,7 +187,7 @@ function reportedFigures(result: BudgetResult): ReportedFigures {
 /** The one place the certificate statement is made, digits grouped with a true minus sign. */
 function statementOf(result: BudgetResult, unit: UnitText): Text {
   const text = groupNumbersIn(certificateStatement(result.measurand.symbol, unit.text || undefined, result.gum));
-  const markup = groupNumbersIn(certificateStatement(result.measurand.symbol, unit.markup || undefined, result.gum)).replace(/ν_eff/g, 'ν_{eff}');
+  const markup = groupNumbersIn(certificateStatement(symbolMarkup(result.measurand.symbol), unit.markup || undefined, result.gum)).replace(/ν_eff/g, 'ν_{eff}');
   return { text, markup };
 }
 
@@ -223,13 +224,13 @@ function budgetView(document: BudgetDocument, result: BudgetResult): BudgetView 
     return { symbol: c.symbol, share: share(c.varianceShare), cumulative: share(Math.min(1, running)) };
   });
   const [first, second] = sorted;
-  const dominantIn = (uc: string) => {
+  const dominantIn = (uc: string, sym: (s: string) => string) => {
     if (!first || !(first.varianceShare > 0)) return 'No input contributes to the variance.';
     const tail =
-      first.varianceShare < 0.5 && second && second.varianceShare > 0 ? `; with u(${second.symbol}), ${share(first.varianceShare + second.varianceShare).text}.` : '.';
-    return `u(${first.symbol}) contributes ${share(first.varianceShare).text} of the variance ${uc}²${tail}`;
+      first.varianceShare < 0.5 && second && second.varianceShare > 0 ? `; with u(${sym(second.symbol)}), ${share(first.varianceShare + second.varianceShare).text}.` : '.';
+    return `u(${sym(first.symbol)}) contributes ${share(first.varianceShare).text} of the variance ${uc}²${tail}`;
   };
-  const dominant = { text: dominantIn('u_c'), markup: dominantIn('u_{c}') };
+  const dominant = { text: dominantIn('u_c', (s) => s), markup: dominantIn('u_{c}', symbolMarkup) };
   const correlated = (document.correlations ?? []).length > 0;
   const methods = new Set(g.contributions.map((k) => k.sensitivityMethod));
   const how = methods.has('numeric') ? (methods.has('symbolic') ? 'symbolic where possible, otherwise numerical differentiation' : 'numerical differentiation') : 'symbolic differentiation';

@@ -171,3 +171,12 @@ describe('intermediate quantities beside the model', () => {
     expect(intermediate(1.7295612e-5).text).toBe('1.729\u202f56×10⁻⁵');
   });
 });
+
+describe('symbols of quantities', () => {
+  it('a subscript after the underscore, a Greek letter for its name', async () => {
+    const { symbolMarkup, symbolParts } = await import('../../shared/format/symbols');
+    expect(symbolParts('alpha_s')).toEqual({ base: 'α', sub: 's' });
+    expect(symbolParts('T')).toEqual({ base: 'T', sub: null });
+    expect(symbolMarkup('dt_ref_cal')).toBe('dt_{ref_cal}');
+  });
+});

@@ -8,6 +8,7 @@ import { CAUTION, presentResult } from '../../shared/presentation/result-model';
 import type { ReportData } from '../../server/reports/report-data';
 import { groupDigits, plainText } from '../../server/reports/typeset';
 import { unitText } from '../../shared/presentation/units';
+import { symbolMarkup } from '../../shared/format/symbols';
 import { PASSWORD, sampleDocument, startTestServer, type TestServer } from './helpers';
 
 const STANDARD_FONTS = join(dirname(createRequire(import.meta.url).resolve('pdfjs-dist/package.json')), 'standard_fonts') + sep;
@@ -79,7 +80,8 @@ describe('GET /api/budgets/:id/versions/:n/report.pdf', () => {
     expect(flat).toContain(squash('Step gauge KF-SG-3 by comparison'));
     expect(flat).toContain(squash(`Budget ${id}, version 1`));
     expect(flat).toContain('KestrelFenMetrologyLaboratory');
-    for (const symbol of SYMBOLS) expect(text).toContain(symbol);
+    // symbols are typeset, the subscript lowered: L_ref reads as L with ref below
+    for (const symbol of SYMBOLS) expect(flat).toContain(squash(symbolMarkup(symbol)));
     const data = s.services.reports.data(s.users.auditor, id, 1);
     expect(flat).toContain(squash(reportStatement(data)));
     expect(flat).toContain(squash(CAUTION));

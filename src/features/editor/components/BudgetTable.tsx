@@ -1,4 +1,5 @@
 import { Fragment, type ReactNode } from 'react';
+import { symbolParts } from '../../../../shared/format/symbols';
 import type { Figure } from '../../../../shared/presentation/figures';
 import type { ResultModel } from '../../../../shared/presentation/result-model';
 import { Num, Sym } from '../../../app/ui/quantity';
@@ -163,6 +164,21 @@ export function BudgetTable({
   );
 }
 
+/** A symbol in an SVG label, its subscript lowered and shortened to fit. */
+function SymbolLabel({ symbol, maxChars }: { symbol: string; maxChars: number }) {
+  const { base, sub } = symbolParts(symbol);
+  if (sub === null) return <tspan>{base.length > maxChars ? `${base.slice(0, maxChars - 1)}…` : base}</tspan>;
+  const room = Math.max(2, maxChars - base.length);
+  return (
+    <>
+      <tspan>{base}</tspan>
+      <tspan fontSize="7" dy="2">
+        {sub.length > room ? `${sub.slice(0, room - 1)}…` : sub}
+      </tspan>
+    </>
+  );
+}
+
 /**
  * The contributions ranked, largest first: a column per input for its share of the variance,
  * the running total as a line, the dominant term named in words. The table is its text alternative.
@@ -211,7 +227,7 @@ export function ContributionsChart({ model, selected, onSelect }: { model: Resul
               <rect x={X(i) - slot / 2} y={pad.t} width={slot} height={H - pad.t - pad.b + 40} fill={sel ? '#eef4f8' : 'transparent'} />
               <rect x={X(i) - barW / 2} y={Y(v)} width={barW} height={Math.max(0.8, H - pad.b - Y(v))} fill={i === 0 ? '#1f5a85' : '#b9cada'} />
               <text x={X(i)} y={H - pad.b + 12} fontSize="9" textAnchor="middle" fill="#1c1917" fontFamily="JetBrains Mono, monospace">
-                {t.symbol.length > maxChars ? `${t.symbol.slice(0, maxChars - 1)}…` : t.symbol}
+                <SymbolLabel symbol={t.symbol} maxChars={maxChars} />
               </text>
               <text x={X(i)} y={H - pad.b + 23} fontSize="9" textAnchor="middle" fill="#44403c" fontFamily="JetBrains Mono, monospace">
                 {t.share.text}
