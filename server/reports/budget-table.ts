@@ -131,10 +131,12 @@ export function budgetTable(c: Cursor, m: ResultModel): void {
   };
   c.need(headH + 3 * 30 + 40);
   drawHead();
-  for (const row of b.rows) {
+  const totalsH = 13 * 4 + 4;
+  b.rows.forEach((row, index) => {
     const warnH = row.warnings.reduce((s, w) => s + drawParagraph(doc, `⚠ ${w}`, 0, 0, c.width - 14, STYLE.small, { markup: false, dryRun: true }), 0);
     const h = 28 + warnH;
-    if (c.y + h > c.doc.page.height - 68) {
+    // the last input keeps the totals with it
+    if (c.y + h + (index === b.rows.length - 1 ? totalsH : 0) > c.doc.page.height - 68) {
       c.newPage();
       drawHead();
     }
@@ -168,7 +170,7 @@ export function budgetTable(c: Cursor, m: ResultModel): void {
       c.y += wh;
     }
     rule(doc, c.left, c.right, c.y, COLOR.hairline, 0.5);
-  }
+  });
   rule(doc, c.left, c.right, c.y, COLOR.ink, 0.5);
   const t = b.totals;
   const u = m.measurand.unit;
@@ -179,7 +181,7 @@ export function budgetTable(c: Cursor, m: ResultModel): void {
     ['expanded uncertainty U = k·u_{c}', withUnit(t.expandedUncertainty, u)],
   ];
   const rowH = 13;
-  c.need(rowH * totals.length + 4);
+  c.need(totalsH);
   for (const [label, value] of totals) {
     const base = c.y + 9.6;
     drawLine(doc, label, at('contrib', 'right') - 84, base, { face: 'sans', size: 7.8, color: COLOR.ink }, { align: 'right' });
