@@ -1,39 +1,57 @@
-import { roundUncertainty } from '../../shared/gum/rounding';
-import { COLOR, STYLE, rule, type Cursor } from './layout';
-import { drawLine, drawParagraph, type Doc, type TextStyle } from './pdf-text';
+import { atDecimalPlace, count, share, significantFigure } from '../../shared/presentation/figures';
+import type { ResultModel } from '../../shared/presentation/result-model';
+import { COLOR, STYLE, type Cursor, rule } from './layout';
+import { drawLine, drawParagraph, textWidth, type Doc, type TextStyle } from './pdf-text';
+import { symbolMarkup, symbolParts } from '../../shared/format/symbols';
 import type { ReportData } from './report-data';
-import { formatAt, formatCount, formatPercent, formatSignificant, formatUncertainty, formatUnit } from './typeset';
 
 const tick: TextStyle = { face: 'mono', size: 6.8, color: COLOR.muted };
 
-/** Horizontal bars of the variance shares, largest first. */
-export function sharesChart(c: Cursor, r: ReportData): void {
+/**
+ * The contributions ranked, largest first: a column per input for its share of the
+ * variance, a line for the running total, and the dominant term named in words.
+ */
+export function contributionsChart(c: Cursor, m: ResultModel): void {
   const { doc } = c;
-  const rows = [...r.result.gum.contributions].sort((a, b) => b.varianceShare - a.varianceShare || a.symbol.localeCompare(b.symbol));
-  const barH = 9;
-  const step = 14;
-  const labelW = 70;
-  const valueW = 44;
-  const plotL = c.left + labelW;
-  const plotW = c.width - labelW - valueW;
-  const h = rows.length * step + 26;
+  const terms = m.budget.ranked;
+  const plotH = 110;
+  const h = plotH + 72;
   c.need(h);
   const top = c.y;
-  // gridlines at 0, 25, 50, 75, 100 %
+  c.y += drawParagraph(doc, m.budget.dominant.markup, c.left, top, c.width, { face: 'bold', size: 9, color: COLOR.ink });
+  const L = c.left + 30;
+  const R = c.right - 30;
+  const T = c.y + 6;
+  const B = T + plotH;
+  const slot = (R - L) / Math.max(1, terms.length);
+  const barW = Math.min(34, slot * 0.62);
+  const Y = (f: number) => B - f * (B - T);
   for (const f of [0, 0.25, 0.5, 0.75, 1]) {
-    const x = plotL + f * plotW;
-    doc.save().lineWidth(f === 0 ? 0.7 : 0.4).strokeColor(f === 0 ? COLOR.muted : COLOR.hairline).moveTo(x, top).lineTo(x, top + rows.length * step).stroke().restore();
-    drawLine(doc, `${f * 100} %`, x, top + rows.length * step + 9, tick, { align: 'center' });
+    doc.save().lineWidth(f === 0 ? 0.7 : 0.4).strokeColor(f === 0 ? COLOR.muted : COLOR.hairline).moveTo(L, Y(f)).lineTo(R, Y(f)).stroke().restore();
+    drawLine(doc, share(f).markup, L - 4, Y(f) + 2.4, tick, { align: 'right' });
   }
-  rows.forEach((k, i) => {
-    const y = top + i * step + (step - barH) / 2;
-    drawLine(doc, k.symbol, plotL - 6, y + barH - 1.5, { face: 'mono', size: 8, color: COLOR.ink }, { align: 'right', markup: false });
-    const w = Math.max(0, k.varianceShare) * plotW;
-    if (w > 0) doc.save().rect(plotL, y, Math.max(w, 0.6), barH).fill(i === 0 ? COLOR.accent : COLOR.accentLight).restore();
-    drawLine(doc, formatPercent(k.varianceShare), plotL + w + 4, y + barH - 1.5, { face: 'mono', size: 7.4, color: COLOR.ink });
+  drawLine(doc, 'cumulative', R + 4, Y(1) + 2.4, { ...tick, color: COLOR.accent });
+  const points: [number, number][] = [];
+  terms.forEach((t, i) => {
+    const cx = L + slot * (i + 0.5);
+    const v = t.share.value ?? 0;
+    if (v > 0) doc.save().rect(cx - barW / 2, Y(v), barW, Math.max(0.6, B - Y(v))).fill(i === 0 ? COLOR.accent : COLOR.accentLight).restore();
+    const { base, sub } = symbolParts(t.symbol);
+    let tail = sub ?? '';
+    const label = () => (sub === null ? base : `${base}_{${tail}}`);
+    while (tail.length > 2 && textWidth(doc, label(), { face: 'mono', size: 7.4 }) > slot - 2) tail = `${tail.slice(0, -2)}…`;
+    drawLine(doc, label(), cx, B + 10, { face: 'mono', size: 7.4, color: COLOR.ink }, { align: 'center' });
+    drawLine(doc, t.share.markup, cx, B + 19, { face: 'mono', size: 7, color: COLOR.muted }, { align: 'center' });
+    points.push([cx, Y(t.cumulative.value ?? 0)]);
   });
-  drawLine(doc, 'share of the variance u_{c}², (c_{i} u(x_{i}))² / Σ (c_{j} u(x_{j}))²', plotL + plotW / 2, top + rows.length * step + 20, STYLE.small, { align: 'center' });
-  c.y = top + h + 4;
+  if (points.length > 1) {
+    doc.save().lineWidth(1).strokeColor(COLOR.accent);
+    points.forEach(([px, py], i) => (i === 0 ? doc.moveTo(px, py) : doc.lineTo(px, py)));
+    doc.stroke().restore();
+    for (const [px, py] of points) doc.save().circle(px, py, 1.8).fill(COLOR.accent).restore();
+  }
+  drawLine(doc, 'share of the variance u_{c}² per input, largest first; the line is the running total', (L + R) / 2, B + 31, STYLE.small, { align: 'center' });
+  c.y = B + 39;
 }
 
 /** Round steps 1, 2, 5 × 10^k for about `n` ticks. */
@@ -61,15 +79,15 @@ function legendItem(doc: Doc, x: number, y: number, kind: 'bar' | 'curve' | 'das
 }
 
 /** The Monte Carlo histogram with the GUM normal curve and both coverage intervals. */
-export function histogramChart(c: Cursor, r: ReportData): void {
+export function histogramChart(c: Cursor, r: ReportData, m: ResultModel): void {
   const mc = r.result.monteCarlo;
   if (!mc) return;
   const { doc } = c;
   const g = r.result.gum;
   const { start, width, counts } = mc.histogram;
   const total = counts.reduce((a, b) => a + b, 0);
-  const unit = formatUnit(r.result.measurand.unit ?? r.document.measurand.unit);
-  const symbol = r.result.measurand.symbol;
+  const unit = m.measurand.unit.markup;
+  const symbol = symbolMarkup(m.measurand.symbol);
 
   const plotH = 168;
   const h = plotH + 70;
@@ -78,7 +96,7 @@ export function histogramChart(c: Cursor, r: ReportData): void {
   const top = c.y;
   // legend
   let lx = c.left + 34;
-  lx += legendItem(doc, lx, top + 8, 'bar', `Monte Carlo, ${formatCount(mc.trials)} trials`);
+  lx += legendItem(doc, lx, top + 8, 'bar', `Monte Carlo, ${count(mc.trials).markup} trials`);
   lx += legendItem(doc, lx, top + 8, 'curve', 'GUM: normal N(y, u_{c}²)');
   lx += legendItem(doc, lx, top + 8, 'dash', 'GUM interval y ± U');
   legendItem(doc, lx, top + 8, 'solid', 'Monte Carlo interval');
@@ -110,7 +128,7 @@ export function histogramChart(c: Cursor, r: ReportData): void {
   for (const t of yt.ticks) {
     if (t > yMax) continue;
     doc.save().lineWidth(0.4).strokeColor(COLOR.hairline).moveTo(L, Y(t)).lineTo(R, Y(t)).stroke().restore();
-    drawLine(doc, formatCount(t), L - 4, Y(t) + 2.4, tick, { align: 'right' });
+    drawLine(doc, count(t).markup, L - 4, Y(t) + 2.4, tick, { align: 'right' });
   }
   // bars
   doc.save();
@@ -151,74 +169,51 @@ export function histogramChart(c: Cursor, r: ReportData): void {
   for (const t of xt.ticks) {
     if (t < lo || t > hi) continue;
     doc.save().lineWidth(0.6).strokeColor(COLOR.muted).moveTo(X(t), B).lineTo(X(t), B + 3).stroke().restore();
-    drawLine(doc, formatAt(t, xt.exponent), X(t), B + 11, tick, { align: 'center' });
+    drawLine(doc, atDecimalPlace(t, xt.exponent).markup, X(t), B + 11, tick, { align: 'center' });
   }
   drawLine(doc, unit ? `${symbol} in ${unit}` : symbol, (L + R) / 2, B + 24, { face: 'sans', size: 8, color: COLOR.ink }, { align: 'center' });
   if (trimmed) drawLine(doc, 'axis: central 99.9 % of the trials', R, B + 24, { ...STYLE.small, size: 6.8, color: COLOR.faint }, { align: 'right' });
   doc.save();
   doc.rotate(-90, { origin: [c.left + 6, (T + B) / 2] });
-  drawLine(doc, `trials per bin (bin width ${formatSignificant(width, 2)}${unit ? ` ${unit}` : ''})`, c.left + 6, (T + B) / 2 + 2, { face: 'sans', size: 7.2, color: COLOR.muted }, { align: 'center' });
+  drawLine(doc, `trials per bin (bin width ${significantFigure(width, 2).markup}${unit ? ` ${unit}` : ''})`, c.left + 6, (T + B) / 2 + 2, { face: 'sans', size: 7.2, color: COLOR.muted }, { align: 'center' });
   doc.restore();
   c.y = B + 34;
 }
 
-/** The Monte Carlo figures beside the GUM ones, and the verdict in plain words. */
-export function monteCarloFigures(c: Cursor, r: ReportData): void {
-  const mc = r.result.monteCarlo;
-  const g = r.result.gum;
+/** The Monte Carlo figures beside the GUM ones, and the verdict in words, as the result model gives them. */
+export function monteCarloFigures(c: Cursor, m: ResultModel): void {
+  const mc = m.monteCarlo;
   const { doc } = c;
-  const unit = formatUnit(r.result.measurand.unit ?? r.document.measurand.unit);
-  const wu = (s: string) => (unit ? `${s} ${unit}` : s);
   if (!mc) {
     c.paragraph('No Monte Carlo propagation was run for this version; the result rests on the law of propagation of uncertainty alone.');
     return;
   }
-  // one digit beyond the two significant digits of u for the interval ends (JCGM 101:2008 7.8)
-  const place = roundUncertainty(mc.standardUncertainty).exponent - 1;
-  const gPlace = roundUncertainty(g.standardUncertainty).exponent - 1;
-  const iv = ([a, b]: [number, number], p: number) => wu(`[${formatAt(a, p)}, ${formatAt(b, p)}]`);
-  const rows: [string, string, string][] = [
-    ['Estimate y', wu(formatAt(g.estimate, gPlace)), wu(formatAt(mc.estimate, place))],
-    ['Standard uncertainty', wu(formatUncertainty(g.standardUncertainty)), wu(formatUncertainty(mc.standardUncertainty))],
-    [`Coverage interval, p = ${formatPercent(g.coverageProbability)}`, iv(g.interval, gPlace), iv(mc.interval, place)],
-    ['Shortest coverage interval', '—', iv(mc.shortestInterval, place)],
-  ];
-  const verdictText = verdict(r);
-  const verdictH = verdictText ? drawParagraph(doc, verdictText.text, 0, 0, c.width, verdictText.style, { dryRun: true }) : 0;
+  const v = m.validation;
+  const verdict = v ? `${v.headline} ${v.detail.markup}` : 'The GUM result was not compared with the Monte Carlo result for this version.';
+  const vStyle: TextStyle = { face: 'sans', size: 9, color: v?.tone === 'warning' ? COLOR.warning : COLOR.ink };
+  const verdictH = drawParagraph(doc, verdict, 0, 0, c.width, vStyle, { dryRun: true });
+  const stabilityH = mc.stability ? drawParagraph(doc, mc.stability, 0, 0, c.width, STYLE.small, { dryRun: true }) + 4 : 0;
   const c1 = 150;
   const c2 = (c.width - c1) / 2;
   // the figures and the verdict stay together
-  c.need(14 * (rows.length + 1) + 10 + verdictH);
+  c.need(14 * (mc.rows.length + 1) + 12 + verdictH + stabilityH);
+  const unit = m.measurand.unit.markup;
+  drawLine(doc, unit ? `values in ${unit}` : 'dimensionless values', c.left, c.y + 9, STYLE.small);
   drawLine(doc, 'GUM (law of propagation)', c.left + c1, c.y + 9, { face: 'bold', size: 7.6, color: COLOR.ink });
-  drawLine(doc, `Monte Carlo (${formatCount(mc.trials)} trials${mc.adaptive ? ', adaptive' : ''})`, c.left + c1 + c2, c.y + 9, { face: 'bold', size: 7.6, color: COLOR.ink });
+  drawLine(doc, `Monte Carlo (${mc.heading})`, c.left + c1 + c2, c.y + 9, { face: 'bold', size: 7.6, color: COLOR.ink });
   c.y += 13;
   rule(doc, c.left, c.right, c.y, COLOR.rule, 0.5);
-  for (const [label, a, b] of rows) {
-    drawLine(doc, label, c.left, c.y + 9.8, { face: 'sans', size: 8, color: COLOR.muted });
-    drawLine(doc, a, c.left + c1, c.y + 9.8, { face: 'mono', size: 7.8, color: COLOR.ink });
-    drawLine(doc, b, c.left + c1 + c2, c.y + 9.8, { face: 'mono', size: 7.8, color: COLOR.ink });
+  for (const row of mc.rows) {
+    drawLine(doc, row.label, c.left, c.y + 9.8, { face: 'sans', size: 8, color: COLOR.muted });
+    drawLine(doc, row.gum ? row.gum.markup : '—', c.left + c1, c.y + 9.8, { face: 'mono', size: 7.8, color: COLOR.ink });
+    drawLine(doc, row.monteCarlo.markup, c.left + c1 + c2, c.y + 9.8, { face: 'mono', size: 7.8, color: COLOR.ink });
     c.y += 14;
     rule(doc, c.left, c.right, c.y, COLOR.hairline, 0.5);
   }
-  c.gap(8);
-  if (!verdictText) c.paragraph('The GUM result was not compared with the Monte Carlo result for this version.');
-  else c.paragraph(verdictText.text, verdictText.style);
-}
-
-/** The validation verdict in plain words (JCGM 101:2008 8). */
-function verdict(r: ReportData): { text: string; style: TextStyle } | null {
-  const v = r.result.validation;
-  if (!v) return null;
-  const unit = formatUnit(r.result.measurand.unit ?? r.document.measurand.unit);
-  const d = (x: number) => (unit ? `${formatSignificant(x, 2)} ${unit}` : formatSignificant(x, 2));
-  if (v.tolerance === null || v.verdict === 'inconclusive') {
-    return { text: `Verdict: the GUM result is not confirmed: ${v.reason} (JCGM 101:2008 8).`, style: { face: 'sans', size: 9, color: COLOR.warning } };
+  c.gap(6);
+  if (mc.stability) {
+    c.paragraph(mc.stability, STYLE.small);
+    c.gap(4);
   }
-  const tolerance = v.tolerance;
-  const text = v.passed
-    ? `Verdict: the GUM result is confirmed. Both ends of the GUM coverage interval lie within the tolerance δ = ${d(tolerance)} of the Monte Carlo interval ` +
-      `(d_{low} = ${d(v.dLow)}, d_{high} = ${d(v.dHigh)}; ${v.significantDigits} significant digits, JCGM 101:2008 8.2), so the law of propagation of uncertainty is adequate for this model.`
-    : `Verdict: the GUM result is not confirmed. At least one end of the GUM coverage interval differs from the Monte Carlo interval by more than the tolerance δ = ${d(tolerance)} ` +
-      `(d_{low} = ${d(v.dLow)}, d_{high} = ${d(v.dHigh)}; JCGM 101:2008 8.2). State the Monte Carlo interval, or review the model and the input distributions before this budget is used.`;
-  return { text, style: { face: 'sans', size: 9, color: v.passed ? COLOR.ink : COLOR.warning } };
+  c.paragraph(verdict, vStyle);
 }

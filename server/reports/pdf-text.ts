@@ -93,7 +93,7 @@ const inGreek = (cp: number) => cp >= 0x370 && cp <= 0x3ff;
 const inLatinExt = (cp: number) => (cp >= 0x100 && cp <= 0x24f) || (cp >= 0x1e00 && cp <= 0x1eff);
 
 interface Piece {
-  kind: 'text' | 'gap' | 'inf';
+  kind: 'text' | 'gap' | 'inf' | 'sqrt';
   text: string;
   font: string;
   size: number;
@@ -145,6 +145,7 @@ function pieces(doc: Doc, text: string, style: TextStyle, markup: boolean): Piec
     const rise = level === 1 ? style.size * 0.36 : level === -1 ? -style.size * 0.16 : 0;
     if (c === THIN || c === '\u2009') push('gap', c, 'Helvetica', base, rise);
     else if (c === '∞') push('inf', c, 'Helvetica', base, rise);
+    else if (c === '√') push('sqrt', c, 'Helvetica', base, rise);
     else if (c === '\n' || c === '\t') push('text', ' ', fontFor(style.face, ' ').font, base, rise);
     else {
       const f = fontFor(style.face, c);
@@ -154,6 +155,7 @@ function pieces(doc: Doc, text: string, style: TextStyle, markup: boolean): Piec
   for (const p of out) {
     if (p.kind === 'gap') p.width = p.size * 0.2 * [...p.text].length;
     else if (p.kind === 'inf') p.width = p.size * 0.78;
+    else if (p.kind === 'sqrt') p.width = p.size * 0.62;
     else {
       const key = `${p.font}|${p.size}|${p.text}`;
       let w = widthCache.get(key);
@@ -189,6 +191,20 @@ function drawInfinity(doc: Doc, x: number, baseline: number, size: number, color
   doc.restore();
 }
 
+/** The radical sign, drawn: neither Helvetica's encoding nor the shipped mono subsets have it. */
+function drawRadical(doc: Doc, x: number, baseline: number, size: number, color: string): void {
+  doc.save();
+  doc.lineWidth(size * 0.07).strokeColor(color).lineJoin('round');
+  doc
+    .moveTo(x + size * 0.04, baseline - size * 0.34)
+    .lineTo(x + size * 0.16, baseline - size * 0.4)
+    .lineTo(x + size * 0.3, baseline + size * 0.02)
+    .lineTo(x + size * 0.52, baseline - size * 0.78)
+    .lineTo(x + size * 0.62, baseline - size * 0.78)
+    .stroke();
+  doc.restore();
+}
+
 function drawPieces(doc: Doc, ps: Piece[], x: number, baseline: number, color: string): number {
   let cx = x;
   for (const p of ps) {
@@ -200,6 +216,8 @@ function drawPieces(doc: Doc, ps: Piece[], x: number, baseline: number, color: s
         .text(p.text, cx, baseline - p.rise, { lineBreak: false, baseline: 'alphabetic', ...(p.font.startsWith('mono') ? { features: PLAIN_FEATURES } : {}) });
     } else if (p.kind === 'inf') {
       drawInfinity(doc, cx, baseline - p.rise, p.size, color);
+    } else if (p.kind === 'sqrt') {
+      drawRadical(doc, cx, baseline - p.rise, p.size, color);
     }
     cx += p.width;
   }

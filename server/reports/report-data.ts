@@ -2,15 +2,8 @@ import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import type { VersionStatus } from '../../shared/policy/version-status';
 
-export type { VersionStatus };
 
-export const STATUS_WORDS: Record<VersionStatus, string> = {
-  draft: 'Draft',
-  returned: 'Draft (returned by the reviewer)',
-  in_review: 'In review',
-  approved: 'Approved',
-  superseded: 'Superseded draft',
-};
+export { STATUS_WORDS, type VersionStatus } from '../../shared/presentation/status';
 
 /** Everything the report shows, gathered by the service; the renderer reads nothing else. */
 export interface ReportData {

@@ -1,21 +1,21 @@
 import PDFDocument from 'pdfkit';
-import { budgetTable, inputsSection, modelSection, resultSection } from './budget-table';
-import { histogramChart, monteCarloFigures, sharesChart } from './charts';
+import { symbolMarkup } from '../../shared/format/symbols';
+import { presentResult, type ResultModel } from '../../shared/presentation/result-model';
+import { budgetTable, modelSection, resultSection } from './budget-table';
+import { contributionsChart, histogramChart, monteCarloFigures } from './charts';
 import { COLOR, Cursor, STYLE, rule } from './layout';
 import { drawLine, drawParagraph, registerFonts } from './pdf-text';
 import type { ReportData } from './report-data';
 import { footers, titleBlock } from './title-block';
 import { formatDate, formatMoment, groupNumbersIn, plainText } from './typeset';
 
-export const CAUTION =
-  'These results support, and do not replace, the laboratory’s documented procedure and its accreditation requirements (ISO/IEC 17025).';
-
-function warningsSection(c: Cursor, r: ReportData): void {
-  if (!r.result.warnings.length) {
-    c.paragraph('The engine raised no warnings for this version.', { ...STYLE.body, color: COLOR.muted });
+function warningsSection(c: Cursor, m: ResultModel): void {
+  const beside = m.budget.rows.some((r) => r.warnings.length);
+  if (!m.warnings.length) {
+    c.paragraph(beside ? 'The warnings of this version stand beside the inputs they concern in the budget.' : 'The engine raised no warnings for this version.', { ...STYLE.body, color: COLOR.muted });
     return;
   }
-  for (const w of r.result.warnings.map((t) => groupNumbersIn(t))) {
+  for (const w of m.warnings.map((t) => groupNumbersIn(t))) {
     const h = drawParagraph(c.doc, w, 0, 0, c.width - 14, STYLE.body, { markup: false, dryRun: true });
     c.need(h);
     c.doc.save().rect(c.left, c.y + 3, 3, h - 4).fill(COLOR.warning).restore();
@@ -52,13 +52,45 @@ function signatures(c: Cursor, r: ReportData): void {
   c.y += h + 6;
 }
 
-function caution(c: Cursor): void {
+function caution(c: Cursor, m: ResultModel): void {
   const style = { face: 'sans' as const, size: 8.5, color: COLOR.ink };
-  const h = drawParagraph(c.doc, CAUTION, 0, 0, c.width - 20, style, { markup: false, dryRun: true }) + 12;
+  const h = drawParagraph(c.doc, m.caution, 0, 0, c.width - 20, style, { markup: false, dryRun: true }) + 12;
   c.need(h);
   c.doc.save().lineWidth(0.6).strokeColor(COLOR.rule).rect(c.left, c.y, c.width, h).stroke().restore();
-  drawParagraph(c.doc, CAUTION, c.left + 10, c.y + 5, c.width - 20, style, { markup: false });
+  drawParagraph(c.doc, m.caution, c.left + 10, c.y + 5, c.width - 20, style, { markup: false });
   c.y += h;
+}
+
+/** The raw observations of Type A inputs and the correlation matrix, after the signatures. */
+function appendix(c: Cursor, m: ResultModel, n: number): number {
+  if (!m.observations.length && !m.correlations) return n;
+  if (m.observations.length) {
+    c.heading(++n, 'Appendix: observations', 40);
+    for (const o of m.observations) {
+      const values = o.values.map((v) => v.markup).join(',  ');
+      c.paragraph(`${symbolMarkup(o.symbol)}${o.unit.markup ? ` in ${o.unit.markup}` : ''}, ${o.values.length} readings`, { face: 'bold', size: 8.5, color: COLOR.ink }, { markup: true });
+      c.paragraph(values, { face: 'mono', size: 8, color: COLOR.ink }, { indent: 10 });
+      c.gap(4);
+    }
+  }
+  const k = m.correlations;
+  if (k) {
+    c.heading(++n, 'Appendix: correlation coefficients r(x_{i}, x_{j})', 30 + 13 * k.symbols.length);
+    const { doc } = c;
+    const labelW = 80;
+    const colW = Math.min(60, (c.width - labelW) / k.symbols.length);
+    c.need(13 * (k.symbols.length + 1) + 4);
+    k.symbols.forEach((s, j) => drawLine(doc, symbolMarkup(s), c.left + labelW + (j + 1) * colW - 4, c.y + 9, { face: 'mono-bold', size: 7.6, color: COLOR.ink }, { align: 'right' }));
+    c.y += 13;
+    rule(doc, c.left, c.left + labelW + colW * k.symbols.length, c.y, COLOR.rule, 0.5);
+    k.matrix.forEach((row, i) => {
+      drawLine(doc, symbolMarkup(k.symbols[i]), c.left, c.y + 9.5, { face: 'mono-bold', size: 7.6, color: COLOR.ink });
+      row.forEach((f, j) => drawLine(doc, f.markup, c.left + labelW + (j + 1) * colW - 4, c.y + 9.5, { face: 'mono', size: 7.6, color: j === i ? COLOR.faint : COLOR.ink }, { align: 'right' }));
+      c.y += 13;
+    });
+    c.gap(6);
+  }
+  return n;
 }
 
 /** Renders the filed report of one budget version as a PDF document. */
@@ -85,28 +117,28 @@ export function renderReportPdf(r: ReportData): Promise<Buffer> {
   });
   registerFonts(doc);
 
+  const m = presentResult(r.document, r.result);
   const c = new Cursor(doc);
-  titleBlock(c, r);
+  titleBlock(c, r, m);
   let n = 0;
   c.heading(++n, 'Result', 80);
-  resultSection(c, r);
+  resultSection(c, m);
   c.heading(++n, 'Measurement model', 40);
-  modelSection(c, r);
-  c.heading(++n, 'Input quantities', 50);
-  inputsSection(c, r);
+  modelSection(c, r, m);
   c.heading(++n, 'Uncertainty budget', 120);
-  budgetTable(c, r);
-  c.heading(++n, 'Contributions to the variance, largest first', 80);
-  sharesChart(c, r);
+  budgetTable(c, m);
+  c.heading(++n, 'Contributions, ranked', 170);
+  contributionsChart(c, m);
   c.heading(++n, 'Monte Carlo propagation of distributions', r.result.monteCarlo ? 330 : 30);
-  histogramChart(c, r);
-  monteCarloFigures(c, r);
+  histogramChart(c, r, m);
+  monteCarloFigures(c, m);
   c.heading(++n, 'Warnings', 30);
-  warningsSection(c, r);
+  warningsSection(c, m);
   c.heading(++n, 'Signatures', 150);
-  caution(c);
+  caution(c, m);
   c.gap(10);
   signatures(c, r);
+  appendix(c, m, n);
   footers(doc, r);
   doc.end();
   return done;

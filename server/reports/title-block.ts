@@ -1,7 +1,9 @@
 import { COLOR, PAGE, STYLE, rule, type Cursor } from './layout';
 import { drawLine, drawParagraph, textWidth } from './pdf-text';
-import { STATUS_WORDS, type ReportData, type VersionStatus } from './report-data';
-import { formatCount, formatMoment, formatPercent, formatUnit } from './typeset';
+import type { ResultModel } from '../../shared/presentation/result-model';
+import { DRAFT_MARK, STATUS_WORDS, isUnapproved, type VersionStatus } from '../../shared/presentation/status';
+import type { ReportData } from './report-data';
+import { formatMoment } from './typeset';
 
 const STATUS_COLOR: Record<VersionStatus, string> = {
   approved: COLOR.accent,
@@ -12,7 +14,7 @@ const STATUS_COLOR: Record<VersionStatus, string> = {
 };
 
 /** The band at the top of the first page: lab, document kind, title, measurand, and the facts of the version. */
-export function titleBlock(c: Cursor, r: ReportData): void {
+export function titleBlock(c: Cursor, r: ReportData, m: ResultModel): void {
   const { doc } = c;
   const v = r.version;
   drawLine(doc, r.lab.toUpperCase(), c.left, c.y + 8, { face: 'bold', size: 8, color: COLOR.ink });
@@ -23,14 +25,13 @@ export function titleBlock(c: Cursor, r: ReportData): void {
 
   c.y += drawParagraph(doc, r.title, c.left, c.y, c.width, { face: 'bold', size: 16, color: COLOR.ink }, { markup: false, leading: 1.2 });
   c.y += 2;
-  const m = r.document.measurand;
-  const unit = formatUnit(m.unit);
-  const measurand = `Measurand  ${m.symbol}${unit ? ` in ${unit}` : ' (dimensionless)'}${m.description ? ` — ${m.description}` : ''}`;
-  c.y += drawParagraph(doc, measurand, c.left, c.y, c.width, { face: 'sans', size: 9.5, color: COLOR.muted }, { markup: false });
+  const unit = m.measurand.unit.markup;
+  const measurand = `Measurand  ${m.measurand.symbol}${unit ? ` in ${unit}` : ' (dimensionless)'}${m.measurand.description ? ` — ${m.measurand.description}` : ''}`;
+  c.y += drawParagraph(doc, measurand, c.left, c.y, c.width, { face: 'sans', size: 9.5, color: COLOR.muted });
   c.y += 8;
 
-  const mc = r.result.monteCarlo;
-  const trials = r.document.monteCarlo?.trials;
+  const mc = m.monteCarlo;
+  const equipment = (r.document.equipment ?? []).map((e) => e.trim()).filter(Boolean);
   const left: [string, string][] = [
     ['Budget and version', `Budget ${r.budgetId}, version ${v.number}${v.latest !== v.number ? ` (latest is ${v.latest})` : ' (latest)'}`],
     ['Status', STATUS_WORDS[v.status]],
@@ -39,12 +40,11 @@ export function titleBlock(c: Cursor, r: ReportData): void {
     ['Change note', v.note.trim() || '—'],
   ];
   const right: [string, string][] = [
-    ['Procedure', r.procedure ?? '—'],
-    ['Coverage probability', formatPercent(r.result.gum.coverageProbability)],
-    [
-      'Monte Carlo',
-      mc ? `${formatCount(mc.trials)} trials${mc.adaptive || trials === 'adaptive' ? ' (adaptive)' : ''}` : 'not run',
-    ],
+    ['Procedure', r.document.procedure?.trim() || r.procedure || '—'],
+    ['Equipment', equipment.length ? equipment.join(', ') : '—'],
+    ['Environment', r.document.environment?.trim() || '—'],
+    ['Coverage probability', m.reported.coverageProbability.text],
+    ['Monte Carlo', mc ? mc.heading : 'not run'],
     ['Seed', v.seed],
     ['Engine', v.engineVersion],
   ];
@@ -88,6 +88,7 @@ export function footers(doc: PDFKit.PDFDocument, r: ReportData): void {
   const y = PAGE.bottom + 30;
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);
+    if (isUnapproved(r.version.status)) draftMark(doc);
     rule(doc, PAGE.left, PAGE.right, y - 12, COLOR.rule, 0.5);
     const left = `${r.lab} · budget ${r.budgetId}, version ${r.version.number} · SHA-256 ${r.version.documentSha256.slice(0, 16)}…`;
     drawLine(doc, left, PAGE.left, y, STYLE.small, { markup: false });
@@ -98,4 +99,15 @@ export function footers(doc: PDFKit.PDFDocument, r: ReportData): void {
       color: COLOR.faint,
     });
   }
+}
+
+/** Across the page, light enough to read through: an unapproved version is never mistaken for a record. */
+function draftMark(doc: PDFKit.PDFDocument): void {
+  const cx = PAGE.width / 2;
+  const cy = PAGE.height / 2;
+  doc.save();
+  doc.rotate(-38, { origin: [cx, cy] });
+  doc.fillOpacity(0.1);
+  drawLine(doc, DRAFT_MARK, cx, cy + 16, { face: 'bold', size: 46, color: COLOR.warning }, { align: 'center', markup: false });
+  doc.restore();
 }

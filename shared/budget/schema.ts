@@ -254,6 +254,10 @@ export const budgetDocumentSchema = z.looseObject({
     .optional(),
   monteCarlo: monteCarloSchema.optional(),
   reporting: reportingSchema.optional(),
+  // the record of the measurement a report names in its title block (ISO/IEC 17025 7.8.2, 7.8.4)
+  procedure: z.string({ error: 'procedure must be text' }).max(300).optional(),
+  equipment: z.array(z.string().max(200), { error: 'equipment must be a list of identifiers' }).max(100).optional(),
+  environment: z.string({ error: 'environment must be text' }).max(1000).optional(),
 });
 
 export type BudgetDocument = z.infer<typeof budgetDocumentSchema>;

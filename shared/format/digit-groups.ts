@@ -25,8 +25,3 @@ export function groupDigits(text: string): string {
 export function groupNumbersIn(text: string): string {
   return text.replace(/(?<![\w.])-?\d+(?:\.\d+)?(?![\w.])/g, (n) => groupDigits(n));
 }
-
-/** A count, rounded to a whole number and grouped: 200000 → "200 000" (SI Brochure 5.4.4). */
-export function formatCount(n: number): string {
-  return groupDigits(String(Math.round(n)));
-}

@@ -1,4 +1,4 @@
-import { formatAtExponent, roundUncertainty } from '../gum/rounding';
+import { formatAtExponent } from '../gum/rounding';
 import { groupDigits } from './digit-groups';
 import { MINUS } from './signs';
 
@@ -41,26 +41,17 @@ export function atPlace(x: number, exponent: number): Numeral {
   return plain(groupDigits(formatAtExponent(x, exponent)));
 }
 
-/** An uncertainty to `sig` (two) significant digits (GUM 7.2.6, rounding by shared/gum/rounding). */
-export function uncertaintyNumeral(u: number, sig = 2): Numeral {
-  if (!(u > 0) || !Number.isFinite(u)) return significant(u);
-  return atPlace(u, roundUncertainty(u, sig).exponent);
-}
-
-/** A value written to the place of the last significant digit of its uncertainty (GUM 7.2.6). */
-export function valueNumeral(x: number, u: number, sig = 2): Numeral {
-  if (!(u > 0) || !Number.isFinite(u)) return significant(x, 6);
-  return atPlace(x, roundUncertainty(u, sig).exponent);
-}
-
-/** Degrees of freedom: "∞" when infinite or unknown, one decimal when fractional, a power of ten from 10⁶. */
-export function dofNumeral(dof: number | null | undefined): Numeral {
-  if (dof === null || dof === undefined || !Number.isFinite(dof)) return plain('∞');
-  if (dof >= 1e6) return significant(dof, 2);
-  return plain(groupDigits(dof % 1 === 0 ? dof.toFixed(0) : dof.toFixed(1)));
-}
-
 /** Writes a numeral, raising its power of ten with `raise`: "1.2" and −6 → "1.2×10" + raise("−6"). */
 export function writeNumeral(n: Numeral, raise: (exponent: string) => string): string {
   return n.power === null ? n.digits : `${n.digits}×10${raise(String(n.power).replace('-', MINUS))}`;
+}
+
+/** x rounded to `sig` significant digits, as a number to put in an input field: 0.0057735 → 0.00577 (sig 3). */
+export function roundSignificant(x: number, sig: number): number {
+  return Number.isFinite(x) && x !== 0 ? Number(x.toPrecision(sig)) : x;
+}
+
+/** x rounded to `decimals` decimal places, as a number to put in an input field. */
+export function roundDecimals(x: number, decimals: number): number {
+  return Number.isFinite(x) ? Number(x.toFixed(decimals)) : x;
 }

@@ -1,10 +1,11 @@
 import type { BudgetResult, ReportedResult, ValidationVerdict } from '../budget/result';
 import { reportedOf } from '../compute/reported-result';
+import { coverageFactor, dof, probability } from '../presentation/figures';
 import { formatAtExponent, roundResult, roundUncertainty } from './rounding';
 
 /** "95 %" or "95.45 %": the budget's p as given, up to two decimals. */
 function percent(p: number): string {
-  return `${+(p * 100).toFixed(2)} %`;
+  return probability(p).text;
 }
 
 /** The distribution k refers to (JCGM 100:2008 G.3–G.4): normal for ν_eff = ∞, else t with ⌊ν_eff⌋. */
@@ -12,9 +13,9 @@ function distributionOf(effectiveDof: number | null): string {
   // Beyond a few hundred degrees of freedom t_p differs from the normal quantile only in the third digit of k.
   return effectiveDof === null
     ? 'a normal distribution'
-    : effectiveDof >= 1000
+    : effectiveDof > 1000
       ? 'a t-distribution with more than 1000 effective degrees of freedom'
-      : `a t-distribution with ν_eff = ${Math.floor(effectiveDof)} effective degrees of freedom`;
+      : `a t-distribution with ν_eff = ${dof(effectiveDof).text} effective degrees of freedom`;
 }
 
 /** Why the GUM result stands without the Monte Carlo validation, in one sentence. */
@@ -92,7 +93,7 @@ export function certificateStatement(
   }
 
   const U = rounded.uncertainty;
-  const k = (reported.coverageFactor ?? NaN).toFixed(2);
+  const k = coverageFactor(reported.coverageFactor ?? NaN).text;
   const pct = reported.basis === 'k-fixed' ? `${Math.round(reported.coverageProbability * 100)} %` : percent(reported.coverageProbability);
   const statement =
     `${symbol} = (${y} ± ${U})${unit}. The reported expanded uncertainty is the combined standard uncertainty ` +

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { formatCount, groupDigits, groupNumbersIn } from '../../shared/format/digit-groups';
+import { groupDigits, groupNumbersIn } from '../../shared/format/digit-groups';
 import { budgetKindLabel, KIND_LABELS, KIND_SHORT } from '../../shared/format/distribution-labels';
-import { formatPercent } from '../../shared/format/percent';
-import { atPlace, dofNumeral, significant, uncertaintyNumeral, valueNumeral, writeNumeral } from '../../shared/format/significant-digits';
+import { atPlace, significant, writeNumeral } from '../../shared/format/significant-digits';
 import { superscript } from '../../shared/format/superscript';
 import { ratioPieces, unitPieces, unitSymbol, writeUnit } from '../../shared/format/unit-symbols';
+import { count, estimate, significantFigure, uncertainty } from '../../shared/presentation/figures';
+import { unitText } from '../../shared/presentation/units';
 import * as print from '../../server/reports/typeset';
-import * as screenNumbers from '../../src/app/ui/numbers';
 import * as screenUnits from '../../src/app/ui/units';
 
 const S = '\u202f'; // narrow no-break space
@@ -75,7 +75,7 @@ describe('digit groups (SI Brochure 5.4.4)', () => {
     expect(groupDigits('1234.5678')).toBe('1234.5678');
     expect(groupDigits('1e-7')).toBe('1e−7');
     expect(groupNumbersIn('k = 2, U = 12345.5 and x_1')).toBe(`k = 2, U = 12${S}345.5 and x_1`);
-    expect(formatCount(200000.4)).toBe(`200${S}000`);
+    expect(count(200000.4).text).toBe(`200${S}000`);
   });
 });
 
@@ -96,18 +96,10 @@ describe('significant digits and the place of the uncertainty (GUM 7.2.6)', () =
   });
 
   it('rounds an uncertainty to two significant digits and the value to its place', () => {
-    expect(sup(uncertaintyNumeral(0.0996))).toBe('0.10');
-    expect(sup(uncertaintyNumeral(0.012345))).toBe('0.012');
-    expect(sup(valueNumeral(12345.678901, 0.0012))).toBe(`12${S}345.6789`);
-    expect(sup(valueNumeral(10.000003456, 0.0000025))).toBe(`10.000${S}003${S}5`);
-  });
-
-  it('writes degrees of freedom and shares', () => {
-    expect(sup(dofNumeral(Infinity))).toBe('∞');
-    expect(sup(dofNumeral(12.34))).toBe('12.3');
-    expect(sup(dofNumeral(2e7))).toBe('2.0×10⁷');
-    expect(formatPercent(0.4567)).toBe('46 %');
-    expect(formatPercent(0.0004)).toBe('< 0.1 %');
+    expect(uncertainty(0.0996).text).toBe('0.10');
+    expect(uncertainty(0.012345).text).toBe('0.012');
+    expect(estimate(12345.678901, 0.0012).text).toBe(`12${S}345.6789`);
+    expect(estimate(10.000003456, 0.0000025).text).toBe(`10.000${S}003${S}5`);
   });
 });
 
@@ -123,11 +115,10 @@ describe('distribution labels', () => {
 
 describe('both renderers adapt the same formatting', () => {
   it('screen and print agree once markup is made plain', () => {
-    for (const u of ['um', 'degC', 'kg/m^3', 'ohm', '1/degC', 'J s', 'm s^-2']) expect(print.plainText(print.formatUnit(u))).toBe(screenUnits.formatUnit(u));
-    expect(print.plainText(print.ratioUnit('mm', '1/degC'))).toBe(screenUnits.ratioUnit('mm', '1/degC'));
+    for (const u of ['um', 'degC', 'kg/m^3', 'ohm', '1/degC', 'J s', 'm s^-2']) expect(print.plainText(unitText(u).markup)).toBe(screenUnits.formatUnit(u));
     for (const x of [12345.678901, 1.23e-7, 0, -4.5e9]) {
-      expect(print.plainText(print.formatSignificant(x, 4)).replace(/ /g, S)).toBe(screenNumbers.formatSignificant(x, 4));
-      expect(print.plainText(print.formatWithUncertainty(x, 3.4e-8)).replace(/ /g, S)).toBe(screenNumbers.formatWithUncertainty(x, 3.4e-8));
+      expect(print.plainText(significantFigure(x, 4).markup).replace(/ /g, S)).toBe(significantFigure(x, 4).text);
+      expect(print.plainText(estimate(x, 3.4e-8).markup).replace(/ /g, S)).toBe(estimate(x, 3.4e-8).text);
     }
   });
 });

@@ -1,20 +1,9 @@
 import { useParams } from 'react-router-dom';
-import { BudgetTable, SharesChart } from '../../features/editor/components/BudgetTable';
+import { BudgetWithContributions } from '../../features/editor/components/BudgetTable';
 import { ReportPage } from '../../features/report/components/ReportPage';
 
 /** The printable report of one stored version, with the editor's budget table in its slot. */
 export default function ReportRoute() {
   const { id, n } = useParams();
-  return (
-    <ReportPage
-      budgetId={Number(id)}
-      versionNumber={Number(n)}
-      renderBudgetTable={(result, document) => (
-        <>
-          <BudgetTable result={result} inputs={document.inputs} onSelect={() => {}} />
-          <SharesChart result={result} onSelect={() => {}} />
-        </>
-      )}
-    />
-  );
+  return <ReportPage budgetId={Number(id)} versionNumber={Number(n)} renderBudgetTable={(model) => <BudgetWithContributions model={model} />} />;
 }

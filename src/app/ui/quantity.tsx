@@ -1,18 +1,14 @@
+import { symbolParts } from '../../../shared/format/symbols';
 import { formatUnit } from './units';
 import { fullPrecision } from './numbers';
 
 /** A symbol as metrologists write it: x_s → x with subscript s, in the monospace face. */
 export function Sym({ s, className = '' }: { s: string; className?: string }) {
-  const m = /^([A-Za-z]+)_(\w+)$/.exec(s);
-  const greek: Record<string, string> = {
-    alpha: 'α', beta: 'β', gamma: 'γ', delta: 'δ', Delta: 'Δ', theta: 'θ', lambda: 'λ', mu: 'μ', nu: 'ν', rho: 'ρ', sigma: 'σ', tau: 'τ', phi: 'φ', omega: 'ω', eps: 'ε', epsilon: 'ε',
-  };
-  const base = m ? m[1] : s;
-  const shown = greek[base] ?? base;
+  const { base, sub } = symbolParts(s);
   return (
-    <span className={`num ${className}`} title={s !== shown || m ? s : undefined}>
-      {shown}
-      {m ? <sub>{m[2]}</sub> : null}
+    <span className={`num ${className}`} title={s !== base ? s : undefined}>
+      {base}
+      {sub !== null ? <sub>{sub}</sub> : null}
     </span>
   );
 }

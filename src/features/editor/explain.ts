@@ -1,6 +1,6 @@
 import type { BudgetResult, Contribution } from '../../../shared/budget/result';
 import type { Distribution, InputQuantity } from '../../../shared/budget/schema';
-import { formatDof, formatSignificant } from '../../app/ui/numbers';
+import { dof, probability, share, significantFigure } from '../../../shared/presentation/figures';
 import { formatUnit } from '../../app/ui/units';
 
 /** How one number was obtained: the formula, the values substituted, the clause it follows. */
@@ -11,7 +11,9 @@ export interface Explanation {
 
 export type Selection = { type: 'result'; item: 'y' | 'uc' | 'nu' | 'k' | 'U' } | { type: 'input'; symbol: string };
 
-const f = (x: number, sig = 4) => formatSignificant(x, sig);
+// the steps of a derivation keep four significant digits, so a reader can redo the arithmetic
+const f = (x: number, sig = 4) => significantFigure(x, sig).text;
+const formatDof = (nu: number | null) => dof(nu).text;
 const withUnit = (x: string, unit?: string) => {
   const u = formatUnit(unit);
   return u ? `${x} ${u}` : x;
@@ -96,7 +98,7 @@ export function explainInput(result: BudgetResult, input: InputQuantity, measura
       },
       {
         formula: 'share = uᵢ²(y) / Σ uⱼ²(y)',
-        substituted: `share = ${f(c.contribution, 3)}² / ${f(Math.sqrt(result.gum.contributions.reduce((s, x) => s + x.contribution ** 2, 0)), 3)}² = ${(c.varianceShare * 100).toFixed(1)} %`,
+        substituted: `share = ${f(c.contribution, 3)}² / ${f(Math.sqrt(result.gum.contributions.reduce((s, x) => s + x.contribution ** 2, 0)), 3)}² = ${share(c.varianceShare).text}`,
         clause: 'GUM 5.1.2',
       },
       dofStep(input.distribution, c),
@@ -171,7 +173,7 @@ export function explainResult(result: BudgetResult, item: 'y' | 'uc' | 'nu' | 'k
         steps: [
           {
             formula: 'k = t_p(ν_eff) at the real ν_eff',
-            substituted: `p = ${+(g.coverageProbability * 100).toFixed(2)} %, ν = ${formatDof(g.effectiveDof)}  →  k = ${g.coverageFactor.toFixed(3)}`,
+            substituted: `p = ${probability(g.coverageProbability).text}, ν = ${formatDof(g.effectiveDof)}  →  k = ${f(g.coverageFactor)}`,
             clause: 'GUM G.3.4, G.4.1 note, Table G.2',
           },
         ],
@@ -182,7 +184,7 @@ export function explainResult(result: BudgetResult, item: 'y' | 'uc' | 'nu' | 'k
         steps: [
           {
             formula: 'U = k · u_c(y)',
-            substituted: `U = ${g.coverageFactor.toFixed(3)} · ${f(g.standardUncertainty)} = ${withUnit(f(g.expandedUncertainty), unit)}`,
+            substituted: `U = ${f(g.coverageFactor)} · ${f(g.standardUncertainty)} = ${withUnit(f(g.expandedUncertainty), unit)}`,
             clause: 'GUM 6.2.1',
           },
           { formula: 'report U with at most two significant digits, y to the same place', clause: 'GUM 7.2.6' },

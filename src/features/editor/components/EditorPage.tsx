@@ -11,8 +11,9 @@ import { ApiError, errorMessage } from '../../../app/http';
 import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, ErrorNote, Field, NumberInput, Spinner, TextInput } from '../../../app/ui/controls';
-import { formatDateTime, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
+import { formatDateTime } from '../../../app/ui/numbers';
 import { givenNumber, ReadOnlyField, ReadOnlyList } from '../../../app/ui/read-only';
+import { modelValues, presentResult } from '../../../../shared/presentation/result-model';
 import { StatusBadge } from '../../../app/ui/status-badge';
 import { useToast } from '../../../app/ui/toasts';
 import { formatUnit } from '../../../app/ui/units';
@@ -20,12 +21,13 @@ import { budgetQuery, useBudget, useBudgetVersion, useSaveBudget } from '../api/
 import { clearDraft, loadDraft, storeDraft, type StoredDraft } from '../draft-storage';
 import { explainInput, explainResult, type Selection } from '../explain';
 import { problemAt, useLiveResult } from '../live';
-import { BudgetTable, SharesChart } from './BudgetTable';
+import { BudgetTable, ContributionsChart } from './BudgetTable';
 import { ConstantsSection } from './ConstantsSection';
 import { CorrelationsEditor } from './CorrelationsEditor';
 import { ExplainPanel } from './ExplainPanel';
 import { InputsList, type KeyedInput } from './InputsList';
 import { ModelEditor } from './ModelEditor';
+import { RecordFields } from './RecordFields';
 import { ResultCard } from './ResultCard';
 import { ConflictDialog, LeaveDialog, SaveDialog } from './SaveDialogs';
 
@@ -206,6 +208,7 @@ function Editor({
   const save = useSaveBudget();
 
   const live = useLiveResult(doc, start);
+  const model = useMemo(() => (live.result && live.valid ? presentResult(live.valid, live.result) : null), [live.result, live.valid]);
   const dirty = baseline === '' ? true : JSON.stringify(doc) !== baseline;
   const isNew = budgetId === undefined;
 
@@ -337,13 +340,13 @@ function Editor({
   return (
     <div className="mx-auto grid max-w-[1600px] grid-cols-1 gap-5 px-4 py-4 lg:grid-cols-[minmax(0,1fr)_360px] lg:px-6">
       <div className="flex min-w-0 flex-col gap-4">
-        {live.result ? (
+        {model ? (
           <div className="sticky top-[52px] z-20 -mx-4 flex flex-wrap items-baseline gap-x-5 gap-y-0.5 border-b border-stone-300 bg-white/95 px-4 py-1.5 text-sm shadow-sm lg:hidden" aria-hidden>
             <span className="num font-semibold">
-              {live.result.measurand.symbol} = {formatWithUncertainty(live.result.gum.estimate, live.result.gum.expandedUncertainty)} {formatUnit(live.result.measurand.unit)}
+              {model.measurand.symbol} = {model.reported.estimate.text} {model.measurand.unit.text}
             </span>
-            <span className="num">U = {formatUncertainty(live.result.gum.expandedUncertainty)} {formatUnit(live.result.measurand.unit)}</span>
-            <span className="num text-stone-700">k = {live.result.gum.coverageFactor.toFixed(2)}</span>
+            <span className="num">U = {model.reported.expandedUncertainty.text} {model.measurand.unit.text}</span>
+            {model.reported.coverageFactor ? <span className="num text-stone-700">k = {model.reported.coverageFactor.text}</span> : null}
           </div>
         ) : null}
         <header className="flex flex-col gap-2">
@@ -489,6 +492,7 @@ function Editor({
             </Field>
           </div>
           )}
+          <RecordFields doc={doc} readOnly={readOnly} onChange={(patch) => setDoc((d) => ({ ...d, ...patch }))} />
         </Section>
 
         <Section id="model" title="Model">
@@ -499,7 +503,7 @@ function Editor({
               </ReadOnlyField>
             </ReadOnlyList>
           ) : (
-            <ModelEditor value={doc.model} problem={modelProblem} onChange={(model) => setDoc((d) => ({ ...d, model }))} />
+            <ModelEditor value={doc.model} values={model ? modelValues(model) : undefined} problem={modelProblem} onChange={(model) => setDoc((d) => ({ ...d, model }))} />
           )}
         </Section>
 
@@ -561,16 +565,15 @@ function Editor({
         ) : null}
 
         <Section id="budget" title="Uncertainty budget" description="Recomputed on every edit. Select a row to see how its numbers were obtained.">
-          {live.result ? (
+          {model ? (
             <div className="grid gap-3 2xl:grid-cols-[minmax(0,1fr)_300px]">
               <BudgetTable
-                result={live.result}
-                inputs={doc.inputs}
+                model={model}
                 selected={selectedSymbol}
                 onSelect={(symbol) => setSelection({ type: 'input', symbol })}
                 adornment={slotProps ? slots.renderRowAdornment : undefined}
               />
-              <SharesChart result={live.result} selected={selectedSymbol} onSelect={(symbol) => setSelection({ type: 'input', symbol })} />
+              <ContributionsChart model={model} selected={selectedSymbol} onSelect={(symbol) => setSelection({ type: 'input', symbol })} />
             </div>
           ) : (
             <p className="text-sm text-stone-600">The table appears as soon as the budget has no problems. Each problem is shown beside its field.</p>
@@ -590,7 +593,7 @@ function Editor({
 
       <aside className="flex flex-col gap-3 lg:sticky lg:top-16 lg:max-h-[calc(100vh-5rem)] lg:self-start lg:overflow-y-auto" aria-label="Result and explanations">
         <ResultCard
-          result={live.result}
+          model={model}
           stale={live.stale}
           move={live.move}
           problemsCount={live.problems.length}

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { DISTRIBUTION_KINDS, type Distribution, type DistributionKind, type InputQuantity } from '../../../../shared/budget/schema';
+import { roundDecimals, roundSignificant } from '../../../../shared/format/significant-digits';
 import { coverageFactorFor } from '../../../../shared/statistics/student-t';
 import { Field, NumberInput, Select, TextInput } from '../../../app/ui/controls';
 import { formatSignificant } from '../../../app/ui/numbers';
@@ -98,7 +99,7 @@ export function InputForm({
   const kFromP = (nu: number | undefined, prob: number | undefined) => {
     if (!(prob !== undefined && prob > 0 && prob < 1)) return undefined;
     const dof = nu !== undefined && nu > 0 ? nu : Infinity;
-    return Number(coverageFactorFor(prob, dof).toFixed(4));
+    return roundDecimals(coverageFactorFor(prob, dof), 4);
   };
 
   const kindFields = () => {
@@ -111,7 +112,7 @@ export function InputForm({
               normalMode,
               (mode) => {
                 setNormalMode(mode);
-                if (mode === 'u') setDist({ u: d.u ?? (d.U && d.k ? Number((d.U / d.k).toPrecision(6)) : undefined), U: undefined, k: undefined });
+                if (mode === 'u') setDist({ u: d.u ?? (d.U && d.k ? roundSignificant(d.U / d.k, 6) : undefined), U: undefined, k: undefined });
                 else if (mode === 'Uk') setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: d.k ?? 2, u: undefined });
                 else {
                   const nu = d.dof ?? 10;
@@ -137,7 +138,7 @@ export function InputForm({
                   setP(v);
                   setDist({ k: kFromP(d.dof, v) });
                 })}
-                {num('Degrees of freedom ν', 'dof', d.k ? `k = t_p(ν) = ${d.k.toFixed(3)} (GUM G.3.4)` : undefined, undefined, (v) => setDist({ dof: v, k: kFromP(v, p) }))}
+                {num('Degrees of freedom ν', 'dof', d.k ? `k = t_p(ν) = ${formatSignificant(d.k, 4)} (GUM G.3.4)` : undefined, undefined, (v) => setDist({ dof: v, k: kFromP(v, p) }))}
               </>
             ) : null}
           </>
@@ -180,7 +181,7 @@ export function InputForm({
                   `Resolution δ (digit step)${unitSuffix}`,
                   'halfWidth',
                   d.halfWidth ? `a = δ/2, u = δ/(2√3) = ${formatSignificant(d.halfWidth / Math.sqrt(3), 3)} ${unit} (GUM F.2.2.1)` : 'the smallest step of the display',
-                  d.halfWidth !== undefined ? Number((d.halfWidth * 2).toPrecision(12)) : undefined,
+                  d.halfWidth !== undefined ? roundSignificant(d.halfWidth * 2, 12) : undefined,
                   (v) => setDist({ halfWidth: v === undefined ? undefined : v / 2 }),
                 )}
               </>
@@ -320,7 +321,7 @@ export function InputForm({
               'Relative uncertainty of u, Δu/u (%)',
               'relativeUncertaintyOfU',
               d.relativeUncertaintyOfU ? `ν = ½·(Δu/u)⁻² = ${formatSignificant(0.5 / d.relativeUncertaintyOfU ** 2, 3)} (GUM G.4.2)` : 'e.g. 10 % gives ν = 50',
-              d.relativeUncertaintyOfU !== undefined ? Number((d.relativeUncertaintyOfU * 100).toPrecision(10)) : undefined,
+              d.relativeUncertaintyOfU !== undefined ? roundSignificant(d.relativeUncertaintyOfU * 100, 10) : undefined,
               (v) => setDist({ relativeUncertaintyOfU: v === undefined ? undefined : v / 100 }),
             )
           ) : null}

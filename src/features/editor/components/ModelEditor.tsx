@@ -1,12 +1,74 @@
-import { useId, useRef } from 'react';
+import { Fragment, useId, useRef, type ReactNode } from 'react';
+import { superscript } from '../../../../shared/format/superscript';
+import { Sym } from '../../../app/ui/quantity';
 import type { Problem } from '../live';
 import { plainMessage } from '../live';
+
+const FUNCTIONS = new Set(['sqrt', 'exp', 'log', 'log10', 'sin', 'cos', 'tan', 'asin', 'acos', 'atan', 'atan2', 'abs', 'min', 'max']);
+
+/** An expression as it is printed: symbols with subscripts, · for ×, √ for sqrt, raised exponents, true minus signs. */
+function typesetExpression(text: string): ReactNode[] {
+  const out: ReactNode[] = [];
+  const re = /([A-Za-z][A-Za-z0-9_]*)|(\^\s*\(?-?[0-9.]+\)?)|(\d+(?:\.\d+)?(?:[eE][-+]?\d+)?)|(\*)|(-)|(\s+)|(.)/g;
+  let m: RegExpExecArray | null;
+  let i = 0;
+  while ((m = re.exec(text))) {
+    const [tok, ident, power, number, times, minus, space] = m;
+    if (ident) out.push(ident === 'sqrt' ? '√' : FUNCTIONS.has(ident) || ident === 'pi' ? (ident === 'pi' ? 'π' : ident) : <Sym key={i} s={ident} />);
+    else if (power) out.push(superscript(power.replace(/[\^\s()]/g, '')));
+    else if (number) out.push(number);
+    else if (times) out.push(' · ');
+    else if (minus) out.push(' − ');
+    else if (space) out.push(' ');
+    else out.push(tok);
+    i++;
+  }
+  return out;
+}
+
+/**
+ * The model typeset line by line beside its text, each line followed by the value of the quantity it
+ * defines at the input estimates, with its unit; the same rows as the text so they read across.
+ */
+function TypesetModel({ lines, values }: { lines: string[]; values: Record<string, string> }) {
+  return (
+    <div aria-label="The model typeset, with the value of each quantity" role="group" className="hidden min-w-0 border-l border-stone-200 bg-stone-50 px-3 py-2 text-sm leading-6 text-stone-800 md:block md:w-[44%]">
+      {lines.map((line, i) => {
+        const code = line.replace(/#.*$/, '').trim();
+        const eq = /^([A-Za-z][A-Za-z0-9_]*)\s*=\s*(.+)$/.exec(code);
+        if (!eq) return <div key={i} className="truncate text-stone-400">{line.trim().startsWith('#') ? line.trim() : '\u00a0'}</div>;
+        const value = values[eq[1]];
+        return (
+          <div key={i} className="flex items-baseline gap-2 whitespace-nowrap">
+            <span className="min-w-0 truncate">
+              <Sym s={eq[1]} /> = {typesetExpression(eq[2]).map((n, j) => (
+                <Fragment key={j}>{n}</Fragment>
+              ))}
+            </span>
+            {value ? <span className="num ml-auto shrink-0 rounded bg-white px-1 text-stone-900">= {value}</span> : null}
+          </div>
+        );
+      })}
+    </div>
+  );
+}
 
 /**
  * The model in the monospace face, with line numbers; a problem marks its line
  * and underlines the offending token, and its message sits right under that line.
  */
-export function ModelEditor({ value, onChange, problem }: { value: string; onChange(v: string): void; problem: Problem | null }) {
+export function ModelEditor({
+  value,
+  onChange,
+  problem,
+  values,
+}: {
+  value: string;
+  onChange(v: string): void;
+  problem: Problem | null;
+  /** The value of each defined quantity at the estimates, with its unit, from the result model. */
+  values?: Record<string, string>;
+}) {
   const id = useId();
   const gutter = useRef<HTMLDivElement>(null);
   const layer = useRef<HTMLPreElement>(null);
@@ -84,6 +146,7 @@ export function ModelEditor({ value, onChange, problem }: { value: string; onCha
             className="num relative block w-full resize-y whitespace-pre bg-transparent px-3 py-2 text-sm leading-6 text-stone-900 outline-none"
           />
         </div>
+        {values ? <TypesetModel lines={Array.from({ length: rows }, (_, i) => lines[i] ?? '')} values={values} /> : null}
       </div>
       {problem ? (
         <p id={`${id}-err`} role="alert" className="rounded-md bg-caution-50 px-2 py-1 text-sm text-caution-700">

@@ -1,5 +1,6 @@
 import type { Distribution, DistributionKind } from '../../../../shared/budget/schema';
 import { gumTreatment } from '../../../../shared/distributions/registry';
+import { roundSignificant } from '../../../../shared/format/significant-digits';
 
 export { KIND_LABELS, KIND_SHORT } from '../../../../shared/format/distribution-labels';
 
@@ -19,7 +20,7 @@ export function convertKind(d: Distribution, kind: DistributionKind): Distributi
   const value = t?.estimate ?? ('value' in d && typeof d.value === 'number' ? d.value : 0);
   const u = t && t.standardUncertainty > 0 ? t.standardUncertainty : 1;
   const keep = { ...(d.dof !== undefined && kind !== 'student-t' ? { dof: d.dof } : {}), ...(d.relativeUncertaintyOfU !== undefined ? { relativeUncertaintyOfU: d.relativeUncertaintyOfU } : {}) };
-  const r = (x: number) => Number(x.toPrecision(6));
+  const r = (x: number) => roundSignificant(x, 6);
   switch (kind) {
     case 'normal':
       return { kind, value, u: r(u), ...keep };

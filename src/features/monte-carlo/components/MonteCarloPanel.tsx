@@ -1,9 +1,10 @@
-import { lazy, Suspense, useState } from 'react';
-import type { BudgetResult } from '../../../../shared/budget/result';
+import { lazy, Suspense, useMemo, useState } from 'react';
+import { duration } from '../../../../shared/presentation/figures';
+import { presentMonteCarlo, type MonteCarloView } from '../../../../shared/presentation/result-model';
+import type { VerdictView } from '../../../../shared/presentation/verdict';
 import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Button, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
-import { formatCount, formatSignificant, formatUncertainty, formatWithUncertainty } from '../../../app/ui/numbers';
-import { Unit } from '../../../app/ui/quantity';
+import { formatCount } from '../../../app/ui/numbers';
 import { formatUnit } from '../../../app/ui/units';
 import { DEFAULTS } from '../../../../shared/budget/limits';
 import { useComputeLimits } from '../api/compute-limits';
@@ -13,87 +14,56 @@ const HistogramPlot = lazy(() => import('./HistogramPlot'));
 
 const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000, 5_000_000];
 
-function seconds(ms: number): string {
-  if (ms < 1000) return `${Math.round(ms)} ms`;
-  return `${(ms / 1000).toFixed(ms < 10_000 ? 1 : 0)} s`;
-}
+const seconds = (ms: number): string => duration(ms).text;
 
-function Verdict({ result, unit }: { result: BudgetResult; unit: string }) {
-  const v = result.validation;
-  if (!v) return null;
-  const d = (x: number) => `${formatSignificant(x, 2)}${unit ? ` ${unit}` : ''}`;
-  if (v.tolerance === null || v.verdict === 'inconclusive') {
-    return (
-      <p className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
-        <span className="font-semibold">⚠ The GUM result is not validated</span> ({v.verdict === 'inconclusive' ? 'inconclusive' : 'comparison not possible'}): {v.reason}. JCGM 101:2008 clause 8.
-      </p>
-    );
-  }
-  const tolerance = v.tolerance;
-  const ends = [v.dLow > tolerance ? 'lower' : null, v.dHigh > tolerance ? 'upper' : null].filter(Boolean);
-  return v.passed ? (
-    <p className="rounded-md border border-accent-600 bg-accent-50 px-3 py-2 text-sm text-accent-700">
-      <span className="font-semibold">✓ The GUM result is validated.</span> Both ends of the GUM interval lie within δ = {d(tolerance)} of the Monte Carlo interval (d
-      <sub>low</sub> = {d(v.dLow)}, d<sub>high</sub> = {d(v.dHigh)}; δ is half a unit in the {v.significantDigits === 1 ? 'first' : `${v.significantDigits}nd`} significant digit of u(y)). JCGM 101:2008 clause 8.
-    </p>
-  ) : (
-    <p className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
-      <span className="font-semibold">⚠ The GUM result is not validated.</span> At the {ends.join(' and ')} end{ends.length > 1 ? 's' : ''} the GUM interval differs from the Monte Carlo interval by more than δ = {d(tolerance)} (d
-      <sub>low</sub> = {d(v.dLow)}, d<sub>high</sub> = {d(v.dHigh)}). Report the Monte Carlo interval, or look for a non-linear model or a dominant non-Gaussian input. JCGM 101:2008 clause 8.
+/** The clause 8 comparison in words, from the result model. */
+export function Verdict({ view }: { view: VerdictView | null }) {
+  if (!view) return null;
+  const tone =
+    view.tone === 'good' ? 'border-accent-600 bg-accent-50 text-accent-700' : view.tone === 'warning' ? 'border-caution-500 bg-caution-50 text-caution-700' : 'border-stone-300 bg-white text-stone-800';
+  return (
+    <p className={`rounded-md border px-3 py-2 text-sm ${tone}`} data-testid="mc-verdict">
+      <span className="font-semibold">
+        {view.tone === 'good' ? '✓ ' : view.tone === 'warning' ? '⚠ ' : ''}
+        {view.headline}
+      </span>{' '}
+      {view.detail.text}
     </p>
   );
 }
 
-function Comparison({ result, unit }: { result: BudgetResult; unit?: string }) {
-  const g = result.gum;
-  const mc = result.monteCarlo!;
-  const u = mc.standardUncertainty;
-  const f = (x: number) => formatWithUncertainty(x, u);
+/** GUM and Monte Carlo figures side by side, at one decimal place (from the result model). */
+export function Comparison({ view, unit }: { view: MonteCarloView; unit: string }) {
   return (
-    <table className="w-full text-sm">
+    <table className="w-full text-sm" data-testid="mc-comparison">
       <caption className="sr-only">GUM and Monte Carlo results side by side</caption>
       <thead className="text-xs text-stone-700">
         <tr>
-          <th className="py-1 text-left font-semibold"></th>
+          <th className="py-1 text-left font-normal text-stone-600">{unit ? `values in ${unit}` : 'dimensionless values'}</th>
           <th className="py-1 text-right font-semibold">GUM</th>
           <th className="py-1 text-right font-semibold">Monte Carlo</th>
         </tr>
       </thead>
       <tbody className="num">
-        <tr className="border-t border-stone-100">
-          <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">estimate y</th>
-          <td className="py-1 text-right">{f(g.estimate)}</td>
-          <td className="py-1 text-right">{f(mc.estimate)}</td>
-        </tr>
-        <tr className="border-t border-stone-100">
-          <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">standard uncertainty u(y)</th>
-          <td className="py-1 text-right">{formatUncertainty(g.standardUncertainty)}</td>
-          <td className="py-1 text-right">{formatUncertainty(mc.standardUncertainty)}</td>
-        </tr>
-        <tr className="border-t border-stone-100">
-          <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">coverage interval ({+(g.coverageProbability * 100).toFixed(2)} %)</th>
-          <td className="py-1 text-right">
-            [{f(g.interval[0])}, {f(g.interval[1])}]
-          </td>
-          <td className="py-1 text-right">
-            [{f(mc.interval[0])}, {f(mc.interval[1])}]
-          </td>
-        </tr>
-        <tr className="border-t border-stone-100">
-          <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">shortest interval</th>
-          <td className="py-1 text-right text-stone-500">—</td>
-          <td className="py-1 text-right">
-            [{f(mc.shortestInterval[0])}, {f(mc.shortestInterval[1])}]
-          </td>
-        </tr>
+        {view.rows.map((r) => (
+          <tr key={r.label} className="border-t border-stone-100">
+            <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">
+              {r.label}
+            </th>
+            <td className={`py-1 text-right ${r.gum ? '' : 'text-stone-500'}`}>{r.gum ? r.gum.text : '—'}</td>
+            <td className="py-1 text-right">{r.monteCarlo.text}</td>
+          </tr>
+        ))}
       </tbody>
-      <tfoot>
-        <tr>
-          <td colSpan={3} className="pt-1 text-xs text-stone-600">
-            All values in <Unit u={unit} /> {formatUnit(unit) ? '' : '(dimensionless)'}
-          </td>
-        </tr>
-      </tfoot>
+      {view.stability ? (
+        <tfoot>
+          <tr>
+            <td colSpan={3} className="pt-1 text-xs text-stone-600">
+              {view.stability}
+            </td>
+          </tr>
+        </tfoot>
+      ) : null}
     </table>
   );
 }
@@ -116,6 +86,7 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
 
   const shown = state.phase === 'done' ? { result: state.result, label: `run in this browser in ${seconds(state.ms)}` } : state.phase === 'idle' ? stored : null;
   const mc = shown?.result.monteCarlo ?? null;
+  const figures = useMemo(() => (shown ? presentMonteCarlo(shown.result, measurand.unit) : null), [shown?.result, measurand.unit]);
   const running = state.phase === 'running';
   const elapsed = running ? performance.now() - state.startedAt : 0;
   const left = running && state.done > 0 ? (elapsed / state.done) * (state.total - state.done) : null;
@@ -212,7 +183,7 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
       {shown && mc ? (
         <div className="mt-4 flex flex-col gap-3">
           <p className="text-xs text-stone-600">
-            <span className="num">{formatCount(mc.trials)}</span> trials{mc.adaptive ? ' (adaptive)' : ''}, seed <span className="num rounded bg-white px-1 text-stone-800">{mc.seed}</span> — {shown.label}
+            <span className="num">{figures?.monteCarlo?.heading}</span>, seed <span className="num rounded bg-white px-1 text-stone-800">{mc.seed}</span> — {shown.label}
             {gum && shown === stored ? '' : ''}
           </p>
           <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
@@ -228,8 +199,8 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
               </Suspense>
             </div>
             <div className="flex flex-col gap-3">
-              <Comparison result={shown.result} unit={measurand.unit} />
-              <Verdict result={shown.result} unit={unit} />
+              {figures?.monteCarlo ? <Comparison view={figures.monteCarlo} unit={figures.unit.text} /> : null}
+              <Verdict view={figures?.validation ?? null} />
             </div>
           </div>
         </div>

@@ -4,7 +4,9 @@ import type { BudgetDiff, Delta, FieldChange, KeyedDiff } from '../../../../shar
 import { errorMessage } from '../../../app/http';
 import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
-import { formatDateTime, formatPercent, formatSignificant, fullPrecision, groupDigits } from '../../../app/ui/numbers';
+import { compareContributions, compareResults, type ComparedFigure } from '../../../../shared/presentation/compare';
+import type { Figure } from '../../../../shared/presentation/figures';
+import { formatDateTime, formatSignificant, fullPrecision } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
 import { StatusBadge, statusLabel } from '../../../app/ui/status-badge';
 import { versionStatus } from '../../../../shared/policy/version-status';
@@ -176,42 +178,30 @@ function deltaKind(d: Delta): Kind {
   return d.delta === 0 || d.delta === null ? 'same' : 'changed';
 }
 
-function Change({ d, unit, percent }: { d: Delta; unit?: string; percent?: boolean }) {
-  if (d.delta === null || d.delta === 0) return <span className="text-xs text-stone-500">{d.delta === 0 ? '= unchanged' : '—'}</span>;
-  const rel = d.from ? d.delta / Math.abs(d.from) : null;
+function Change({ c }: { c: ComparedFigure }) {
+  const d = c.delta;
+  if (d.delta === null || d.delta === 0 || !c.change) return <span className="text-xs text-stone-500">{d.delta === 0 ? '= unchanged' : '—'}</span>;
   const up = d.delta > 0;
   return (
     <span className={`num whitespace-nowrap font-semibold ${up ? 'text-caution-700' : 'text-accent-700'}`} title={`unrounded: ${fullPrecision(d.delta)}`}>
       <span aria-hidden>{up ? '▲' : '▼'}</span>
-      <span className="sr-only">{up ? 'up by' : 'down by'}</span> {percent ? `${groupDigits((d.delta * 100).toFixed(1))} points` : `${up ? '+' : ''}${formatSignificant(d.delta, 3)}${unit ? ` ${unit}` : ''}`}
-      {!percent && rel !== null && Number.isFinite(rel) ? <span className="ml-1 font-normal text-stone-600">({up ? '+' : ''}{groupDigits((rel * 100).toFixed(1))} %)</span> : null}
+      <span className="sr-only">{up ? 'up by' : 'down by'}</span> {c.change.text}
+      {c.relative ? <span className="ml-1 font-normal text-stone-600">({c.relative.text})</span> : null}
     </span>
   );
 }
 
-function value(v: number | null, percent?: boolean) {
-  if (v === null) return <span className="text-stone-500">—</span>;
+function value(f: Figure | null) {
+  if (f === null) return <span className="text-stone-500">—</span>;
   return (
-    <span className="num" title={`unrounded: ${fullPrecision(v)}`}>
-      {percent ? formatPercent(v) : formatSignificant(v, 6)}
+    <span className="num" title={f.value !== null ? `unrounded: ${fullPrecision(f.value)}` : undefined}>
+      {f.text}
     </span>
   );
 }
 
 function ResultSection({ d, unit }: { d: BudgetDiff; unit: string }) {
-  const rows: [string, Delta, string?][] = [
-    ['Estimate y', d.result.estimate, unit],
-    ['Standard uncertainty u_c', d.result.standardUncertainty, unit],
-    ['Expanded uncertainty U', d.result.expandedUncertainty, unit],
-    ['Coverage factor k', d.result.coverageFactor],
-    ['Effective degrees of freedom ν_eff', d.result.effectiveDof],
-  ];
-  if (d.result.monteCarlo) {
-    rows.push(['Monte Carlo estimate', d.result.monteCarlo.estimate, unit]);
-    rows.push(['Monte Carlo u', d.result.monteCarlo.standardUncertainty, unit]);
-    rows.push(['Monte Carlo interval, low end', d.result.monteCarlo.intervalLow, unit]);
-    rows.push(['Monte Carlo interval, high end', d.result.monteCarlo.intervalHigh, unit]);
-  }
+  const rows = compareResults(d.result);
   return (
     <table className="w-full text-sm">
       <caption className="sr-only">The result in both versions</caption>
@@ -224,18 +214,18 @@ function ResultSection({ d, unit }: { d: BudgetDiff; unit: string }) {
         </tr>
       </thead>
       <tbody>
-        {rows.map(([label, delta, u]) => {
-          const k = deltaKind(delta);
+        {rows.map((r) => {
+          const k = deltaKind(r.delta);
           return (
-            <tr key={label} data-change={k} className={`border-b border-stone-100 last:border-0 ${k !== 'same' ? 'bg-caution-50/50' : ''}`}>
+            <tr key={r.label} data-change={k} className={`border-b border-stone-100 last:border-0 ${k !== 'same' ? 'bg-caution-50/50' : ''}`}>
               <th scope="row" className="px-2 py-1 text-left font-medium">
-                {label}
-                {u ? <span className="font-normal text-stone-600"> / {u}</span> : null}
+                {r.label}
+                {r.inUnit && unit ? <span className="font-normal text-stone-600"> / {unit}</span> : null}
               </th>
-              <td className="px-2 py-1 text-right">{value(delta.from)}</td>
-              <td className="px-2 py-1 text-right">{value(delta.to)}</td>
+              <td className="px-2 py-1 text-right">{value(r.from)}</td>
+              <td className="px-2 py-1 text-right">{value(r.to)}</td>
               <td className="px-2 py-1">
-                <Change d={delta} />
+                <Change c={r} />
               </td>
             </tr>
           );
@@ -262,8 +252,8 @@ function ContributionsSection({ d, unit }: { d: BudgetDiff; unit: string }) {
           </tr>
         </thead>
         <tbody>
-          {d.result.contributions.map((c) => {
-            const k = deltaKind(c.contribution);
+          {compareContributions(d.result).map((c) => {
+            const k = deltaKind(c.contribution.delta);
             return (
               <tr key={c.symbol} data-testid={`contribution-${c.symbol}`} data-change={k} className={`border-b border-stone-100 last:border-0 ${k === 'same' ? '' : k === 'added' ? 'bg-accent-50/60' : 'bg-caution-50/50'}`}>
                 <th scope="row" className="px-2 py-1 text-left">
@@ -277,10 +267,10 @@ function ContributionsSection({ d, unit }: { d: BudgetDiff; unit: string }) {
                 <td className="px-2 py-1 text-right">{value(c.contribution.from)}</td>
                 <td className="px-2 py-1 text-right">{value(c.contribution.to)}</td>
                 <td className="px-2 py-1">
-                  <Change d={c.contribution} />
+                  <Change c={c.contribution} />
                 </td>
                 <td className="num whitespace-nowrap px-2 py-1 text-right">
-                  {c.varianceShare.from === null ? '—' : formatPercent(c.varianceShare.from)} → {c.varianceShare.to === null ? '—' : formatPercent(c.varianceShare.to)}
+                  {c.share.from?.text ?? '—'} → {c.share.to?.text ?? '—'}
                 </td>
               </tr>
             );
