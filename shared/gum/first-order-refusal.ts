@@ -1,3 +1,4 @@
+import { significantFigure } from '../presentation/figures';
 import type { GumUnreportable } from '../budget/result';
 
 /**
@@ -8,7 +9,7 @@ import type { GumUnreportable } from '../budget/result';
  */
 export function firstOrderRefusal(firstOrder: number, withHigherOrder: number | null): GumUnreportable | undefined {
   if (withHigherOrder === null || !(withHigherOrder > 0)) return undefined;
-  const both = `the higher-order terms give u_c = ${withHigherOrder.toPrecision(3)}`;
+  const both = `the higher-order terms give u_c = ${significantFigure(withHigherOrder, 3).text}`;
   if (firstOrder === 0) {
     return {
       reason: 'first-order-vanishes',
@@ -18,7 +19,7 @@ export function firstOrderRefusal(firstOrder: number, withHigherOrder: number | 
   if (withHigherOrder > Math.SQRT2 * firstOrder) {
     return {
       reason: 'higher-order-dominates',
-      message: `The first-order law of propagation gives u_c = ${firstOrder.toPrecision(3)} but ${both}: the higher-order terms exceed the first-order variance, so the linearization does not hold over the inputs' spread. Do not report U from u_c; use the Monte Carlo result.`,
+      message: `The first-order law of propagation gives u_c = ${significantFigure(firstOrder, 3).text} but ${both}: the higher-order terms exceed the first-order variance, so the linearization does not hold over the inputs' spread. Do not report U from u_c; use the Monte Carlo result.`,
     };
   }
   return undefined;

@@ -1,3 +1,4 @@
+import { significantFigure } from '../presentation/figures';
 import type { ValidationResult } from '../budget/result';
 
 /**
@@ -21,7 +22,7 @@ export function numericalTolerance(u: number, nDig: number): number {
 
 /** Two significant digits for the figures quoted in a verdict's reason. */
 function figure(x: number): string {
-  return Number(x.toPrecision(2)).toString();
+  return significantFigure(x, 2).text;
 }
 
 /**

@@ -168,6 +168,12 @@ export function duration(ms: number): Figure {
   return plainFigure(`${(ms / 1000).toFixed(ms < 10_000 ? 1 : 0)} s`, ms);
 }
 
+/** A file size in SI multiples of the byte (kB = 1000 B, SI Brochure 3): 532 → "532 B", 48_213 → "48.2 kB", 2_400_000 → "2.4 MB". */
+export function fileSize(bytes: number): Figure {
+  if (bytes < 1000) return plainFigure(`${bytes} B`, bytes);
+  return plainFigure(bytes < 1e6 ? `${(bytes / 1e3).toFixed(1)} kB` : `${(bytes / 1e6).toFixed(1)} MB`, bytes);
+}
+
 /** The unrounded value for a tooltip, true minus sign; "∞" for none. */
 export function unrounded(x: number | null | undefined): string {
   if (x === null || x === undefined) return '∞';

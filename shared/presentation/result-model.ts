@@ -174,7 +174,15 @@ function reportedFigures(result: BudgetResult): ReportedFigures {
   const place = placeOf(r.expandedUncertainty);
   const notes: string[] = [];
   if (r.replacedGum) notes.push(`The Monte Carlo coverage interval is reported in place of the GUM figures${r.validationReason ? `: ${r.validationReason.replace(/\.$/, '')}` : ', which the Monte Carlo method did not validate (JCGM 101:2008 8)'}.`);
-  if (r.unvalidated) notes.push('The GUM figures are reported although the Monte Carlo method did not validate them.');
+  if (r.unvalidated) {
+    const how =
+      r.validationVerdict === 'inconclusive'
+        ? 'their comparison with the Monte Carlo method was inconclusive at the number of trials used'
+        : r.validationVerdict === 'not-possible'
+          ? 'the Monte Carlo method could not validate them'
+          : 'the Monte Carlo method did not validate them';
+    notes.push(`The GUM figures are reported although ${how}.`);
+  }
   return {
     basis: r.basis,
     basisWords: BASIS_WORDS[r.basis],

@@ -12,6 +12,12 @@ export interface VerdictView {
   detail: { text: string; markup: string };
 }
 
+/** A reason as a sentence of its own: first letter raised, one final stop. */
+function sentence(reason: string): string {
+  const r = reason.trim().replace(/\.+$/, '');
+  return `${r.charAt(0).toUpperCase()}${r.slice(1)}.`;
+}
+
 /** The verdict of a stored validation; results stored before verdicts existed carry only `passed`. */
 export function verdictOf(v: ValidationResult): ValidationVerdict {
   return v.verdict ?? (v.passed ? 'validated' : 'not-validated');
@@ -57,17 +63,16 @@ export function verdictView(v: ValidationResult, unit: UnitText, reported?: Repo
         verdict,
         tone: 'neutral',
         headline: 'The comparison with the Monte Carlo method is inconclusive.',
-        detail: both(
-          (s) =>
-            `${v.reason ?? 'The numerical accuracy of the Monte Carlo interval is of the size of δ, so another seed could change the verdict.'} (${figures(s)}; JCGM 101:2008 8.2.) Run more trials, or the adaptive procedure, to decide.`,
-        ),
+        detail: v.reason
+          ? both(() => `${sentence(v.reason!)} (JCGM 101:2008 8.2, 7.9.)`)
+          : both((s) => `The numerical accuracy of the Monte Carlo interval is of the size of δ, so another seed could change the verdict (${figures(s)}; JCGM 101:2008 8.2). Run more trials to decide.`),
       };
     case 'not-possible':
       return {
         verdict,
         tone: 'neutral',
         headline: 'The GUM result cannot be compared with the Monte Carlo method.',
-        detail: both(() => `${v.reason ?? 'The comparison of JCGM 101:2008 clause 8 is not defined for this budget.'}`),
+        detail: both(() => sentence(v.reason ?? 'the comparison of JCGM 101:2008 clause 8 is not defined for this budget')),
       };
   }
 }

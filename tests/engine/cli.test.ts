@@ -66,11 +66,11 @@ describe('dubito compute', () => {
     );
     const r = dubito('compute', file, '--format', 'table');
     expect(r.status).toBe(0);
-    expect(r.stdout).toContain('y and u undefined (no variance)');
-    expect(r.stdout).toContain('GUM validated against Monte Carlo: not possible\n  the variance of t_ν is undefined for ν ≤ 2');
-    expect(r.stdout).toContain('reported: GUM figures, k = t_p(ν_eff) (NOT validated by the Monte Carlo method)');
+    expect(r.stdout).toMatch(/Estimate y +10\.050 +undefined\nStandard uncertainty u\(y\) +0\.029 +undefined/);
+    expect(r.stdout).toContain('The GUM result cannot be compared with the Monte Carlo method. The variance of t_ν is undefined for ν ≤ 2');
+    expect(r.stdout).toContain('U from k = t_p(ν_eff) of the t-distribution (GUM G.4)\nThe GUM figures are reported although the Monte Carlo method could not validate them.');
     expect(r.stdout).toContain('Y = (10.05 ± 0.12) mm.'); // k = t_0.975(2) = 4.30 (GUM Table G.2, from memory), u = 0.05/√3
-    expect(r.stdout).toContain('warning: The input "a" has only 3 observations (ν = 2)');
+    expect(r.stdout).toContain('warning (a): The input "a" has only 3 observations (ν = 2)');
   });
 
   it('prints the adaptive stability (JCGM 101:2008 7.9.4) and a fixed k from the budget\'s reporting choice', () => {
@@ -89,8 +89,9 @@ describe('dubito compute', () => {
     );
     const r = dubito('compute', file, '--format', 'table', '--adaptive');
     expect(r.status).toBe(0);
-    expect(r.stdout).toMatch(/adaptive \(JCGM 101:2008 7\.9\): h = \d+ sequences of M = 10000; s\(y\) = .* δ = 0\.050 {2}stabilized: yes/); // u = 1.4: c = 14, ℓ = −1, δ = 0.05 (JCGM 101:2008 8.2)
-    expect(r.stdout).toContain('reported: GUM figures, k fixed at 2');
+    expect(r.stdout).toMatch(/Stable: \d+ sequences of 10.000 trials; twice the standard deviation of the sequence averages .* is within the tolerance δ = 0\.050 \(JCGM 101:2008 7\.9\.4\)/); // u = 1.4: c = 14, ℓ = −1, δ = 0.05 (JCGM 101:2008 8.2)
+    expect(r.stdout).toContain('U from k fixed by the laboratory');
+    expect(r.stdout).toContain('p = 95.45 %'); // k = 2 for ν_eff = ∞: 2Φ(2) − 1 = 0.9545 (normal table, from memory; recomputed by coverageProbabilityFor)
     expect(r.stdout).toContain('coverage factor k = 2.00, which for a normal distribution corresponds to a coverage probability of approximately 95 %');
   });
 

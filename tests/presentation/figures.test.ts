@@ -62,9 +62,11 @@ describe('one formatter per kind of figure', () => {
     expect(plain(interval([-0.0012, 0.0034], -4).text)).toBe('[-0.0012, 0.0034]');
   });
 
-  it('degrees of freedom are whole, as k is read at ⌊ν_eff⌋, and "> 1000" where more digits say nothing', () => {
-    // JCGM 100:2008 G.4.1: ν_eff truncated to the next lower integer
-    expect(dof(16.7).text).toBe('16');
+  it('degrees of freedom as k uses them: the real ν_eff to one decimal below 100, and "> 1000" where more digits say nothing', () => {
+    // JCGM 100:2008 G.4.1 note: t_p at a non-integer ν_eff by interpolation, so the shown ν_eff is the one k was read at
+    expect(dof(16.7).text).toBe('16.7');
+    expect(dof(18.9987).text).toBe('19.0');
+    expect(dof(123.4).text).toBe('123');
     expect(dof(29).text).toBe('29');
     expect(dof(1000).text).toBe('1000');
     expect(dof(2004.0).text).toBe('> 1000');

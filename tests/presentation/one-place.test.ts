@@ -13,7 +13,6 @@ const ALLOWED = new Set([
   'shared/presentation/figures.ts', // the formatters of every figure
   'shared/format/significant-digits.ts', // numerals at a place or to significant digits
   'shared/gum/rounding.ts', // GUM 7.2.6 rounding, used by the formatters
-  'shared/gum/statement.ts', // the certificate statement, called once by the result model
   'shared/model/units.ts', // exponents of a dimension in an error message
   'shared/compute/compute-budget.ts', // p in a refusal message
   'shared/gum/propagate.ts', // a percentage in a warning

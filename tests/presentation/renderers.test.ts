@@ -37,7 +37,8 @@ const document = validateBudget({
   inputs: [
     { symbol: 't_set', unit: 'degC', description: 'bath set point', distribution: { kind: 'constant', value: 60 } },
     { symbol: 't_ref', unit: 'degC', description: 'reference readings', distribution: { kind: 'observations', values: [59.962, 59.971, 59.958, 59.969, 59.965] } },
-    { symbol: 'dt_cal', unit: 'degC', description: 'reference calibration', distribution: { kind: 'normal', value: 0.002, U: 0.012, k: 2 } },
+    // a correction is a temperature difference: given in mK it meets the difference t_set − t_ref (the temperature rule)
+    { symbol: 'dt_cal', unit: 'mK', description: 'reference calibration', distribution: { kind: 'normal', value: 2, U: 12, k: 2 } },
   ],
   coverageProbability: 0.9545,
   monteCarlo: { trials: 20000, seed: 'renderers' },
@@ -120,7 +121,7 @@ describe('every renderer prints the figures of the one result model', () => {
     expect(cal.sensitivity.figure.text).toBe('\u22121');
     expect(cal.sensitivity.unit.text).toBe('');
     expect(cal.contribution.text).toBe('6.0');
-    expect(cal.stated.text).toBe('U = 0.012 °C, k = 2');
+    expect(cal.stated.text).toBe('U = 12 mK, k = 2');
     expect(cal.divisor.text).toBe('2');
     // the estimate is written at the place of U (JCGM 100:2008 7.2.6): both in whole mK here or both finer
     const places = (s: string) => (s.split('.')[1] ?? '').replace(/\D/g, '').length;

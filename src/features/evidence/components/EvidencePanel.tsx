@@ -1,3 +1,4 @@
+import { fileSize } from '../../../../shared/presentation/figures';
 import { useRef, useState } from 'react';
 import type { AddedAttachment, Attachment } from '../../../../shared/api/uploads';
 import { errorMessage } from '../../../app/http';
@@ -20,12 +21,7 @@ export interface EvidenceContext {
   approved: boolean;
 }
 
-/** File sizes in SI multiples of the byte (kB = 1000 B). */
-function formatSize(bytes: number): string {
-  if (bytes < 1000) return `${bytes} B`;
-  if (bytes < 1e6) return `${(bytes / 1e3).toFixed(1)} kB`;
-  return `${(bytes / 1e6).toFixed(1)} MB`;
-}
+const formatSize = (bytes: number) => fileSize(bytes).text;
 
 function EvidenceItem({ a, budgetId }: { a: Attachment; budgetId: number }) {
   return (
