@@ -3,19 +3,22 @@ import { gumTreatment } from '../../../../shared/distributions/registry';
 
 export { KIND_LABELS, KIND_SHORT } from '../../../../shared/format/distribution-labels';
 
-/** Treatment of a draft distribution, or null while it is incomplete. */
-export function tryTreatment(d: Distribution): { estimate: number; standardUncertainty: number; dof: number } | null {
+/** Treatment of a draft distribution of a value in `unit`, or null while it is incomplete or its uncertainty unit does not fit. */
+export function tryTreatment(d: Distribution, unit?: string): { estimate: number; standardUncertainty: number; dof: number } | null {
   try {
-    const t = gumTreatment(d);
+    const t = gumTreatment(d, unit);
     return Number.isFinite(t.estimate) && Number.isFinite(t.standardUncertainty) ? t : null;
   } catch {
     return null;
   }
 }
 
-/** A new distribution of another kind that keeps the estimate and, where it can, the standard uncertainty. */
-export function convertKind(d: Distribution, kind: DistributionKind): Distribution {
-  const t = tryTreatment(d);
+/**
+ * A new distribution of another kind that keeps the estimate and, where it can, the standard uncertainty,
+ * in the value's unit `unit`: the stated form and the uncertainty unit belong to the old kind and are dropped.
+ */
+export function convertKind(d: Distribution, kind: DistributionKind, unit?: string): Distribution {
+  const t = tryTreatment(d, unit);
   const value = t?.estimate ?? ('value' in d && typeof d.value === 'number' ? d.value : 0);
   const u = t && t.standardUncertainty > 0 ? t.standardUncertainty : 1;
   const keep = { ...(d.dof !== undefined && kind !== 'student-t' ? { dof: d.dof } : {}), ...(d.relativeUncertaintyOfU !== undefined ? { relativeUncertaintyOfU: d.relativeUncertaintyOfU } : {}) };
