@@ -20,6 +20,7 @@ import { budgetQuery, useBudget, useBudgetVersion, useSaveBudget } from '../api/
 import { clearDraft, loadDraft, storeDraft, type StoredDraft } from '../draft-storage';
 import { explainInput, explainResult, type Selection } from '../explain';
 import { problemAt, useLiveResult } from '../live';
+import { saveState } from '../save-rule';
 import { BudgetTable, SharesChart } from './BudgetTable';
 import { ConstantsSection } from './ConstantsSection';
 import { CorrelationsEditor } from './CorrelationsEditor';
@@ -207,6 +208,7 @@ function Editor({
 
   const live = useLiveResult(doc, start);
   const dirty = baseline === '' ? true : JSON.stringify(doc) !== baseline;
+  const saveRule = saveState({ dirty, saving: save.isPending, hasLiveResult: !!live.result, liveStopped: live.stopped });
   const isNew = budgetId === undefined;
 
   const facts = view ? { ownerId: view.ownerId, status: view.status, isTemplate: view.isTemplate } : null;
@@ -275,12 +277,12 @@ function Editor({
     const h = (e: KeyboardEvent) => {
       if ((e.ctrlKey || e.metaKey) && e.key.toLowerCase() === 's') {
         e.preventDefault();
-        if (!readOnly && live.result) setSaveOpen(true);
+        if (!readOnly && saveRule.enabled) setSaveOpen(true);
       }
     };
     window.addEventListener('keydown', h);
     return () => window.removeEventListener('keydown', h);
-  }, [readOnly, live.result]);
+  }, [readOnly, saveRule.enabled]);
 
   const reloadCurrent = async () => {
     if (!budgetId) return;
@@ -389,10 +391,11 @@ function Editor({
           {problemAt(live.problems, 'title') ? <p className="text-xs text-caution-700">Title: {problemAt(live.problems, 'title')}</p> : null}
           <div className="flex flex-wrap gap-2">
             {!readOnly ? (
-              <Button variant="primary" onClick={() => setSaveOpen(true)} disabled={!live.result || !dirty || save.isPending} title={!live.result ? 'Fix the problems shown first' : !dirty ? 'Nothing to save' : 'Save a new version (Ctrl+S)'}>
+              <Button variant="primary" onClick={() => setSaveOpen(true)} disabled={!saveRule.enabled} title={saveRule.title}>
                 {save.isPending ? 'Saving…' : 'Save version…'}
               </Button>
             ) : null}
+            {!readOnly && saveRule.note ? <p className="self-center text-xs text-stone-700">{saveRule.note}</p> : null}
             {approvedLock && mayEdit && !viewingOld ? (
               <Button variant="primary" onClick={() => setUnlocked(true)}>
                 Edit as a new draft
