@@ -283,7 +283,7 @@ export function InputForm({
         </ReadOnlyField>
         <ReadOnlyField label="Source">{d.stated?.source}</ReadOnlyField>
         {d.uncertaintyUnit !== undefined ? (
-          <ReadOnlyField label="Unit of the uncertainty" numeric>
+          <ReadOnlyField label="Uncertainty given in" numeric>
             {uncertaintyUnit}
           </ReadOnlyField>
         ) : null}
@@ -313,7 +313,7 @@ export function InputForm({
         </Field>
         {takesUncertaintyUnit ? (
           <Field
-            label="Unit of the uncertainty"
+            label="Uncertainty given in"
             error={err('distribution.uncertaintyUnit')}
             hint={d.uncertaintyUnit ? `shown as ${uncertaintyUnit}; %, ppm, ppb are relative to the value` : 'empty = the unit of the value; e.g. mK, um, ppm'}
           >
