@@ -156,7 +156,7 @@ export function InputForm({
             {normalMode === 'Up' ? (
               <>
                 {num(`Expanded uncertainty U${uncSuffix}`, 'U')}
-                {num('Coverage probability p', 'p', 'e.g. 0.95 for 95 %')}
+                {num('Coverage probability p', 'p', readOnly ? undefined : 'e.g. 0.95 for 95 %')}
                 {num(
                   'Degrees of freedom ν (as stated; empty = ∞)',
                   'dof',
