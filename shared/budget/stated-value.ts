@@ -93,7 +93,8 @@ export function statedValueOf(input: InputQuantity): StatedValue {
           statedDof: d.dof ?? null,
         };
       }
-      return { ...stated(`U = ${withUnit(U, amountUnit)}${of}, k = ${asEntered(k)}`, U, k, asEntered(k)), statedDof: d.dof ?? null };
+      const nu = d.dof !== undefined ? `, ν = ${asEntered(d.dof)}` : '';
+      return { ...stated(`U = ${withUnit(U, amountUnit)}${of}, k = ${asEntered(k)}${nu}`, U, k, asEntered(k)), statedDof: d.dof ?? null };
     }
     case 'rectangular': {
       if (d.halfWidth === undefined) {

@@ -156,6 +156,7 @@ describe('statedValueOf: the input as stated, its divisor and u (GUM 4.3)', () =
     expect(s).toMatchObject({ as: null, text: 'U = 12 mK, k = 2', divisor: 2, divisorText: '2' });
     expect(s.standardUncertainty).toBeCloseTo(0.006, 15);
     expect(statedValueOf(input('mm', { kind: 'normal', value: 1, u: 0.5, uncertaintyUnit: 'um' })).text).toBe('u = 0.5 µm');
+    expect(statedValueOf(input('mg', { kind: 'normal', value: 0.052, U: 0.03, k: 2.28, dof: 8 }))).toMatchObject({ text: 'U = 0.03 mg, k = 2.28, ν = 8', statedDof: 8 });
   });
 
   it('a resolution r: a = r/2 and the divisor of r is 2√3 (GUM F.2.2.1): r = 0.01 °C gives u = 0.002 886 75 °C', () => {

@@ -15,13 +15,19 @@ export function tryTreatment(d: Distribution, unit?: string): { estimate: number
 
 /**
  * A new distribution of another kind that keeps the estimate and, where it can, the standard uncertainty,
- * in the value's unit `unit`: the stated form and the uncertainty unit belong to the old kind and are dropped.
+ * in the value's unit `unit`; the uncertainty unit and a resolution form belong to the old kind and are dropped.
  */
 export function convertKind(d: Distribution, kind: DistributionKind, unit?: string): Distribution {
   const t = tryTreatment(d, unit);
   const value = t?.estimate ?? ('value' in d && typeof d.value === 'number' ? d.value : 0);
   const u = t && t.standardUncertainty > 0 ? t.standardUncertainty : 1;
-  const keep = { ...(d.dof !== undefined && kind !== 'student-t' ? { dof: d.dof } : {}), ...(d.relativeUncertaintyOfU !== undefined ? { relativeUncertaintyOfU: d.relativeUncertaintyOfU } : {}) };
+  // where the figure comes from outlives the kind; a resolution is a rectangular form only
+  const stated = d.stated && d.stated.as !== 'resolution' ? { stated: d.stated } : {};
+  const keep = {
+    ...(d.dof !== undefined && kind !== 'student-t' ? { dof: d.dof } : {}),
+    ...(d.relativeUncertaintyOfU !== undefined ? { relativeUncertaintyOfU: d.relativeUncertaintyOfU } : {}),
+    ...stated,
+  };
   const r = (x: number) => Number(x.toPrecision(6));
   switch (kind) {
     case 'normal':
@@ -37,10 +43,10 @@ export function convertKind(d: Distribution, kind: DistributionKind, unit?: stri
     case 'curvilinear-trapezoidal':
       return { kind, value, halfWidth: r(u * Math.sqrt(3)), halfWidthUncertainty: 0, ...keep };
     case 'student-t':
-      return { kind, value, scale: r(u), dof: t && Number.isFinite(t.dof) ? t.dof : 10 };
+      return { kind, value, scale: r(u), dof: t && Number.isFinite(t.dof) ? t.dof : 10, ...stated };
     case 'observations':
       return { kind, values: d.kind === 'observations' ? d.values : [value, value], ...keep };
     case 'constant':
-      return { kind, value };
+      return { kind, value, ...stated };
   }
 }
