@@ -51,7 +51,7 @@ describe('U stated with its coverage probability p instead of k', () => {
     const r = computeBudget(budget('Y = x', { x: [D({ kind: 'normal', value: 0.052, U: 0.03, p: 0.95, dof: 9 }), 'mg'] }), { trials: 100_000, seed: 'stated-p' });
     const [low, high] = r.monteCarlo!.interval;
     // the 2.5 % and 97.5 % quantiles of 0.052 + 0.0132617·t_9 are 0.052 ∓ 0.030; their sampling standard
-    // deviation at 10⁵ trials is √(0.025·0.975/10⁵)/f ≈ 1.2×10⁻⁴ mg (f, the density there, from scipy t(9).pdf(2.262)/0.0132617)
+    // deviation at 10⁵ trials is √(0.025·0.975/10⁵)/f ≈ 1.6×10⁻⁴ mg (f, the density there, from scipy t(9).pdf(2.262)/0.0132617)
     expect(Math.abs(low - 0.022)).toBeLessThan(1e-3);
     expect(Math.abs(high - 0.082)).toBeLessThan(1e-3);
   });
