@@ -46,13 +46,43 @@ const dofOptions = {
   relativeUncertaintyOfU: relativeUncertaintyOfU().optional(),
 };
 
+/**
+ * How the laboratory stated an input, kept so that every screen and the report
+ * show it as entered: from a calibration certificate, the resolution of an
+ * indicating instrument (a = r/2, GUM F.2.2.1), a manufacturer's specification
+ * or a tolerance ± a, repeated observations, or an estimate of the lab's own.
+ */
+export const STATED_AS = ['certificate', 'resolution', 'specification', 'tolerance', 'observations', 'estimate'] as const;
+export type StatedAs = (typeof STATED_AS)[number];
+
+const statedSchema = z.looseObject({
+  as: z.enum(STATED_AS, { error: `must be one of ${STATED_AS.join(', ')}` }),
+  source: z.string({ error: 'must be text, e.g. the certificate number' }).max(300).optional(),
+});
+
+/**
+ * Fields of every kind about how the input was stated: `stated` (the form) and
+ * `uncertaintyUnit`, the unit of the uncertainty fields when it differs from
+ * the value's (12 mK for a value in °C; `%`, `ppm`, `ppb` relative to |value|).
+ */
+const statedOptions = {
+  uncertaintyUnit: unitText.optional(),
+  stated: statedSchema.optional(),
+};
+
+/** A coverage probability strictly between 0 and 1. */
+const probability = () => finite().refine((p) => p > 0 && p < 1, { message: 'must lie strictly between 0 and 1 (write 0.95 for 95 %)' });
+
 const normal = z.looseObject({
   kind: z.literal('normal'),
   value: finite(),
   u: positive().optional(),
   U: positive().optional(),
   k: positive().optional(),
+  /** Coverage probability of U, given instead of k: k = t_{(1+p)/2}(dof), or z_{(1+p)/2} without dof (GUM G.3, EA-4/02). */
+  p: probability().optional(),
   ...dofOptions,
+  ...statedOptions,
 });
 const rectangular = z.looseObject({
   kind: z.literal('rectangular'),
@@ -61,18 +91,21 @@ const rectangular = z.looseObject({
   lower: finite().optional(),
   upper: finite().optional(),
   ...dofOptions,
+  ...statedOptions,
 });
 const triangular = z.looseObject({
   kind: z.literal('triangular'),
   value: finite(),
   halfWidth: positive(),
   ...dofOptions,
+  ...statedOptions,
 });
 const arcsine = z.looseObject({
   kind: z.literal('arcsine'),
   value: finite(),
   halfWidth: positive(),
   ...dofOptions,
+  ...statedOptions,
 });
 const trapezoidal = z.looseObject({
   kind: z.literal('trapezoidal'),
@@ -80,6 +113,7 @@ const trapezoidal = z.looseObject({
   halfWidth: positive(),
   beta: finite().refine((b) => b >= 0 && b <= 1, { message: 'must lie between 0 and 1' }),
   ...dofOptions,
+  ...statedOptions,
 });
 const curvilinearTrapezoidal = z.looseObject({
   kind: z.literal('curvilinear-trapezoidal'),
@@ -87,6 +121,7 @@ const curvilinearTrapezoidal = z.looseObject({
   halfWidth: positive(),
   halfWidthUncertainty: finite().refine((d) => d >= 0, { message: 'must not be negative' }),
   ...dofOptions,
+  ...statedOptions,
 });
 const studentT = z.looseObject({
   kind: z.literal('student-t'),
@@ -94,6 +129,7 @@ const studentT = z.looseObject({
   scale: positive(),
   dof: degreesOfFreedom(),
   relativeUncertaintyOfU: relativeUncertaintyOfU().optional(),
+  ...statedOptions,
 });
 const observations = z.looseObject({
   kind: z.literal('observations'),
@@ -104,11 +140,13 @@ const observations = z.looseObject({
   pooledSd: positive().optional(),
   pooledDof: degreesOfFreedom().optional(),
   ...dofOptions,
+  ...statedOptions,
 });
 const constant = z.looseObject({
   kind: z.literal('constant'),
   value: finite(),
   ...dofOptions,
+  ...statedOptions,
 });
 
 export const DISTRIBUTION_KINDS = [
@@ -136,9 +174,10 @@ export const distributionSchema = z
     }
     switch (d.kind) {
       case 'normal':
-        if (d.u !== undefined && (d.U !== undefined || d.k !== undefined)) fail('u', 'give either u, or U with k, not both');
-        else if (d.u === undefined && (d.U === undefined || d.k === undefined)) {
-          fail(d.U === undefined ? 'u' : 'k', 'a normal distribution needs u, or U with its coverage factor k');
+        if (d.u !== undefined && (d.U !== undefined || d.k !== undefined || d.p !== undefined)) fail('u', 'give either u, or U with k or p, not both');
+        else if (d.k !== undefined && d.p !== undefined) fail('p', 'give U with its coverage factor k or with its coverage probability p, not both');
+        else if (d.u === undefined && (d.U === undefined || (d.k === undefined && d.p === undefined))) {
+          fail(d.U === undefined ? 'u' : 'k', 'a normal distribution needs u, or U with its coverage factor k or its coverage probability p');
         }
         break;
       case 'rectangular': {
@@ -153,14 +192,25 @@ export const distributionSchema = z
         else if (d.halfWidth === undefined) fail('halfWidth', 'is required with value');
         break;
       }
+      case 'constant':
+        if (d.uncertaintyUnit !== undefined) fail('uncertaintyUnit', 'a constant has no uncertainty to give a unit to: remove uncertaintyUnit');
+        break;
       case 'curvilinear-trapezoidal':
         if (d.halfWidthUncertainty > d.halfWidth) fail('halfWidthUncertainty', 'must not exceed halfWidth');
         break;
       case 'observations':
         if ((d.pooledSd === undefined) !== (d.pooledDof === undefined)) {
           fail(d.pooledSd === undefined ? 'pooledSd' : 'pooledDof', 'pooledSd and pooledDof go together');
+        } else if (d.uncertaintyUnit !== undefined && d.pooledSd === undefined) {
+          fail('uncertaintyUnit', 'observations are in the unit of the value; uncertaintyUnit applies only to pooledSd');
         }
         break;
+    }
+    if (d.kind === 'rectangular' && d.uncertaintyUnit !== undefined && d.halfWidth === undefined) {
+      fail('uncertaintyUnit', 'lower and upper are in the unit of the value; uncertaintyUnit applies only to halfWidth');
+    }
+    if (d.stated?.as === 'resolution' && !(d.kind === 'rectangular' && d.halfWidth !== undefined)) {
+      fail('stated', 'a resolution r is a rectangular distribution with halfWidth a = r/2 (GUM F.2.2.1)');
     }
   });
 

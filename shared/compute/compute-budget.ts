@@ -3,6 +3,7 @@ import { DEFAULTS, LIMITS } from '../budget/limits';
 import type { BudgetResult, MonteCarloResult, UndefinedMoments, ValidationResult } from '../budget/result';
 import type { BudgetDocument } from '../budget/schema';
 import { gumTreatment, inputKurtosis, samplerFor } from '../distributions/registry';
+import { inValueUnit } from '../distributions/uncertainty-unit';
 import { propagateGum, type GumInput } from '../gum/propagate';
 import { compileCached } from './model-cache';
 import {
@@ -135,13 +136,15 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     if (!model.usedSymbols.has(q.symbol)) warnings.push(`The input "${q.symbol}" does not appear in the model.`);
   }
 
-  const treatments = doc.inputs.map((q) => gumTreatment(q.distribution));
+  // Uncertainties stated in their own unit are taken into the value's unit once, refused with the field that names them.
+  const distributions = doc.inputs.map((q, i) => inValueUnit(q.distribution, q.unit, `inputs[${i}].distribution`));
+  const treatments = distributions.map((d) => gumTreatment(d));
   const inputs: GumInput[] = doc.inputs.map((q, i) => ({
     symbol: q.symbol,
     unit: q.unit,
     kind: q.distribution.kind,
     ...treatments[i],
-    kurtosis: inputKurtosis(q.distribution),
+    kurtosis: inputKurtosis(distributions[i]),
   }));
   const estimates = inputs.map((q) => q.estimate);
   const lineValues = model.lineValues(estimates);
@@ -161,7 +164,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
   warnings.push(...gum.warnings);
   // Correlated inputs are drawn jointly (JCGM 101:2008 6.4.8), the others by their own sampler.
   const correlatedIndices = correlation ? inputs.map((_, i) => i).filter((i) => correlation[i].some((r, j) => j !== i && r !== 0)) : [];
-  const samplers = doc.inputs.map((q, i) => (correlatedIndices.includes(i) ? null : samplerFor(q.distribution)));
+  const samplers = distributions.map((d, i) => (correlatedIndices.includes(i) ? null : samplerFor(d)));
   warnings.push(...fewDegreesOfFreedomWarnings(doc, samplers));
 
   let monteCarlo: MonteCarloResult | null = null;

@@ -10,6 +10,7 @@ import { studentTRule } from './student-t';
 import { observationsRule } from './observations';
 import { constantRule } from './constant';
 import { shapeKurtosis } from './kurtosis';
+import { inValueUnit } from './uncertainty-unit';
 
 /** Every kind of the budget file has its rule; a kind left out fails to compile. */
 const RULES: { [K in DistributionKind]: DistributionRule<K> } = {
@@ -38,11 +39,14 @@ export function dofFromRelativeUncertainty(relativeUncertaintyOfU: number): numb
 }
 
 /**
- * The GUM treatment (x, u(x), ν) of an input, with the budget file's
- * overrides applied to ν only: `dof` replaces ν (for `student-t`, `dof` is
- * already ν), and `relativeUncertaintyOfU` gives ν = ½·(Δu/u)⁻² (GUM G.4.2).
+ * The GUM treatment (x, u(x), ν) of an input whose value is in `valueUnit`,
+ * with the uncertainty fields first taken into that unit (`inValueUnit`) and
+ * the budget file's overrides applied to ν only: `dof` replaces ν (for
+ * `student-t`, `dof` is already ν), and `relativeUncertaintyOfU` gives
+ * ν = ½·(Δu/u)⁻² (GUM G.4.2).
  */
-export function gumTreatment(spec: Distribution): GumTreatment {
+export function gumTreatment(stated: Distribution, valueUnit?: string): GumTreatment {
+  const spec = inValueUnit(stated, valueUnit);
   const base = ruleFor(spec).treat(spec);
   if (spec.relativeUncertaintyOfU !== undefined) {
     return { ...base, dof: dofFromRelativeUncertainty(spec.relativeUncertaintyOfU) };
@@ -60,7 +64,13 @@ export function inputKurtosis(spec: Distribution): number {
   return shapeKurtosis(spec, ruleFor(spec).treat(spec).dof);
 }
 
-/** The Monte Carlo sampler of an input (JCGM 101:2008 6.4); overrides of ν never change it. */
+/**
+ * The Monte Carlo sampler of an input (JCGM 101:2008 6.4); overrides of ν
+ * never change it. It draws in the unit of the uncertainty fields, so a spec
+ * with `uncertaintyUnit` is refused: take it into the value's unit first
+ * (`inValueUnit`, as `computeBudget` does).
+ */
 export function samplerFor(spec: Distribution): Sampler {
+  if (spec.uncertaintyUnit !== undefined) throw new RangeError('the uncertainty is stated in its own unit: convert it with inValueUnit before sampling');
   return ruleFor(spec).sampler(spec);
 }

@@ -77,6 +77,8 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     await item.getByLabel('Value').fill('100.00012');
     await item.getByLabel('Expanded uncertainty U').fill('0.00004');
     await item.getByLabel('Coverage factor k').fill('2');
+    // a certificate is recorded as such; its number goes with it
+    await item.getByLabel('Source').fill('certificate KF-0423');
 
     // 2: observations uploaded as a CSV file
     item = await openInput(page, 1);
@@ -94,14 +96,15 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     await columnPicker.selectOption({ label: 'deviation' });
     await hasTexts(item.getByRole('definition').first(), ['6']); // n = 6
 
-    // 3: resolution as a rectangular distribution
+    // 3: the resolution of the display, r = 10 µΩ, a rectangular distribution with a = r/2
     await page.getByRole('button', { name: '+ Add input quantity' }).click();
     item = await openInput(page, 2);
     await item.getByLabel('Symbol').fill('dR_res');
     await item.getByLabel('Unit').fill('ohm');
     await item.getByLabel('Distribution').selectOption({ label: 'Rectangular (uniform)' });
+    await item.getByLabel('Given as').selectOption({ label: 'the resolution of an indicating instrument' });
     await item.getByLabel('Value').fill('0');
-    await item.getByLabel('Half-width a').fill('0.000005');
+    await item.getByLabel('Resolution r').fill('0.00001');
 
     // 4: temperature effect as a triangular distribution
     await page.getByRole('button', { name: '+ Add input quantity' }).click();
@@ -166,6 +169,12 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     const stored = await page.evaluate(async (budgetId) => (await fetch(`/api/budgets/${budgetId}`)).json(), id);
     expect(stored.document.inputs.map((q: { symbol: string }) => q.symbol)).toEqual(['dR_T', 'R_s', 'dR_obs', 'dR_res']);
     expect(stored.document.inputs[2].distribution.values).toHaveLength(6);
+    // each input keeps how it was stated, and the form shows it so after a reload
+    expect(stored.document.inputs[1].distribution.stated).toEqual({ as: 'certificate', source: 'certificate KF-0423' });
+    expect(stored.document.inputs[3].distribution).toMatchObject({ kind: 'rectangular', halfWidth: 0.000005, stated: { as: 'resolution' } });
+    await page.reload();
+    await containsText(await openInput(page, 3), 'r = 0.00001 Ω (a = r/2); divisor 2√3');
+    await containsText(await openInput(page, 1), 'U = 0.00004 Ω, k = 2; divisor 2');
     expect(stored.result.gum.estimate).toBeCloseTo(100.00012 + 0.0000110, 6);
     // the stored run is the run that was seen: the panel's trials and seed (JCGM 101:2008 7.2)
     expect(stored.result.monteCarlo).toMatchObject({ trials: 100_000, seed: seenSeed });

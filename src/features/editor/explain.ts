@@ -1,5 +1,6 @@
 import type { BudgetResult, Contribution } from '../../../shared/budget/result';
 import type { Distribution, InputQuantity } from '../../../shared/budget/schema';
+import { normalCoverageFactor } from '../../../shared/distributions/normal';
 import { dof, probability, share, significantFigure } from '../../../shared/presentation/figures';
 import { formatUnit } from '../../app/ui/units';
 
@@ -25,7 +26,7 @@ function standardUncertaintyStep(d: Distribution, c: Contribution, unit?: string
     case 'normal':
       return d.u !== undefined
         ? { formula: 'u(xᵢ) as stated', substituted: `u(xᵢ) = ${u}`, clause: 'GUM 4.3.1' }
-        : { formula: 'u(xᵢ) = U / k', substituted: `u(xᵢ) = ${f(d.U ?? NaN)} / ${f(d.k ?? NaN)} = ${u}`, clause: 'GUM 4.3.3' };
+        : { formula: 'u(xᵢ) = U / k', substituted: `u(xᵢ) = ${f(d.U ?? NaN)} / ${f(normalCoverageFactor(d) ?? NaN)} = ${u}`, clause: 'GUM 4.3.3' };
     case 'rectangular': {
       const a = d.halfWidth ?? ((d.upper ?? 0) - (d.lower ?? 0)) / 2;
       const how = d.halfWidth === undefined ? `a = (a₊ − a₋)/2 = ${f(a)}; ` : '';

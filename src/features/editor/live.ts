@@ -148,7 +148,7 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
     setMove((shown) => nextUMove(before, reading, shown));
     last.current = reading;
   }, [outcome.result]);
-  return { ...outcome, move, stale: deferred !== doc || (current === null && wasStopped === null && !isStored) };
+  return { ...outcome, move, stopped: current === null && wasStopped !== null, stale: deferred !== doc || (current === null && wasStopped === null && !isStored) };
 }
 
 /** Problems under a field path prefix, e.g. all of `inputs[2]`. */

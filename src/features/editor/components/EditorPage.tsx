@@ -21,6 +21,7 @@ import { budgetQuery, useBudget, useBudgetVersion, useSaveBudget } from '../api/
 import { clearDraft, loadDraft, storeDraft, type StoredDraft } from '../draft-storage';
 import { explainInput, explainResult, type Selection } from '../explain';
 import { problemAt, useLiveResult } from '../live';
+import { saveState } from '../save-rule';
 import { BudgetTable, ContributionsChart } from './BudgetTable';
 import { ConstantsSection } from './ConstantsSection';
 import { CorrelationsEditor } from './CorrelationsEditor';
@@ -210,6 +211,7 @@ function Editor({
   const live = useLiveResult(doc, start);
   const model = useMemo(() => (live.result && live.valid ? presentResult(live.valid, live.result) : null), [live.result, live.valid]);
   const dirty = baseline === '' ? true : JSON.stringify(doc) !== baseline;
+  const saveRule = saveState({ dirty, saving: save.isPending, hasLiveResult: !!live.result, liveStopped: live.stopped });
   const isNew = budgetId === undefined;
 
   const facts = view ? { ownerId: view.ownerId, status: view.status, isTemplate: view.isTemplate } : null;
@@ -278,12 +280,12 @@ function Editor({
     const h = (e: KeyboardEvent) => {
       if ((e.ctrlKey || e.metaKey) && e.key.toLowerCase() === 's') {
         e.preventDefault();
-        if (!readOnly && live.result) setSaveOpen(true);
+        if (!readOnly && saveRule.enabled) setSaveOpen(true);
       }
     };
     window.addEventListener('keydown', h);
     return () => window.removeEventListener('keydown', h);
-  }, [readOnly, live.result]);
+  }, [readOnly, saveRule.enabled]);
 
   const reloadCurrent = async () => {
     if (!budgetId) return;
@@ -392,10 +394,11 @@ function Editor({
           {problemAt(live.problems, 'title') ? <p className="text-xs text-caution-700">Title: {problemAt(live.problems, 'title')}</p> : null}
           <div className="flex flex-wrap gap-2">
             {!readOnly ? (
-              <Button variant="primary" onClick={() => setSaveOpen(true)} disabled={!live.result || !dirty || save.isPending} title={!live.result ? 'Fix the problems shown first' : !dirty ? 'Nothing to save' : 'Save a new version (Ctrl+S)'}>
+              <Button variant="primary" onClick={() => setSaveOpen(true)} disabled={!saveRule.enabled} title={saveRule.title}>
                 {save.isPending ? 'Saving…' : 'Save version…'}
               </Button>
             ) : null}
+            {!readOnly && saveRule.note ? <p className="self-center text-xs text-stone-700">{saveRule.note}</p> : null}
             {approvedLock && mayEdit && !viewingOld ? (
               <Button variant="primary" onClick={() => setUnlocked(true)}>
                 Edit as a new draft

@@ -1,7 +1,8 @@
 import { useState } from 'react';
-import { DISTRIBUTION_KINDS, type Distribution, type DistributionKind, type InputQuantity } from '../../../../shared/budget/schema';
-import { roundDecimals, roundSignificant } from '../../../../shared/format/significant-digits';
-import { coverageFactorFor } from '../../../../shared/statistics/student-t';
+import { DISTRIBUTION_KINDS, type Distribution, type DistributionKind, type InputQuantity, type StatedAs } from '../../../../shared/budget/schema';
+import { statedValueOf } from '../../../../shared/budget/stated-value';
+import { normalCoverageFactor } from '../../../../shared/distributions/normal';
+import { roundSignificant } from '../../../../shared/format/significant-digits';
 import { Field, NumberInput, Select, TextInput } from '../../../app/ui/controls';
 import { formatSignificant } from '../../../app/ui/numbers';
 import { givenNumber, ReadOnlyField } from '../../../app/ui/read-only';
@@ -20,10 +21,20 @@ const NORMAL_MODES = [
 ] as const satisfies readonly (readonly [NormalMode, string])[];
 
 const RECT_MODES = [
-  ['tolerance', 'a tolerance ± a around a value'],
+  ['tolerance', 'a half-width ± a around a value (specification, tolerance)'],
   ['limits', 'lower and upper limits'],
   ['resolution', 'the resolution of an indicating instrument'],
 ] as const satisfies readonly (readonly [RectMode, string])[];
+
+/** Where the figure comes from, kept as `distribution.stated.as`; a resolution is chosen as a way of giving a rectangular input. */
+const STATED_CHOICES = [
+  ['', 'not recorded'],
+  ['certificate', 'a calibration certificate'],
+  ['specification', 'a manufacturer\'s specification'],
+  ['tolerance', 'a tolerance'],
+  ['observations', 'repeated observations'],
+  ['estimate', 'the laboratory\'s own estimate'],
+] as const satisfies readonly (readonly [StatedAs | '', string])[];
 
 /* eslint-disable @typescript-eslint/no-explicit-any */
 type AnyDist = Distribution & Record<string, any>;
@@ -51,12 +62,19 @@ export function InputForm({
     for (const k of Object.keys(next)) if (next[k] === undefined) delete next[k];
     onChange({ ...input, distribution: next as Distribution });
   };
+  /** Sets the form the input was stated in, keeping its source; '' removes it. */
+  const statedPatch = (as: StatedAs | '' | undefined) =>
+    as ? { stated: { ...(d.stated ?? {}), as } } : { stated: undefined };
   const unit = formatUnit(input.unit);
   const unitSuffix = unit ? ` (${unit})` : '';
+  // The uncertainty fields are in their own unit when one is given (12 mK for a value in °C).
+  const uncertaintyUnit = d.uncertaintyUnit !== undefined ? formatUnit(d.uncertaintyUnit) || d.uncertaintyUnit : unit;
+  const uncSuffix = uncertaintyUnit ? ` (${uncertaintyUnit})` : '';
 
-  const [normalMode, setNormalMode] = useState<NormalMode>(d.kind === 'normal' && d.u === undefined ? (d.dof !== undefined ? 'Up' : 'Uk') : 'u');
-  const [p, setP] = useState<number | undefined>(0.95);
-  const [rectMode, setRectMode] = useState<RectMode>(d.kind === 'rectangular' && d.lower !== undefined ? 'limits' : 'tolerance');
+  const [normalMode, setNormalMode] = useState<NormalMode>(d.kind === 'normal' && d.u === undefined ? (d.p !== undefined ? 'Up' : 'Uk') : 'u');
+  const [rectMode, setRectMode] = useState<RectMode>(
+    d.kind === 'rectangular' && d.lower !== undefined ? 'limits' : d.stated?.as === 'resolution' ? 'resolution' : 'tolerance',
+  );
   const [dofMode, setDofMode] = useState<'inf' | 'direct' | 'reliability'>(d.relativeUncertaintyOfU !== undefined ? 'reliability' : d.dof !== undefined ? 'direct' : 'inf');
 
   const num = (label: string, field: string, hint?: string, value?: number, onValue?: (v: number | undefined) => void) =>
@@ -96,11 +114,15 @@ export function InputForm({
     </Field>
   );
 
-  const kFromP = (nu: number | undefined, prob: number | undefined) => {
-    if (!(prob !== undefined && prob > 0 && prob < 1)) return undefined;
-    const dof = nu !== undefined && nu > 0 ? nu : Infinity;
-    return roundDecimals(coverageFactorFor(prob, dof), 4);
+  /** k of the U stated with p (the engine's rule), or undefined while p or ν is not usable. */
+  const kOfP = () => {
+    try {
+      return d.p > 0 && d.p < 1 && (d.dof === undefined || d.dof >= 1) ? (normalCoverageFactor(d) ?? undefined) : undefined;
+    } catch {
+      return undefined;
+    }
   };
+  const certificate = () => (d.stated?.as === undefined ? statedPatch('certificate') : {});
 
   const kindFields = () => {
     switch (d.kind) {
@@ -112,33 +134,39 @@ export function InputForm({
               normalMode,
               (mode) => {
                 setNormalMode(mode);
-                if (mode === 'u') setDist({ u: d.u ?? (d.U && d.k ? roundSignificant(d.U / d.k, 6) : undefined), U: undefined, k: undefined });
-                else if (mode === 'Uk') setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: d.k ?? 2, u: undefined });
+                const k = d.k ?? kOfP();
+                if (mode === 'u') setDist({ u: d.u ?? (d.U && k ? roundSignificant(d.U / k, 6) : undefined), U: undefined, k: undefined, p: undefined });
+                else if (mode === 'Uk') setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: k !== undefined ? roundSignificant(k, 4) : 2, p: undefined, u: undefined, ...certificate() });
                 else {
-                  const nu = d.dof ?? 10;
-                  setDofMode('direct');
-                  setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), k: kFromP(nu, p), dof: nu, u: undefined, relativeUncertaintyOfU: undefined });
+                  // ν is optional here: without it k is the normal quantile
+                  setDofMode(d.dof !== undefined ? 'direct' : 'inf');
+                  setDist({ U: d.U ?? (d.u ? d.u * 2 : undefined), p: d.p ?? 0.95, k: undefined, u: undefined, relativeUncertaintyOfU: undefined, ...certificate() });
                 }
               },
               NORMAL_MODES,
               { className: 'md:col-span-3' },
             )}
             {num(`Value${unitSuffix}`, 'value')}
-            {normalMode === 'u' ? num(`Standard uncertainty u${unitSuffix}`, 'u') : null}
+            {normalMode === 'u' ? num(`Standard uncertainty u${uncSuffix}`, 'u') : null}
             {normalMode === 'Uk' ? (
               <>
-                {num(`Expanded uncertainty U${unitSuffix}`, 'U')}
-                {num('Coverage factor k', 'k', d.U && d.k ? `u = U/k = ${formatSignificant(d.U / d.k, 3)} ${unit}` : undefined)}
+                {num(`Expanded uncertainty U${uncSuffix}`, 'U')}
+                {num('Coverage factor k', 'k')}
               </>
             ) : null}
             {normalMode === 'Up' ? (
               <>
-                {num(`Expanded uncertainty U${unitSuffix}`, 'U')}
-                {num('Coverage probability p', 'p', 'e.g. 0.95', p, (v) => {
-                  setP(v);
-                  setDist({ k: kFromP(d.dof, v) });
-                })}
-                {num('Degrees of freedom ν', 'dof', d.k ? `k = t_p(ν) = ${formatSignificant(d.k, 4)} (GUM G.3.4)` : undefined, undefined, (v) => setDist({ dof: v, k: kFromP(v, p) }))}
+                {num(`Expanded uncertainty U${uncSuffix}`, 'U')}
+                {num('Coverage probability p', 'p', readOnly ? undefined : 'e.g. 0.95 for 95 %')}
+                {num(
+                  'Degrees of freedom ν (as stated; empty = ∞)',
+                  'dof',
+                  kOfP() !== undefined
+                    ? d.dof !== undefined
+                      ? `k = t_(1+p)/2(ν) = ${formatSignificant(kOfP()!, 4)} (GUM G.3.4, EA-4/02)`
+                      : `k = z_(1+p)/2 = ${formatSignificant(kOfP()!, 4)} (normal, GUM G.6.6)`
+                    : undefined,
+                )}
               </>
             ) : null}
           </>
@@ -151,15 +179,17 @@ export function InputForm({
               rectMode,
               (mode) => {
                 setRectMode(mode);
+                // a resolution is recorded as such (a = r/2); leaving it forgets that form
+                const form = mode === 'resolution' ? statedPatch('resolution') : d.stated?.as === 'resolution' ? statedPatch('') : {};
                 if (mode === 'limits') {
                   const v = d.value ?? 0;
                   const a = d.halfWidth ?? 1;
-                  setDist({ lower: v - a, upper: v + a, value: undefined, halfWidth: undefined });
+                  setDist({ lower: v - a, upper: v + a, value: undefined, halfWidth: undefined, uncertaintyUnit: undefined, ...form });
                 } else if (d.lower !== undefined || d.upper !== undefined) {
                   const lo = d.lower ?? 0;
                   const hi = d.upper ?? lo;
-                  setDist({ value: (lo + hi) / 2, halfWidth: (hi - lo) / 2 || 1, lower: undefined, upper: undefined });
-                }
+                  setDist({ value: (lo + hi) / 2, halfWidth: (hi - lo) / 2 || 1, lower: undefined, upper: undefined, ...form });
+                } else setDist(form);
               },
               RECT_MODES,
               { className: 'md:col-span-3' },
@@ -172,15 +202,15 @@ export function InputForm({
             ) : rectMode === 'tolerance' ? (
               <>
                 {num(`Value${unitSuffix}`, 'value')}
-                {num(`Half-width a${unitSuffix}`, 'halfWidth', d.halfWidth ? `u = a/√3 = ${formatSignificant(d.halfWidth / Math.sqrt(3), 3)} ${unit}` : undefined)}
+                {num(`Half-width a${uncSuffix}`, 'halfWidth')}
               </>
             ) : (
               <>
                 {num(`Correction value${unitSuffix}`, 'value', 'usually 0')}
                 {num(
-                  `Resolution δ (digit step)${unitSuffix}`,
+                  `Resolution r (digit step)${uncSuffix}`,
                   'halfWidth',
-                  d.halfWidth ? `a = δ/2, u = δ/(2√3) = ${formatSignificant(d.halfWidth / Math.sqrt(3), 3)} ${unit} (GUM F.2.2.1)` : 'the smallest step of the display',
+                  d.halfWidth ? 'a = r/2 (GUM F.2.2.1)' : 'the smallest step of the display',
                   d.halfWidth !== undefined ? roundSignificant(d.halfWidth * 2, 12) : undefined,
                   (v) => setDist({ halfWidth: v === undefined ? undefined : v / 2 }),
                 )}
@@ -193,14 +223,14 @@ export function InputForm({
         return (
           <>
             {num(`Value${unitSuffix}`, 'value')}
-            {num(`Half-width a${unitSuffix}`, 'halfWidth')}
+            {num(`Half-width a${uncSuffix}`, 'halfWidth')}
           </>
         );
       case 'trapezoidal':
         return (
           <>
             {num(`Value${unitSuffix}`, 'value')}
-            {num(`Half-width a${unitSuffix}`, 'halfWidth')}
+            {num(`Half-width a${uncSuffix}`, 'halfWidth')}
             {num('β (top to base ratio, 0 to 1)', 'beta')}
           </>
         );
@@ -208,15 +238,15 @@ export function InputForm({
         return (
           <>
             {num(`Value${unitSuffix}`, 'value')}
-            {num(`Half-width a${unitSuffix}`, 'halfWidth')}
-            {num(`Uncertainty of the half-width d${unitSuffix}`, 'halfWidthUncertainty')}
+            {num(`Half-width a${uncSuffix}`, 'halfWidth')}
+            {num(`Uncertainty of the half-width d${uncSuffix}`, 'halfWidthUncertainty')}
           </>
         );
       case 'student-t':
         return (
           <>
             {num(`Value${unitSuffix}`, 'value')}
-            {num(`Scale s${unitSuffix}`, 'scale')}
+            {num(`Scale s${uncSuffix}`, 'scale')}
             {num('Degrees of freedom ν', 'dof')}
           </>
         );
@@ -231,6 +261,71 @@ export function InputForm({
     d.kind === 'observations' ? (
       <ObservationsHelper spec={d} unit={input.unit} readOnly={readOnly} canUpload={canUpload} error={err('distribution.values')} onValues={(values) => setDist({ values })} />
     ) : null;
+
+  // How the figure was stated: its form, source and the unit of the uncertainty; the resolution form comes from "Given as".
+  const takesUncertaintyUnit =
+    d.kind !== 'constant' && !(d.kind === 'rectangular' && rectMode === 'limits') && !(d.kind === 'observations' && d.pooledSd === undefined);
+  const statedAs: StatedAs | '' = d.stated?.as ?? '';
+  const asStated = (() => {
+    try {
+      return statedValueOf(input);
+    } catch {
+      return null;
+    }
+  })();
+  const asStatedNote = asStated
+    ? `${asStated.text}${asStated.divisorText && asStated.coverageProbability === null ? `; divisor ${asStated.divisorText}` : ''}; u = ${formatSignificant(asStated.standardUncertainty, 3)} ${unit}`
+    : null;
+  const statedFields =
+    d.kind === 'constant' ? null : readOnly ? (
+      <>
+        <ReadOnlyField label="Stated as">
+          {statedAs === 'resolution' ? RECT_MODES[2][1] : STATED_CHOICES.find(([v]) => v === statedAs)?.[1]}
+        </ReadOnlyField>
+        <ReadOnlyField label="Source">{d.stated?.source}</ReadOnlyField>
+        {d.uncertaintyUnit !== undefined ? (
+          <ReadOnlyField label="Uncertainty given in" numeric>
+            {uncertaintyUnit}
+          </ReadOnlyField>
+        ) : null}
+        {asStatedNote ? (
+          <ReadOnlyField label="As stated" numeric className="md:col-span-3">
+            {asStatedNote}
+          </ReadOnlyField>
+        ) : null}
+      </>
+    ) : (
+      <fieldset className="grid gap-3 rounded-md border border-stone-200 p-3 md:grid-cols-3">
+        <legend className="px-1 text-xs font-medium text-stone-700">As stated</legend>
+        {statedAs === 'resolution' ? (
+          <ReadOnlyField label="Stated as">{RECT_MODES[2][1]}</ReadOnlyField>
+        ) : (
+          choice('Stated as', statedAs, (as) => setDist(statedPatch(as)), STATED_CHOICES, { error: err('distribution.stated') ?? err('distribution.stated.as') })
+        )}
+        <Field label="Source" error={err('distribution.stated.source')} hint={statedAs ? 'e.g. the certificate number' : 'choose how it was stated first'}>
+          {(fp) => (
+            <TextInput
+              {...fp}
+              value={d.stated?.source ?? ''}
+              disabled={!statedAs}
+              onChange={(e) => setDist({ stated: { ...d.stated, source: e.target.value || undefined } })}
+            />
+          )}
+        </Field>
+        {takesUncertaintyUnit ? (
+          <Field
+            label="Uncertainty given in"
+            error={err('distribution.uncertaintyUnit')}
+            hint={d.uncertaintyUnit ? `shown as ${uncertaintyUnit}; %, ppm, ppb are relative to the value` : 'empty = the unit of the value; e.g. mK, um, ppm'}
+          >
+            {(fp) => (
+              <TextInput {...fp} className="num" value={d.uncertaintyUnit ?? ''} onChange={(e) => setDist({ uncertaintyUnit: e.target.value || undefined })} />
+            )}
+          </Field>
+        ) : null}
+        {asStatedNote ? <p className="num text-xs text-stone-700 md:col-span-3">{asStatedNote}</p> : null}
+      </fieldset>
+    );
 
   const showDof = d.kind !== 'student-t' && d.kind !== 'constant' && !(d.kind === 'normal' && normalMode === 'Up');
   if (readOnly) {
@@ -255,6 +350,7 @@ export function InputForm({
           {choice('Distribution', d.kind as DistributionKind, () => {}, DISTRIBUTION_KINDS.map((k) => [k, KIND_LABELS[k]] as const))}
           {kindFields()}
           {showDof ? <ReadOnlyField label="Degrees of freedom νᵢ">{dofText}</ReadOnlyField> : null}
+          {statedFields}
         </dl>
         {observations}
       </div>
@@ -289,13 +385,14 @@ export function InputForm({
           (kind) => {
             setNormalMode('u');
             setRectMode('tolerance');
-            onChange({ ...input, distribution: convertKind(input.distribution, kind) });
+            onChange({ ...input, distribution: convertKind(input.distribution, kind, input.unit) });
           },
           DISTRIBUTION_KINDS.map((k) => [k, KIND_LABELS[k]] as const),
           { error: err('distribution.kind'), className: 'md:col-span-3' },
         )}
         {kindFields()}
       </div>
+      {statedFields}
       {showDof ? (
         <fieldset className="grid gap-3 rounded-md border border-stone-200 p-3 md:grid-cols-3">
           <legend className="px-1 text-xs font-medium text-stone-700">Degrees of freedom νᵢ</legend>
@@ -328,7 +425,7 @@ export function InputForm({
         </fieldset>
       ) : null}
       {problems
-        .filter((pr) => !pr.field.startsWith(`${base}.`) || !/\.(symbol|unit|description|distribution\.\w+)$/.test(pr.field))
+        .filter((pr) => !pr.field.startsWith(`${base}.`) || !/\.(symbol|unit|description|distribution(\.\w+)+)$/.test(pr.field))
         .map((pr, i) => (
           <p key={i} role="alert" className="text-xs font-medium text-caution-700">
             {pr.message}

@@ -42,7 +42,7 @@ function Row({
 }) {
   const { attributes, listeners, setNodeRef, setActivatorNodeRef, transform, transition, isDragging } = useSortable({ id: item.key, disabled: readOnly });
   const q = item.input;
-  const t = tryTreatment(q.distribution);
+  const t = tryTreatment(q.distribution, q.unit);
   const mine = problemsUnder(problems, `inputs[${index}]`);
   return (
     <li
