@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 const root = join(__dirname, '..', '..');
-const cli = join(root, 'server', 'cli', 'dubito.ts');
+const cli = join(root, 'cli', 'dubito.ts');
 
 function dubito(...args: string[]) {
   const r = spawnSync(process.execPath, ['--import', 'tsx', cli, ...args], { cwd: root, encoding: 'utf8' });

@@ -6,10 +6,10 @@
  */
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
-import { BudgetError } from '../../shared/budget/budget-error';
-import { parseBudgetFile } from '../../shared/budget/budget-file';
-import { LIMITS } from '../../shared/budget/limits';
-import { computeBudget } from '../../shared/compute/compute-budget';
+import { BudgetError } from '../shared/budget/budget-error';
+import { parseBudgetFile } from '../shared/budget/budget-file';
+import { LIMITS } from '../shared/budget/limits';
+import { computeBudget } from '../shared/compute/compute-budget';
 import { formatBudgetTable } from './budget-table';
 
 const USAGE = 'usage: dubito compute FILE [--trials N] [--seed S] [--adaptive] [--no-monte-carlo] [--format json|table]';

@@ -1,8 +1,8 @@
-import type { BudgetResult } from '../../shared/budget/result';
-import type { BudgetDocument } from '../../shared/budget/schema';
-import { formatAtExponent, roundUncertainty } from '../../shared/gum/rounding';
-import { certificateStatement } from '../../shared/gum/statement';
-import { reportedOf } from '../../shared/compute/reported-result';
+import type { BudgetResult } from '../shared/budget/result';
+import type { BudgetDocument } from '../shared/budget/schema';
+import { formatAtExponent, roundUncertainty } from '../shared/gum/rounding';
+import { certificateStatement } from '../shared/gum/statement';
+import { reportedOf } from '../shared/compute/reported-result';
 
 const g = (x: number | null, digits = 4) => (x === null ? '∞' : Number.isFinite(x) ? x.toPrecision(digits) : String(x));
 
