@@ -3,6 +3,11 @@ import {
   OperatorNodeDependencies,
   ParenthesisNodeDependencies,
   SymbolNodeDependencies,
+  create as createNumberMath,
+  derivativeDependencies,
+  parseDependencies,
+} from 'mathjs/number';
+import {
   absDependencies,
   acosDependencies,
   addDependencies,
@@ -12,7 +17,6 @@ import {
   cosDependencies,
   create,
   createUnitDependencies,
-  derivativeDependencies,
   divideDependencies,
   eDependencies,
   evaluateDependencies,
@@ -22,7 +26,6 @@ import {
   maxDependencies,
   minDependencies,
   multiplyDependencies,
-  parseDependencies,
   piDependencies,
   powDependencies,
   sinDependencies,
@@ -46,8 +49,13 @@ import {
  * named here.
  */
 
-/** Parsing of model lines, the expression nodes, and symbolic derivatives. */
-export const math: MathJsInstance = create({
+/**
+ * Parsing of model lines, the expression nodes, and symbolic derivatives,
+ * from the number-only factories (`mathjs/number`): a model holds numbers
+ * only, and these skip the BigNumber, fraction, complex and matrix
+ * signatures whose making is most of mathjs's start-up.
+ */
+export const math: MathJsInstance = createNumberMath({
   parseDependencies,
   derivativeDependencies,
   ConstantNodeDependencies,
