@@ -20,6 +20,7 @@ import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'no
 import { availableParallelism, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { findPython, median, verdict } from './support';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..');
@@ -29,12 +30,6 @@ const RUNS = Number(process.env.BENCH_RUNS ?? 7);
 const BATCH_RUNS = Number(process.env.BENCH_BATCH_RUNS ?? 3);
 const BATCH = 100;
 
-const median = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-};
-const verdict = (ok: boolean) => (ok ? 'PASS' : 'MISS');
 const s = (x: number) => `${x.toFixed(3)} s`;
 
 /** CPU seconds (user + system) of this process's reaped children so far; null where /proc is absent. */
@@ -66,13 +61,6 @@ function timed(exe: string, args: string[]): Timed {
 
 const medianOf = (xs: Timed[]): Timed => ({ wall: median(xs.map((x) => x.wall)), cpu: xs.some((x) => x.cpu === null) ? null : median(xs.map((x) => x.cpu as number)) });
 const cpuText = (t: Timed) => (t.cpu === null ? '' : `, CPU ${s(t.cpu)}`);
-
-function findPython(): string | undefined {
-  for (const exe of [process.env.PYTHON, 'python3', '/usr/bin/python3'].filter(Boolean) as string[]) {
-    if (spawnSync(exe, ['-c', 'import numpy'], { stdio: 'ignore' }).status === 0) return exe;
-  }
-  return undefined;
-}
 
 function main(): void {
   if (!existsSync(cli)) throw new Error('cli/dist/dubito.js is missing: run npm run build:cli');
