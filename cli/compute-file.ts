@@ -12,11 +12,11 @@ export interface RunOptions {
   monteCarlo: boolean;
 }
 
-/** Why a budget gave no result: the engine's code, message and field, or `file_unreadable`, or `internal` for a fault of the program. */
+/** Why a budget gave no result: the engine's code, message and field (null where it names none), or `file_unreadable`, or `internal` for a fault of the program. */
 export interface Refusal {
   code: string;
   message: string;
-  field?: string;
+  field: string | null;
 }
 
 export type FileOutcome =
@@ -35,14 +35,14 @@ export function computeFile(file: string, options: RunOptions): FileOutcome {
     text = readFileSync(file, 'utf8');
   } catch (e) {
     const why = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
-    return { file, error: { code: 'file_unreadable', message: `cannot read ${file}: ${why}` } };
+    return { file, error: { code: 'file_unreadable', message: `cannot read ${file}: ${why}`, field: null } };
   }
   try {
     const document = parseBudgetFile(text);
     const result = computeBudget(document, options);
     return { file, document, result };
   } catch (e) {
-    if (e instanceof BudgetError) return { file, error: { code: e.code, message: e.message, ...(e.field ? { field: e.field } : {}) } };
-    return { file, error: { code: 'internal', message: `internal error: ${(e as Error)?.message ?? String(e)}` } };
+    if (e instanceof BudgetError) return { file, error: { code: e.code, message: e.message, field: e.field ?? null } };
+    return { file, error: { code: 'internal', message: `internal error: ${(e as Error)?.message ?? String(e)}`, field: null } };
   }
 }

@@ -40,7 +40,7 @@ export function computeOnWorkers(files: readonly string[], jobs: number, options
       const lost = (why: string) => {
         if (finished) return;
         finished = true;
-        if (current >= 0) onOutcome(current, { file: files[current], error: { code: 'internal', message: `internal error: the worker computing it stopped (${why})` } });
+        if (current >= 0) onOutcome(current, { file: files[current], error: { code: 'internal', message: `internal error: the worker computing it stopped (${why})`, field: null } });
         void worker.terminate();
       };
       worker.on('error', (e) => lost(e.message));

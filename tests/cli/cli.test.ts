@@ -183,6 +183,14 @@ describe('dubito compute on many budgets', () => {
     expect(out[3].result.monteCarlo.seed).toBe('batch-2');
   });
 
+  it('names a file it cannot read in its line, with field null, and computes the rest', () => {
+    const r = dubito('compute', '/nonexistent/budget.json', 'examples/dc-voltage-10v.json', '--no-monte-carlo');
+    expect(r.status).toBe(2);
+    const [missing, good] = lines(r.stdout);
+    expect(missing).toEqual({ file: '/nonexistent/budget.json', error: { code: 'file_unreadable', message: 'cannot read /nonexistent/budget.json: no such file', field: null } });
+    expect(good.result.gum.standardUncertainty).toBeGreaterThan(0);
+  });
+
   it('writes NAME.result.json beside each budget, passes over result files on the next run, and removes the result of a budget now refused', () => {
     const dir = budgetFolder(false);
     const first = dubito('compute', join(dir, '*.json'), '--beside');
