@@ -35,7 +35,8 @@ expanded by dubito itself; result files (NAME${RESULT_SUFFIX}) never match.
   -h, --help          this text
 
 Exit status: 0 every budget computed; 2 one or more refused (the others are
-still computed; a refused budget's old result file is removed); 1 internal error.`;
+still computed; a refused budget's old result file is removed); 1 internal error or a
+result file that could not be written.`;
 
 class UsageError extends Error {}
 
@@ -126,7 +127,7 @@ function complain(message: string): void {
 
 async function run({ files, options, sink, outputs, jobs }: Plan): Promise<number> {
   const table = sink === 'table' ? (await import('./budget-table')).formatBudgetTable : undefined;
-  if (outputs && sink === 'files' && files.length > 0) for (const dir of new Set(outputs.map((o) => dirname(o)))) mkdirSync(dir, { recursive: true });
+  if (outputs) for (const dir of new Set(outputs.map((o) => dirname(o)))) mkdirSync(dir, { recursive: true });
   const progress = process.stderr.isTTY && files.length > 1;
   let status = 0;
   let done = 0;
@@ -146,8 +147,15 @@ async function run({ files, options, sink, outputs, jobs }: Plan): Promise<numbe
       if (outputs) rmSync(outputs[i], { force: true }); // an old result must not outlive the budget that now is refused
       return;
     }
-    if (outputs) writeFileSync(outputs[i], `${JSON.stringify(outcome.result, null, 2)}\n`);
-    else if (table) process.stdout.write(`${files.length > 1 ? `# ${file}\n` : ''}${table(outcome.document, outcome.result)}${files.length > 1 ? '\n' : ''}`);
+    if (outputs) {
+      try {
+        writeFileSync(outputs[i], `${JSON.stringify(outcome.result, null, 2)}\n`);
+      } catch (e) {
+        // the budget was computed, but its result is not where it is expected: a failure of the run, not of the budget
+        complain(`${file}: cannot write ${outputs[i]}: ${(e as Error).message}`);
+        status = 1;
+      }
+    } else if (table) process.stdout.write(`${files.length > 1 ? `# ${file}\n` : ''}${table(outcome.document, outcome.result)}${files.length > 1 ? '\n' : ''}`);
     else process.stdout.write(`${JSON.stringify(outcome.result, null, 2)}\n`);
   };
   const onOutcome = (index: number, outcome: FileOutcome) => {
