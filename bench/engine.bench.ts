@@ -15,6 +15,7 @@ import type { BudgetDocument } from '../shared/budget/schema';
 import { computeBudget } from '../shared/compute/compute-budget';
 import { compileModel } from '../shared/model/compile-model';
 import type { MonteCarloPhase, PhaseTimer } from '../shared/montecarlo/run-monte-carlo';
+import { findPython, median, verdict } from './support';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const RUNS = 7;
@@ -26,11 +27,6 @@ const mass = (() => {
   return { ...doc, monteCarlo: { trials: 1_000_000, seed: 'bench-9.3' } };
 })();
 
-const median = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-};
 const mib = (bytes: number) => bytes / 2 ** 20;
 const fmt = (x: number, digits = 2) => x.toFixed(digits);
 
@@ -147,14 +143,6 @@ function gufRecompute() {
   return { inputs: n, first, firstRecompute: times[0], warmUps, measured, recompute: median(times.slice(warmUps)) };
 }
 
-function findPython(): string | null {
-  for (const exe of [process.env.PYTHON, 'python3', '/usr/bin/python3', 'python'].filter(Boolean) as string[]) {
-    const probe = spawnSync(exe, ['-c', 'import numpy'], { stdio: 'ignore' });
-    if (probe.status === 0) return exe;
-  }
-  return null;
-}
-
 function numpyRun(trials: number) {
   const python = findPython();
   if (!python) return { skipped: 'no python3 that can import numpy was found: the numpy comparison is skipped' };
@@ -178,7 +166,6 @@ function combineNumpy(a: NumpyRun, b: NumpyRun): NumpyRun {
   return { ...b, seconds: seconds as typeof b.seconds };
 }
 
-const verdict = (ok: boolean) => (ok ? 'PASS' : 'MISS');
 
 function main() {
   console.log(`Dubito engine benchmark — Node ${process.version}, ${RUNS} runs (median) after ${WARM_UPS} warm-ups; numpy 2 × 5 runs (mean of medians)\n`);

@@ -1,4 +1,5 @@
-import { parse, type MathNode } from 'mathjs';
+import type { MathNode } from 'mathjs';
+import { parse } from './math';
 import { BudgetError } from '../budget/budget-error';
 import { LIMITS } from '../budget/limits';
 import { MINUS } from '../format/signs';

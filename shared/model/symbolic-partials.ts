@@ -1,4 +1,5 @@
-import { ConstantNode, OperatorNode, ParenthesisNode, SymbolNode, derivative, type MathNode } from 'mathjs';
+import type { MathNode } from 'mathjs';
+import { ConstantNode, OperatorNode, ParenthesisNode, SymbolNode, derivative } from './math';
 import { SYMBOLIC_LIMITS } from '../budget/limits';
 import { UnsupportedInCode, toJavaScript } from './codegen';
 import { derivativeSizeBound, inlinedSizes } from './expression-size';

@@ -1,4 +1,5 @@
-import { all, create, type MathJsInstance, type Unit } from 'mathjs';
+import type { MathJsInstance, Unit } from 'mathjs';
+import { createUnitMath } from './math';
 import { MINUS } from '../format/signs';
 
 /**
@@ -19,7 +20,7 @@ import { MINUS } from '../format/signs';
  *   converted in the model by the user (r = 10^(L/10) with L given without unit).
  */
 function createUnitSystem(): MathJsInstance {
-  const math = create(all);
+  const math = createUnitMath();
   math.createUnit('degC', { definition: '1 K', prefixes: 'none' }, { override: true });
   math.createUnit('degF', { definition: `${5 / 9} K`, prefixes: 'none' }, { override: true });
   math.createUnit('percent', { definition: '0.01', prefixes: 'none' }, { override: true });

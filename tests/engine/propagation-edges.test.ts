@@ -15,6 +15,7 @@ import { shapeKurtosis } from '../../shared/distributions/kurtosis';
 import { compileModel } from '../../shared/model/compile-model';
 import type { Distribution } from '../../shared/budget/schema';
 import { budget, N, R } from '../support/budget-builder';
+import { builtCli, ensureBuiltCli } from '../cli/built-cli';
 
 const gumOnly = { monteCarlo: false } as const;
 const t975 = (nu: number) => stdlibTQuantile(0.975, nu);
@@ -138,7 +139,8 @@ describe('only constants in a budget: refused, never an internal error', () => {
     const dir = mkdtempSync(join(tmpdir(), 'dubito-constants-'));
     const file = join(dir, 'budget.json');
     writeFileSync(file, JSON.stringify(budget('Y = a', { a: { kind: 'constant', value: 1 } as Distribution })));
-    const r = spawnSync(process.execPath, ['--import', 'tsx', join(root, 'server', 'cli', 'dubito.ts'), 'compute', file], { cwd: root, encoding: 'utf8' });
+    ensureBuiltCli();
+    const r = spawnSync(process.execPath, [builtCli, 'compute', file], { cwd: root, encoding: 'utf8' });
     expect(r.status).toBe(2);
     expect(r.stderr).toContain('inputs: no input of the model has an uncertainty');
     expect(r.stderr).not.toContain('internal error');

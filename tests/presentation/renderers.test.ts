@@ -9,7 +9,7 @@ import { computeBudget } from '../../shared/compute/compute-budget';
 import type { Figure } from '../../shared/presentation/figures';
 import { presentResult } from '../../shared/presentation/result-model';
 import { withUnit } from '../../shared/presentation/units';
-import { formatBudgetTable } from '../../server/cli/budget-table';
+import { formatBudgetTable } from '../../cli/budget-table';
 import { renderReportPdf } from '../../server/reports/report-pdf';
 import { BudgetWithContributions } from '../../src/features/editor/components/BudgetTable';
 import { ResultCard } from '../../src/features/editor/components/ResultCard';

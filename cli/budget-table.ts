@@ -1,8 +1,8 @@
-import type { BudgetResult } from '../../shared/budget/result';
-import type { BudgetDocument } from '../../shared/budget/schema';
-import { relation, type Figure } from '../../shared/presentation/figures';
-import { presentResult } from '../../shared/presentation/result-model';
-import { withUnit } from '../../shared/presentation/units';
+import type { BudgetResult } from '../shared/budget/result';
+import type { BudgetDocument } from '../shared/budget/schema';
+import { relation, type Figure } from '../shared/presentation/figures';
+import { presentResult } from '../shared/presentation/result-model';
+import { withUnit } from '../shared/presentation/units';
 
 // digit groups are separated by U+202F, one column wide in a terminal like any other character
 const width = (s: string) => [...s].length;

@@ -1,0 +1,48 @@
+import { readFileSync } from 'node:fs';
+import { BudgetError } from '../shared/budget/budget-error';
+import { parseBudgetFile } from '../shared/budget/budget-file';
+import type { BudgetResult } from '../shared/budget/result';
+import type { BudgetDocument } from '../shared/budget/schema';
+import { computeBudget } from '../shared/compute/compute-budget';
+
+/** What the command line asks of every budget of a run. */
+export interface RunOptions {
+  trials?: number | 'adaptive';
+  seed?: string;
+  monteCarlo: boolean;
+}
+
+/** Why a budget gave no result: the engine's code, message and field (null where it names none), or `file_unreadable`, or `internal` for a fault of the program. */
+export interface Refusal {
+  code: string;
+  message: string;
+  field: string | null;
+}
+
+export type FileOutcome =
+  | { file: string; document: BudgetDocument; result: BudgetResult }
+  | { file: string; error: Refusal };
+
+/** An outcome that is a fault of the program rather than of the budget (exit status 1). */
+export function isInternal(outcome: FileOutcome): boolean {
+  return 'error' in outcome && outcome.error.code === 'internal';
+}
+
+/** Reads, validates and computes one budget file; never throws: every refusal becomes the outcome. */
+export function computeFile(file: string, options: RunOptions): FileOutcome {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (e) {
+    const why = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
+    return { file, error: { code: 'file_unreadable', message: `cannot read ${file}: ${why}`, field: null } };
+  }
+  try {
+    const document = parseBudgetFile(text);
+    const result = computeBudget(document, options);
+    return { file, document, result };
+  } catch (e) {
+    if (e instanceof BudgetError) return { file, error: { code: e.code, message: e.message, field: e.field ?? null } };
+    return { file, error: { code: 'internal', message: `internal error: ${(e as Error)?.message ?? String(e)}`, field: null } };
+  }
+}
