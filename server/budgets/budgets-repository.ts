@@ -118,6 +118,17 @@ export function getCurrentVersion(db: DbLike, id: number): CurrentVersionRow | u
   ).get({ id });
 }
 
+/** One version with the names of its author and approver. */
+export function getVersionNamed(db: DbLike, budgetId: number, number: number): { version: VersionRow; authorName: string | null; approverName: string | null } | undefined {
+  return db
+    .select({ version: budgetVersions, authorName: users.name, approverName: approvers.name })
+    .from(budgetVersions)
+    .leftJoin(users, eq(users.id, budgetVersions.authorId))
+    .leftJoin(approvers, eq(approvers.id, budgetVersions.approvedBy))
+    .where(and(eq(budgetVersions.budgetId, budgetId), eq(budgetVersions.number, number)))
+    .get();
+}
+
 /** Version metadata without the document and result text, with the names of author and approver. */
 export function listVersions(db: DbLike, budgetId: number): VersionMeta[] {
   return db
