@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { RouteTable } from '../http/routes';
+import { budgetId, userId } from '../http/params';
 import { parse } from '../http/validate';
 import type { AuditService } from './audit-service';
 
@@ -9,8 +10,8 @@ const time = z.union([
 ]);
 
 const query = z.strictObject({
-  budget: z.coerce.number().int().positive().optional(),
-  actor: z.coerce.number().int().positive().optional(),
+  budget: budgetId.optional(),
+  actor: userId.optional(),
   action: z.string().regex(/^[a-z_]+(\.[a-z_]+)?$/, { message: 'must look like "budget" or "budget.approved"' }).optional(),
   from: time.optional(),
   to: time.optional(),
