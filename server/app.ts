@@ -85,12 +85,13 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     log: config.log,
   });
   const budgets = new BudgetsService(db, pool, audit, { diffMaxBytes: config.diffMaxBytes });
+  const attachments = new AttachmentsService({ db, budgets, audit, dataDir: resolve(config.dataDir) });
   const services: Services = {
     accounts,
     budgets,
-    reviews: new ReviewsService({ db, budgets, audit, accounts, mail, publicUrl: config.publicUrl }),
+    reviews: new ReviewsService({ db, budgets, attachments, audit, accounts, mail, publicUrl: config.publicUrl }),
     audit,
-    attachments: new AttachmentsService({ db, budgets, audit, dataDir: resolve(config.dataDir) }),
+    attachments,
     mail,
     reports: new ReportsService({ budgets, workers: pool, maxBytes: config.reportMaxBytes }),
   };

@@ -19,12 +19,14 @@ import {
   insertBudget,
   insertVersion,
   listBudgets,
+  listInReview,
   listVersions,
   recordApproval,
   updateBudget,
   type BudgetFilter,
   type BudgetRow,
   type CurrentVersionRow,
+  type InReviewRow,
   type VersionRow,
 } from './budgets-repository';
 import { documentSha256 } from './canonical';
@@ -183,6 +185,11 @@ export class BudgetsService {
     const v = this.findVersion(id, n, db);
     if (!v) throw new NotFoundError(`budget ${id} has no version ${n}`);
     return v;
+  }
+
+  /** Budgets in review with their current version's author, the longest waiting first. */
+  inReview(): InReviewRow[] {
+    return listInReview(this.db);
   }
 
   /** How many budgets there are, templates included. */

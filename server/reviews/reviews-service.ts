@@ -11,10 +11,9 @@ import { inTransaction, type Db, type DbLike } from '../db/connection';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import type { MailService } from '../mail/mail-service';
+import type { AttachmentsService } from '../uploads/attachments-service';
 import {
-  evidenceOf,
   getComment,
-  inReview,
   insertComment,
   insertDecision,
   lastVersionSeenBy,
@@ -51,6 +50,7 @@ export function signingCaveats(open: number, result: BudgetResult): SigningCavea
 export interface ReviewsDeps {
   db: Db;
   budgets: BudgetsService;
+  attachments: AttachmentsService;
   audit: AuditService;
   accounts: AccountsService;
   mail: MailService;
@@ -164,7 +164,7 @@ export class ReviewsService {
       result: { measurand: result.measurand, gum: result.gum, reported: reportedOf(result) },
       validation: verdictOf(result),
       warnings: result.warnings,
-      evidence: evidenceOf(db, budgetId, b.currentVersion),
+      evidence: this.d.attachments.evidenceOf(budgetId, b.currentVersion),
       baseline,
       changes,
       caveats: signingCaveats(open.length, result),
@@ -173,7 +173,7 @@ export class ReviewsService {
 
   /** In-review budgets the actor may approve: neither owned nor written by them, oldest first. */
   queue(actor: SessionUser): ReviewQueueItem[] {
-    const rows = inReview(this.d.db).filter((r) => canApprove(actor, { ownerId: r.ownerId, status: 'in_review', isTemplate: r.isTemplate }, r.authorId));
+    const rows = this.d.budgets.inReview().filter((r) => canApprove(actor, { ownerId: r.ownerId, status: 'in_review', isTemplate: r.isTemplate }, r.authorId));
     const counts = openThreadCounts(this.d.db, rows.map((r) => r.budgetId));
     return rows.map(({ ownerId: _o, authorId: _a, isTemplate: _t, ...r }) => ({ ...r, openThreads: counts.get(r.budgetId) ?? 0 }));
   }
@@ -268,7 +268,7 @@ export class ReviewsService {
 
   /** The evidence a signature covers, by file name and SHA-256. */
   private evidenceHashes(db: DbLike, budgetId: number, n: number): { fileName: string; sha256: string }[] {
-    return evidenceOf(db, budgetId, n).map((e) => ({ fileName: e.fileName, sha256: e.sha256 }));
+    return this.d.attachments.evidenceOf(budgetId, n, db).map((e) => ({ fileName: e.fileName, sha256: e.sha256 }));
   }
 
   private notify(actor: SessionUser, b: BudgetRow, to: TransitionTarget, version: number, comment?: string): void {

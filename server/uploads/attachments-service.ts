@@ -1,13 +1,14 @@
 import { existsSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
+import type { EvidenceRef } from '../../shared/api/reviews';
 import type { AddedAttachment, Attachment } from '../../shared/api/uploads';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import { canAttach, isEditableStatus } from '../../shared/policy/policy';
 import type { AuditService } from '../audit/audit-service';
 import type { BudgetsService } from '../budgets/budgets-service';
 import { sha256Hex } from '../budgets/canonical';
-import type { Db } from '../db/connection';
+import type { Db, DbLike } from '../db/connection';
 import { ConflictError, ForbiddenError, NotFoundError, UnsupportedMediaTypeError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import { getAttachment, insertAttachment, listAttachments } from './attachments-repository';
@@ -52,6 +53,11 @@ export class AttachmentsService {
     const n = version ?? b.currentVersion;
     if (n > b.currentVersion) throw new NotFoundError(`budget ${budgetId} has no version ${n}`);
     return listAttachments(this.d.db, budgetId, n);
+  }
+
+  /** The evidence version `n` carries (what was added to it or an earlier version), read inside the caller's transaction when one is given. */
+  evidenceOf(budgetId: number, n: number, db: DbLike = this.d.db): EvidenceRef[] {
+    return listAttachments(db, budgetId, n).map((a) => ({ id: a.id, fileName: a.fileName, symbol: a.symbol, sha256: a.sha256, versionNumber: a.versionNumber }));
   }
 
   /**
