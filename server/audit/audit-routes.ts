@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { RouteTable } from '../http/routes';
-import { budgetId, userId } from '../http/params';
+import { budgetId, pageQuery, userId } from '../http/params';
 import { parse } from '../http/validate';
 import type { AuditService } from './audit-service';
 
@@ -16,8 +16,7 @@ const query = z.strictObject({
   from: time.optional(),
   to: time.optional(),
   format: z.enum(['json', 'csv']).default('json'),
-  limit: z.coerce.number().int().min(1).max(10_000).default(500),
-  offset: z.coerce.number().int().min(0).default(0),
+  ...pageQuery(10_000, 500),
 });
 
 export function auditRoutes(t: RouteTable, audit: AuditService): void {

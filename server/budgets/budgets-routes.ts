@@ -6,7 +6,7 @@ import { parseBudgetFile, serializeBudget } from '../../shared/budget/budget-fil
 import { BUDGET_STATUSES } from '../../shared/policy/policy';
 import { ValidationError } from '../http/errors';
 import { userOf, type RouteTable } from '../http/routes';
-import { budgetParams, userId, versionNumber, versionParams } from '../http/params';
+import { budgetParams, pageQuery, userId, versionNumber, versionParams } from '../http/params';
 import { parse } from '../http/validate';
 import type { BudgetsService } from './budgets-service';
 
@@ -20,8 +20,7 @@ const listQuery = z.strictObject({
   owner: userId.optional(),
   q: z.string().max(200).optional(),
   template: z.enum(['true', 'false', 'any']).default('false'),
-  limit: z.coerce.number().int().min(1).max(1000).default(200),
-  offset: z.coerce.number().int().min(0).default(0),
+  ...pageQuery(1000, 200),
 });
 const createBody = z.strictObject({ document: documentField, note: note.default(''), template: z.boolean().optional() });
 const saveBody = z.strictObject({ baseVersion: versionNumber, document: documentField, note: note.default('') });

@@ -31,6 +31,7 @@ import {
 } from './budgets-repository';
 import { documentSha256 } from './canonical';
 import { checkDocumentShape } from './document-limits';
+import { fileStem } from './file-name';
 
 export type { BudgetRow, VersionRow };
 
@@ -70,18 +71,6 @@ function metaNamed(v: VersionRow, authorName: string | null, approverName: strin
     approverName: v.approvedBy === null ? null : nameOr(approverName, v.approvedBy),
     approvedAt: v.approvedAt,
   };
-}
-
-function slug(title: string): string {
-  return (
-    title
-      .normalize('NFKD')
-      .replace(/[^\w\s-]/g, '')
-      .trim()
-      .toLowerCase()
-      .replace(/[\s_-]+/g, '-')
-      .slice(0, 60) || 'budget'
-  );
 }
 
 interface Computed {
@@ -173,6 +162,18 @@ export class BudgetsService {
     const b = getBudget(db, id);
     if (!b) throw new NotFoundError('no such budget');
     return b;
+  }
+
+  /**
+   * The budget as it is inside the caller's transaction; 409 `stale_version` when its version or
+   * status moved since `seen` was read (a decision or an addition was judged on what was seen).
+   */
+  requireUnchanged(seen: BudgetRow, tx: DbLike, then = 'reload it'): BudgetRow {
+    const now = this.requireBudget(seen.id, tx);
+    if (now.currentVersion !== seen.currentVersion || now.status !== seen.status) {
+      throw new ConflictError(`the budget changed meanwhile; ${then}`, 'stale_version', { currentVersion: now.currentVersion });
+    }
+    return now;
   }
 
   /** A stored version, or undefined; read inside the caller's transaction when one is given. */
@@ -351,10 +352,7 @@ export class BudgetsService {
     write: (tx: DbLike, version: { number: number; isNew: boolean; at: number }) => T,
   ): T {
     return inTransaction(this.db, (tx) => {
-      const now = this.requireBudget(seen.id, tx);
-      if (now.currentVersion !== seen.currentVersion || now.status !== seen.status) {
-        throw new ConflictError('the budget changed meanwhile; reload it and attach the file again', 'stale_version', { currentVersion: now.currentVersion });
-      }
+      const now = this.requireUnchanged(seen, tx, 'reload it and attach the file again');
       const at = Date.now();
       const current = this.requireVersion(now.id, now.currentVersion, tx);
       const isNew = current.approvedAt !== null;
@@ -383,6 +381,6 @@ export class BudgetsService {
     const b = this.requireBudget(id);
     const v = this.requireVersion(id, n ?? b.currentVersion);
     const document = JSON.parse(v.document) as BudgetDocument;
-    return { fileName: `${slug(document.title)}-v${v.number}.json`, document };
+    return { fileName: `${fileStem(document.title)}-v${v.number}.json`, document };
   }
 }

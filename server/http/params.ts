@@ -28,3 +28,11 @@ export const userParams = z.strictObject({ id: userId });
 
 /** A quantity of a budget named by its symbol (an input, a constant or the measurand). */
 export const quantitySymbol = z.string().regex(/^[A-Za-z_][A-Za-z0-9_]*$/, { message: 'must be a symbol name' });
+
+/** `limit` and `offset` of a listing query: at most `maxLimit` rows a page, `defaultLimit` unless asked. */
+export function pageQuery(maxLimit: number, defaultLimit: number) {
+  return {
+    limit: z.coerce.number().int().min(1).max(maxLimit).default(defaultLimit),
+    offset: z.coerce.number().int().min(0).default(0),
+  };
+}

@@ -1,4 +1,5 @@
 import PDFDocument from 'pdfkit';
+import { fileStem } from '../budgets/file-name';
 import { budgetTable, inputsSection, modelSection, resultSection } from './budget-table';
 import { histogramChart, monteCarloFigures, sharesChart } from './charts';
 import { COLOR, Cursor, STYLE, rule } from './layout';
@@ -114,14 +115,5 @@ export function renderReportPdf(r: ReportData): Promise<Buffer> {
 
 /** The download name: title and version, safe in a header. */
 export function reportFileName(r: Pick<ReportData, 'title' | 'version'>): string {
-  const slug =
-    plainText(r.title)
-      .normalize('NFKD')
-      .replace(/[^\w\s-]/g, '')
-      .trim()
-      .toLowerCase()
-      .replace(/[\s_-]+/g, '-')
-      .slice(0, 80)
-      .replace(/-+$/, '') || 'budget';
-  return `${slug}-v${r.version.number}.pdf`;
+  return `${fileStem(plainText(r.title))}-v${r.version.number}.pdf`;
 }

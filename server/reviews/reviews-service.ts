@@ -217,10 +217,7 @@ export class ReviewsService {
     }
 
     const out = inTransaction(this.d.db, (tx) => {
-      const now = this.d.budgets.requireBudget(budgetId, tx);
-      if (now.status !== b.status || now.currentVersion !== b.currentVersion) {
-        throw new ConflictError('the budget changed meanwhile; reload it', 'stale_version', { currentVersion: now.currentVersion });
-      }
+      const now = this.d.budgets.requireUnchanged(b, tx);
       const at = Date.now();
       const n = now.currentVersion;
       // the state the decision was taken in, judged again inside the transaction
