@@ -73,8 +73,10 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     log: config.log,
   });
 
+  const audit = new AuditService(db);
   const accounts = new AccountsService({
     db,
+    audit,
     mail,
     publicUrl: config.publicUrl,
     endSessionsOf: (id) => store.destroyForUser(id),
@@ -84,13 +86,14 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     passwordAttempts: throttleSettings(config.signIn),
     log: config.log,
   });
-  const budgets = new BudgetsService(db, pool, { diffMaxBytes: config.diffMaxBytes });
+  const budgets = new BudgetsService(db, pool, audit, { diffMaxBytes: config.diffMaxBytes });
+  const attachments = new AttachmentsService({ db, budgets, audit, dataDir: resolve(config.dataDir) });
   const services: Services = {
     accounts,
     budgets,
-    reviews: new ReviewsService({ db, accounts, mail, publicUrl: config.publicUrl }),
-    audit: new AuditService(db),
-    attachments: new AttachmentsService(db, resolve(config.dataDir)),
+    reviews: new ReviewsService({ db, budgets, attachments, audit, accounts, mail, publicUrl: config.publicUrl }),
+    audit,
+    attachments,
     mail,
     reports: new ReportsService({ budgets, workers: pool, maxBytes: config.reportMaxBytes }),
   };

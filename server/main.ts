@@ -1,8 +1,6 @@
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
 import { loadConfig, StartRefused, startProblem, type AppConfig } from './config';
-import { countBudgets } from './budgets/budgets-repository';
-import { listUsers } from './accounts/accounts-repository';
 import { seedDemo } from './demo-seed';
 
 const EXAMPLES = fileURLToPath(new URL('../examples', import.meta.url));
@@ -14,8 +12,8 @@ export async function serve(overrides: Partial<AppConfig> = {}) {
   const problem = startProblem(loaded);
   if (problem) throw new StartRefused(`refusing to start: ${problem}`);
   const handle = await createApp(loaded);
-  const { config, connection } = handle;
-  const empty = countBudgets(connection.db) === 0 && listUsers(connection.db).length === 0;
+  const { config, services } = handle;
+  const empty = services.budgets.count() === 0 && services.accounts.list().length === 0;
   if (empty && env.DUBITO_DEMO !== '0') {
     await seedDemo(handle.services, { examplesDir: env.DUBITO_EXAMPLES ?? EXAMPLES, log: config.log });
   }

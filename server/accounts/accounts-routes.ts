@@ -5,6 +5,7 @@ import { PLAIN_HTTP_SIGN_IN } from '../config';
 import { UnauthenticatedError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import { userOf, type RouteTable } from '../http/routes';
+import { userParams } from '../http/params';
 import { parse } from '../http/validate';
 import type { AccountsService } from './accounts-service';
 import type { createPassport } from './auth-setup';
@@ -32,7 +33,6 @@ const patchUserBody = z
     message: 'say why the role or the access changes; the reason goes into the audit trail',
     path: ['reason'],
   });
-const idParam = z.strictObject({ id: z.coerce.number().int().positive({ message: 'must be a user id' }) });
 
 function logIn(req: Request, user: SessionUser): Promise<void> {
   // passport regenerates the session here, so a session id from before sign-in is never reused.
@@ -107,7 +107,7 @@ export function accountsRoutes(
   });
 
   t.add('patch', '/api/users/:id', 'user.manage', (req, res) => {
-    const { id } = parse(idParam, req.params);
+    const { id } = parse(userParams, req.params);
     const { reason, ...patch } = parse(patchUserBody, req.body);
     res.json(accounts.update(userOf(req), id, patch, reason));
   });

@@ -1,6 +1,6 @@
 import type { InvitationResponse, TokenInfo, UserAccount } from '../../shared/api/accounts';
 import type { Role } from '../../shared/policy/policy';
-import { recordAudit } from '../audit/audit-repository';
+import type { AuditService } from '../audit/audit-service';
 import { inTransaction, type Db } from '../db/connection';
 import { RowCache } from '../db/row-cache';
 import { ConflictError, NotFoundError, ValidationError } from '../http/errors';
@@ -48,6 +48,7 @@ export interface SignatureContext {
 
 export interface AccountsDeps {
   db: Db;
+  audit: AuditService;
   mail: MailService;
   publicUrl: string;
   endSessionsOf(userId: number): void;
@@ -84,17 +85,17 @@ export class AccountsService {
     const ok = await verifyPassword(password, user?.passwordHash);
     if (!user || !ok || !user.active) {
       inTransaction(this.d.db, (tx) =>
-        recordAudit(tx, { actorId: user?.id ?? null, action: 'auth.sign_in_refused', detail: { email: email.toLowerCase(), address: clientAddress } }),
+        this.d.audit.record(tx, { actorId: user?.id ?? null, action: 'auth.sign_in_refused', detail: { email: email.toLowerCase(), address: clientAddress } }),
       );
       return null;
     }
     this.attempts.succeeded(key);
-    inTransaction(this.d.db, (tx) => recordAudit(tx, { actorId: user.id, action: 'auth.signed_in', detail: { address: clientAddress } }));
+    inTransaction(this.d.db, (tx) => this.d.audit.record(tx, { actorId: user.id, action: 'auth.signed_in', detail: { address: clientAddress } }));
     return toSessionUser(user);
   }
 
   recordSignOut(userId: number): void {
-    inTransaction(this.d.db, (tx) => recordAudit(tx, { actorId: userId, action: 'auth.signed_out' }));
+    inTransaction(this.d.db, (tx) => this.d.audit.record(tx, { actorId: userId, action: 'auth.signed_out' }));
   }
 
   /** The user behind a session, or null when gone or deactivated. */
@@ -121,7 +122,7 @@ export class AccountsService {
       return true;
     }
     inTransaction(this.d.db, (tx) =>
-      recordAudit(tx, {
+      this.d.audit.record(tx, {
         actorId: userId,
         action: 'auth.signature_rejected',
         budgetId: context.budgetId ?? null,
@@ -155,7 +156,7 @@ export class AccountsService {
     return inTransaction(this.d.db, (tx) => {
       if (findUserByEmail(tx, input.email)) throw new ConflictError('a user with this e-mail address exists', 'email_taken');
       const u = insertUser(tx, { email: input.email, name: input.name, role: input.role, passwordHash: hash });
-      recordAudit(tx, { actorId: actor?.id ?? null, action: 'user.created', detail: { userId: u.id, email: u.email, role: u.role } });
+      this.d.audit.record(tx, { actorId: actor?.id ?? null, action: 'user.created', detail: { userId: u.id, email: u.email, role: u.role } });
       this.sessionUsers.delete(u.id);
       return toPublic(u);
     });
@@ -175,7 +176,7 @@ export class AccountsService {
       for (const k of ['name', 'role', 'active'] as const) {
         if (patch[k] !== undefined && before[k] !== after[k]) changes[k] = { from: before[k], to: after[k] };
       }
-      recordAudit(tx, { actorId: actor.id, action: 'user.updated', detail: { userId: id, changes, ...(reason ? { reason } : {}) } });
+      this.d.audit.record(tx, { actorId: actor.id, action: 'user.updated', detail: { userId: id, changes, ...(reason ? { reason } : {}) } });
       return after;
     });
     this.sessionUsers.delete(id);
@@ -194,7 +195,7 @@ export class AccountsService {
       this.sessionUsers.delete(u.id);
       retireTokens(tx, u.id);
       insertToken(tx, { kind: 'invitation', userId: u.id, tokenHash: hash, expiresAt });
-      recordAudit(tx, { actorId: actor.id, action: 'user.invited', detail: { userId: u.id, email: u.email, role: u.role } });
+      this.d.audit.record(tx, { actorId: actor.id, action: 'user.invited', detail: { userId: u.id, email: u.email, role: u.role } });
       return u;
     });
     const link = `${this.d.publicUrl}/set-password?token=${token}`;
@@ -229,7 +230,7 @@ export class AccountsService {
     inTransaction(this.d.db, (tx) => {
       retireTokens(tx, u.id);
       insertToken(tx, { kind: 'password_reset', userId: u.id, tokenHash: hash, expiresAt: Date.now() + this.d.resetHours * HOUR });
-      recordAudit(tx, { actorId: u.id, action: 'user.password_reset_requested' });
+      this.d.audit.record(tx, { actorId: u.id, action: 'user.password_reset_requested' });
     });
     const link = `${this.d.publicUrl}/reset-password?token=${token}`;
     this.d.mail.notify({
@@ -267,7 +268,7 @@ export class AccountsService {
       if (!t || !u || !u.active) throw new NotFoundError('this link is invalid, used or expired', 'invalid_token');
       markTokenUsed(tx, t.id);
       const after = updateUser(tx, u.id, { passwordHash: hash })!;
-      recordAudit(tx, { actorId: u.id, action: 'user.password_set', detail: { via: t.kind } });
+      this.d.audit.record(tx, { actorId: u.id, action: 'user.password_set', detail: { via: t.kind } });
       return after;
     });
     this.sessionUsers.delete(user.id);

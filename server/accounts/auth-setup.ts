@@ -51,28 +51,24 @@ export function throttleSettings(l: SignInLimits): ThrottleSettings {
   return { freeFailures: l.freeFailures, firstDelayMs: l.firstDelayMs, maxDelayMs: l.maxDelayMs, forgetAfterMs: l.windowMs, now: l.now };
 }
 
-/** Limits failed sign-ins per client address, whatever the account. */
-export function signInLimiters(l: SignInLimits): RequestHandler[] {
-  return [
-    rateLimit({
-      windowMs: l.windowMs,
-      limit: l.perAddress,
-      standardHeaders: 'draft-8',
-      legacyHeaders: false,
-      skipSuccessfulRequests: true,
-      identifier: 'address',
-      handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'too many failed sign-ins from your address; wait a few minutes and try again')),
-    }),
-  ];
-}
-
-/** Password-reset requests: a plain per-address limit. */
-export function resetLimiter(l: SignInLimits): RequestHandler {
+/** `perAddress` requests per client address in the window, then 429 `rate_limited` with `message`. */
+function addressLimiter(l: SignInLimits, message: string, extra: { skipSuccessfulRequests?: boolean; identifier?: string } = {}): RequestHandler {
   return rateLimit({
     windowMs: l.windowMs,
     limit: l.perAddress,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'too many requests; wait a few minutes')),
+    ...extra,
+    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', message)),
   });
+}
+
+/** Limits failed sign-ins per client address, whatever the account. */
+export function signInLimiters(l: SignInLimits): RequestHandler[] {
+  return [addressLimiter(l, 'too many failed sign-ins from your address; wait a few minutes and try again', { skipSuccessfulRequests: true, identifier: 'address' })];
+}
+
+/** Password-reset requests: a plain per-address limit. */
+export function resetLimiter(l: SignInLimits): RequestHandler {
+  return addressLimiter(l, 'too many requests; wait a few minutes');
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { RouteTable } from '../http/routes';
+import { budgetId, pageQuery, userId } from '../http/params';
 import { parse } from '../http/validate';
 import type { AuditService } from './audit-service';
 
@@ -9,14 +10,13 @@ const time = z.union([
 ]);
 
 const query = z.strictObject({
-  budget: z.coerce.number().int().positive().optional(),
-  actor: z.coerce.number().int().positive().optional(),
+  budget: budgetId.optional(),
+  actor: userId.optional(),
   action: z.string().regex(/^[a-z_]+(\.[a-z_]+)?$/, { message: 'must look like "budget" or "budget.approved"' }).optional(),
   from: time.optional(),
   to: time.optional(),
   format: z.enum(['json', 'csv']).default('json'),
-  limit: z.coerce.number().int().min(1).max(10_000).default(500),
-  offset: z.coerce.number().int().min(0).default(0),
+  ...pageQuery(10_000, 500),
 });
 
 export function auditRoutes(t: RouteTable, audit: AuditService): void {

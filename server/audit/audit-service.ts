@@ -1,6 +1,8 @@
 import type { AuditChainHead, AuditChainReport, AuditEvent, AuditPage } from '../../shared/api/audit';
-import { inTransaction, type Db } from '../db/connection';
-import { auditChainHead, listAudit, sealAuditChain, verifyAuditChain, type AuditFilter } from './audit-repository';
+import { inTransaction, type Db, type DbLike } from '../db/connection';
+import { auditChainHead, listAudit, recordAudit, sealAuditChain, verifyAuditChain, type AuditFilter, type NewAuditEvent } from './audit-repository';
+
+export type { NewAuditEvent };
 
 /** ISO 8601 to the second, UTC (`2026-12-02T08:15:03Z`): what an assessor reads and compares. */
 export function isoSecond(ms: number): string {
@@ -48,6 +50,14 @@ export class AuditService {
   constructor(private readonly db: Db) {
     // Events written before the trail was chained get their hashes once, in order.
     inTransaction(db, (tx) => sealAuditChain(tx));
+  }
+
+  /**
+   * Writes an event chained to the last one. Every component records its changes here, passing the
+   * transaction of the change, so the event and the change are committed together or not at all.
+   */
+  record(tx: DbLike, e: NewAuditEvent): void {
+    recordAudit(tx, e);
   }
 
   list(filter: AuditFilter): AuditPage {

@@ -118,6 +118,52 @@ export function getCurrentVersion(db: DbLike, id: number): CurrentVersionRow | u
   ).get({ id });
 }
 
+/** One version with the names of its author and approver. */
+export function getVersionNamed(db: DbLike, budgetId: number, number: number): { version: VersionRow; authorName: string | null; approverName: string | null } | undefined {
+  return db
+    .select({ version: budgetVersions, authorName: users.name, approverName: approvers.name })
+    .from(budgetVersions)
+    .leftJoin(users, eq(users.id, budgetVersions.authorId))
+    .leftJoin(approvers, eq(approvers.id, budgetVersions.approvedBy))
+    .where(and(eq(budgetVersions.budgetId, budgetId), eq(budgetVersions.number, number)))
+    .get();
+}
+
+/** A budget in review with its current version's author, oldest first in the reviewers' queue. */
+export interface InReviewRow {
+  budgetId: number;
+  title: string;
+  ownerId: number;
+  ownerName: string;
+  isTemplate: boolean;
+  version: number;
+  authorId: number;
+  authorName: string;
+  since: number;
+}
+
+export function listInReview(db: DbLike): InReviewRow[] {
+  return db
+    .select({
+      budgetId: budgets.id,
+      title: budgets.title,
+      ownerId: budgets.ownerId,
+      ownerName: owners.name,
+      isTemplate: budgets.isTemplate,
+      version: budgets.currentVersion,
+      authorId: budgetVersions.authorId,
+      authorName: users.name,
+      since: budgets.updatedAt,
+    })
+    .from(budgets)
+    .innerJoin(budgetVersions, and(eq(budgetVersions.budgetId, budgets.id), eq(budgetVersions.number, budgets.currentVersion)))
+    .innerJoin(owners, eq(owners.id, budgets.ownerId))
+    .innerJoin(users, eq(users.id, budgetVersions.authorId))
+    .where(eq(budgets.status, 'in_review'))
+    .orderBy(asc(budgets.updatedAt), asc(budgets.id))
+    .all();
+}
+
 /** Version metadata without the document and result text, with the names of author and approver. */
 export function listVersions(db: DbLike, budgetId: number): VersionMeta[] {
   return db

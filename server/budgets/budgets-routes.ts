@@ -6,13 +6,10 @@ import { parseBudgetFile, serializeBudget } from '../../shared/budget/budget-fil
 import { BUDGET_STATUSES } from '../../shared/policy/policy';
 import { ValidationError } from '../http/errors';
 import { userOf, type RouteTable } from '../http/routes';
+import { budgetParams, pageQuery, userId, versionNumber, versionParams } from '../http/params';
 import { parse } from '../http/validate';
 import type { BudgetsService } from './budgets-service';
 
-const id = z.coerce.number({ error: 'must be a budget id' }).int().positive({ message: 'must be a budget id' });
-const versionNumber = z.coerce.number({ error: 'must be a version number' }).int().positive({ message: 'must be a version number' });
-const idParams = z.strictObject({ id });
-const versionParams = z.strictObject({ id, n: versionNumber });
 const note = z.string({ error: 'must be text' }).max(2000, { message: 'must not exceed 2000 characters' });
 const documentField = z.custom<unknown>((v) => typeof v === 'object' && v !== null && !Array.isArray(v), {
   message: 'must be a budget file object',
@@ -20,11 +17,10 @@ const documentField = z.custom<unknown>((v) => typeof v === 'object' && v !== nu
 
 const listQuery = z.strictObject({
   status: z.enum(BUDGET_STATUSES, { error: `must be one of ${BUDGET_STATUSES.join(', ')}` }).optional(),
-  owner: z.coerce.number().int().positive().optional(),
+  owner: userId.optional(),
   q: z.string().max(200).optional(),
   template: z.enum(['true', 'false', 'any']).default('false'),
-  limit: z.coerce.number().int().min(1).max(1000).default(200),
-  offset: z.coerce.number().int().min(0).default(0),
+  ...pageQuery(1000, 200),
 });
 const createBody = z.strictObject({ document: documentField, note: note.default(''), template: z.boolean().optional() });
 const saveBody = z.strictObject({ baseVersion: versionNumber, document: documentField, note: note.default('') });
@@ -86,23 +82,23 @@ export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { im
   });
 
   t.add('get', '/api/budgets/:id', 'budget.read', (req, res) => {
-    res.type('application/json').send(budgets.getJson(parse(idParams, req.params).id));
+    res.type('application/json').send(budgets.getJson(parse(budgetParams, req.params).id));
   });
 
   t.add('put', '/api/budgets/:id', 'budget.edit', async (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const b = parse(saveBody, req.body);
     res.json(await budgets.save(userOf(req), id, b));
   });
 
   t.add('patch', '/api/budgets/:id', 'template.manage', (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const b = parse(patchBody, req.body);
     res.json(budgets.setTemplate(userOf(req), id, b.isTemplate));
   });
 
   t.add('get', '/api/budgets/:id/versions', 'budget.read', (req, res) => {
-    res.json(budgets.versions(parse(idParams, req.params).id));
+    res.json(budgets.versions(parse(budgetParams, req.params).id));
   });
 
   t.add('get', '/api/budgets/:id/versions/:n', 'budget.read', (req, res) => {
@@ -111,19 +107,19 @@ export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { im
   });
 
   t.add('get', '/api/budgets/:id/diff', 'budget.read', async (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const q = parse(diffQuery, req.query);
     res.json(await budgets.diff(userOf(req), id, q.from, q.to));
   });
 
   t.add('post', '/api/budgets/:id/clone', 'budget.clone', async (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const b = parse(cloneBody, req.body ?? {});
     res.status(201).json(await budgets.clone(userOf(req), id, b));
   });
 
   t.add('get', '/api/budgets/:id/export', 'budget.read', (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const q = parse(exportQuery, req.query);
     const f = budgets.exportFile(id, q.version);
     res.type('application/json; charset=utf-8');

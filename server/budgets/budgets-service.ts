@@ -6,9 +6,8 @@ import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import type { ComputeSupervisor } from '../compute/supervisor';
 import { canEditBudget, isEditableStatus } from '../../shared/policy/policy';
-import { userName } from '../accounts/accounts-repository';
-import { recordAudit } from '../audit/audit-repository';
-import { inTransaction, type Db } from '../db/connection';
+import type { AuditService } from '../audit/audit-service';
+import { inTransaction, type Db, type DbLike } from '../db/connection';
 import { ConflictError, ForbiddenError, NotFoundError, UnprocessableError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import {
@@ -16,18 +15,25 @@ import {
   getBudget,
   getCurrentVersion,
   getVersion,
+  getVersionNamed,
   insertBudget,
   insertVersion,
   listBudgets,
+  listInReview,
   listVersions,
+  recordApproval,
   updateBudget,
   type BudgetFilter,
   type BudgetRow,
   type CurrentVersionRow,
+  type InReviewRow,
   type VersionRow,
 } from './budgets-repository';
 import { documentSha256 } from './canonical';
 import { checkDocumentShape } from './document-limits';
+import { fileStem } from './file-name';
+
+export type { BudgetRow, VersionRow };
 
 /** What the supervisor does for budgets: compute and compare off the main thread, one user's jobs counted together. */
 export type Computer = Pick<ComputeSupervisor, 'compute' | 'run'>;
@@ -51,10 +57,6 @@ function summary(b: BudgetRow): BudgetSummary {
 /** A user's name as payloads show it; an id without a row (never expected) stays visible as such. */
 const nameOr = (name: string | null, id: number) => name ?? `user ${id}`;
 
-function meta(db: Db, v: VersionRow): VersionMeta {
-  return metaNamed(v, userName(db, v.authorId), v.approvedBy === null ? null : userName(db, v.approvedBy));
-}
-
 function metaNamed(v: VersionRow, authorName: string | null, approverName: string | null): VersionMeta {
   return {
     number: v.number,
@@ -71,18 +73,6 @@ function metaNamed(v: VersionRow, authorName: string | null, approverName: strin
   };
 }
 
-function slug(title: string): string {
-  return (
-    title
-      .normalize('NFKD')
-      .replace(/[^\w\s-]/g, '')
-      .trim()
-      .toLowerCase()
-      .replace(/[\s_-]+/g, '-')
-      .slice(0, 60) || 'budget'
-  );
-}
-
 interface Computed {
   document: BudgetDocument;
   text: string;
@@ -90,10 +80,38 @@ interface Computed {
   result: BudgetResult;
 }
 
+/** What a stored version holds besides its number, author and note. */
+interface VersionContent {
+  title: string;
+  document: string;
+  result: string;
+  seed: string;
+  engineVersion: string;
+  documentSha256: string;
+}
+
+/** A computed document as a version stores it; the seed is the one the Monte Carlo run used. */
+function contentOf(c: Computed): VersionContent {
+  return {
+    title: c.document.title,
+    document: c.text,
+    result: JSON.stringify(c.result),
+    seed: String(c.result.monteCarlo?.seed ?? c.document.monteCarlo?.seed ?? DEFAULTS.seed),
+    engineVersion: c.result.engineVersion,
+    documentSha256: c.sha,
+  };
+}
+
+/** A stored version's content, carried unchanged into a new version. */
+function copyOf(v: VersionRow, title: string): VersionContent {
+  return { title, document: v.document, result: v.result, seed: v.seed, engineVersion: v.engineVersion, documentSha256: v.documentSha256 };
+}
+
 export class BudgetsService {
   constructor(
     private readonly db: Db,
     private readonly computer: Computer,
+    private readonly audit: AuditService,
     private readonly limits: { diffMaxBytes: number } = { diffMaxBytes: Infinity },
   ) {}
 
@@ -105,31 +123,79 @@ export class BudgetsService {
     return { document, text: JSON.stringify(document), sha: documentSha256(document), result };
   }
 
-  private versionValues(budgetId: number, number: number, author: SessionUser, note: string, c: Computed, at: number) {
-    return {
-      budgetId,
-      number,
-      authorId: author.id,
-      createdAt: at,
-      note,
-      document: c.text,
-      result: JSON.stringify(c.result),
-      seed: String(c.result.monteCarlo?.seed ?? c.document.monteCarlo?.seed ?? DEFAULTS.seed),
-      engineVersion: c.result.engineVersion,
-      documentSha256: c.sha,
-    };
+  /**
+   * The one way a version is stored, inside the caller's transaction: the version after `before`'s
+   * current one is written, the budget points at it as a draft under the document's title, and the
+   * audit event records it with the document's SHA-256 and the note. Returns the new number.
+   */
+  private storeVersion(
+    tx: DbLike,
+    before: BudgetRow,
+    author: SessionUser,
+    note: string,
+    content: VersionContent,
+    at: number,
+    event: { action: string; detail: Record<string, unknown> },
+  ): number {
+    const { title, ...stored } = content;
+    const n = before.currentVersion + 1;
+    insertVersion(tx, { budgetId: before.id, number: n, authorId: author.id, createdAt: at, note, ...stored });
+    updateBudget(tx, before.id, { currentVersion: n, title, status: 'draft', updatedAt: at });
+    this.audit.record(tx, {
+      actorId: author.id,
+      action: event.action,
+      budgetId: before.id,
+      versionNumber: n,
+      at,
+      detail: { ...event.detail, documentSha256: content.documentSha256, note },
+    });
+    return n;
   }
 
-  requireBudget(id: number): BudgetRow {
-    const b = getBudget(this.db, id);
+  /** A budget, or undefined; read inside the caller's transaction when one is given. */
+  findBudget(id: number, db: DbLike = this.db): BudgetRow | undefined {
+    return getBudget(db, id);
+  }
+
+  /** The budget, read inside the caller's transaction when one is given; 404 without it. */
+  requireBudget(id: number, db: DbLike = this.db): BudgetRow {
+    const b = getBudget(db, id);
     if (!b) throw new NotFoundError('no such budget');
     return b;
   }
 
-  private requireVersion(id: number, n: number): VersionRow {
-    const v = getVersion(this.db, id, n);
+  /**
+   * The budget as it is inside the caller's transaction; 409 `stale_version` when its version or
+   * status moved since `seen` was read (a decision or an addition was judged on what was seen).
+   */
+  requireUnchanged(seen: BudgetRow, tx: DbLike, then = 'reload it'): BudgetRow {
+    const now = this.requireBudget(seen.id, tx);
+    if (now.currentVersion !== seen.currentVersion || now.status !== seen.status) {
+      throw new ConflictError(`the budget changed meanwhile; ${then}`, 'stale_version', { currentVersion: now.currentVersion });
+    }
+    return now;
+  }
+
+  /** A stored version, or undefined; read inside the caller's transaction when one is given. */
+  findVersion(id: number, n: number, db: DbLike = this.db): VersionRow | undefined {
+    return getVersion(db, id, n);
+  }
+
+  /** A stored version; 404 without it. */
+  requireVersion(id: number, n: number, db: DbLike = this.db): VersionRow {
+    const v = this.findVersion(id, n, db);
     if (!v) throw new NotFoundError(`budget ${id} has no version ${n}`);
     return v;
+  }
+
+  /** Budgets in review with their current version's author, the longest waiting first. */
+  inReview(): InReviewRow[] {
+    return listInReview(this.db);
+  }
+
+  /** How many budgets there are, templates included. */
+  count(): number {
+    return countBudgets(this.db);
   }
 
   list(filter: BudgetFilter): BudgetListItem[] {
@@ -180,8 +246,10 @@ export class BudgetsService {
 
   version(id: number, n: number): VersionView {
     this.requireBudget(id);
-    const v = this.requireVersion(id, n);
-    return { budgetId: id, ...meta(this.db, v), document: JSON.parse(v.document) as BudgetDocument, result: JSON.parse(v.result) as BudgetResult };
+    const named = getVersionNamed(this.db, id, n);
+    if (!named) throw new NotFoundError(`budget ${id} has no version ${n}`);
+    const v = named.version;
+    return { budgetId: id, ...metaNamed(v, named.authorName, named.approverName), document: JSON.parse(v.document) as BudgetDocument, result: JSON.parse(v.result) as BudgetResult };
   }
 
   /** The difference of two versions, computed in a worker; versions larger together than `diffMaxBytes` are refused. */
@@ -210,16 +278,7 @@ export class BudgetsService {
     const at = Date.now();
     const id = inTransaction(this.db, (tx) => {
       const b = insertBudget(tx, { title: c.document.title, ownerId: actor.id, isTemplate: !!input.template }, at);
-      insertVersion(tx, this.versionValues(b.id, 1, actor, input.note, c, at));
-      updateBudget(tx, b.id, { currentVersion: 1 });
-      recordAudit(tx, {
-        actorId: actor.id,
-        action,
-        budgetId: b.id,
-        versionNumber: 1,
-        at,
-        detail: { title: c.document.title, template: !!input.template, documentSha256: c.sha, note: input.note },
-      });
+      this.storeVersion(tx, b, actor, input.note, contentOf(c), at, { action, detail: { title: c.document.title, template: !!input.template } });
       return b.id;
     });
     return { id, version: 1, result: c.result };
@@ -245,34 +304,21 @@ export class BudgetsService {
     const c = await this.computeDocument(input.document, actor);
     const at = Date.now();
     const number = inTransaction(this.db, (tx) => {
-      const b = getBudget(tx, id);
-      if (!b) throw new NotFoundError('no such budget');
+      const b = this.requireBudget(id, tx);
       this.checkEditable(actor, b, input.baseVersion);
-      const n = b.currentVersion + 1;
-      insertVersion(tx, this.versionValues(id, n, actor, input.note, c, at));
-      updateBudget(tx, id, { currentVersion: n, title: c.document.title, status: 'draft', updatedAt: at });
-      recordAudit(tx, {
-        actorId: actor.id,
-        action: 'budget.version_saved',
-        budgetId: id,
-        versionNumber: n,
-        at,
-        detail: { statusBefore: b.status, documentSha256: c.sha, note: input.note },
-      });
-      return n;
+      return this.storeVersion(tx, b, actor, input.note, contentOf(c), at, { action: 'budget.version_saved', detail: { statusBefore: b.status } });
     });
     return { version: number, result: c.result };
   }
 
   setTemplate(actor: SessionUser, id: number, isTemplate: boolean): BudgetSummary {
     return inTransaction(this.db, (tx) => {
-      const b = getBudget(tx, id);
-      if (!b) throw new NotFoundError('no such budget');
+      const b = this.requireBudget(id, tx);
       if (b.isTemplate !== isTemplate) {
         updateBudget(tx, id, { isTemplate, updatedAt: Date.now() });
-        recordAudit(tx, { actorId: actor.id, action: 'budget.template_changed', budgetId: id, detail: { isTemplate } });
+        this.audit.record(tx, { actorId: actor.id, action: 'budget.template_changed', budgetId: id, detail: { isTemplate } });
       }
-      return summary(getBudget(tx, id)!);
+      return summary(this.requireBudget(id, tx));
     });
   }
 
@@ -288,25 +334,53 @@ export class BudgetsService {
     const newId = inTransaction(this.db, (tx) => {
       const b = insertBudget(tx, { title: c.document.title, ownerId: actor.id, isTemplate: false, sourceBudgetId: id, sourceVersion: n }, at);
       const note = `cloned from ${source.isTemplate ? 'template' : 'budget'} ${id}, version ${n}`;
-      insertVersion(tx, this.versionValues(b.id, 1, actor, note, c, at));
-      updateBudget(tx, b.id, { currentVersion: 1 });
-      recordAudit(tx, {
-        actorId: actor.id,
-        action: 'budget.cloned',
-        budgetId: b.id,
-        versionNumber: 1,
-        at,
-        detail: { sourceBudgetId: id, sourceVersion: n, documentSha256: c.sha },
-      });
+      this.storeVersion(tx, b, actor, note, contentOf(c), at, { action: 'budget.cloned', detail: { sourceBudgetId: id, sourceVersion: n } });
       return b.id;
     });
     return { id: newId, version: 1 };
+  }
+
+  /**
+   * Runs `write` in one transaction on the version that takes an addition (evidence): the current
+   * version, or, when it is approved and so never changes, a new draft version carrying the same
+   * document and result with `note`. Refuses with 409 when the budget changed since `seen` was read.
+   */
+  addToCurrentVersion<T>(
+    actor: SessionUser,
+    seen: BudgetRow,
+    note: string,
+    write: (tx: DbLike, version: { number: number; isNew: boolean; at: number }) => T,
+  ): T {
+    return inTransaction(this.db, (tx) => {
+      const now = this.requireUnchanged(seen, tx, 'reload it and attach the file again');
+      const at = Date.now();
+      const current = this.requireVersion(now.id, now.currentVersion, tx);
+      const isNew = current.approvedAt !== null;
+      let number = now.currentVersion;
+      if (isNew) {
+        number = this.storeVersion(tx, now, actor, note, copyOf(current, now.title), at, { action: 'budget.version_saved', detail: { statusBefore: now.status } });
+      } else {
+        updateBudget(tx, now.id, { updatedAt: at });
+      }
+      return write(tx, { number, isNew, at });
+    });
+  }
+
+  /** Puts the budget in `status` as a review decision leaves it, inside the decision's transaction. */
+  setReviewStatus(tx: DbLike, id: number, patch: { status: 'draft' | 'in_review'; returned: boolean }, at: number): void {
+    updateBudget(tx, id, { ...patch, updatedAt: at });
+  }
+
+  /** Signs version `n` as approved by `approverId` and makes it the budget's approved version, inside the decision's transaction. */
+  approveVersion(tx: DbLike, id: number, n: number, approverId: number, at: number): void {
+    recordApproval(tx, id, n, approverId, at);
+    updateBudget(tx, id, { status: 'approved', approvedVersion: n, returned: false, updatedAt: at });
   }
 
   exportFile(id: number, n?: number): { fileName: string; document: BudgetDocument } {
     const b = this.requireBudget(id);
     const v = this.requireVersion(id, n ?? b.currentVersion);
     const document = JSON.parse(v.document) as BudgetDocument;
-    return { fileName: `${slug(document.title)}-v${v.number}.json`, document };
+    return { fileName: `${fileStem(document.title)}-v${v.number}.json`, document };
   }
 }

@@ -1,9 +1,7 @@
-import { eq, lt, sql } from 'drizzle-orm';
 import session from 'express-session';
 import type { Db } from './connection';
-import { prepared } from './prepared';
 import { RowCache } from './row-cache';
-import { httpSessions } from './schema';
+import { deleteSession, deleteSessionsExpiredBefore, getSession, listSessions, putSession, setSessionExpiry } from './sessions-repository';
 
 const DAY = 24 * 60 * 60 * 1000;
 
@@ -42,9 +40,7 @@ export class DrizzleSessionStore extends session.Store {
   }
 
   private read(sid: string): StoredSession | undefined {
-    const row = prepared(this.db, 'session.bySid', () =>
-      this.db.select().from(httpSessions).where(eq(httpSessions.sid, sql.placeholder('sid'))).prepare(),
-    ).get({ sid });
+    const row = getSession(this.db, sid);
     // A row read from disk counts as freshly written: the next touch may wait a full interval.
     return row ? { data: row.data, expiresAt: row.expiresAt, writtenAt: Date.now() } : undefined;
   }
@@ -64,11 +60,7 @@ export class DrizzleSessionStore extends session.Store {
     try {
       const data = JSON.stringify(sess);
       const expiresAt = this.expiry(sess);
-      this.db
-        .insert(httpSessions)
-        .values({ sid, data, expiresAt })
-        .onConflictDoUpdate({ target: httpSessions.sid, set: { data, expiresAt } })
-        .run();
+      putSession(this.db, sid, data, expiresAt);
       this.rows.set(sid, { data, expiresAt, writtenAt: Date.now() });
       cb?.();
     } catch (e) {
@@ -80,7 +72,7 @@ export class DrizzleSessionStore extends session.Store {
   override destroy(sid: string, cb?: (err?: unknown) => void): void {
     try {
       this.rows.delete(sid);
-      this.db.delete(httpSessions).where(eq(httpSessions.sid, sid)).run();
+      deleteSession(this.db, sid);
       cb?.();
     } catch (e) {
       cb?.(e);
@@ -93,7 +85,7 @@ export class DrizzleSessionStore extends session.Store {
       const now = Date.now();
       if (!row || now - row.writtenAt >= this.touchEveryMs) {
         const expiresAt = this.expiry(sess);
-        this.db.update(httpSessions).set({ expiresAt }).where(eq(httpSessions.sid, sid)).run();
+        setSessionExpiry(this.db, sid, expiresAt);
         if (row) this.rows.set(sid, { ...row, expiresAt, writtenAt: now });
       }
       cb?.();
@@ -104,7 +96,7 @@ export class DrizzleSessionStore extends session.Store {
 
   /** Ends every session of a user (after a password change or deactivation). */
   destroyForUser(userId: number): void {
-    const rows = this.db.select({ sid: httpSessions.sid, data: httpSessions.data }).from(httpSessions).all();
+    const rows = listSessions(this.db);
     for (const row of rows) {
       try {
         const data = JSON.parse(row.data) as { passport?: { user?: number } };
@@ -119,7 +111,7 @@ export class DrizzleSessionStore extends session.Store {
     const now = Date.now();
     this.rows.clear((row) => row.expiresAt <= now);
     try {
-      this.db.delete(httpSessions).where(lt(httpSessions.expiresAt, now)).run();
+      deleteSessionsExpiredBefore(this.db, now);
     } catch {
       /* database closed */
     }

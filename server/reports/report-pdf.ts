@@ -1,4 +1,5 @@
 import PDFDocument from 'pdfkit';
+import { fileStem } from '../budgets/file-name';
 import { symbolMarkup } from '../../shared/format/symbols';
 import { presentResult, type ResultModel } from '../../shared/presentation/result-model';
 import { budgetTable, modelSection, resultSection } from './budget-table';
@@ -146,14 +147,5 @@ export function renderReportPdf(r: ReportData): Promise<Buffer> {
 
 /** The download name: title and version, safe in a header. */
 export function reportFileName(r: Pick<ReportData, 'title' | 'version'>): string {
-  const slug =
-    plainText(r.title)
-      .normalize('NFKD')
-      .replace(/[^\w\s-]/g, '')
-      .trim()
-      .toLowerCase()
-      .replace(/[\s_-]+/g, '-')
-      .slice(0, 80)
-      .replace(/-+$/, '') || 'budget';
-  return `${slug}-v${r.version.number}.pdf`;
+  return `${fileStem(plainText(r.title))}-v${r.version.number}.pdf`;
 }

@@ -1,9 +1,9 @@
 import { and, asc, eq, inArray, isNull, lte, max, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
-import type { Comment, ReviewDecision, ReviewQueueItem } from '../../shared/api/reviews';
+import type { Comment, ReviewDecision } from '../../shared/api/reviews';
 import type { ValidationVerdict } from '../../shared/budget/result';
 import type { DbLike } from '../db/connection';
-import { attachments, budgets, budgetVersions, comments, reviewDecisions, users } from '../db/schema';
+import { comments, reviewDecisions, users } from '../db/schema';
 
 const resolvers = alias(users, 'resolvers');
 
@@ -106,41 +106,6 @@ export function listDecisions(db: DbLike, budgetId: number): ReviewDecision[] {
     .innerJoin(users, eq(users.id, reviewDecisions.actorId))
     .where(eq(reviewDecisions.budgetId, budgetId))
     .orderBy(asc(reviewDecisions.id))
-    .all();
-}
-
-/** Evidence of a version: everything added to it or to an earlier one. */
-export function evidenceOf(db: DbLike, budgetId: number, versionNumber: number) {
-  return db
-    .select({ id: attachments.id, fileName: attachments.fileName, symbol: attachments.symbol, sha256: attachments.sha256, versionNumber: attachments.versionNumber })
-    .from(attachments)
-    .where(and(eq(attachments.budgetId, budgetId), lte(attachments.versionNumber, versionNumber)))
-    .orderBy(asc(attachments.id))
-    .all();
-}
-
-const owners = alias(users, 'owners');
-
-/** In-review budgets with their current version's author, and the candidates' open thread counts. */
-export function inReview(db: DbLike): (Omit<ReviewQueueItem, 'openThreads'> & { ownerId: number; authorId: number; isTemplate: boolean })[] {
-  return db
-    .select({
-      budgetId: budgets.id,
-      title: budgets.title,
-      ownerId: budgets.ownerId,
-      ownerName: owners.name,
-      isTemplate: budgets.isTemplate,
-      version: budgets.currentVersion,
-      authorId: budgetVersions.authorId,
-      authorName: users.name,
-      since: budgets.updatedAt,
-    })
-    .from(budgets)
-    .innerJoin(budgetVersions, and(eq(budgetVersions.budgetId, budgets.id), eq(budgetVersions.number, budgets.currentVersion)))
-    .innerJoin(owners, eq(owners.id, budgets.ownerId))
-    .innerJoin(users, eq(users.id, budgetVersions.authorId))
-    .where(eq(budgets.status, 'in_review'))
-    .orderBy(asc(budgets.updatedAt), asc(budgets.id))
     .all();
 }
 

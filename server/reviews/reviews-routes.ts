@@ -1,16 +1,13 @@
 import { z } from 'zod';
 import { userOf, type RouteTable } from '../http/routes';
+import { budgetParams, commentParams, quantitySymbol, versionNumber } from '../http/params';
 import { parse } from '../http/validate';
 import type { ReviewsService } from './reviews-service';
 
-const id = z.coerce.number({ error: 'must be a budget id' }).int().positive({ message: 'must be a budget id' });
-const positive = z.coerce.number().int().positive();
-const idParams = z.strictObject({ id });
-const commentParams = z.strictObject({ id, cid: positive });
-const listQuery = z.strictObject({ version: positive.optional() });
+const listQuery = z.strictObject({ version: versionNumber.optional() });
 const newComment = z.strictObject({
   version: z.number({ error: 'must be a version number' }).int().positive(),
-  symbol: z.string().regex(/^[A-Za-z_][A-Za-z0-9_]*$/, { message: 'must be a symbol name' }).nullable().optional(),
+  symbol: quantitySymbol.nullable().optional(),
   parentId: z.number({ error: 'must be a comment id' }).int().positive({ message: 'must be a comment id' }).nullable().optional(),
   body: z.string({ error: 'must be text' }).trim().min(1, { message: 'must not be empty' }).max(10_000),
 });
@@ -24,13 +21,13 @@ const transition = z.strictObject({
 
 export function reviewsRoutes(t: RouteTable, reviews: ReviewsService): void {
   t.add('get', '/api/budgets/:id/comments', 'budget.read', (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const q = parse(listQuery, req.query);
     res.json(reviews.comments(id, q.version));
   });
 
   t.add('post', '/api/budgets/:id/comments', 'comment.create', (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const b = parse(newComment, req.body);
     res.status(201).json(reviews.addComment(userOf(req), id, b));
   });
@@ -42,7 +39,7 @@ export function reviewsRoutes(t: RouteTable, reviews: ReviewsService): void {
   });
 
   t.add('get', '/api/budgets/:id/review', 'budget.read', (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     res.json(reviews.state(userOf(req), id));
   });
 
@@ -51,7 +48,7 @@ export function reviewsRoutes(t: RouteTable, reviews: ReviewsService): void {
   });
 
   t.add('post', '/api/budgets/:id/transitions', 'budget.transition', async (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const b = parse(transition, req.body);
     res.json(await reviews.transition(userOf(req), id, b));
   });

@@ -7,17 +7,16 @@ import type { BudgetResult, ValidationVerdict } from '../../shared/budget/result
 import type { BudgetDocument } from '../../shared/budget/schema';
 import { canApprove, canResolveComment, canReturn, canSubmit, type BudgetStatus } from '../../shared/policy/policy';
 import type { AccountsService } from '../accounts/accounts-service';
-import { recordAudit } from '../audit/audit-repository';
+import type { AuditService } from '../audit/audit-service';
 import { diffBudgets } from '../budgets/budget-diff';
-import { getBudget, getVersion, recordApproval, updateBudget, type BudgetRow, type VersionRow } from '../budgets/budgets-repository';
+import type { BudgetRow, BudgetsService, VersionRow } from '../budgets/budgets-service';
 import { inTransaction, type Db, type DbLike } from '../db/connection';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import type { MailService } from '../mail/mail-service';
+import type { AttachmentsService } from '../uploads/attachments-service';
 import {
-  evidenceOf,
   getComment,
-  inReview,
   insertComment,
   insertDecision,
   lastVersionSeenBy,
@@ -53,6 +52,9 @@ export function signingCaveats(open: number, result: BudgetResult): SigningCavea
 
 export interface ReviewsDeps {
   db: Db;
+  budgets: BudgetsService;
+  attachments: AttachmentsService;
+  audit: AuditService;
   accounts: AccountsService;
   mail: MailService;
   publicUrl: string;
@@ -61,18 +63,12 @@ export interface ReviewsDeps {
 export class ReviewsService {
   constructor(private readonly d: ReviewsDeps) {}
 
-  private budget(id: number): BudgetRow {
-    const b = getBudget(this.d.db, id);
-    if (!b) throw new NotFoundError('no such budget');
-    return b;
-  }
-
   private link(id: number): string {
     return `${this.d.publicUrl}/budgets/${id}`;
   }
 
   comments(budgetId: number, version?: number): Comment[] {
-    this.budget(budgetId);
+    this.d.budgets.requireBudget(budgetId);
     return listComments(this.d.db, budgetId, version);
   }
 
@@ -82,9 +78,9 @@ export class ReviewsService {
    * to a reply is stored as a reply to the thread's first comment.
    */
   addComment(actor: SessionUser, budgetId: number, input: NewComment): Comment {
-    this.budget(budgetId);
+    this.d.budgets.requireBudget(budgetId);
     return inTransaction(this.d.db, (tx) => {
-      const v = getVersion(tx, budgetId, input.version);
+      const v = this.d.budgets.findVersion(budgetId, input.version, tx);
       if (!v) throw new ValidationError(`budget ${budgetId} has no version ${input.version}`, 'version');
       let symbol = input.symbol ?? null;
       let parentId: number | null = null;
@@ -106,7 +102,7 @@ export class ReviewsService {
       // a new word in a resolved thread is a new question: the thread opens again
       const reopens = parentId !== null && getComment(tx, budgetId, parentId)!.resolved;
       if (reopens) setThreadResolved(tx, parentId!, false, actor.id, at);
-      recordAudit(tx, {
+      this.d.audit.record(tx, {
         actorId: actor.id,
         action: 'comment.created',
         budgetId,
@@ -125,7 +121,7 @@ export class ReviewsService {
    */
   resolveComment(actor: SessionUser, budgetId: number, commentId: number, resolved: boolean): Comment {
     return inTransaction(this.d.db, (tx) => {
-      const b = getBudget(tx, budgetId);
+      const b = this.d.budgets.findBudget(budgetId, tx);
       const c = b && getComment(tx, budgetId, commentId);
       if (!b || !c) throw new NotFoundError('no such comment');
       const root = c.parentId === null ? c : (getComment(tx, budgetId, c.parentId) ?? c);
@@ -133,7 +129,7 @@ export class ReviewsService {
       if (root.resolved === resolved) return getComment(tx, budgetId, commentId)!;
       const at = Date.now();
       setThreadResolved(tx, root.id, resolved, actor.id, at);
-      recordAudit(tx, {
+      this.d.audit.record(tx, {
         actorId: actor.id,
         action: resolved ? 'comment.resolved' : 'comment.reopened',
         budgetId,
@@ -147,9 +143,9 @@ export class ReviewsService {
 
   /** What a signature on the current version covers, and the decisions so far. */
   state(actor: SessionUser, budgetId: number): ReviewState {
-    const b = this.budget(budgetId);
+    const b = this.d.budgets.requireBudget(budgetId);
     const db = this.d.db;
-    const v = getVersion(db, budgetId, b.currentVersion)!;
+    const v = this.d.budgets.requireVersion(budgetId, b.currentVersion);
     const result = JSON.parse(v.result) as BudgetResult;
     const open = openThreads(db, budgetId);
     const decisions = listDecisions(db, budgetId);
@@ -158,7 +154,7 @@ export class ReviewsService {
     const approved = b.approvedVersion !== null && b.approvedVersion < b.currentVersion ? b.approvedVersion : null;
     const baseline = seen !== null ? { version: seen, basis: 'seen' as const } : approved !== null ? { version: approved, basis: 'approved' as const } : null;
     const load = (x: VersionRow) => ({ number: x.number, document: JSON.parse(x.document) as Record<string, unknown>, result: JSON.parse(x.result) as BudgetResult });
-    const changes = baseline && baseline.version < b.currentVersion ? diffBudgets(load(getVersion(db, budgetId, baseline.version)!), load(v)) : null;
+    const changes = baseline && baseline.version < b.currentVersion ? diffBudgets(load(this.d.budgets.requireVersion(budgetId, baseline.version)), load(v)) : null;
     return {
       budgetId,
       status: b.status,
@@ -176,7 +172,7 @@ export class ReviewsService {
       },
       validation: verdictOf(result),
       warnings: result.warnings,
-      evidence: evidenceOf(db, budgetId, b.currentVersion),
+      evidence: this.d.attachments.evidenceOf(budgetId, b.currentVersion),
       baseline,
       changes,
       caveats: signingCaveats(open.length, result),
@@ -185,7 +181,7 @@ export class ReviewsService {
 
   /** In-review budgets the actor may approve: neither owned nor written by them, oldest first. */
   queue(actor: SessionUser): ReviewQueueItem[] {
-    const rows = inReview(this.d.db).filter((r) => canApprove(actor, { ownerId: r.ownerId, status: 'in_review', isTemplate: r.isTemplate }, r.authorId));
+    const rows = this.d.budgets.inReview().filter((r) => canApprove(actor, { ownerId: r.ownerId, status: 'in_review', isTemplate: r.isTemplate }, r.authorId));
     const counts = openThreadCounts(this.d.db, rows.map((r) => r.budgetId));
     return rows.map(({ ownerId: _o, authorId: _a, isTemplate: _t, ...r }) => ({ ...r, openThreads: counts.get(r.budgetId) ?? 0 }));
   }
@@ -200,7 +196,7 @@ export class ReviewsService {
     budgetId: number,
     input: { to: TransitionTarget; comment?: string; password?: string; reason?: string },
   ): Promise<TransitionOutput> {
-    const b = this.budget(budgetId);
+    const b = this.d.budgets.requireBudget(budgetId);
     const reason = input.reason?.trim() || null;
     const illegal = () => new ConflictError(`a budget that is ${b.status.replace('_', ' ')} cannot go to ${input.to.replace('_', ' ')}`, 'invalid_transition');
     let signatureOk = false;
@@ -208,7 +204,7 @@ export class ReviewsService {
       if (!canSubmit(actor, b)) throw new ForbiddenError('only the owner submits a budget for review');
       if (b.status !== 'draft') throw illegal();
     } else if (input.to === 'approved') {
-      const v = getVersion(this.d.db, budgetId, b.currentVersion)!;
+      const v = this.d.budgets.requireVersion(budgetId, b.currentVersion);
       if (!canApprove(actor, b, v.authorId)) {
         throw new ForbiddenError(
           actor.role === 'reviewer' || actor.role === 'admin' ? 'nobody approves a budget they own or wrote' : 'only a reviewer or an admin approves',
@@ -229,15 +225,12 @@ export class ReviewsService {
     }
 
     const out = inTransaction(this.d.db, (tx) => {
-      const now = getBudget(tx, budgetId)!;
-      if (now.status !== b.status || now.currentVersion !== b.currentVersion) {
-        throw new ConflictError('the budget changed meanwhile; reload it', 'stale_version', { currentVersion: now.currentVersion });
-      }
+      const now = this.d.budgets.requireUnchanged(b, tx);
       const at = Date.now();
       const n = now.currentVersion;
       // the state the decision was taken in, judged again inside the transaction
       const open = openThreads(tx, budgetId).length;
-      const stored = JSON.parse(getVersion(tx, budgetId, n)!.result) as BudgetResult;
+      const stored = JSON.parse(this.d.budgets.requireVersion(budgetId, n, tx).result) as BudgetResult;
       const verdict = verdictOf(stored)?.verdict ?? null;
       // a thread opened since the check above still needs its reason
       if (input.to === 'approved' && !reason && signingCaveats(open, stored).length) {
@@ -245,21 +238,20 @@ export class ReviewsService {
       }
       let signature: Record<string, unknown> = {};
       if (input.to === 'in_review') {
-        updateBudget(tx, budgetId, { status: 'in_review', returned: false, updatedAt: at });
+        this.d.budgets.setReviewStatus(tx, budgetId, { status: 'in_review', returned: false }, at);
       } else if (input.to === 'approved' && signatureOk) {
-        recordApproval(tx, budgetId, n, actor.id, at);
-        updateBudget(tx, budgetId, { status: 'approved', approvedVersion: n, returned: false, updatedAt: at });
+        this.d.budgets.approveVersion(tx, budgetId, n, actor.id, at);
         insertDecision(tx, { budgetId, versionNumber: n, decision: 'approved', actorId: actor.id, reason, openThreads: open, validationVerdict: verdict, at });
         signature = { reason, openThreads: open, validationVerdict: verdict, evidence: this.evidenceHashes(tx, budgetId, n) };
       } else {
-        updateBudget(tx, budgetId, { status: 'draft', returned: true, updatedAt: at });
+        this.d.budgets.setReviewStatus(tx, budgetId, { status: 'draft', returned: true }, at);
         insertDecision(tx, { budgetId, versionNumber: n, decision: 'returned', actorId: actor.id, reason: input.comment!.trim(), openThreads: open, validationVerdict: verdict, at });
       }
       if (input.comment?.trim()) {
         insertComment(tx, { budgetId, versionNumber: n, symbol: null, authorId: actor.id, body: input.comment.trim(), at });
       }
       const action = input.to === 'in_review' ? 'budget.submitted' : input.to === 'approved' ? 'budget.approved' : 'budget.returned';
-      recordAudit(tx, {
+      this.d.audit.record(tx, {
         actorId: actor.id,
         action,
         budgetId,
@@ -281,7 +273,7 @@ export class ReviewsService {
 
   /** The evidence a signature covers, by file name and SHA-256. */
   private evidenceHashes(db: DbLike, budgetId: number, n: number): { fileName: string; sha256: string }[] {
-    return evidenceOf(db, budgetId, n).map((e) => ({ fileName: e.fileName, sha256: e.sha256 }));
+    return this.d.attachments.evidenceOf(budgetId, n, db).map((e) => ({ fileName: e.fileName, sha256: e.sha256 }));
   }
 
   private notify(actor: SessionUser, b: BudgetRow, to: TransitionTarget, version: number, comment?: string): void {

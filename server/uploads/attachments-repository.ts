@@ -1,4 +1,4 @@
-import { and, asc, eq, lte } from 'drizzle-orm';
+import { and, asc, eq, lte, type SQL } from 'drizzle-orm';
 import type { Attachment } from '../../shared/api/uploads';
 import type { DbLike } from '../db/connection';
 import { attachments, users } from '../db/schema';
@@ -17,26 +17,20 @@ const columns = {
   createdAt: attachments.createdAt,
 };
 
+/** Attachments as the API returns them: with the uploader's name, in the order they were added. */
+function selectAttachments(db: DbLike, where: SQL | undefined): Attachment[] {
+  return db.select(columns).from(attachments).innerJoin(users, eq(users.id, attachments.uploadedBy)).where(where).orderBy(asc(attachments.id)).all();
+}
+
 export function insertAttachment(db: DbLike, a: Omit<typeof attachments.$inferInsert, 'id'>): number {
   return db.insert(attachments).values(a).returning({ id: attachments.id }).get().id;
 }
 
 /** The evidence of a version: what was added to it and to every earlier version. */
 export function listAttachments(db: DbLike, budgetId: number, upToVersion: number): Attachment[] {
-  return db
-    .select(columns)
-    .from(attachments)
-    .innerJoin(users, eq(users.id, attachments.uploadedBy))
-    .where(and(eq(attachments.budgetId, budgetId), lte(attachments.versionNumber, upToVersion)))
-    .orderBy(asc(attachments.id))
-    .all();
+  return selectAttachments(db, and(eq(attachments.budgetId, budgetId), lte(attachments.versionNumber, upToVersion)));
 }
 
 export function getAttachment(db: DbLike, budgetId: number, id: number): Attachment | undefined {
-  return db
-    .select(columns)
-    .from(attachments)
-    .innerJoin(users, eq(users.id, attachments.uploadedBy))
-    .where(and(eq(attachments.budgetId, budgetId), eq(attachments.id, id)))
-    .get();
+  return selectAttachments(db, and(eq(attachments.budgetId, budgetId), eq(attachments.id, id)))[0];
 }

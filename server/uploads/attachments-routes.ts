@@ -2,17 +2,13 @@ import type { RequestHandler } from 'express';
 import { z } from 'zod';
 import { ValidationError } from '../http/errors';
 import { userOf, type RouteTable } from '../http/routes';
+import { attachmentParams, budgetParams, quantitySymbol, versionNumber } from '../http/params';
 import { parse } from '../http/validate';
 import type { AttachmentsService } from './attachments-service';
 import { multipartForm } from './multipart-form';
 
-const id = z.coerce.number({ error: 'must be a budget id' }).int().positive({ message: 'must be a budget id' });
-const idParams = z.strictObject({ id });
-const fileParams = z.strictObject({ id, aid: z.coerce.number().int().positive() });
-const listQuery = z.strictObject({ version: z.coerce.number({ error: 'must be a version number' }).int().positive({ message: 'must be a version number' }).optional() });
-const attachmentForm = z.strictObject({
-  symbol: z.string().regex(/^[A-Za-z_][A-Za-z0-9_]*$/, { message: 'must be a symbol name' }).optional(),
-});
+const listQuery = z.strictObject({ version: versionNumber.optional() });
+const attachmentForm = z.strictObject({ symbol: quantitySymbol.optional() });
 
 /** Refuses a request that is not a multipart form, naming the field the file goes in. */
 export function requireMultipart(field: string): RequestHandler {
@@ -27,18 +23,18 @@ export function attachmentsRoutes(t: RouteTable, attachments: AttachmentsService
   const evidenceUpload = multipartForm(limits.attachmentMaxBytes);
 
   t.add('get', '/api/budgets/:id/attachments', 'budget.read', (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     res.json(attachments.list(id, parse(listQuery, req.query).version));
   });
 
   t.add('post', '/api/budgets/:id/attachments', 'attachment.create', requireMultipart('file'), evidenceUpload, (req, res) => {
-    const { id } = parse(idParams, req.params);
+    const { id } = parse(budgetParams, req.params);
     const form = parse(attachmentForm, req.body ?? {});
     res.status(201).json(attachments.add(userOf(req), id, req.file, form.symbol ?? null));
   });
 
   t.add('get', '/api/budgets/:id/attachments/:aid', 'budget.read', (req, res) => {
-    const p = parse(fileParams, req.params);
+    const p = parse(attachmentParams, req.params);
     const { row, path } = attachments.file(p.id, p.aid);
     res.setHeader('X-Content-Type-Options', 'nosniff');
     res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox");

@@ -1,13 +1,14 @@
 import { existsSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
+import type { EvidenceRef } from '../../shared/api/reviews';
 import type { AddedAttachment, Attachment } from '../../shared/api/uploads';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import { canAttach, isEditableStatus } from '../../shared/policy/policy';
-import { recordAudit } from '../audit/audit-repository';
-import { getBudget, getVersion, insertVersion, updateBudget } from '../budgets/budgets-repository';
+import type { AuditService } from '../audit/audit-service';
+import type { BudgetsService } from '../budgets/budgets-service';
 import { sha256Hex } from '../budgets/canonical';
-import { inTransaction, type Db } from '../db/connection';
+import type { Db, DbLike } from '../db/connection';
 import { ConflictError, ForbiddenError, NotFoundError, UnsupportedMediaTypeError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import { getAttachment, insertAttachment, listAttachments } from './attachments-repository';
@@ -32,28 +33,31 @@ export interface UploadedFile {
   size: number;
 }
 
+export interface AttachmentsDeps {
+  db: Db;
+  budgets: BudgetsService;
+  audit: AuditService;
+  dataDir: string;
+}
+
 export class AttachmentsService {
-  constructor(
-    private readonly db: Db,
-    private readonly dataDir: string,
-  ) {}
+  constructor(private readonly d: AttachmentsDeps) {}
 
   private pathOf(sha: string): string {
-    return join(this.dataDir, 'attachments', sha.slice(0, 2), sha);
-  }
-
-  private budget(id: number) {
-    const b = getBudget(this.db, id);
-    if (!b) throw new NotFoundError('no such budget');
-    return b;
+    return join(this.d.dataDir, 'attachments', sha.slice(0, 2), sha);
   }
 
   /** The evidence of a version (the current one by default). */
   list(budgetId: number, version?: number): Attachment[] {
-    const b = this.budget(budgetId);
+    const b = this.d.budgets.requireBudget(budgetId);
     const n = version ?? b.currentVersion;
     if (n > b.currentVersion) throw new NotFoundError(`budget ${budgetId} has no version ${n}`);
-    return listAttachments(this.db, budgetId, n);
+    return listAttachments(this.d.db, budgetId, n);
+  }
+
+  /** The evidence version `n` carries (what was added to it or an earlier version), read inside the caller's transaction when one is given. */
+  evidenceOf(budgetId: number, n: number, db: DbLike = this.d.db): EvidenceRef[] {
+    return listAttachments(db, budgetId, n).map((a) => ({ id: a.id, fileName: a.fileName, symbol: a.symbol, sha256: a.sha256, versionNumber: a.versionNumber }));
   }
 
   /**
@@ -63,7 +67,7 @@ export class AttachmentsService {
    * A symbol must name an input quantity of the version.
    */
   add(actor: SessionUser, budgetId: number, file: UploadedFile | undefined, symbol: string | null): AddedAttachment {
-    const b = this.budget(budgetId);
+    const b = this.d.budgets.requireBudget(budgetId);
     if (!canAttach(actor, b)) throw new ForbiddenError('only those who may edit this budget attach evidence');
     if (!isEditableStatus(b.status)) throw new ConflictError('the budget is in review; evidence can be added once it is approved or returned', 'in_review');
     if (symbol !== null) this.checkSymbol(budgetId, b.currentVersion, symbol);
@@ -77,7 +81,7 @@ export class AttachmentsService {
     const sha = sha256Hex(file.buffer);
     const target = this.pathOf(sha);
     if (!existsSync(target)) {
-      mkdirSync(join(this.dataDir, 'attachments', sha.slice(0, 2)), { recursive: true });
+      mkdirSync(join(this.d.dataDir, 'attachments', sha.slice(0, 2)), { recursive: true });
       const tmp = `${target}.${randomBytes(6).toString('hex')}.tmp`;
       try {
         writeFileSync(tmp, file.buffer, { flush: true });
@@ -89,44 +93,9 @@ export class AttachmentsService {
       }
     }
     const fileName = file.originalname.replace(/[\\/\u0000-\u001f]/g, '_').slice(0, 255) || 'evidence';
-    return inTransaction(this.db, (tx) => {
-      const now = getBudget(tx, budgetId)!;
-      if (now.currentVersion !== b.currentVersion || now.status !== b.status) {
-        throw new ConflictError('the budget changed meanwhile; reload it and attach the file again', 'stale_version', { currentVersion: now.currentVersion });
-      }
-      const at = Date.now();
-      const current = getVersion(tx, budgetId, now.currentVersion)!;
-      let n = now.currentVersion;
-      const newVersion = current.approvedAt !== null;
-      if (newVersion) {
-        n += 1;
-        const note = `evidence added: ${fileName}`;
-        insertVersion(tx, {
-          budgetId,
-          number: n,
-          authorId: actor.id,
-          createdAt: at,
-          note,
-          document: current.document,
-          result: current.result,
-          seed: current.seed,
-          engineVersion: current.engineVersion,
-          documentSha256: current.documentSha256,
-        });
-        updateBudget(tx, budgetId, { currentVersion: n, status: 'draft', updatedAt: at });
-        recordAudit(tx, {
-          actorId: actor.id,
-          action: 'budget.version_saved',
-          budgetId,
-          versionNumber: n,
-          at,
-          detail: { statusBefore: now.status, documentSha256: current.documentSha256, note },
-        });
-      } else {
-        updateBudget(tx, budgetId, { updatedAt: at });
-      }
+    return this.d.budgets.addToCurrentVersion(actor, b, `evidence added: ${fileName}`, (tx, { number: n, isNew: newVersion, at }) => {
       const id = insertAttachment(tx, { budgetId, versionNumber: n, symbol, fileName, size: file.size, sha256: sha, mediaType: sniffed, uploadedBy: actor.id, createdAt: at });
-      recordAudit(tx, {
+      this.d.audit.record(tx, {
         actorId: actor.id,
         action: 'attachment.added',
         budgetId,
@@ -139,7 +108,7 @@ export class AttachmentsService {
   }
 
   private checkSymbol(budgetId: number, version: number, symbol: string): void {
-    const doc = JSON.parse(getVersion(this.db, budgetId, version)!.document) as BudgetDocument;
+    const doc = JSON.parse(this.d.budgets.requireVersion(budgetId, version).document) as BudgetDocument;
     const inputs = doc.inputs.map((q) => q.symbol);
     if (!inputs.includes(symbol)) {
       throw new ValidationError(`"${symbol}" is not an input quantity of version ${version}; attach to one of ${inputs.join(', ')} or to the whole budget`, 'symbol');
@@ -147,8 +116,8 @@ export class AttachmentsService {
   }
 
   file(budgetId: number, id: number): { row: Attachment; path: string } {
-    this.budget(budgetId);
-    const row = getAttachment(this.db, budgetId, id);
+    this.d.budgets.requireBudget(budgetId);
+    const row = getAttachment(this.d.db, budgetId, id);
     if (!row) throw new NotFoundError('no such attachment');
     const path = this.pathOf(row.sha256);
     if (!existsSync(path)) throw new NotFoundError('the stored file is missing');
