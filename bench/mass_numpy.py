@@ -61,7 +61,7 @@ def run(trials: int, rng: np.random.Generator, p: float = 0.95) -> tuple[dict, d
 def main() -> None:
     parser = argparse.ArgumentParser()
     parser.add_argument("--trials", type=int, default=1_000_000)
-    parser.add_argument("--runs", type=int, default=5)
+    parser.add_argument("--runs", type=int, default=7)
     args = parser.parse_args()
     rng = np.random.default_rng(20080901)
     run(args.trials, rng)  # warm-up

@@ -81,6 +81,30 @@ function tooDeep(lineNo: number): BudgetError {
   );
 }
 
+/** Lines kept parsed: a budget of a few hundred lines, and the lines of the other budgets open at the time. */
+const PARSED_LINES_KEPT = 4096;
+const parsedLines = new Map<string, MathNode>();
+
+/**
+ * mathjs `parse` of one line, kept by its text: while a model is typed, every
+ * keystroke re-reads the whole model, but only the edited line is new. The
+ * trees are shared between compiled models and never changed (every later
+ * stage builds new trees). A line that fails to parse is not kept.
+ */
+function parseLine(source: string): MathNode {
+  const known = parsedLines.get(source);
+  if (known) {
+    // Most recently used last, so the oldest line is the one let go.
+    parsedLines.delete(source);
+    parsedLines.set(source, known);
+    return known;
+  }
+  const node = parse(source);
+  if (parsedLines.size >= PARSED_LINES_KEPT) parsedLines.delete(parsedLines.keys().next().value as string);
+  parsedLines.set(source, node);
+  return node;
+}
+
 function collectSymbols(node: MathNode, into: Set<string>): void {
   node.traverse((n, path) => {
     // a function's own name (path "fn") is not a quantity
@@ -115,7 +139,7 @@ export function parseModel(text: string, quantitySymbols: ReadonlySet<string>, m
     let node: AnyNode;
     try {
       // the untrimmed line, so mathjs's positions are columns of the line as written
-      node = parse(source) as AnyNode;
+      node = parseLine(source) as AnyNode;
     } catch (e) {
       if (e instanceof RangeError) throw tooDeep(lineNo);
       throw syntaxError(lineNo, raw, e as Error);

@@ -2,7 +2,7 @@ import type { MathNode } from 'mathjs';
 import { ConstantNode, OperatorNode, ParenthesisNode, SymbolNode, derivative } from './math';
 import { SYMBOLIC_LIMITS } from '../budget/limits';
 import { UnsupportedInCode, toJavaScript } from './codegen';
-import { derivativeSizeBound, inlinedSizes } from './expression-size';
+import { derivativeSizeBound, inlinedSizes, symbolsBelow, type DerivativeBoundCache, type SymbolsBelow } from './expression-size';
 import type { ModelLine } from './parse-model';
 
 export type ScalarFunction = (x: ArrayLike<number>) => number;
@@ -50,16 +50,54 @@ function inlineMeasurand(lines: readonly ModelLine[], inputIndex: ReadonlyMap<st
   return inline(lines[lines.length - 1]);
 }
 
-function compilePartial(tree: MathNode, i: number, scale: number): { partial: ScalarFunction; reads: number[] } | 'oversized' | null {
+/** Prefix of the names that stand for subtrees without the variable while it is differentiated. */
+const HELD = '\u0000held';
+
+/**
+ * The tree with every largest subtree that does not contain `variable` (other
+ * than a single constant or name) replaced by a name of its own, listed in
+ * `held`. mathjs `derivative` treats any subtree without the variable as a
+ * constant and only ever copies it, and its special cases look at constant
+ * leaves alone, so the derivative of this tree is the derivative of `tree`
+ * with those names in place of the subtrees: same rules, but the work is that
+ * of the part that contains the variable (in a sum of many terms, one term).
+ */
+function holdConstantParts(tree: MathNode, variable: string, symbols: SymbolsBelow, held: MathNode[]): MathNode {
+  const hold = (node: MathNode): MathNode => {
+    if (symbols.get(node)?.has(variable)) return node.map((child) => hold(child));
+    if (node.type === 'ConstantNode' || node.type === 'SymbolNode') return node;
+    held.push(node);
+    return new SymbolNode(`${HELD}${held.length - 1}`);
+  };
+  return hold(tree);
+}
+
+/** JavaScript and the input indices it reads, of one held subtree; shared by the partials of all inputs. */
+type HeldCode = { code: string; reads: number[] };
+
+function compilePartial(tree: MathNode, i: number, scale: number, cache: DerivativeBoundCache, heldCode: Map<MathNode, HeldCode>): { partial: ScalarFunction; reads: number[] } | 'oversized' | null {
   try {
-    if (derivativeSizeBound(tree, `x${i}`) > SYMBOLIC_LIMITS.derivativeNodes) return 'oversized';
-    const d = derivative(tree, `x${i}`, { simplify: false });
+    if (derivativeSizeBound(tree, `x${i}`, cache) > SYMBOLIC_LIMITS.derivativeNodes) return 'oversized';
+    const held: MathNode[] = [];
+    const d = derivative(holdConstantParts(tree, `x${i}`, cache.symbols, held), `x${i}`, { simplify: false });
     const reads = new Set<number>();
-    const code = toJavaScript(d, (name) => {
+    const input = (name: string, into: Set<number>): string => {
       const m = /^x(\d+)$/.exec(name);
       if (!m) throw new UnsupportedInCode(name);
-      reads.add(Number(m[1]));
+      into.add(Number(m[1]));
       return `x[${m[1]}]`;
+    };
+    const code = toJavaScript(d, (name) => {
+      if (!name.startsWith(HELD)) return input(name, reads);
+      const subtree = held[Number(name.slice(HELD.length))];
+      let known = heldCode.get(subtree);
+      if (!known) {
+        const own = new Set<number>();
+        known = { code: toJavaScript(subtree, (n) => input(n, own)), reads: [...own] };
+        heldCode.set(subtree, known);
+      }
+      for (const r of known.reads) reads.add(r);
+      return known.code;
     });
     const partial = new Function('x', `"use strict"; return (${code}) * ${scale};`) as ScalarFunction;
     return { partial, reads: [...reads].sort((a, b) => a - b) };
@@ -106,9 +144,11 @@ export function symbolicPartials(
   }
   const tree = inlineMeasurand(lines, inputIndex, factors, constantsSI);
   const oversizedDerivatives: number[] = [];
+  const heldCode = new Map<MathNode, HeldCode>();
+  const cache: DerivativeBoundCache = { sizes: new Map(), symbols: symbolsBelow(tree) };
   const compiled = inputSymbols.map((s, i) => {
     if (unused(s)) return { partial: () => 0, reads: [] };
-    const p = compilePartial(tree, i, scale);
+    const p = compilePartial(tree, i, scale, cache, heldCode);
     if (p === 'oversized') oversizedDerivatives.push(i);
     return p === 'oversized' ? null : p;
   });

@@ -157,17 +157,32 @@ function temperatureScaleOf(u: Unit, dimension: Dimension): TemperatureUnitScale
 
 /**
  * Parses a unit expression (`mg`, `kg/m^3`, `1/degC`, `ppm/K`, `mol/L`, `%`, `1`).
- * Throws an Error whose message says why; callers add the field.
+ * Throws an Error whose message says why; callers add the field. The result
+ * is frozen and kept for the last 512 texts, so a model edit does not parse
+ * the units of every input again.
  */
 export function parseUnit(text: string | undefined): QuantityUnit {
   const raw = text ?? '';
+  const known = parsedUnits.get(raw);
+  if (known) return known;
+  const parsed = parseUnitText(raw);
+  // Budgets repeat a few unit texts over many inputs, and every model edit parses them again: keep the last few hundred.
+  if (parsedUnits.size >= PARSED_UNITS_KEPT) parsedUnits.delete(parsedUnits.keys().next().value as string);
+  parsedUnits.set(raw, parsed);
+  return parsed;
+}
+
+const PARSED_UNITS_KEPT = 512;
+const parsedUnits = new Map<string, QuantityUnit>();
+
+function parseUnitText(raw: string): QuantityUnit {
   const trimmed = raw.trim();
-  if (trimmed === '' || trimmed === '1') return { text: raw, factor: 1, dimension: DIMENSIONLESS };
+  if (trimmed === '' || trimmed === '1') return Object.freeze({ text: raw, factor: 1, dimension: DIMENSIONLESS });
   const u = toMathUnit(trimmed);
   const factor = u.value as unknown as number;
   if (typeof factor !== 'number' || !Number.isFinite(factor) || factor <= 0) throw new Error(`unit "${trimmed}" has no usable size`);
-  const dimension = dimensionOf(u);
-  return { text: raw, factor, dimension, temperatureScale: temperatureScaleOf(u, dimension) };
+  const dimension = Object.freeze(dimensionOf(u));
+  return Object.freeze({ text: raw, factor, dimension, temperatureScale: temperatureScaleOf(u, dimension) });
 }
 
 /** Whether two dimensions have the same exponents (to 10⁻⁹, for exponents such as 1/2 from sqrt). */

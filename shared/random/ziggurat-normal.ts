@@ -99,6 +99,11 @@ const { X, F, area: LAYER_AREA } = buildTables();
 export const zigguratTables: { readonly X: Float64Array; readonly F: Float64Array; readonly area: number } = { X, F, area: LAYER_AREA };
 
 const TWO_POW_MINUS_53 = 1 / 9007199254740992;
+/**
+ * X[i]·2⁻⁵³: scaling by a power of two is exact, so k·(X[i]·2⁻⁵³) rounds the same
+ * real number k·X[i]·2⁻⁵³ as (k·2⁻⁵³)·X[i] does, with one multiplication fewer.
+ */
+const X_PER_UNIT = X.map((x) => x * TWO_POW_MINUS_53);
 /** Attempts per round of the fill loop; the rare path of a round runs after it. */
 const ROUND = 4096;
 /** Output index and the two words a, b of each attempt of a round that the rare path finishes (at most one per attempt). */
@@ -159,7 +164,7 @@ export function fillNormal(rng: UniformGenerator, out: Float64Array, n: number, 
   const pendingA = PENDING_A;
   const pendingB = PENDING_B;
   const edges = X;
-  const toUnit = TWO_POW_MINUS_53;
+  const edgesPerUnit = X_PER_UNIT;
   const state = rng.state;
   let i = 0;
   while (i < n) {
@@ -191,7 +196,7 @@ export function fillNormal(rng: UniformGenerator, out: Float64Array, n: number, 
       s2 ^= t;
       s3 = (s3 << 11) | (s3 >>> 21);
       const layer = a & 255;
-      const x = unsigned53(a, b) * toUnit * edges[layer];
+      const x = unsigned53(a, b) * edgesPerUnit[layer];
       // Sign from bit 8 as a factor ±1: a branch on a random bit would be mispredicted half the time.
       if (x < edges[layer + 1]) out[i] = mean + standardDeviation * (x * (1 - ((a >>> 7) & 2)));
       else {

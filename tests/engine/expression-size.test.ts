@@ -4,7 +4,7 @@ import { BudgetError } from '../../shared/budget/budget-error';
 import { SYMBOLIC_LIMITS } from '../../shared/budget/limits';
 import { computeBudget } from '../../shared/compute/compute-budget';
 import { compileModel } from '../../shared/model/compile-model';
-import { derivativeSizeBound, inlinedSizes, nodeCount, treeDepth } from '../../shared/model/expression-size';
+import { derivativeSizeBound, inlinedSizes, nodeCount, symbolsBelow, treeDepth } from '../../shared/model/expression-size';
 import { parseModel } from '../../shared/model/parse-model';
 import { budget, N } from '../support/budget-builder';
 
@@ -86,6 +86,23 @@ describe('expression size (bounds of SYMBOLIC_LIMITS)', () => {
     expect(m.partialReads[1]).toEqual([]);
   });
 
+  it('differentiates a sum of many terms term by term: c_i of y = Σ a_k·b_k/(1 + b_k²) in closed form', () => {
+    // ∂y/∂a_k = b_k/(1 + b_k²), ∂y/∂b_k = a_k·(1 − b_k²)/(1 + b_k²)² (quotient rule)
+    const n = 30;
+    const terms = Array.from({ length: n }, (_, k) => `a${k} * b${k} / (1 + b${k}^2)`);
+    const symbols = Array.from({ length: n }, (_, k) => [`a${k}`, `b${k}`]).flat();
+    const m = compileModel({ model: `y = ${terms.join(' + ')}`, measurand: { symbol: 'y' }, inputs: symbols.map((symbol) => ({ symbol })), constants: [] });
+    expect(m.symbolicDerivatives.fallback).toBe('none');
+    const x = symbols.map((_, i) => 1 + i / 7);
+    for (let k = 0; k < n; k++) {
+      const [a, b] = [x[2 * k], x[2 * k + 1]];
+      expect(m.partials[2 * k]!(x)).toBeCloseTo(b / (1 + b * b), 14);
+      expect(m.partials[2 * k + 1]!(x)).toBeCloseTo((a * (1 - b * b)) / (1 + b * b) ** 2, 14);
+      expect(m.partialReads[2 * k]).toEqual([2 * k + 1]);
+      expect(m.partialReads[2 * k + 1]).toEqual([2 * k, 2 * k + 1]);
+    }
+  });
+
   it('generates code that computes each line once', () => {
     // 60 doublings inlined would be 10^18 nodes; line by line it is 60 multiplications
     const m = compile(squareChain(60));
@@ -138,6 +155,21 @@ describe('derivativeSizeBound', () => {
       expect(bound).toBeLessThan(6 * actual + 40); // a bound, not a refusal of everything
     }
     expect(derivativeSizeBound(tree, 'x9')).toBe(1); // derivative 0
+  });
+
+  it.each(models)('gives the same bound for %s with sizes and symbols shared between variables', (text) => {
+    const tree = parse(text);
+    const cache = { sizes: new Map(), symbols: symbolsBelow(tree) };
+    for (const v of ['x1', 'x0', 'x9']) expect(derivativeSizeBound(tree, v, cache)).toBe(derivativeSizeBound(tree, v));
+  });
+
+  it('lists the symbols below each node, function names excepted', () => {
+    const tree = parse('sin(x0 * x1) / (1 + x2 ^ 2)');
+    const symbols = symbolsBelow(tree);
+    expect([...(symbols.get(tree) ?? [])].sort()).toEqual(['x0', 'x1', 'x2']);
+    const [numerator, denominator] = (tree as unknown as { args: Parameters<typeof symbols.get>[0][] }).args;
+    expect([...(symbols.get(numerator) ?? [])].sort()).toEqual(['x0', 'x1']);
+    expect([...(symbols.get(denominator) ?? [])]).toEqual(['x2']);
   });
 
   it('never builds the O(n²) derivative of a long product of one input', () => {
