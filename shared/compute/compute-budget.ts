@@ -53,6 +53,26 @@ function assertUniqueSymbols(doc: BudgetDocument): void {
 }
 
 /**
+ * An input's (x, u) as finite doubles. A distribution whose every field is
+ * finite can still give x or u beyond the double range (half-width 1e300:
+ * u = a/√3 squares through a² = ∞; the mean of ±1e308 observations); no
+ * figure built on it could be trusted, so the input is refused by name.
+ */
+function finiteTreatment<T extends { estimate: number; standardUncertainty: number }>(t: T, symbol: string, index: number): T {
+  for (const [what, v] of [['estimate', t.estimate], ['standard uncertainty', t.standardUncertainty]] as const) {
+    if (!Number.isFinite(v)) {
+      const field = `inputs[${index}].distribution`;
+      throw new BudgetError(
+        'not_finite',
+        `${field}: the ${what} of "${symbol}" is not a finite number (${v}): its figures exceed the range of double precision (about 1e308); state the input in a larger unit`,
+        field,
+      );
+    }
+  }
+  return t;
+}
+
+/**
  * The fewest trials for which a 100p % coverage interval is meaningful:
  * J = ⌈100/(1 − p)⌉, the smallest sequence length of JCGM 101:2008 7.9.2.
  */
@@ -135,7 +155,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     if (!model.usedSymbols.has(q.symbol)) warnings.push(`The input "${q.symbol}" does not appear in the model.`);
   }
 
-  const treatments = doc.inputs.map((q) => gumTreatment(q.distribution));
+  const treatments = doc.inputs.map((q, i) => finiteTreatment(gumTreatment(q.distribution), q.symbol, i));
   const inputs: GumInput[] = doc.inputs.map((q, i) => ({
     symbol: q.symbol,
     unit: q.unit,
