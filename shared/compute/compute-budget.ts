@@ -80,16 +80,30 @@ export function minimumTrials(p: number): number {
   return Math.ceil(100 / (1 - p) - 1e-9);
 }
 
-/** Runs the Monte Carlo method, turning a non-finite model value into a refusal that names it. */
+/**
+ * Runs the Monte Carlo method, turning a non-finite model value into a refusal
+ * that names it. Finite model values can still have a sum of squares beyond
+ * the double range (values of ±1e300: y² overflows), leaving ỹ or u(ỹ) of
+ * JCGM 101:2008 7.6 without a value; that is refused too, never compared or reported.
+ */
 function runMethod(run: () => MonteCarloRun): MonteCarloRun {
+  let result: MonteCarloRun;
   try {
-    return run();
+    result = run();
   } catch (e) {
     if (e instanceof MonteCarloNonFiniteValue) {
       throw new BudgetError('not_finite', `monteCarlo: ${e.message}`, 'monteCarlo');
     }
     throw e;
   }
+  if (!Number.isFinite(result.estimate) || !Number.isFinite(result.standardUncertainty)) {
+    throw new BudgetError(
+      'not_finite',
+      `monteCarlo: the model values are finite but their ${Number.isFinite(result.estimate) ? 'standard deviation' : 'average'} exceeds the range of double precision (about 1e308); state the quantities in units that keep their figures smaller`,
+      'monteCarlo',
+    );
+  }
+  return result;
 }
 
 /**

@@ -387,3 +387,31 @@ describe('figures at the ends of the double range', () => {
     expect(r.gum.standardUncertainty).toBeCloseTo(Math.SQRT2 * 1e100, -90);
   });
 });
+
+describe('Monte Carlo figures at the ends of the double range', () => {
+  it('refuses a run whose model values are finite but whose u(ỹ) overflows', () => {
+    // y = b·c with b ≈ 0.1 and c drawn with u = 1e300: each y_r ≈ 1e299 is finite, Σ y_r² is not (JCGM 101:2008 7.6 eq. 13).
+    const doc = validateBudget({
+      format: 'dubito-budget/1',
+      title: 'range',
+      measurand: { symbol: 'Y' },
+      model: 'Y = a + b * c',
+      inputs: [
+        { symbol: 'a', distribution: { kind: 'normal', value: 0, u: 1 } },
+        { symbol: 'b', distribution: { kind: 'normal', value: 0, u: 0.1 } },
+        { symbol: 'c', distribution: { kind: 'normal', value: 0, U: 1e300, k: 1 } },
+      ],
+      reporting: { whenNotValidated: 'report-monte-carlo' },
+    });
+    expect(computeBudget(doc, { monteCarlo: false }).gum.standardUncertainty).toBe(1); // c_c = b = 0 at first order
+    let refusal: unknown;
+    try {
+      computeBudget(doc, { trials: 2000, trialsCap: 2000, seed: 'range' });
+    } catch (e) {
+      refusal = e;
+    }
+    expect(refusal).toBeInstanceOf(BudgetError);
+    expect((refusal as BudgetError).field).toBe('monteCarlo');
+    expect((refusal as BudgetError).code).toBe('not_finite');
+  });
+});

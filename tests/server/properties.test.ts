@@ -127,7 +127,7 @@ describe('the API under random requests', () => {
           expect(res.body.error.message.length).toBeGreaterThan(0);
         }
       }),
-      propertyRuns(Number(process.env.DUBITO_PROPERTY_RUNS ?? 120)),
+      propertyRuns(120),
     );
     await m.get('/api/health').expect(200);
     if (process.env.DUBITO_PROPERTY_SEED) console.log(Object.fromEntries(statuses));
