@@ -96,18 +96,33 @@ const requestOf: fc.Arbitrary<{ what: string; send: Send }> = fc.oneof(
     send: (a: request.Agent) => a.put(`/api/budgets/${id}`).type('json').send(text),
   })),
   jsonText.map((text) => ({ what: `POST import ${text.slice(0, 120)}`, send: (a: request.Agent) => a.post('/api/budgets/import').type('json').send(text) })),
-  jsonText.map((text) => ({
-    what: `POST import file ${text.slice(0, 120)}`,
-    send: (a: request.Agent) => a.post('/api/budgets/import').attach('file', Buffer.from(text), { filename: 'budget.json', contentType: 'application/json' }),
-  })),
-  fc.tuple(csvText, fc.option(fc.string({ maxLength: 20 }), { nil: undefined })).map(([text, column]) => ({
-    what: `POST observations ${JSON.stringify(text.slice(0, 120))} column ${column}`,
-    send: (a: request.Agent) => {
-      const r = a.post('/api/uploads/observations');
-      if (column !== undefined) r.field('column', column);
-      return r.attach('file', Buffer.from(text), { filename: 'readings.csv', contentType: 'text/csv' });
-    },
-  })),
+  fc
+    .tuple(jsonText, fc.option(fc.string({ maxLength: 20 }), { nil: undefined }), fc.constantFrom(undefined, 'true', 'false', 'yes'), fc.constantFrom('budget.json', 'b.txt', '', '../../x.json'))
+    .map(([text, note, template, filename]) => ({
+      what: `POST import file ${filename} note ${note} template ${template} ${text.slice(0, 120)}`,
+      send: (a: request.Agent) => {
+        const r = a.post('/api/budgets/import');
+        if (note !== undefined) r.field('note', note);
+        if (template !== undefined) r.field('template', template);
+        return r.attach('file', Buffer.from(text), { filename: filename || 'budget.json', contentType: 'application/json' });
+      },
+    })),
+  fc
+    .tuple(
+      csvText,
+      fc.option(fc.oneof(fc.string({ maxLength: 20 }), fc.constantFrom('0', '1', '__proto__', 'constructor')), { nil: undefined }),
+      fc.constantFrom('text/csv', 'text/plain', 'application/octet-stream', 'image/png', 'application/json'),
+      fc.constantFrom('readings.csv', 'readings.txt', 'readings.png', 'r'),
+      fc.constantFrom('utf8', 'utf16le', 'latin1') as fc.Arbitrary<BufferEncoding>,
+    )
+    .map(([text, column, contentType, filename, encoding]) => ({
+      what: `POST observations ${filename} ${contentType} ${encoding} ${JSON.stringify(text.slice(0, 120))} column ${column}`,
+      send: (a: request.Agent) => {
+        const r = a.post('/api/uploads/observations');
+        if (column !== undefined) r.field('column', column);
+        return r.attach('file', Buffer.from(text, encoding), { filename, contentType });
+      },
+    })),
 );
 
 describe('the API under random requests', () => {
