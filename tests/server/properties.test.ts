@@ -69,6 +69,8 @@ const jsonText = fc.oneof(
   fc.integer({ min: 1_000, max: 50_000 }).map((n) => `{"document":${'{"a":'.repeat(n)}1${'}'.repeat(n)}}`),
   fc.integer({ min: 100, max: 5_000 }).map((n) => JSON.stringify({ document: sampleDocument('Wide', { model: `y = ${Array(n).fill('a').join(' + ')}` }) })),
   fc.constant(JSON.stringify({ document: sampleDocument('Long title', { title: 'T'.repeat(1_000_000) }) })),
+  // Near the 8 MB body limit, and past it.
+  fc.constantFrom(7_500_000, 9_000_000).map((n) => JSON.stringify({ document: sampleDocument('Large', { labNote: 'x'.repeat(n) }) })),
 );
 
 /** CSV-like text: random characters, numbers with either decimal mark, separators, quotes and empty lines. */
