@@ -54,6 +54,26 @@ function assertUniqueSymbols(doc: BudgetDocument): void {
 }
 
 /**
+ * An input's (x, u) as finite doubles. A distribution whose every field is
+ * finite can still give x or u beyond the double range (half-width 1e300:
+ * u = a/√3 squares through a² = ∞; the mean of ±1e308 observations); no
+ * figure built on it could be trusted, so the input is refused by name.
+ */
+function finiteTreatment<T extends { estimate: number; standardUncertainty: number }>(t: T, symbol: string, index: number): T {
+  for (const [what, v] of [['estimate', t.estimate], ['standard uncertainty', t.standardUncertainty]] as const) {
+    if (!Number.isFinite(v)) {
+      const field = `inputs[${index}].distribution`;
+      throw new BudgetError(
+        'not_finite',
+        `${field}: the ${what} of "${symbol}" is not a finite number (${v}): its figures exceed the range of double precision (about 1e308); state the input in a larger unit`,
+        field,
+      );
+    }
+  }
+  return t;
+}
+
+/**
  * The fewest trials for which a 100p % coverage interval is meaningful:
  * J = ⌈100/(1 − p)⌉, the smallest sequence length of JCGM 101:2008 7.9.2.
  */
@@ -61,16 +81,30 @@ export function minimumTrials(p: number): number {
   return Math.ceil(100 / (1 - p) - 1e-9);
 }
 
-/** Runs the Monte Carlo method, turning a non-finite model value into a refusal that names it. */
+/**
+ * Runs the Monte Carlo method, turning a non-finite model value into a refusal
+ * that names it. Finite model values can still have a sum of squares beyond
+ * the double range (values of ±1e300: y² overflows), leaving ỹ or u(ỹ) of
+ * JCGM 101:2008 7.6 without a value; that is refused too, never compared or reported.
+ */
 function runMethod(run: () => MonteCarloRun): MonteCarloRun {
+  let result: MonteCarloRun;
   try {
-    return run();
+    result = run();
   } catch (e) {
     if (e instanceof MonteCarloNonFiniteValue) {
       throw new BudgetError('not_finite', `monteCarlo: ${e.message}`, 'monteCarlo');
     }
     throw e;
   }
+  if (!Number.isFinite(result.estimate) || !Number.isFinite(result.standardUncertainty)) {
+    throw new BudgetError(
+      'not_finite',
+      `monteCarlo: the model values are finite but their ${Number.isFinite(result.estimate) ? 'standard deviation' : 'average'} exceeds the range of double precision (about 1e308); state the quantities in units that keep their figures smaller`,
+      'monteCarlo',
+    );
+  }
+  return result;
 }
 
 /**
@@ -138,7 +172,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
 
   // Uncertainties stated in their own unit are taken into the value's unit once, refused with the field that names them.
   const distributions = doc.inputs.map((q, i) => inValueUnit(q.distribution, q.unit, `inputs[${i}].distribution`));
-  const treatments = distributions.map((d) => gumTreatment(d));
+  const treatments = distributions.map((d, i) => finiteTreatment(gumTreatment(d), doc.inputs[i].symbol, i));
   const inputs: GumInput[] = doc.inputs.map((q, i) => ({
     symbol: q.symbol,
     unit: q.unit,

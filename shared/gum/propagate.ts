@@ -73,6 +73,14 @@ export function propagateGum(
     }
   });
   const variance = combinedVariance(c, u, correlation);
+  if (!Number.isFinite(variance)) {
+    // c_i·u_i beyond the double range: no u_c, ν_eff or k exists, and the Monte Carlo values would overflow as well.
+    throw new BudgetError(
+      'not_finite',
+      'model: the combined variance Σ(c_i·u_i)² exceeds the range of double precision (about 1e308) at these estimates; state the quantities in units that keep their figures smaller',
+      'model',
+    );
+  }
   const standardUncertainty = Math.sqrt(Math.max(variance, 0));
   const contributionValues = c.map((ci, i) => Math.abs(ci * u[i]));
   const sumSquares = contributionValues.reduce((s, v) => s + v * v, 0);

@@ -15,10 +15,13 @@ export interface VarianceTerm {
  * Always min ν_t ≤ ν_eff ≤ Σ ν_t over the terms with u_t > 0 (Cauchy–Schwarz).
  */
 export function welchSatterthwaite(terms: readonly VarianceTerm[]): number {
+  // The formula is homogeneous of degree 0 in the variances: dividing them by the largest keeps u_t⁴ within the double range.
+  const largest = terms.reduce((m, t) => Math.max(m, t.variance), 0);
+  if (!(largest > 0)) return Infinity;
   let total = 0;
   let denominator = 0;
   for (const t of terms) {
-    const v = Math.max(t.variance, 0);
+    const v = Math.max(t.variance, 0) / largest;
     total += v;
     if (Number.isFinite(t.dof) && v > 0) denominator += (v * v) / t.dof;
   }

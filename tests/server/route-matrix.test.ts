@@ -134,6 +134,12 @@ describe('route × role matrix from the policy map', () => {
     const missing = s.routes.map((r) => `${r.method} ${r.path}`).filter((k) => !cases[k]);
     expect(missing).toEqual([]);
     expect(s.routes.length).toBeGreaterThanOrEqual(30);
+    // Every case still names a registered route, so a renamed route cannot leave its case behind untested.
+    const registered = new Set(s.routes.map((r) => `${r.method} ${r.path}`));
+    expect(Object.keys(cases).filter((k) => !registered.has(k))).toEqual([]);
+    expect([...registered]).toEqual(
+      expect.arrayContaining(['get /api/config', 'get /api/audit/verify', 'get /api/budgets/:id/review', 'get /api/reviews/queue']),
+    );
   });
 
   it('answers every route for every role and for anonymous as the policy says', async () => {
