@@ -7,6 +7,7 @@ import { significant, writeNumeral } from '../format/significant-digits';
 import { withTrueMinus } from '../format/signs';
 import { superscript } from '../format/superscript';
 import { unitPieces, writeUnit } from '../format/unit-symbols';
+import { probability } from '../presentation/figures';
 
 /**
  * An input as the laboratory stated it, for the budget table, the result card,
@@ -88,7 +89,7 @@ export function statedValueOf(input: InputQuantity): StatedValue {
         const nu = d.dof !== undefined ? `, ν = ${asEntered(d.dof)}` : '';
         const rule = d.dof !== undefined ? 't' : 'normal';
         return {
-          ...stated(`U = ${withUnit(U, amountUnit)}${of}, p = ${+(d.p * 100).toPrecision(6)} %${nu} (k = ${fourDigits(k)}, ${rule})`, U, k, fourDigits(k)),
+          ...stated(`U = ${withUnit(U, amountUnit)}${of}, p = ${probability(d.p).text}${nu} (k = ${fourDigits(k)}, ${rule})`, U, k, fourDigits(k)),
           coverageProbability: d.p,
           statedDof: d.dof ?? null,
         };

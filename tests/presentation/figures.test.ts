@@ -1,3 +1,4 @@
+import type { InputQuantity } from '../../shared/budget/schema';
 import { describe, expect, it } from 'vitest';
 import {
   coefficient,
@@ -13,7 +14,7 @@ import {
   uncertainty,
 } from '../../shared/presentation/figures';
 import { divisor, statedAs } from '../../shared/presentation/stated';
-import { sensitivityShown, unitText } from '../../shared/presentation/units';
+import { sensitivityShown } from '../../shared/presentation/units';
 
 // U+202F separates digit groups, U+2212 is the minus sign (SI Brochure 5.4.4)
 const plain = (s: string) => s.replace(/\u202f/g, ' ').replace(/\u2212/g, '-');
@@ -127,22 +128,22 @@ describe('sensitivity coefficients in the units a budget is written in', () => {
 });
 
 describe('the value as stated and its divisor', () => {
-  const degC = unitText('degC');
+  const q = (unit: string, distribution: InputQuantity['distribution']): InputQuantity => ({ symbol: 'x', unit, distribution });
   it('a certificate’s U and k', () => {
-    const d = { kind: 'normal' as const, value: 0.004, U: 0.01, k: 2 };
-    expect(statedAs(d, degC).text).toBe('U = 0.01 °C, k = 2');
+    const d = q('degC', { kind: 'normal', value: 0.004, U: 0.01, k: 2 });
+    expect(statedAs(d).text).toBe('U = 0.01 °C, k = 2');
     expect(divisor(d).text).toBe('2');
   });
   it('limits ±a and their divisors (GUM 4.3.7, 4.3.9)', () => {
-    expect(statedAs({ kind: 'rectangular', value: 0, halfWidth: 0.008 }, degC).text).toBe('± 0.008 °C');
-    expect(divisor({ kind: 'rectangular', value: 0, halfWidth: 0.008 }).text).toBe('√3');
-    expect(divisor({ kind: 'triangular', value: 0, halfWidth: 1 }).text).toBe('√6');
-    expect(divisor({ kind: 'arcsine', value: 0, halfWidth: 1 }).text).toBe('√2');
+    expect(statedAs(q('degC', { kind: 'rectangular', value: 0, halfWidth: 0.008 })).text).toBe('± 0.008 °C');
+    expect(divisor(q('degC', { kind: 'rectangular', value: 0, halfWidth: 0.008 })).text).toBe('√3');
+    expect(divisor(q('m', { kind: 'triangular', value: 0, halfWidth: 1 })).text).toBe('√6');
+    expect(divisor(q('m', { kind: 'arcsine', value: 0, halfWidth: 1 })).text).toBe('√2');
   });
   it('n readings and √n (GUM 4.2.3)', () => {
-    const d = { kind: 'observations' as const, values: [1, 2, 3, 4] };
-    // s of 1, 2, 3, 4 is 1.291 (numpy.std(ddof=1)); u = s/√4 = 0.6455
-    expect(statedAs(d, unitText('g'), 0.6455).text).toBe('4 readings, s = 1.3 g');
+    const d = q('g', { kind: 'observations', values: [1, 2, 3, 4] });
+    // s of 1, 2, 3, 4 is 1.291 (numpy.std(ddof=1))
+    expect(statedAs(d).text).toBe('4 readings, s = 1.29 g');
     expect(divisor(d).text).toBe('√4');
   });
 });
