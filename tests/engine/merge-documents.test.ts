@@ -137,7 +137,8 @@ describe('three-way merge of budget documents', () => {
       for (const c of e.changes) {
         const q = d.inputs[c.i];
         if (!q) continue;
-        if (c.what === 'value') (q.distribution as { value: number }).value = c.x;
+        // a budget file is JSON, which has no −0
+        if (c.what === 'value') (q.distribution as { value: number }).value = c.x === 0 ? 0 : c.x;
         else if (c.what === 'unit') q.unit = `${tag}${c.i}`;
         else d.inputs.splice(c.i, 1);
       }
