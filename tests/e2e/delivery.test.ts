@@ -83,8 +83,9 @@ describe('the client is delivered in pieces', () => {
     expect(page.url()).toMatch(/\/budgets$/);
     await page.goto(`${app.baseUrl}/budgets/new`);
     await page.getByText('No Monte Carlo result yet').waitFor();
-    // The live recompute runs in a Web Worker served like any chunk: a GUM result proves it arrived and ran.
-    await page.getByRole('heading', { name: 'Result (GUM)' }).waitFor();
+    // The live recompute runs in a Web Worker served like any chunk: the result card's certificate
+    // statement, drawn only from a computed GUM result, proves it arrived and ran.
+    await page.getByRole('region', { name: 'Result' }).getByTestId('card-statement').waitFor();
     expect(scripts.some((s) => s.path.includes('editor-route'))).toBe(true);
     expect(scripts.filter((s) => s.path.includes('HistogramPlot'))).toEqual([]);
     await page.screenshot({ path: screenshotPath('delivery', 'new-budget'), fullPage: true });

@@ -126,24 +126,24 @@ describe('input defects: pasted readings, undo, version status, read-only text',
     await page.goto(`${app.baseUrl}/budgets/${id}/versions`);
     const rows = page.getByRole('table').getByRole('row');
     await shows(badge(rows.filter({ hasText: 'v3' }), 'Approved'));
-    await shows(badge(rows.filter({ hasText: 'v1' }), 'Superseded'));
+    await shows(badge(rows.filter({ hasText: 'v1' }), 'Superseded draft'));
     await countIs(badge(rows.filter({ hasText: 'v1' }), 'Approved'), 0);
     await shot(page, 'versions-list');
 
     await page.goto(`${app.baseUrl}/budgets/${id}/versions/1`);
     const header = page.locator('header').filter({ hasText: 'v1 of 3' });
-    await shows(badge(header, 'Superseded'));
+    await shows(badge(header, 'Superseded draft'));
     await countIs(badge(header, 'Approved'), 0);
     await shot(page, 'old-version');
 
     await page.goto(`${app.baseUrl}/budgets/${id}/compare?from=1&to=3`);
     await shows(page.getByTestId('comparison'));
-    await shows(badge(page, 'Superseded'));
+    await shows(badge(page, 'Superseded draft'));
     await shows(badge(page, 'Approved'));
     await shot(page, 'compare-status');
 
     await page.goto(`${app.baseUrl}/budgets/${id}/versions/1/report`);
-    await shows(badge(page, 'Superseded'));
+    await shows(badge(page, 'Superseded draft'));
     await countIs(badge(page, 'Approved'), 0);
     await shot(page, 'old-version-report');
   }, 180_000);

@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import type { BudgetDocument } from '../../../../shared/budget/schema';
 import { Field, TextInput } from '../../../app/ui/controls';
+import { ReadOnlyField, ReadOnlyList } from '../../../app/ui/read-only';
 
 type Record = Pick<BudgetDocument, 'procedure' | 'equipment' | 'environment'>;
 
@@ -16,16 +17,24 @@ export function RecordFields({ doc, readOnly, onChange }: { doc: Record; readOnl
   useEffect(() => {
     setEquipment((text) => (listText(text.split(',').map((s) => s.trim()).filter(Boolean)) === listText(doc.equipment) ? text : listText(doc.equipment)));
   }, [doc.equipment]);
+  if (readOnly) {
+    return (
+      <ReadOnlyList className="mt-3 border-t border-stone-200 pt-3 md:grid-cols-3">
+        <ReadOnlyField label="Procedure">{doc.procedure}</ReadOnlyField>
+        <ReadOnlyField label="Equipment used" numeric>{listText(doc.equipment)}</ReadOnlyField>
+        <ReadOnlyField label="Environmental conditions">{doc.environment}</ReadOnlyField>
+      </ReadOnlyList>
+    );
+  }
   return (
     <div className="mt-3 grid gap-3 border-t border-stone-200 pt-3 md:grid-cols-3">
       <Field label="Procedure" hint="the lab's documented procedure, e.g. KF-TMP-006 rev. 1">
-        {(p) => <TextInput {...p} readOnly={readOnly} value={doc.procedure ?? ''} onChange={(e) => onChange({ procedure: e.target.value || undefined })} />}
+        {(p) => <TextInput {...p} value={doc.procedure ?? ''} onChange={(e) => onChange({ procedure: e.target.value || undefined })} />}
       </Field>
       <Field label="Equipment used" hint="identifiers, separated by commas">
         {(p) => (
           <TextInput
             {...p}
-            readOnly={readOnly}
             className="num"
             value={equipment}
             onChange={(e) => {
@@ -37,7 +46,7 @@ export function RecordFields({ doc, readOnly, onChange }: { doc: Record; readOnl
         )}
       </Field>
       <Field label="Environmental conditions" hint="e.g. (20 ± 1) °C, 40 % to 60 % rh">
-        {(p) => <TextInput {...p} readOnly={readOnly} value={doc.environment ?? ''} onChange={(e) => onChange({ environment: e.target.value || undefined })} />}
+        {(p) => <TextInput {...p} value={doc.environment ?? ''} onChange={(e) => onChange({ environment: e.target.value || undefined })} />}
       </Field>
     </div>
   );

@@ -2,7 +2,8 @@ import type { ReactNode } from 'react';
 import type { HistogramBins } from '../../../../shared/budget/result';
 import { atDecimalPlace, type Figure } from '../../../../shared/presentation/figures';
 import type { ResultModel } from '../../../../shared/presentation/result-model';
-import { DRAFT_MARK, STATUS_WORDS, isUnapproved, type VersionStatus } from '../../../../shared/presentation/status';
+import { DRAFT_MARK, isUnapproved, type VersionStatus } from '../../../../shared/presentation/status';
+import { StatusBadge } from '../../../app/ui/status-badge';
 import { withUnit } from '../../../../shared/presentation/units';
 
 /** The budget table and ranked contributions, drawn by the editor's components (the app passes them in). */
@@ -75,14 +76,6 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
-const STATUS_TONE: Record<VersionStatus, string> = {
-  approved: 'border-accent-700 bg-accent-700 text-white',
-  in_review: 'border-accent-600 bg-accent-50 text-accent-700',
-  draft: 'border-stone-400 bg-white text-stone-700',
-  returned: 'border-caution-500 bg-caution-50 text-caution-700',
-  superseded: 'border-stone-300 bg-stone-100 text-stone-600',
-};
-
 /** The filed report of one version, from the result model: what the PDF prints, on screen and in print. */
 export function ReportDocument({ model: m, facts, histogram, renderBudgetTable }: { model: ResultModel; facts: ReportFacts; histogram?: { bins: HistogramBins; gum: [number, number]; mc: [number, number] }; renderBudgetTable: RenderBudgetTable }) {
   const f = m.reported;
@@ -108,9 +101,7 @@ export function ReportDocument({ model: m, facts, histogram, renderBudgetTable }
               {m.measurand.description ? ` — ${m.measurand.description}` : ''}
             </p>
           </div>
-          <p className={`inline-flex items-center whitespace-nowrap rounded-full border px-2 py-0.5 text-xs font-semibold ${STATUS_TONE[facts.status]}`} data-testid="report-status">
-            {STATUS_WORDS[facts.status]}
-          </p>
+          <StatusBadge status={facts.status} testId="report-status" />
         </div>
         <dl className="grid grid-cols-[8.5rem_1fr_8.5rem_1fr] gap-x-3 gap-y-0.5 text-xs">
           <Row label="Budget and version">
