@@ -95,7 +95,7 @@ export async function createApp(overrides: Partial<AppConfig> = {}): Promise<Dub
     audit,
     attachments,
     mail,
-    reports: new ReportsService({ budgets, workers: pool, maxBytes: config.reportMaxBytes }),
+    reports: new ReportsService({ budgets, attachments, workers: pool, maxBytes: config.reportMaxBytes }),
   };
   const passport = createPassport(accounts);
 

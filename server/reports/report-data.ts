@@ -1,3 +1,4 @@
+import type { Attachment } from '../../shared/api/uploads';
 import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import type { VersionStatus } from '../../shared/policy/version-status';
@@ -27,5 +28,10 @@ export interface ReportData {
   };
   document: BudgetDocument;
   result: BudgetResult;
+  /** The files the version carries (added to it or to an earlier version), oldest first (ISO/IEC 17025 7.8.2.1). */
+  evidence: ReportEvidence[];
   generatedAt: number;
 }
+
+/** One evidence file as the report lists it: its input symbol (null for the whole budget), size in bytes and SHA-256. */
+export type ReportEvidence = Pick<Attachment, 'fileName' | 'symbol' | 'size' | 'sha256' | 'versionNumber' | 'uploaderName' | 'createdAt'>;

@@ -1,6 +1,7 @@
 import PDFDocument from 'pdfkit';
 import { fileStem } from '../budgets/file-name';
 import { symbolMarkup } from '../../shared/format/symbols';
+import { fileSize } from '../../shared/presentation/figures';
 import { presentResult, type ResultModel } from '../../shared/presentation/result-model';
 import { budgetTable, modelSection, resultSection } from './budget-table';
 import { contributionsChart, histogramChart, monteCarloFigures } from './charts';
@@ -22,6 +23,42 @@ function warningsSection(c: Cursor, m: ResultModel): void {
     c.doc.save().rect(c.left, c.y + 3, 3, h - 4).fill(COLOR.warning).restore();
     drawParagraph(c.doc, w, c.left + 10, c.y, c.width - 14, STYLE.body, { markup: false });
     c.y += h + 2;
+  }
+}
+
+/** Longest run of a file name on one line of its box; names have no spaces to wrap at. */
+const NAME_RUN = 72;
+
+/** The evidence files of the version, one unsplit box each: name, size, input quantity, who added it when, SHA-256. */
+function evidenceSection(c: Cursor, r: ReportData): void {
+  if (!r.evidence.length) {
+    c.paragraph('No evidence is attached to this version.', { ...STYLE.body, color: COLOR.muted });
+    return;
+  }
+  c.paragraph('Files kept with this version. Each is identified by its SHA-256: a copy whose digest differs is not the file this version carries.', { ...STYLE.body, color: COLOR.muted });
+  c.gap(4);
+  const { doc } = c;
+  const nameStyle = { face: 'mono-bold' as const, size: 8, color: COLOR.ink };
+  const sizeW = 70;
+  for (const e of r.evidence) {
+    const name = e.fileName.match(new RegExp(`.{1,${NAME_RUN}}`, 'gsu'))?.join('\n') ?? e.fileName;
+    const nameW = c.width - 20 - sizeW;
+    const nameH = drawParagraph(doc, name, 0, 0, nameW, nameStyle, { markup: false, dryRun: true });
+    const h = 6 + nameH + 26 + 4;
+    c.need(h + 4);
+    const x = c.left + 10;
+    const top = c.y;
+    doc.save().lineWidth(0.6).strokeColor(COLOR.rule).rect(c.left, top, c.width, h).stroke().restore();
+    drawParagraph(doc, name, x, top + 5, nameW, nameStyle, { markup: false });
+    drawLine(doc, fileSize(e.size).text, c.right - 10, top + 13, STYLE.mono, { align: 'right', markup: false });
+    let y = top + 6 + nameH + 9;
+    const forWhat = e.symbol === null ? 'for the whole budget' : `for ${symbolMarkup(e.symbol)}`;
+    const w = drawLine(doc, forWhat, x, y, STYLE.small, { markup: e.symbol !== null });
+    drawLine(doc, ` · added to version ${e.versionNumber} by ${e.uploaderName}, ${formatMoment(e.createdAt)}`, x + w, y, STYLE.small, { markup: false });
+    y += 12;
+    const label = drawLine(doc, 'SHA-256 ', x, y, STYLE.small);
+    drawLine(doc, e.sha256, x + label, y, { face: 'mono', size: 7.5, color: COLOR.ink }, { markup: false });
+    c.y = top + h + 4;
   }
 }
 
@@ -135,6 +172,9 @@ export function renderReportPdf(r: ReportData): Promise<Buffer> {
   monteCarloFigures(c, m);
   c.heading(++n, 'Warnings', 30);
   warningsSection(c, m);
+  // the explanation stays with the first file's box
+  c.heading(++n, 'Evidence', r.evidence.length ? 100 : 20);
+  evidenceSection(c, r);
   c.heading(++n, 'Signatures', 150);
   caution(c, m);
   c.gap(10);

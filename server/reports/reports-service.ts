@@ -3,6 +3,7 @@ import type { BudgetsService } from '../budgets/budgets-service';
 import type { ComputeSupervisor } from '../compute/supervisor';
 import { ForbiddenError, UnprocessableError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
+import type { AttachmentsService } from '../uploads/attachments-service';
 import { versionStatus } from '../../shared/policy/version-status';
 import type { ReportData } from './report-data';
 import { reportFileName } from './report-pdf';
@@ -22,6 +23,8 @@ export class ReportsService {
   constructor(
     private readonly d: {
       budgets: BudgetsService;
+      /** The evidence the version carries. */
+      attachments: Pick<AttachmentsService, 'list'>;
       /** Builds the PDF in a worker thread, never on the event loop. */
       workers: Pick<ComputeSupervisor, 'run'>;
       /** Largest stored version (document and result text) a report is built from. */
@@ -57,6 +60,15 @@ export class ReportsService {
       },
       document: v.document,
       result: v.result,
+      evidence: this.d.attachments.list(id, v.number).map((a) => ({
+        fileName: a.fileName,
+        symbol: a.symbol,
+        size: a.size,
+        sha256: a.sha256,
+        versionNumber: a.versionNumber,
+        uploaderName: a.uploaderName,
+        createdAt: a.createdAt,
+      })),
       generatedAt: (this.d.now ?? Date.now)(),
     };
   }

@@ -103,9 +103,10 @@ async function renderings(): Promise<Record<string, string>> {
     version: { number: 3, latest: 3, createdAt: Date.UTC(2026, 10, 3, 9, 12), note: facts.note, seed: 'renderers', engineVersion: result.engineVersion, documentSha256: facts.documentSha256, status: 'draft', author: facts.author, reviewer: null, approvedAt: null },
     document,
     result,
+    evidence: [],
     generatedAt: Date.UTC(2026, 10, 4, 10, 0),
   });
-  const report = renderToString(createElement(ReportDocument, { model, facts, renderBudgetTable: (m) => createElement(BudgetWithContributions, { model: m }) }));
+  const report = renderToString(createElement(ReportDocument, { model, facts, evidence: [], renderBudgetTable: (m) => createElement(BudgetWithContributions, { model: m }) }));
   const card = renderToString(createElement(ResultCard, { model, stale: false, move: null, problemsCount: 0, onSelect: () => {} }));
   const panel = renderToString(createElement('div', null, createElement(Comparison, { view: model.monteCarlo!, unit: model.measurand.unit.text }), createElement(Verdict, { view: model.validation })));
   return { pdf: await pdfText(pdf), cli: formatBudgetTable(document, result), report: htmlText(report), card: htmlText(card), panel: htmlText(panel) };

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { createRequire } from 'node:module';
 import { dirname, join, sep } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -9,6 +10,7 @@ import type { ReportData } from '../../server/reports/report-data';
 import { groupDigits, plainText } from '../../server/reports/typeset';
 import { unitText } from '../../shared/presentation/units';
 import { symbolMarkup } from '../../shared/format/symbols';
+import { PNG } from './fixtures';
 import { PASSWORD, sampleDocument, startTestServer, type TestServer } from './helpers';
 
 const STANDARD_FONTS = join(dirname(createRequire(import.meta.url).resolve('pdfjs-dist/package.json')), 'standard_fonts') + sep;
@@ -136,6 +138,38 @@ describe('GET /api/budgets/:id/versions/:n/report.pdf', () => {
     expect(text).toContain('Approved');
     expect(text).toContain('Test reviewer');
     expect(text).toMatch(/approved with password confirmation, \d{4}-\d\d-\d\d \d\d:\d\d UTC/);
+  });
+});
+
+describe('evidence in the report (ISO/IEC 17025 7.8.2.1)', () => {
+  it('lists each file the version carries with its input, size and SHA-256; an earlier version lists none of the later files', async () => {
+    const b = await s.services.budgets.create(s.users.metrologist, { document: reportDocument('Step gauge KF-SG-4 with evidence'), note: 'first issue' });
+    await s.services.budgets.save(s.users.metrologist, b.id, { baseVersion: 1, document: reportDocument('Step gauge KF-SG-4 with evidence', 1.01), note: 'new certificate' });
+    const file = { originalname: 'KF-cert_2291.png', mimetype: 'image/png', buffer: PNG, size: PNG.length };
+    s.services.attachments.add(s.users.metrologist, b.id, file, 'L_ref');
+    s.services.attachments.add(s.users.metrologist, b.id, { ...file, originalname: 'bench photo.png' }, null);
+    // the digest computed here, apart from the upload path
+    const sha = createHash('sha256').update(PNG).digest('hex');
+
+    const data = s.services.reports.data(s.users.auditor, b.id, 2);
+    expect(data.evidence.map((e) => [e.fileName, e.symbol, e.size, e.sha256, e.versionNumber])).toEqual([
+      ['KF-cert_2291.png', 'L_ref', PNG.length, sha, 2],
+      ['bench photo.png', null, PNG.length, sha, 2],
+    ]);
+
+    const text = await pdfText((await binary((await s.as('auditor')).get(`/api/budgets/${b.id}/versions/2/report.pdf`)).expect(200)).body as Buffer);
+    const flat = squash(text);
+    expect(flat).toContain('KF-cert_2291.png');
+    expect(flat).toContain('benchphoto.png');
+    expect(text).toContain(sha);
+    expect(flat).toContain(squash(`for ${symbolMarkup('L_ref')}`));
+    expect(flat).toContain('forthewholebudget');
+    expect(flat).toContain(`${PNG.length}B`);
+    expect(text).toContain('Test metrologist');
+
+    const first = await pdfText((await binary((await s.as('auditor')).get(`/api/budgets/${b.id}/versions/1/report.pdf`)).expect(200)).body as Buffer);
+    expect(first).toContain('No evidence is attached to this version.');
+    expect(first).not.toContain(sha);
   });
 });
 

@@ -1,10 +1,13 @@
 import type { ReactNode } from 'react';
+import type { Attachment } from '../../../../shared/api/uploads';
 import type { HistogramBins } from '../../../../shared/budget/result';
-import { atDecimalPlace, type Figure } from '../../../../shared/presentation/figures';
+import { atDecimalPlace, fileSize, type Figure } from '../../../../shared/presentation/figures';
 import type { ResultModel } from '../../../../shared/presentation/result-model';
 import { DRAFT_MARK, isUnapproved, type VersionStatus } from '../../../../shared/presentation/status';
 import { StatusBadge } from '../../../app/ui/status-badge';
 import { withUnit } from '../../../../shared/presentation/units';
+import { formatDateTime } from '../../../app/ui/numbers';
+import { Sym } from '../../../app/ui/quantity';
 
 /** The budget table and ranked contributions, drawn by the editor's components (the app passes them in). */
 export type RenderBudgetTable = (model: ResultModel) => ReactNode;
@@ -28,6 +31,42 @@ export interface ReportFacts {
   procedure: string | null;
   equipment: string[];
   environment: string | null;
+}
+
+/** One evidence file of the version: what the PDF's evidence box prints. */
+export type EvidenceFile = Pick<Attachment, 'id' | 'fileName' | 'symbol' | 'size' | 'sha256' | 'versionNumber' | 'uploaderName' | 'createdAt'>;
+
+/** The files the version carries, each identified by its SHA-256 (ISO/IEC 17025 7.8.2.1). */
+function EvidenceList({ files }: { files: readonly EvidenceFile[] }) {
+  if (!files.length) return <p className="text-sm text-stone-600">No evidence is attached to this version.</p>;
+  return (
+    <>
+      <p className="mb-1 text-xs text-stone-600">Files kept with this version. Each is identified by its SHA-256: a copy whose digest differs is not the file this version carries.</p>
+      <ul className="flex flex-col gap-1.5" data-testid="report-evidence">
+        {files.map((e) => (
+          <li key={e.id} className="break-inside-avoid rounded-md border border-stone-300 px-3 py-1.5 text-xs">
+            <p className="flex items-baseline justify-between gap-3">
+              <span className="num break-all font-semibold text-stone-900">{e.fileName}</span>
+              <span className="num whitespace-nowrap text-stone-700">{fileSize(e.size).text}</span>
+            </p>
+            <p className="text-stone-700">
+              {e.symbol === null ? (
+                'for the whole budget'
+              ) : (
+                <>
+                  for <Sym s={e.symbol} />
+                </>
+              )}{' '}
+              · added to version {e.versionNumber} by {e.uploaderName}, {formatDateTime(e.createdAt)}
+            </p>
+            <p className="break-all text-stone-600">
+              SHA-256 <span className="num text-[10px] text-stone-900">{e.sha256}</span>
+            </p>
+          </li>
+        ))}
+      </ul>
+    </>
+  );
 }
 
 /** A print-friendly histogram: bars of the Monte Carlo values, both coverage intervals marked. */
@@ -77,7 +116,19 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
 }
 
 /** The filed report of one version, from the result model: what the PDF prints, on screen and in print. */
-export function ReportDocument({ model: m, facts, histogram, renderBudgetTable }: { model: ResultModel; facts: ReportFacts; histogram?: { bins: HistogramBins; gum: [number, number]; mc: [number, number] }; renderBudgetTable: RenderBudgetTable }) {
+export function ReportDocument({
+  model: m,
+  facts,
+  histogram,
+  renderBudgetTable,
+  evidence,
+}: {
+  model: ResultModel;
+  facts: ReportFacts;
+  histogram?: { bins: HistogramBins; gum: [number, number]; mc: [number, number] };
+  renderBudgetTable: RenderBudgetTable;
+  evidence: readonly EvidenceFile[];
+}) {
   const f = m.reported;
   const unit = m.measurand.unit;
   const u = (x: Figure) => withUnit(x, unit).text;
@@ -242,6 +293,13 @@ export function ReportDocument({ model: m, facts, histogram, renderBudgetTable }
           </ul>
         </section>
       ) : null}
+
+      <section aria-labelledby="rep-evidence">
+        <h2 id="rep-evidence" className="mb-1 text-base font-semibold">
+          Evidence
+        </h2>
+        <EvidenceList files={evidence} />
+      </section>
 
       <section aria-labelledby="rep-sign" className="break-inside-avoid">
         <h2 id="rep-sign" className="sr-only">

@@ -12,19 +12,20 @@ export type { RenderBudgetTable };
 
 /** A reader's copy of one version: the same result model as the PDF, with print and download. */
 export function ReportPage({ budgetId, versionNumber, renderBudgetTable }: { budgetId: number; versionNumber: number; renderBudgetTable: RenderBudgetTable }) {
-  const { version, budget } = useReport(budgetId, versionNumber);
+  const { version, budget, evidence } = useReport(budgetId, versionNumber);
   const model = useMemo(() => (version.data ? presentResult(version.data.document, version.data.result) : null), [version.data]);
-  if (version.isPending || budget.isPending) {
+  if (version.isPending || budget.isPending || evidence.isPending) {
     return (
       <div className="p-8">
         <Spinner label="Preparing the report" />
       </div>
     );
   }
-  if (version.isError || budget.isError || !model) {
+  // a report without its evidence list would be incomplete: it is not shown
+  if (version.isError || budget.isError || evidence.isError || !model) {
     return (
       <div className="mx-auto max-w-xl p-8">
-        <ErrorNote title="The report could not be prepared">{errorMessage(version.error ?? budget.error)}</ErrorNote>
+        <ErrorNote title="The report could not be prepared">{errorMessage(version.error ?? budget.error ?? evidence.error)}</ErrorNote>
       </div>
     );
   }
@@ -47,6 +48,7 @@ export function ReportPage({ budgetId, versionNumber, renderBudgetTable }: { bud
       <ReportDocument
         model={model}
         renderBudgetTable={renderBudgetTable}
+        evidence={evidence.data}
         histogram={mc ? { bins: mc.histogram, gum: v.result.gum.interval, mc: mc.interval } : undefined}
         facts={{
           lab: labOf(doc),

@@ -5,6 +5,7 @@ import { errorMessage } from '../../../app/http';
 import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { compareContributions, compareResults, type ComparedFigure } from '../../../../shared/presentation/compare';
+import { fieldName } from '../../../../shared/presentation/field-names';
 import type { Figure } from '../../../../shared/presentation/figures';
 import { formatDateTime, formatSignificant, fullPrecision } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
@@ -98,7 +99,7 @@ function ChangeRows({ changes, label }: { changes: FieldChange[]; label?: string
         <tr key={c.field} className="border-b border-stone-100 last:border-0" data-change="changed">
           <td className="px-2 py-1 text-xs text-stone-700">
             {label ? `${label} ` : ''}
-            <span className="num">{c.field}</span>
+            <span title={c.field}>{fieldName(c.field)}</span>
           </td>
           <td className="num px-2 py-1 text-stone-700 line-through decoration-caution-500/60">{show(c.from)}</td>
           <td className="num bg-caution-50/60 px-2 py-1 font-semibold text-stone-900">{show(c.to)}</td>
