@@ -166,6 +166,30 @@ describe('review and approval as a controlled act', () => {
     expect(stored.document.measurand.description).toBe('resistance of the probe at the bath temperature');
   }, 180_000);
 
+  it('one edit turns Save on once, when its own recompute answers, even while the first live recompute is slow', async () => {
+    const page = await pageAs('metrologist@dubito.example');
+    // the live worker's script is held back, so the first recompute cannot answer before the edit is rendered
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    await page.route(/live\.worker/, async (route) => {
+      await held;
+      await route.continue();
+    });
+    await openBudget(page, /Industrial Pt100 probe at 100 °C/);
+    const save = page.getByRole('button', { name: 'Save version…' });
+    await save.evaluate((button) => {
+      const seen = [(button as HTMLButtonElement).disabled ? 'off' : 'on'];
+      (window as unknown as { saveStates: string[] }).saveStates = seen;
+      new MutationObserver(() => seen.push((button as HTMLButtonElement).disabled ? 'off' : 'on')).observe(button, { attributes: true, attributeFilter: ['disabled'] });
+    });
+    await page.getByLabel('Title').fill('Industrial Pt100 probe at 100 °C, edited');
+    // the edit is rendered and its recompute waits for the worker
+    await expect.poll(() => save.getAttribute('title')).toBe('Fix the problems shown first');
+    release();
+    await expect.poll(() => save.isEnabled()).toBe(true);
+    expect(await page.evaluate(() => (window as unknown as { saveStates: string[] }).saveStates)).toEqual(['off', 'on']);
+  }, 120_000);
+
   it('a role change asks for confirmation and a reason before anything is sent', async () => {
     const admin = await pageAs('admin@dubito.example');
     await admin.goto(`${app.baseUrl}/admin/users`);

@@ -148,7 +148,14 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
     setMove((shown) => nextUMove(before, reading, shown));
     last.current = reading;
   }, [outcome.result]);
-  return { ...outcome, move, stopped: current === null && wasStopped !== null, stale: deferred !== doc || (current === null && wasStopped === null && !isStored) };
+  return {
+    ...outcome,
+    move,
+    stopped: current === null && wasStopped !== null,
+    stale: deferred !== doc || (current === null && wasStopped === null && !isStored),
+    /** The outcome still describes an earlier draft: React has not yet rendered the deferred one. */
+    behind: deferred !== doc,
+  };
 }
 
 /** Problems under a field path prefix, e.g. all of `inputs[2]`. */

@@ -211,7 +211,7 @@ function Editor({
   const live = useLiveResult(doc, start);
   const model = useMemo(() => (live.result && live.valid ? presentResult(live.valid, live.result) : null), [live.result, live.valid]);
   const dirty = baseline === '' ? true : JSON.stringify(doc) !== baseline;
-  const saveRule = saveState({ dirty, saving: save.isPending, hasLiveResult: !!live.result, liveStopped: live.stopped });
+  const saveRule = saveState({ dirty, saving: save.isPending, liveBehind: live.behind, hasLiveResult: !!live.result, liveStopped: live.stopped });
   const isNew = budgetId === undefined;
 
   const facts = view ? { ownerId: view.ownerId, status: view.status, isTemplate: view.isTemplate } : null;
