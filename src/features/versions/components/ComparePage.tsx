@@ -38,7 +38,7 @@ function show(v: unknown): string {
   if (typeof v === 'number') return formatSignificant(v, 6);
   if (typeof v === 'string') return v === '' ? '“”' : v;
   if (Array.isArray(v) && v.length > 6 && v.every((x) => typeof x === 'number')) return `${v.length} values: ${v.slice(0, 4).map((x) => formatSignificant(x as number, 4)).join(', ')}, …`;
-  if (typeof v === 'object' && !Array.isArray(v)) return Object.entries(v as Record<string, unknown>).map(([k, x]) => `${k} ${show(x)}`).join(', ');
+  if (typeof v === 'object' && !Array.isArray(v)) return Object.entries(v as Record<string, unknown>).map(([k, x]) => `${fieldName(k)} ${show(x)}`).join(', ');
   return JSON.stringify(v);
 }
 
