@@ -20,6 +20,7 @@ import { gumUnusableReason, reportedResult, reportingChoice } from './reported-r
 import { RESERVED_SYMBOLS } from '../model/sandbox';
 import { correlationMatrix } from './correlation-matrix';
 import { ENGINE_VERSION } from './engine-version';
+import { dof as dofFigure, probability } from '../presentation/figures';
 
 export interface ComputeOptions {
   /** Run the Monte Carlo method (default true). */
@@ -119,7 +120,7 @@ function undefinedMomentsOf(symbols: string[], samplers: (Sampler | null)[]): Un
     .filter((x): x is { symbol: string; dof: number } => x.dof !== undefined && x.dof <= 2);
   if (heavy.length === 0) return null;
   const smallestDof = Math.min(...heavy.map((x) => x.dof));
-  const named = heavy.map((x) => `"${x.symbol}" (ν = ${+x.dof.toPrecision(4)})`).join(', ');
+  const named = heavy.map((x) => `"${x.symbol}" (ν = ${dofFigure(x.dof).text})`).join(', ');
   return {
     smallestDof,
     symbols: heavy.map((x) => x.symbol),
@@ -140,7 +141,7 @@ function fewDegreesOfFreedomWarnings(doc: BudgetDocument, samplers: (Sampler | n
     warnings.push(
       (d.kind === 'observations' && n - 1 === dof
         ? `The input "${q.symbol}" has only ${n} observations (ν = ${dof}): `
-        : `The input "${q.symbol}" is drawn from a t-distribution with ν = ${+dof.toPrecision(4)} ≤ 2: `) +
+        : `The input "${q.symbol}" is drawn from a t-distribution with ν = ${dofFigure(dof).text} ≤ 2: `) +
         'a t-distribution with ν ≤ 2 has no variance, so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). ' +
         (d.kind === 'observations' && n - 1 === dof
           ? 'Take at least 4 observations, or give a pooled standard deviation with its degrees of freedom.'
@@ -245,7 +246,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     if (!adaptive && trials < minimum) {
       throw new BudgetError(
         'limit',
-        `monteCarlo.trials: at least ${minimum} trials are needed for a ${+(p * 100).toFixed(4)} % coverage interval (100/(1 − p), JCGM 101:2008 7.9.2)`,
+        `monteCarlo.trials: at least ${minimum} trials are needed for a ${probability(p).text} coverage interval (100/(1 − p), JCGM 101:2008 7.9.2)`,
         'monteCarlo.trials',
       );
     }

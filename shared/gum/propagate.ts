@@ -1,3 +1,4 @@
+import { significantFigure } from '../presentation/figures';
 import { BudgetError } from '../budget/budget-error';
 import type { Contribution, GumResult } from '../budget/result';
 import type { CompiledModel } from '../model/compile-model';
@@ -68,7 +69,7 @@ export function propagateGum(
   methods.forEach((m, i) => {
     if (m === 'numeric' && u[i] > 0 && steps[i] > u[i]) {
       warnings.push(
-        `The numerical derivative for "${inputs[i].symbol}" needs a step (${steps[i].toPrecision(2)}) wider than u(x) to resolve the model value in floating point: where the model is not smooth within that step, c is an average slope; check the Monte Carlo result.`,
+        `The numerical derivative for "${inputs[i].symbol}" needs a step (${significantFigure(steps[i], 2).text}) wider than u(x) to resolve the model value in floating point: where the model is not smooth within that step, c is an average slope; check the Monte Carlo result.`,
       );
     }
   });
@@ -111,7 +112,7 @@ export function propagateGum(
       );
     }
     if (standardUncertaintySecondOrder !== null && standardUncertainty > 0 && standardUncertaintySecondOrder > SECOND_ORDER_WARNING_RATIO * standardUncertainty) {
-      const pct = ((standardUncertaintySecondOrder / standardUncertainty - 1) * 100).toFixed(0);
+      const pct = String(Math.round((standardUncertaintySecondOrder / standardUncertainty - 1) * 100));
       warnings.push(
         `Second-order terms (JCGM 100:2008 5.1.2 note) raise the combined standard uncertainty by ${pct} %: the model is markedly non-linear at these estimates; prefer the Monte Carlo result.`,
       );

@@ -211,7 +211,7 @@ export const TEMPERATURE: Dimension = DIMENSIONLESS.map((_, i) => (BASE_NAMES[i]
 /** Writes a dimension in SI base units, e.g. `kg m^-3`; `1` when dimensionless. */
 export function describeDimension(d: Dimension): string {
   const parts = d
-    .map((p, i) => (Math.abs(p) < 1e-9 ? '' : p === 1 ? BASE_NAMES[i] : `${BASE_NAMES[i]}^${+p.toFixed(6)}`))
+    .map((p, i) => (Math.abs(p) < 1e-9 ? '' : p === 1 ? BASE_NAMES[i] : `${BASE_NAMES[i]}^${Math.round(p * 1e6) / 1e6}`))
     .filter(Boolean);
   return parts.length ? parts.join(' ') : '1';
 }

@@ -6,16 +6,13 @@ import { describe, expect, it } from 'vitest';
 const root = fileURLToPath(new URL('../..', import.meta.url));
 
 /**
- * Where JavaScript's own number formatting may be called: the formatters, and engine code that
- * writes numbers into messages or dimensions rather than figures a reader signs.
+ * Where JavaScript's own number formatting may be called: the formatters alone. Screens, the PDF,
+ * the command line and the engine's own messages all write numbers through them.
  */
 const ALLOWED = new Set([
   'shared/presentation/figures.ts', // the formatters of every figure
   'shared/format/significant-digits.ts', // numerals at a place or to significant digits
   'shared/gum/rounding.ts', // GUM 7.2.6 rounding, used by the formatters
-  'shared/model/units.ts', // exponents of a dimension in an error message
-  'shared/compute/compute-budget.ts', // p in a refusal message
-  'shared/gum/propagate.ts', // a percentage in a warning
 ]);
 
 function files(dir: string): string[] {
