@@ -72,9 +72,9 @@ describe('sessions and users kept in memory', () => {
     other.prepare('UPDATE users SET active = 0 WHERE id = ?').run(u.id);
     other.prepare('DELETE FROM http_sessions WHERE sid = ?').run(sid);
     other.close();
-    await new Promise((r) => setTimeout(r, 1100));
-    await deactivated.get('/api/me').expect(401);
-    await signedOut.get('/api/me').expect(401);
+    // the cache looks at the database's change counter once a second: wait for that state, not for a time
+    await expect.poll(async () => (await deactivated.get('/api/me')).status, { timeout: 5_000, interval: 100 }).toBe(401);
+    await expect.poll(async () => (await signedOut.get('/api/me')).status, { timeout: 5_000, interval: 100 }).toBe(401);
   });
 });
 
