@@ -1,7 +1,8 @@
-import { and, asc, eq, isNull, sql } from 'drizzle-orm';
-import type { TokenKind } from '../../shared/api/accounts';
+import { and, asc, desc, eq, isNull, or, sql, type SQL } from 'drizzle-orm';
+import type { TokenKind, UserSort } from '../../shared/api/accounts';
 import type { Role } from '../../shared/policy/policy';
 import type { DbLike } from '../db/connection';
+import type { AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 import { prepared } from '../db/prepared';
 import { accountTokens, users } from '../db/schema';
 
@@ -17,6 +18,45 @@ export function findUserById(db: DbLike, id: number): UserRow | undefined {
 
 export function listUsers(db: DbLike): UserRow[] {
   return db.select().from(users).orderBy(asc(users.id)).all();
+}
+
+export interface UserFilter {
+  /** Part of the name or the e-mail address. */
+  q?: string;
+  role?: Role;
+  sort: UserSort;
+  order: 'asc' | 'desc';
+  limit: number;
+  offset: number;
+}
+
+const USER_ORDER: Record<UserSort, SQL | AnySQLiteColumn> = { name: sql`${users.name} COLLATE NOCASE`, email: users.email, role: users.role, created: users.createdAt };
+
+function usersWhere(f: Pick<UserFilter, 'q' | 'role'>): SQL | undefined {
+  const where: (SQL | undefined)[] = [];
+  if (f.role) where.push(eq(users.role, f.role));
+  if (f.q) {
+    const pattern = `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    where.push(or(sql`${users.name} LIKE ${pattern} ESCAPE '\\'`, sql`${users.email} LIKE ${pattern} ESCAPE '\\'`));
+  }
+  return where.length ? and(...where) : undefined;
+}
+
+/** One page of the users in the order asked for (equal values by id, in the same direction). */
+export function pageUsers(db: DbLike, f: UserFilter): UserRow[] {
+  const dir = f.order === 'asc' ? asc : desc;
+  return db
+    .select()
+    .from(users)
+    .where(usersWhere(f))
+    .orderBy(dir(USER_ORDER[f.sort]), dir(users.id))
+    .limit(f.limit)
+    .offset(f.offset)
+    .all();
+}
+
+export function countUsers(db: DbLike, f: Pick<UserFilter, 'q' | 'role'>): number {
+  return db.select({ n: sql<number>`count(*)` }).from(users).where(usersWhere(f)).get()?.n ?? 0;
 }
 
 export function activeUsersWithRole(db: DbLike, roles: Role[]): UserRow[] {

@@ -1,38 +1,27 @@
 import type { Request, RequestHandler } from 'express';
 import { z } from 'zod';
-import { ROLES } from '../../shared/policy/policy';
+import { inviteBody, newUserBody, passwordField, patchUserBody, roleField, USER_SORTS } from '../../shared/api/accounts';
 import { PLAIN_HTTP_SIGN_IN } from '../config';
 import { UnauthenticatedError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import { userOf, type RouteTable } from '../http/routes';
-import { userParams } from '../http/params';
+import { pageQuery, sortQuery, userParams } from '../http/params';
 import { parse } from '../http/validate';
 import type { AccountsService } from './accounts-service';
 import type { createPassport } from './auth-setup';
 
-const email = z.email({ message: 'must be an e-mail address' }).max(254).transform((s) => s.toLowerCase());
-const name = z.string().trim().min(1, { message: 'must not be empty' }).max(200);
-const role = z.enum(ROLES, { error: `must be one of ${ROLES.join(', ')}` });
-const password = z.string({ error: 'must be text' }).min(1, { message: 'must not be empty' }).max(1000);
+const password = passwordField;
 
 const loginBody = z.strictObject({ email: z.string().max(254), password });
 const resetBody = z.strictObject({ email: z.string().max(254) });
 const completeBody = z.strictObject({ token: z.string().min(10).max(200), password });
 const tokenQuery = z.strictObject({ token: z.string().min(10).max(200) });
-const newUserBody = z.strictObject({ email, name, role, password: password.optional() });
-const inviteBody = z.strictObject({ email, name, role });
-const patchUserBody = z
-  .strictObject({
-    name: name.optional(),
-    role: role.optional(),
-    active: z.boolean().optional(),
-    reason: z.string().trim().max(1000).optional(),
-  })
-  .refine((b) => b.name !== undefined || b.role !== undefined || b.active !== undefined, { message: 'give name, role or active' })
-  .refine((b) => (b.role === undefined && b.active === undefined) || !!b.reason, {
-    message: 'say why the role or the access changes; the reason goes into the audit trail',
-    path: ['reason'],
-  });
+const usersQuery = z.strictObject({
+  q: z.string().max(200).optional(),
+  role: roleField.optional(),
+  ...sortQuery(USER_SORTS, 'created', 'asc'),
+  ...pageQuery(1000, 200),
+});
 
 function logIn(req: Request, user: SessionUser): Promise<void> {
   // passport regenerates the session here, so a session id from before sign-in is never reused.
@@ -97,8 +86,10 @@ export function accountsRoutes(
     res.json({ user });
   });
 
-  t.add('get', '/api/users', 'user.manage', (_req, res) => {
-    res.json(accounts.list());
+  t.add('get', '/api/users', 'user.manage', (req, res) => {
+    const q = parse(usersQuery, req.query);
+    const { rows, total } = accounts.page(q);
+    res.set('X-Total-Count', String(total)).json(rows);
   });
 
   t.add('post', '/api/users', 'user.manage', async (req, res) => {

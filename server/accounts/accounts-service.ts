@@ -7,6 +7,9 @@ import { ConflictError, NotFoundError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import type { MailService } from '../mail/mail-service';
 import {
+  countUsers,
+  pageUsers,
+  type UserFilter,
   activeUsersWithRole,
   findUnusedToken,
   findUserByEmail,
@@ -135,6 +138,11 @@ export class AccountsService {
 
   list(): PublicUser[] {
     return listUsers(this.d.db).map(toPublic);
+  }
+
+  /** One page of the users, sorted and filtered by the database, and how many match in all. */
+  page(filter: UserFilter): { rows: PublicUser[]; total: number } {
+    return { rows: pageUsers(this.d.db, filter).map(toPublic), total: countUsers(this.d.db, filter) };
   }
 
   reviewersExcept(userId: number): SessionUser[] {

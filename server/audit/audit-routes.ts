@@ -39,7 +39,7 @@ export function auditRoutes(t: RouteTable, audit: AuditService): void {
       res.send(audit.toCsv(page.events));
       return;
     }
-    res.json(page);
+    res.set('X-Total-Count', String(page.total)).json(page);
   });
 
   t.add('get', '/api/audit/verify', 'audit.read', (_req, res) => {

@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, like, sql, type SQL } from 'drizzle-orm';
-import { alias } from 'drizzle-orm/sqlite-core';
-import type { BudgetListItem, VersionMeta } from '../../shared/api/budgets';
+import { alias, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
+import type { BudgetListItem, BudgetSort, VersionMeta } from '../../shared/api/budgets';
 import type { BudgetStatus } from '../../shared/policy/policy';
 import type { DbLike } from '../db/connection';
 import { prepared } from '../db/prepared';
@@ -15,9 +15,23 @@ export interface BudgetFilter {
   ownerId?: number;
   q?: string;
   template?: 'true' | 'false' | 'any';
+  /** Drafts a reviewer sent back (true) or the others (false). */
+  returned?: boolean;
+  /** Newest change first unless asked. */
+  sort?: BudgetSort;
+  order?: 'asc' | 'desc';
   limit: number;
   offset: number;
 }
+
+/** The list's sort columns; a status orders draft, returned, in review, approved. */
+const BUDGET_ORDER: Record<BudgetSort, SQL | AnySQLiteColumn> = {
+  title: sql`${budgets.title} COLLATE NOCASE`,
+  status: sql`CASE ${budgets.status} WHEN 'draft' THEN ${budgets.returned} WHEN 'in_review' THEN 2 ELSE 3 END`,
+  owner: sql`${users.name} COLLATE NOCASE`,
+  version: budgets.currentVersion,
+  updated: budgets.updatedAt,
+};
 
 export function getBudget(db: DbLike, id: number): BudgetRow | undefined {
   return prepared(db, 'budget.byId', () =>
@@ -25,13 +39,22 @@ export function getBudget(db: DbLike, id: number): BudgetRow | undefined {
   ).get({ id });
 }
 
-function listWhere(f: Omit<BudgetFilter, 'limit' | 'offset'>): SQL | undefined {
+function listWhere(f: ListWhere): SQL | undefined {
   const where: SQL[] = [];
   if (f.status) where.push(eq(budgets.status, f.status));
   if (f.ownerId !== undefined) where.push(eq(budgets.ownerId, f.ownerId));
   if (f.q) where.push(like(budgets.title, `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`));
   if (f.template !== 'any') where.push(eq(budgets.isTemplate, f.template === 'true'));
+  if (f.returned !== undefined) where.push(eq(budgets.returned, f.returned));
   return where.length ? and(...where) : undefined;
+}
+
+type ListWhere = Omit<BudgetFilter, 'limit' | 'offset' | 'sort' | 'order'>;
+
+/** The order asked for; equal values by id in the same direction, so pages neither repeat nor skip a row. */
+function listOrder(f: Pick<BudgetFilter, 'sort' | 'order'>): SQL[] {
+  const dir = (f.order ?? 'desc') === 'asc' ? asc : desc;
+  return [dir(BUDGET_ORDER[f.sort ?? 'updated']), dir(budgets.id)];
 }
 
 export function listBudgets(db: DbLike, f: BudgetFilter): BudgetListItem[] {
@@ -52,7 +75,7 @@ export function listBudgets(db: DbLike, f: BudgetFilter): BudgetListItem[] {
     .from(budgets)
     .innerJoin(users, eq(users.id, budgets.ownerId))
     .where(listWhere(f))
-    .orderBy(desc(budgets.updatedAt), desc(budgets.id))
+    .orderBy(...listOrder(f))
     .limit(f.limit)
     .offset(f.offset)
     .all();
@@ -165,7 +188,8 @@ export function listInReview(db: DbLike): InReviewRow[] {
 }
 
 /** Version metadata without the document and result text, with the names of author and approver. */
-export function listVersions(db: DbLike, budgetId: number): VersionMeta[] {
+/** One page of a budget's versions, oldest first unless `order` is desc. */
+export function listVersions(db: DbLike, budgetId: number, page: { limit: number; offset: number; order: 'asc' | 'desc' }): VersionMeta[] {
   return db
     .select({
       number: budgetVersions.number,
@@ -184,7 +208,9 @@ export function listVersions(db: DbLike, budgetId: number): VersionMeta[] {
     .innerJoin(users, eq(users.id, budgetVersions.authorId))
     .leftJoin(approvers, eq(approvers.id, budgetVersions.approvedBy))
     .where(eq(budgetVersions.budgetId, budgetId))
-    .orderBy(asc(budgetVersions.number))
+    .orderBy(page.order === 'desc' ? desc(budgetVersions.number) : asc(budgetVersions.number))
+    .limit(page.limit)
+    .offset(page.offset)
     .all();
 }
 
@@ -196,6 +222,6 @@ export function recordApproval(db: DbLike, budgetId: number, number: number, use
 }
 
 /** How many budgets match a filter (every budget, templates included, without one). */
-export function countBudgets(db: DbLike, f: Omit<BudgetFilter, 'limit' | 'offset'> = { template: 'any' }): number {
+export function countBudgets(db: DbLike, f: ListWhere = { template: 'any' }): number {
   return db.select({ n: sql<number>`count(*)` }).from(budgets).where(listWhere(f)).get()?.n ?? 0;
 }

@@ -1,12 +1,12 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import type { ComputeLimits } from '../../shared/api/budgets';
+import { BUDGET_SORTS, type ComputeLimits } from '../../shared/api/budgets';
 import { parseBudgetFile, serializeBudget } from '../../shared/budget/budget-file';
 import { BUDGET_STATUSES } from '../../shared/policy/policy';
 import { ValidationError } from '../http/errors';
 import { userOf, type RouteTable } from '../http/routes';
-import { budgetParams, pageQuery, userId, versionNumber, versionParams } from '../http/params';
+import { budgetParams, pageQuery, sortQuery, userId, versionNumber, versionParams } from '../http/params';
 import { parse } from '../http/validate';
 import type { BudgetsService } from './budgets-service';
 
@@ -20,8 +20,11 @@ const listQuery = z.strictObject({
   owner: userId.optional(),
   q: z.string().max(200).optional(),
   template: z.enum(['true', 'false', 'any']).default('false'),
+  returned: z.enum(['true', 'false'], { error: 'must be true or false' }).optional(),
+  ...sortQuery(BUDGET_SORTS, 'updated', 'desc'),
   ...pageQuery(1000, 200),
 });
+const versionsQuery = z.strictObject({ order: sortQuery(['number'], 'number', 'asc').order, ...pageQuery(1000, 1000) });
 const createBody = z.strictObject({ document: documentField, note: note.default(''), template: z.boolean().optional() });
 const saveBody = z.strictObject({ baseVersion: versionNumber, document: documentField, note: note.default('') });
 const patchBody = z.strictObject({ isTemplate: z.boolean({ error: 'must be true or false' }) });
@@ -43,7 +46,17 @@ export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { im
 
   t.add('get', '/api/budgets', 'budget.read', (req, res) => {
     const q = parse(listQuery, req.query);
-    const { rows, total } = budgets.page({ status: q.status, ownerId: q.owner, q: q.q, template: q.template, limit: q.limit, offset: q.offset });
+    const { rows, total } = budgets.page({
+      status: q.status,
+      ownerId: q.owner,
+      q: q.q,
+      template: q.template,
+      returned: q.returned === undefined ? undefined : q.returned === 'true',
+      sort: q.sort,
+      order: q.order,
+      limit: q.limit,
+      offset: q.offset,
+    });
     res.set('X-Total-Count', String(total)).json(rows);
   });
 
@@ -98,7 +111,10 @@ export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { im
   });
 
   t.add('get', '/api/budgets/:id/versions', 'budget.read', (req, res) => {
-    res.json(budgets.versions(parse(budgetParams, req.params).id));
+    const { id } = parse(budgetParams, req.params);
+    const q = parse(versionsQuery, req.query);
+    const { rows, total } = budgets.versionsPage(id, q);
+    res.set('X-Total-Count', String(total)).json(rows);
   });
 
   t.add('get', '/api/budgets/:id/versions/:n', 'budget.read', (req, res) => {

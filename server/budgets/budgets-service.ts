@@ -239,9 +239,10 @@ export class BudgetsService {
     return Buffer.byteLength(v.document) + Buffer.byteLength(v.result);
   }
 
-  versions(id: number): VersionMeta[] {
-    this.requireBudget(id);
-    return listVersions(this.db, id);
+  /** One page of a budget's versions (numbered 1…current, so the current number is their count). */
+  versionsPage(id: number, page: { limit: number; offset: number; order: 'asc' | 'desc' }): { rows: VersionMeta[]; total: number } {
+    const b = this.requireBudget(id);
+    return { rows: listVersions(this.db, id, page), total: b.currentVersion };
   }
 
   version(id: number, n: number): VersionView {

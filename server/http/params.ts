@@ -36,3 +36,14 @@ export function pageQuery(maxLimit: number, defaultLimit: number) {
     offset: z.coerce.number().int().min(0).default(0),
   };
 }
+
+/**
+ * `sort` and `order` of a listing query: one of the columns the repository orders by, so a page
+ * holds the rows it would hold in the whole sorted list.
+ */
+export function sortQuery<C extends string>(columns: readonly [C, ...C[]], defaultColumn: C, defaultOrder: 'asc' | 'desc') {
+  return {
+    sort: z.enum(columns, { error: `must be one of ${columns.join(', ')}` }).default(defaultColumn),
+    order: z.enum(['asc', 'desc'], { error: 'must be asc or desc' }).default(defaultOrder),
+  };
+}

@@ -1,4 +1,4 @@
-/** Payloads of the budget routes (list, one budget, versions, saves, clones). Types only. */
+/** Payloads of the budget routes (list, one budget, versions, saves, clones), and the columns the lists sort by. */
 import type { BudgetResult } from '../budget/result';
 import type { BudgetDocument } from '../budget/schema';
 import type { BudgetStatus } from '../policy/policy';
@@ -47,6 +47,13 @@ export interface BudgetView extends BudgetSummary {
   document: BudgetDocument;
   result: BudgetResult;
 }
+
+/**
+ * Columns `GET /api/budgets` sorts by (`sort`, with `order` asc or desc); `status` orders
+ * draft, returned, in review, approved.
+ */
+export const BUDGET_SORTS = ['title', 'status', 'owner', 'version', 'updated'] as const;
+export type BudgetSort = (typeof BUDGET_SORTS)[number];
 
 /** One row of `GET /api/budgets` and `GET /api/templates`. */
 export interface BudgetListItem extends Omit<BudgetSummary, 'source'> {
