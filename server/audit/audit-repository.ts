@@ -19,6 +19,8 @@ export interface AuditFilter {
   action?: string;
   from?: number;
   to?: number;
+  /** Newest first unless asc. */
+  order?: 'asc' | 'desc';
   limit: number;
   offset: number;
 }
@@ -161,8 +163,8 @@ export function listAudit(db: DbLike, f: AuditFilter): { rows: AuditRow[]; total
     .leftJoin(users, eq(users.id, auditEvents.actorId))
     .leftJoin(budgets, eq(budgets.id, auditEvents.budgetId))
     .where(cond)
-    // newest first; events of the same millisecond by id, the later one first
-    .orderBy(desc(auditEvents.at), desc(auditEvents.id))
+    // newest first unless asked; events of the same millisecond by id, in the same direction
+    .orderBy(...(f.order === 'asc' ? [asc(auditEvents.at), asc(auditEvents.id)] : [desc(auditEvents.at), desc(auditEvents.id)]))
     .limit(f.limit)
     .offset(f.offset)
     .all();

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { RouteTable } from '../http/routes';
-import { budgetId, pageQuery, userId } from '../http/params';
+import { budgetId, pageQuery, sortOrder, userId } from '../http/params';
 import { parse } from '../http/validate';
 import type { AuditService } from './audit-service';
 
@@ -16,6 +16,7 @@ const query = z.strictObject({
   from: time.optional(),
   to: time.optional(),
   format: z.enum(['json', 'csv']).default('json'),
+  order: sortOrder('desc'),
   ...pageQuery(10_000, 500),
 });
 
@@ -28,6 +29,7 @@ export function auditRoutes(t: RouteTable, audit: AuditService): void {
       action: q.action,
       from: q.from,
       to: q.to,
+      order: q.order,
       limit: q.limit,
       offset: q.offset,
     });

@@ -6,7 +6,7 @@ import { parseBudgetFile, serializeBudget } from '../../shared/budget/budget-fil
 import { BUDGET_STATUSES } from '../../shared/policy/policy';
 import { ValidationError } from '../http/errors';
 import { userOf, type RouteTable } from '../http/routes';
-import { budgetParams, pageQuery, sortQuery, userId, versionNumber, versionParams } from '../http/params';
+import { budgetParams, pageQuery, sortOrder, sortQuery, userId, versionNumber, versionParams } from '../http/params';
 import { parse } from '../http/validate';
 import type { BudgetsService } from './budgets-service';
 
@@ -24,7 +24,7 @@ const listQuery = z.strictObject({
   ...sortQuery(BUDGET_SORTS, 'updated', 'desc'),
   ...pageQuery(1000, 200),
 });
-const versionsQuery = z.strictObject({ order: sortQuery(['number'], 'number', 'asc').order, ...pageQuery(1000, 1000) });
+const versionsQuery = z.strictObject({ order: sortOrder('asc'), ...pageQuery(1000, 1000) });
 const createBody = z.strictObject({ document: documentField, note: note.default(''), template: z.boolean().optional() });
 const saveBody = z.strictObject({ baseVersion: versionNumber, document: documentField, note: note.default('') });
 const patchBody = z.strictObject({ isTemplate: z.boolean({ error: 'must be true or false' }) });

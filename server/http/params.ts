@@ -44,6 +44,11 @@ export function pageQuery(maxLimit: number, defaultLimit: number) {
 export function sortQuery<C extends string>(columns: readonly [C, ...C[]], defaultColumn: C, defaultOrder: 'asc' | 'desc') {
   return {
     sort: z.enum(columns, { error: `must be one of ${columns.join(', ')}` }).default(defaultColumn),
-    order: z.enum(['asc', 'desc'], { error: 'must be asc or desc' }).default(defaultOrder),
+    order: sortOrder(defaultOrder),
   };
+}
+
+/** `order` alone, for a list that sorts by one column only. */
+export function sortOrder(defaultOrder: 'asc' | 'desc') {
+  return z.enum(['asc', 'desc'], { error: 'must be asc or desc' }).default(defaultOrder);
 }

@@ -37,6 +37,26 @@ async function toError(res: Response): Promise<ApiError> {
 }
 
 export async function api<T>(path: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
+  const res = await send(path, init);
+  if (res.status === 204) return undefined as T;
+  const type = res.headers.get('content-type') ?? '';
+  return (type.includes('json') ? await res.json() : await res.text()) as T;
+}
+
+/** One page of a list the server pages: its rows and how many match in all (`X-Total-Count`). */
+export interface Page<T> {
+  rows: T[];
+  total: number;
+}
+
+export async function apiPage<T>(path: string): Promise<Page<T>> {
+  const res = await send(path, {});
+  const rows = (await res.json()) as T[];
+  const total = res.headers.get('X-Total-Count');
+  return { rows, total: total === null ? rows.length : Number(total) };
+}
+
+async function send(path: string, init: RequestInit & { json?: unknown }): Promise<Response> {
   const { json, headers, ...rest } = init;
   let res: Response;
   try {
@@ -50,9 +70,7 @@ export async function api<T>(path: string, init: RequestInit & { json?: unknown 
     throw new ApiError(0, 'network', 'The server cannot be reached. Check the connection; your draft is kept in this browser.');
   }
   if (!res.ok) throw await toError(res);
-  if (res.status === 204) return undefined as T;
-  const type = res.headers.get('content-type') ?? '';
-  return (type.includes('json') ? await res.json() : await res.text()) as T;
+  return res;
 }
 
 export function errorMessage(e: unknown): string {

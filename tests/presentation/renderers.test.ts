@@ -11,7 +11,7 @@ import { presentResult } from '../../shared/presentation/result-model';
 import { withUnit } from '../../shared/presentation/units';
 import { formatBudgetTable } from '../../cli/budget-table';
 import { renderReportPdf } from '../../server/reports/report-pdf';
-import { BudgetWithContributions } from '../../src/features/editor/components/BudgetTable';
+import { BudgetWithContributions } from '../../src/budget/components/BudgetTable';
 import { ResultCard } from '../../src/features/editor/components/ResultCard';
 import { Comparison, Verdict } from '../../src/features/monte-carlo/components/MonteCarloPanel';
 import { ReportDocument } from '../../src/features/report/components/ReportDocument';

@@ -145,3 +145,14 @@ describe('GET /api/audit', () => {
     expect(r.headers['x-total-count']).toBe('3');
   });
 });
+
+describe('GET /api/audit in either order', () => {
+  it('gives the oldest events first with order=asc and refuses another order', async () => {
+    const auditor = await s.as('auditor');
+    const oldest = await auditor.get(`/api/audit?budget=${ids['beta gauge']}&order=asc`).expect(200);
+    expect(oldest.body.events.map((e: { action: string }) => e.action)).toEqual(['budget.created', 'budget.version_saved', 'budget.version_saved']);
+    expect(oldest.body.events.map((e: { versionNumber: number }) => e.versionNumber)).toEqual([1, 2, 3]);
+    const r = await auditor.get('/api/audit?order=oldest').expect(400);
+    expect(r.body.error.field).toBe('order');
+  });
+});

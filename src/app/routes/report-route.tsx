@@ -1,5 +1,5 @@
 import { useParams } from 'react-router-dom';
-import { BudgetWithContributions } from '../../features/editor/components/BudgetTable';
+import { BudgetWithContributions } from '../../budget/components/BudgetTable';
 import { ReportPage } from '../../features/report/components/ReportPage';
 
 /** The printable report of one stored version, with the editor's budget table in its slot. */

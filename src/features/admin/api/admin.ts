@@ -1,13 +1,12 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../app/http';
-import type { InvitationResponse, MailMessage, UserAccount } from '../../../../shared/api/accounts';
-import type { Role } from '../../../../shared/policy/policy';
+import type { InvitationResponse, InviteInput, UserAccount, UserPatch, UserSort } from '../../../../shared/api/accounts';
+import { afterAccountChange } from '../../../budget/invalidate';
+import { mailQuery, usersPageQuery } from '../../../budget/queries';
+import type { PageRequest, UserFilter } from '../../../budget/query-keys';
 
-export const usersQuery = () => queryOptions({ queryKey: ['users'], queryFn: () => api<UserAccount[]>('/api/users') });
-export const mailQuery = () => queryOptions({ queryKey: ['mail'], queryFn: () => api<MailMessage[]>('/api/dev/mail?limit=200'), refetchInterval: 10_000 });
-
-export function useUsers() {
-  return useQuery(usersQuery());
+export function useUsers(filter: UserFilter, page: PageRequest<UserSort>) {
+  return useQuery(usersPageQuery(filter, page));
 }
 
 export function useMail() {
@@ -17,22 +16,15 @@ export function useMail() {
 export function useUpdateUser() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, ...patch }: { id: number; role?: Role; active?: boolean; name?: string; reason?: string }) => api<UserAccount>(`/api/users/${id}`, { method: 'PATCH', json: patch }),
-    onSuccess: () => {
-      qc.invalidateQueries({ queryKey: ['users'] });
-      qc.invalidateQueries({ queryKey: ['audit'] });
-    },
+    mutationFn: ({ id, ...patch }: UserPatch & { id: number }) => api<UserAccount>(`/api/users/${id}`, { method: 'PATCH', json: patch }),
+    onSuccess: () => afterAccountChange(qc),
   });
 }
 
 export function useInvite() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { email: string; name: string; role: Role }) => api<InvitationResponse>('/api/invitations', { method: 'POST', json: body }),
-    onSuccess: () => {
-      qc.invalidateQueries({ queryKey: ['users'] });
-      qc.invalidateQueries({ queryKey: ['mail'] });
-      qc.invalidateQueries({ queryKey: ['audit'] });
-    },
+    mutationFn: (body: InviteInput) => api<InvitationResponse>('/api/invitations', { method: 'POST', json: body }),
+    onSuccess: () => afterAccountChange(qc),
   });
 }

@@ -1,12 +1,58 @@
+import type { ColumnDef } from '@tanstack/react-table';
+import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
+import type { AuditEvent } from '../../../../shared/api/audit';
 import { errorMessage } from '../../../app/http';
 import { useListParams } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
+import { DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
 import { formatDateTime } from '../../../app/ui/numbers';
-import { Pager } from '../../../app/ui/pager';
-import { AUDIT_ACTIONS, auditCsvUrl, useAudit, useAuditActors, useAuditBudgets, type AuditFilter } from '../api/audit';
+import type { AuditFilter } from '../../../budget/query-keys';
+import { AUDIT_ACTIONS, auditCsvUrl, useAudit, useAuditActors, useAuditBudgets } from '../api/audit';
 
 const PAGE_SIZE = 25;
+
+/** The trail's columns; only time sorts (the server keeps the chain's order, oldest or newest first). */
+function auditColumns(budgetTitle: Map<number, string>): ColumnDef<AuditEvent, unknown>[] {
+  return [
+    {
+      id: 'time',
+      accessorFn: (e) => e.at,
+      header: 'Time',
+      enableHiding: false,
+      meta: { className: 'num whitespace-nowrap text-xs text-stone-700' },
+      cell: ({ row: { original: e } }) => <span title={e.time}>{formatDateTime(e.at)}</span>,
+    },
+    {
+      id: 'actor',
+      header: 'Actor',
+      enableSorting: false,
+      meta: { className: 'text-stone-800' },
+      cell: ({ row: { original: e } }) => e.actorEmail ?? (e.actorId ? `user #${e.actorId}` : <span className="text-stone-500">system</span>),
+    },
+    {
+      id: 'action',
+      header: 'Action',
+      enableSorting: false,
+      cell: ({ row: { original: e } }) => <span className="num rounded border border-stone-300 bg-stone-50 px-1.5 py-0.5 text-xs text-stone-800">{e.action}</span>,
+    },
+    {
+      id: 'budget',
+      header: 'Budget',
+      enableSorting: false,
+      cell: ({ row: { original: e } }) =>
+        e.budgetId ? (
+          <Link to={`/budgets/${e.budgetId}`} className="text-accent-700 hover:underline">
+            {budgetTitle.get(e.budgetId) ?? `budget ${e.budgetId}`}
+          </Link>
+        ) : (
+          <span className="text-stone-500">—</span>
+        ),
+    },
+    { id: 'version', header: 'Version', enableSorting: false, meta: { className: 'num text-right' }, cell: ({ row: { original: e } }) => (e.versionNumber ? `v${e.versionNumber}` : '') },
+    { id: 'details', header: 'Details', enableSorting: false, meta: { className: 'max-w-md break-words text-xs text-stone-700' }, cell: ({ row: { original: e } }) => e.details },
+  ];
+}
 
 /** datetime-local text ↔ milliseconds, in the browser's time zone. */
 function toLocalInput(ms: number | undefined): string {
@@ -26,22 +72,22 @@ export function AuditPage() {
   const num = (k: string) => (params.get(k) ? Number(params.get(k)) || undefined : undefined);
   const filter: AuditFilter = { budget: num('budget'), actor: num('actor'), action: params.get('action') ?? undefined, from: num('from'), to: num('to') };
   const page = Math.max(1, num('page') ?? 1);
-  const audit = useAudit(filter, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE });
+  const order = params.get('order') === 'asc' ? 'asc' : 'desc';
+  const audit = useAudit(filter, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, order });
+  useKeepPageInRange(page, audit.data?.total, PAGE_SIZE, (n) => set({ page: String(n) }));
   const actors = useAuditActors();
   const budgets = useAuditBudgets();
-  const budgetTitle = new Map((budgets.data ?? []).map((b) => [b.id, b.title]));
+  const columns = useMemo(() => auditColumns(new Map((budgets.data ?? []).map((b) => [b.id, b.title]))), [budgets.data]);
   const rangeError = filter.from !== undefined && filter.to !== undefined && filter.from > filter.to ? 'The end of the range is before its start.' : null;
 
-  const filtered = [...params.keys()].some((k) => k !== 'page');
-  const total = audit.data?.total ?? 0;
-  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
+  const filtered = [...params.keys()].some((k) => k !== 'page' && k !== 'order');
 
   return (
     <div className="mx-auto flex max-w-7xl flex-col gap-4 px-6 py-6">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <h1 className="text-2xl font-semibold tracking-tight">Audit trail</h1>
-          <p className="text-sm text-stone-600">Every change to budgets, reviews and accounts, newest first. Entries cannot be edited or deleted.</p>
+          <p className="text-sm text-stone-600">Every change to budgets, reviews and accounts, newest first unless you sort by time. Entries cannot be edited or deleted.</p>
         </div>
         <a
           href={auditCsvUrl(filter)}
@@ -111,49 +157,19 @@ export function AuditPage() {
         <Spinner label="Loading the audit trail" />
       ) : audit.isError ? (
         <ErrorNote title="The audit trail could not be loaded">{errorMessage(audit.error)}</ErrorNote>
-      ) : audit.data.events.length === 0 ? (
-        <EmptyState title={filtered ? 'No entry matches these filters' : 'The audit trail is empty'}>{filtered ? 'Widen the time range or clear the filters.' : null}</EmptyState>
       ) : (
-        <div className={`overflow-x-auto rounded-lg border border-stone-200 bg-white ${audit.isPlaceholderData ? 'opacity-60' : ''}`}>
-          <table className="w-full text-left text-sm" data-testid="audit-table">
-            <caption className="sr-only">Audit entries {filtered ? 'matching the filters' : ''}, newest first</caption>
-            <thead className="border-b border-stone-200 bg-stone-50 text-xs text-stone-700">
-              <tr>
-                <th scope="col" className="px-3 py-2 font-semibold">Time</th>
-                <th scope="col" className="px-3 py-2 font-semibold">Actor</th>
-                <th scope="col" className="px-3 py-2 font-semibold">Action</th>
-                <th scope="col" className="px-3 py-2 font-semibold">Budget</th>
-                <th scope="col" className="px-3 py-2 text-right font-semibold">Version</th>
-                <th scope="col" className="px-3 py-2 font-semibold">Details</th>
-              </tr>
-            </thead>
-            <tbody>
-              {audit.data.events.map((e) => (
-                <tr key={e.id} className="border-b border-stone-100 align-top last:border-0">
-                  <td className="num whitespace-nowrap px-3 py-1.5 text-xs text-stone-700" title={e.time}>
-                    {formatDateTime(e.at)}
-                  </td>
-                  <td className="px-3 py-1.5 text-stone-800">{e.actorEmail ?? (e.actorId ? `user #${e.actorId}` : <span className="text-stone-500">system</span>)}</td>
-                  <td className="px-3 py-1.5">
-                    <span className="num rounded border border-stone-300 bg-stone-50 px-1.5 py-0.5 text-xs text-stone-800">{e.action}</span>
-                  </td>
-                  <td className="px-3 py-1.5">
-                    {e.budgetId ? (
-                      <Link to={`/budgets/${e.budgetId}`} className="text-accent-700 hover:underline">
-                        {budgetTitle.get(e.budgetId) ?? `budget ${e.budgetId}`}
-                      </Link>
-                    ) : (
-                      <span className="text-stone-500">—</span>
-                    )}
-                  </td>
-                  <td className="num px-3 py-1.5 text-right">{e.versionNumber ? `v${e.versionNumber}` : ''}</td>
-                  <td className="max-w-md break-words px-3 py-1.5 text-xs text-stone-700">{e.details}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-          <Pager page={page} pages={pages} pageSize={PAGE_SIZE} total={total} onPage={(n) => set({ page: String(n) })} />
-        </div>
+        <DataTable
+          id="audit"
+          testId="audit-table"
+          caption={`Audit entries ${filtered ? 'matching the filters' : ''}, ${order === 'asc' ? 'oldest' : 'newest'} first`}
+          data={audit.data.events}
+          columns={columns}
+          getRowId={(e) => String(e.id)}
+          busy={audit.isPlaceholderData}
+          sorting={{ sort: 'time', order, onSort: (_key, o) => set({ order: o === 'asc' ? 'asc' : undefined }) }}
+          paging={{ page, pageSize: PAGE_SIZE, total: audit.data.total, onPage: (n) => set({ page: String(n) }) }}
+          empty={<EmptyState title={filtered ? 'No entry matches these filters' : 'The audit trail is empty'}>{filtered ? 'Widen the time range or clear the filters.' : null}</EmptyState>}
+        />
       )}
     </div>
   );

@@ -1,46 +1,24 @@
-import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../app/http';
-import type { BudgetListItem, CreatedBudget } from '../../../../shared/api/budgets';
-import type { BudgetStatus } from '../../../../shared/policy/policy';
+import type { BudgetListItem, BudgetSort, CreatedBudget } from '../../../../shared/api/budgets';
+import { afterVersionStored } from '../../../budget/invalidate';
+import { budgetIndexQuery, budgetListQuery } from '../../../budget/queries';
+import type { BudgetListFilter, PageRequest } from '../../../budget/query-keys';
 
-export interface BudgetListFilter {
-  status?: BudgetStatus;
-  owner?: number;
-  q?: string;
+/** One page of the list, filtered and sorted by the server. */
+export function useBudgetList(f: BudgetListFilter, page: PageRequest<BudgetSort>) {
+  return useQuery(budgetListQuery(f, page));
 }
 
-/** The server's largest page of the list. */
-const PAGE = 1000;
-
-function listUrl(f: BudgetListFilter, offset: number): string {
-  const p = new URLSearchParams();
-  if (f.status) p.set('status', f.status);
-  if (f.owner) p.set('owner', String(f.owner));
-  if (f.q) p.set('q', f.q);
-  p.set('limit', String(PAGE));
-  p.set('offset', String(offset));
-  return `/api/budgets?${p}`;
+function ownersOf(budgets: BudgetListItem[]): [number, string][] {
+  const m = new Map<number, string>();
+  for (const b of budgets) if (!b.isTemplate) m.set(b.ownerId, b.ownerName);
+  return [...m].sort((a, b) => a[1].localeCompare(b[1]));
 }
 
-/** Every matching budget (the page sorts and pages in the browser): page after page until a short one. */
-async function fetchAll(f: BudgetListFilter): Promise<BudgetListItem[]> {
-  const all: BudgetListItem[] = [];
-  for (;;) {
-    const page = await api<BudgetListItem[]>(listUrl(f, all.length));
-    all.push(...page);
-    if (page.length < PAGE) return all;
-  }
-}
-
-export const budgetListQuery = (f: BudgetListFilter) =>
-  queryOptions({
-    queryKey: ['budgets', 'list', f],
-    queryFn: () => fetchAll(f),
-    placeholderData: keepPreviousData,
-  });
-
-export function useBudgetList(f: BudgetListFilter) {
-  return useQuery(budgetListQuery(f));
+/** The owners of budgets, for the owner filter: read from the budget index the audit trail's filter shares. */
+export function useBudgetOwners() {
+  return useQuery({ ...budgetIndexQuery(), select: ownersOf });
 }
 
 /** Imports a budget file (multipart upload): the server validates, computes and stores version 1. */
@@ -53,6 +31,6 @@ export function useImportBudget() {
       form.set('note', `imported from ${file.name}`.slice(0, 2000));
       return api<CreatedBudget>('/api/budgets/import', { method: 'POST', body: form });
     },
-    onSuccess: () => qc.invalidateQueries({ queryKey: ['budgets'] }),
+    onSuccess: (r) => afterVersionStored(qc, r.id),
   });
 }

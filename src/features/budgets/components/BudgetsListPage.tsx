@@ -1,34 +1,48 @@
-import { useDeferredValue, useMemo, useRef, useState } from 'react';
+import type { ColumnDef } from '@tanstack/react-table';
+import { useDeferredValue, useRef, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import type { BudgetListItem } from '../../../../shared/api/budgets';
+import { BUDGET_SORTS, type BudgetListItem, type BudgetSort } from '../../../../shared/api/budgets';
 import { can, type BudgetStatus, type Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
 import { useListParams } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
+import { DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
 import { formatDateTime } from '../../../app/ui/numbers';
-import { Pager } from '../../../app/ui/pager';
-import { displayStatus, StatusBadge, statusLabel, type DisplayStatus } from '../../../app/ui/status-badge';
 import { useToast } from '../../../app/ui/toasts';
-import { useBudgetList, useImportBudget } from '../api/budgets';
+import { StatusBadge, statusLabel, type DisplayStatus } from '../../../budget/components/StatusBadge';
+import { useBudgetList, useBudgetOwners, useImportBudget } from '../api/budgets';
 
-type SortKey = 'title' | 'status' | 'owner' | 'version' | 'updated';
 const PAGE_SIZE = 12;
-const STATUS_ORDER: Record<DisplayStatus, number> = { draft: 0, returned: 1, in_review: 2, approved: 3 };
+const SORT_WORDS: Record<BudgetSort, string> = { title: 'title', status: 'status', owner: 'owner', version: 'version', updated: 'last change' };
 
-function compare(a: BudgetListItem, b: BudgetListItem, key: SortKey): number {
-  switch (key) {
-    case 'title':
-      return a.title.localeCompare(b.title);
-    case 'status':
-      return STATUS_ORDER[displayStatus(a.status, a.returned)] - STATUS_ORDER[displayStatus(b.status, b.returned)];
-    case 'owner':
-      return a.ownerName.localeCompare(b.ownerName);
-    case 'version':
-      return a.currentVersion - b.currentVersion;
-    case 'updated':
-      return a.updatedAt - b.updatedAt;
-  }
-}
+const COLUMNS: ColumnDef<BudgetListItem, unknown>[] = [
+  {
+    id: 'title',
+    accessorFn: (b) => b.title,
+    header: 'Title',
+    enableHiding: false,
+    meta: { className: 'w-1/2' },
+    cell: ({ row: { original: b } }) => (
+      <Link to={`/budgets/${b.id}`} className="font-medium text-stone-900 underline-offset-2 hover:text-accent-700 hover:underline">
+        {b.title}
+      </Link>
+    ),
+  },
+  { id: 'status', accessorFn: (b) => b.status, header: 'Status', cell: ({ row: { original: b } }) => <StatusBadge status={b.status} returned={b.returned} /> },
+  { id: 'owner', accessorFn: (b) => b.ownerName, header: 'Owner', meta: { className: 'text-stone-700' }, cell: ({ row: { original: b } }) => b.ownerName },
+  {
+    id: 'version',
+    accessorFn: (b) => b.currentVersion,
+    header: 'Version',
+    meta: { className: 'num text-right' },
+    cell: ({ row: { original: b } }) => (
+      <Link to={`/budgets/${b.id}/versions`} className="hover:text-accent-700 hover:underline" aria-label={`Versions of ${b.title}: ${b.currentVersion}`}>
+        v{b.currentVersion}
+      </Link>
+    ),
+  },
+  { id: 'updated', accessorFn: (b) => b.updatedAt, header: 'Last change', meta: { className: 'whitespace-nowrap text-stone-700' }, cell: ({ row: { original: b } }) => formatDateTime(b.updatedAt) },
+];
 
 export function BudgetsListPage({ role }: { role: Role }) {
   const { params, set, clear } = useListParams();
@@ -36,31 +50,18 @@ export function BudgetsListPage({ role }: { role: Role }) {
   const owner = Number(params.get('owner') ?? '') || undefined;
   const [text, setText] = useState(params.get('q') ?? '');
   const q = useDeferredValue(text.trim());
-  const sort = (params.get('sort') ?? 'updated') as SortKey;
+  const sortParam = params.get('sort') as BudgetSort | null;
+  const sort: BudgetSort = sortParam && (BUDGET_SORTS as readonly string[]).includes(sortParam) ? sortParam : 'updated';
   const dir = params.get('dir') === 'asc' ? 'asc' : 'desc';
   const page = Math.max(1, Number(params.get('page') ?? '1') || 1);
 
+  // a returned budget is a draft the reviewer sent back: the server tells them apart
   const serverStatus: BudgetStatus | undefined = status === 'returned' ? 'draft' : status || undefined;
-  const list = useBudgetList({ status: serverStatus, owner, q: q || undefined });
-  const everyone = useBudgetList({});
-  const owners = useMemo(() => {
-    const m = new Map<number, string>();
-    for (const b of everyone.data ?? []) m.set(b.ownerId, b.ownerName);
-    return [...m].sort((a, b) => a[1].localeCompare(b[1]));
-  }, [everyone.data]);
-
-  const rows = useMemo(() => {
-    let r = list.data ?? [];
-    if (status === 'returned') r = r.filter((b) => b.returned);
-    else if (status === 'draft') r = r.filter((b) => !b.returned);
-    const sorted = [...r].sort((a, b) => compare(a, b, sort) || b.id - a.id);
-    return dir === 'asc' ? sorted : sorted.reverse();
-  }, [list.data, status, sort, dir]);
-  const pages = Math.max(1, Math.ceil(rows.length / PAGE_SIZE));
-  const current = Math.min(page, pages);
-  const shown = rows.slice((current - 1) * PAGE_SIZE, current * PAGE_SIZE);
-
-  const sortBy = (key: SortKey) => set({ sort: key, dir: sort === key && dir === 'desc' ? 'asc' : 'desc' });
+  const returned = status === 'returned' ? true : status === 'draft' ? false : undefined;
+  const filter = { status: serverStatus, returned, owner, q: q || undefined };
+  const list = useBudgetList(filter, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, sort, order: dir });
+  useKeepPageInRange(page, list.data?.total, PAGE_SIZE, (n) => set({ page: String(n) }));
+  const owners = useBudgetOwners();
 
   const navigate = useNavigate();
   const toast = useToast();
@@ -68,20 +69,6 @@ export function BudgetsListPage({ role }: { role: Role }) {
   const fileRef = useRef<HTMLInputElement>(null);
   const canCreate = can(role, 'budget.create');
   const filtered = !!(status || owner || q);
-
-  const header = (key: SortKey, label: string, className = '') => {
-    const active = sort === key;
-    return (
-      <th scope="col" aria-sort={active ? (dir === 'asc' ? 'ascending' : 'descending') : 'none'} className={`px-3 py-2 font-semibold ${className}`}>
-        <button type="button" onClick={() => sortBy(key)} className="inline-flex items-center gap-1 rounded hover:text-accent-700">
-          {label}
-          <span aria-hidden className={active ? 'text-accent-700' : 'text-stone-400'}>
-            {active ? (dir === 'asc' ? '▲' : '▼') : '↕'}
-          </span>
-        </button>
-      </th>
-    );
-  };
 
   return (
     <div className="mx-auto flex max-w-6xl flex-col gap-4 px-6 py-6">
@@ -153,7 +140,7 @@ export function BudgetsListPage({ role }: { role: Role }) {
           {(p) => (
             <Select {...p} value={owner ?? ''} onChange={(e) => set({ owner: e.target.value || undefined })}>
               <option value="">Anyone</option>
-              {owners.map(([id, name]) => (
+              {(owners.data ?? []).map(([id, name]) => (
                 <option key={id} value={id}>
                   {name}
                 </option>
@@ -179,51 +166,27 @@ export function BudgetsListPage({ role }: { role: Role }) {
         <Spinner label="Loading budgets" />
       ) : list.isError ? (
         <ErrorNote title="The budgets could not be loaded">{errorMessage(list.error)}</ErrorNote>
-      ) : rows.length === 0 ? (
-        filtered ? (
-          <EmptyState title="No budget matches these filters">Change the search text, status or owner, or clear the filters.</EmptyState>
-        ) : (
-          <EmptyState title="No budgets yet">
-            {canCreate ? 'Start a new budget, import a budget file, or clone one of the templates.' : 'Budgets appear here once metrologists create them.'}
-          </EmptyState>
-        )
       ) : (
-        <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-          <table className="w-full text-left text-sm">
-            <caption className="sr-only">Budgets, sorted by {sort} ({dir === 'asc' ? 'ascending' : 'descending'})</caption>
-            <thead className="border-b border-stone-200 bg-stone-50 text-xs text-stone-700">
-              <tr>
-                {header('title', 'Title', 'w-1/2')}
-                {header('status', 'Status')}
-                {header('owner', 'Owner')}
-                {header('version', 'Version', 'text-right')}
-                {header('updated', 'Last change')}
-              </tr>
-            </thead>
-            <tbody>
-              {shown.map((b) => (
-                <tr key={b.id} className="border-b border-stone-100 last:border-0 hover:bg-stone-50">
-                  <td className="px-3 py-2">
-                    <Link to={`/budgets/${b.id}`} className="font-medium text-stone-900 underline-offset-2 hover:text-accent-700 hover:underline">
-                      {b.title}
-                    </Link>
-                  </td>
-                  <td className="px-3 py-2">
-                    <StatusBadge status={b.status} returned={b.returned} />
-                  </td>
-                  <td className="px-3 py-2 text-stone-700">{b.ownerName}</td>
-                  <td className="num px-3 py-2 text-right">
-                    <Link to={`/budgets/${b.id}/versions`} className="hover:text-accent-700 hover:underline" aria-label={`Versions of ${b.title}: ${b.currentVersion}`}>
-                      v{b.currentVersion}
-                    </Link>
-                  </td>
-                  <td className="whitespace-nowrap px-3 py-2 text-stone-700">{formatDateTime(b.updatedAt)}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-          <Pager page={current} pages={pages} pageSize={PAGE_SIZE} total={rows.length} onPage={(n) => set({ page: String(n) })} />
-        </div>
+        <DataTable
+          id="budgets"
+          caption={`Budgets, sorted by ${SORT_WORDS[sort]} (${dir === 'asc' ? 'ascending' : 'descending'})`}
+          data={list.data.rows}
+          columns={COLUMNS}
+          getRowId={(b) => String(b.id)}
+          busy={list.isPlaceholderData}
+          sorting={{ sort, order: dir, onSort: (key, order) => set({ sort: key, dir: order }) }}
+          paging={{ page, pageSize: PAGE_SIZE, total: list.data.total, onPage: (n) => set({ page: String(n) }) }}
+          rowProps={() => ({ className: 'border-b border-stone-100 last:border-0 hover:bg-stone-50' })}
+          empty={
+            filtered ? (
+              <EmptyState title="No budget matches these filters">Change the search text, status or owner, or clear the filters.</EmptyState>
+            ) : (
+              <EmptyState title="No budgets yet">
+                {canCreate ? 'Start a new budget, import a budget file, or clone one of the templates.' : 'Budgets appear here once metrologists create them.'}
+              </EmptyState>
+            )
+          }
+        />
       )}
     </div>
   );

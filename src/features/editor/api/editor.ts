@@ -1,35 +1,18 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../app/http';
-import type { BudgetView, CreatedBudget, SavedVersion, VersionMeta, VersionView } from '../../../../shared/api/budgets';
+import type { CreatedBudget, SavedVersion } from '../../../../shared/api/budgets';
 import type { ObservationsResult } from '../../../../shared/api/uploads';
 import type { BudgetResult } from '../../../../shared/budget/result';
 import type { BudgetDocument } from '../../../../shared/budget/schema';
-
-export const budgetQuery = (id: number) =>
-  queryOptions({
-    queryKey: ['budgets', id],
-    queryFn: () => api<BudgetView>(`/api/budgets/${id}`),
-  });
-
-export const budgetVersionQuery = (id: number, n: number) =>
-  queryOptions({
-    queryKey: ['budgets', id, 'versions', n],
-    queryFn: () => api<VersionView>(`/api/budgets/${id}/versions/${n}`),
-    staleTime: Infinity,
-  });
-
-export const editorVersionsQuery = (id: number) =>
-  queryOptions({
-    queryKey: ['budgets', id, 'versions'],
-    queryFn: () => api<VersionMeta[]>(`/api/budgets/${id}/versions`),
-  });
+import { afterVersionStored } from '../../../budget/invalidate';
+import { budgetQuery, versionQuery } from '../../../budget/queries';
 
 export function useBudget(id: number | undefined) {
   return useQuery({ ...budgetQuery(id ?? 0), enabled: id !== undefined });
 }
 
 export function useBudgetVersion(id: number | undefined, n: number | undefined) {
-  return useQuery({ ...budgetVersionQuery(id ?? 0, n ?? 0), enabled: id !== undefined && n !== undefined });
+  return useQuery({ ...versionQuery(id ?? 0, n ?? 0), enabled: id !== undefined && n !== undefined });
 }
 
 export type SaveInput =
@@ -59,10 +42,7 @@ export function useSaveBudget() {
       });
       return { id: input.id, ...r };
     },
-    onSuccess: (r) => {
-      qc.invalidateQueries({ queryKey: ['budgets', 'list'] });
-      qc.invalidateQueries({ queryKey: ['budgets', r.id] });
-    },
+    onSuccess: (r) => afterVersionStored(qc, r.id),
   });
 }
 

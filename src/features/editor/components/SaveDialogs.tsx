@@ -5,7 +5,7 @@ import type { BudgetDocument } from '../../../../shared/budget/schema';
 import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Field, FormDialog, Modal, Spinner, TextArea } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
-import { budgetVersionQuery, editorVersionsQuery } from '../api/editor';
+import { versionQuery as budgetVersionQuery, versionListQuery as editorVersionsQuery } from '../../../budget/queries';
 
 export function SaveDialog({
   open,

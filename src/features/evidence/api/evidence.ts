@@ -1,15 +1,11 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../app/http';
-import type { AddedAttachment, Attachment } from '../../../../shared/api/uploads';
-
-export const evidenceQuery = (budgetId: number, version: number) =>
-  queryOptions({
-    queryKey: ['budgets', budgetId, 'attachments', version],
-    queryFn: () => api<Attachment[]>(`/api/budgets/${budgetId}/attachments?version=${version}`),
-  });
+import type { AddedAttachment } from '../../../../shared/api/uploads';
+import { afterEvidenceAdded } from '../../../budget/invalidate';
+import { attachmentsQuery } from '../../../budget/queries';
 
 export function useEvidence(budgetId: number, version: number) {
-  return useQuery(evidenceQuery(budgetId, version));
+  return useQuery(attachmentsQuery(budgetId, version));
 }
 
 /** Sends one file as a multipart form; the server sniffs its type and keeps it by its SHA-256. */
@@ -22,14 +18,6 @@ export function useAttachEvidence(budgetId: number) {
       form.append('file', file);
       return api<AddedAttachment>(`/api/budgets/${budgetId}/attachments`, { method: 'POST', body: form });
     },
-    onSuccess: (a) => {
-      qc.invalidateQueries({ queryKey: ['budgets', budgetId, 'attachments'] });
-      qc.invalidateQueries({ queryKey: ['budgets', budgetId, 'review'] });
-      qc.invalidateQueries({ queryKey: ['audit'] });
-      if (a.newVersion) {
-        qc.invalidateQueries({ queryKey: ['budgets', budgetId] });
-        qc.invalidateQueries({ queryKey: ['budgets', 'list'] });
-      }
-    },
+    onSuccess: (a) => afterEvidenceAdded(qc, budgetId, a.newVersion),
   });
 }

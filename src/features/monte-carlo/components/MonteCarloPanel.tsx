@@ -10,7 +10,7 @@ import { DEFAULTS } from '../../../../shared/budget/limits';
 import { useComputeLimits } from '../api/compute-limits';
 import { useMonteCarloRun } from '../api/use-monte-carlo';
 
-const HistogramPlot = lazy(() => import('./HistogramPlot'));
+const HistogramPlot = lazy(() => import('../../../budget/components/HistogramPlot'));
 
 const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000, 5_000_000];
 

@@ -4,7 +4,7 @@ import type { HistogramBins } from '../../../../shared/budget/result';
 import { atDecimalPlace, fileSize, type Figure } from '../../../../shared/presentation/figures';
 import type { ResultModel } from '../../../../shared/presentation/result-model';
 import { DRAFT_MARK, isUnapproved, type VersionStatus } from '../../../../shared/presentation/status';
-import { StatusBadge } from '../../../app/ui/status-badge';
+import { StatusBadge } from '../../../budget/components/StatusBadge';
 import { withUnit } from '../../../../shared/presentation/units';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';

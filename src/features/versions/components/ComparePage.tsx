@@ -9,10 +9,11 @@ import { fieldName } from '../../../../shared/presentation/field-names';
 import type { Figure } from '../../../../shared/presentation/figures';
 import { formatDateTime, formatSignificant, fullPrecision } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
-import { StatusBadge, statusLabel } from '../../../app/ui/status-badge';
+import { StatusBadge, statusLabel } from '../../../budget/components/StatusBadge';
 import { versionStatus } from '../../../../shared/policy/version-status';
 import { formatUnit } from '../../../app/ui/units';
-import { useBudgetHeader, useDiff, useVersions, versionUnitQuery } from '../api/versions';
+import { versionQuery as versionUnitQuery } from '../../../budget/queries';
+import { useBudgetHeader, useDiff, useVersions } from '../api/versions';
 
 /** Added, removed, changed: each its own colour, mark and word. */
 const MARK = {

@@ -6,7 +6,7 @@ import { errorMessage } from '../../../app/http';
 import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
-import { StatusBadge } from '../../../app/ui/status-badge';
+import { StatusBadge } from '../../../budget/components/StatusBadge';
 import { versionStatus } from '../../../../shared/policy/version-status';
 import { useBudgetHeader, useVersions } from '../api/versions';
 

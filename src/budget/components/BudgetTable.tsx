@@ -1,8 +1,8 @@
 import { Fragment, type ReactNode } from 'react';
-import { symbolParts } from '../../../../shared/format/symbols';
-import type { Figure } from '../../../../shared/presentation/figures';
-import type { ResultModel } from '../../../../shared/presentation/result-model';
-import { Num, Sym } from '../../../app/ui/quantity';
+import { symbolParts } from '../../../shared/format/symbols';
+import type { Figure } from '../../../shared/presentation/figures';
+import type { ResultModel } from '../../../shared/presentation/result-model';
+import { Num, Sym } from '../../app/ui/quantity';
 
 /*
  * The budget as a chain read left to right, as a metrologist works it by hand:

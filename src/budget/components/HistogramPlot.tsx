@@ -1,6 +1,6 @@
 import createPlotlyComponent from 'react-plotly.js/factory';
 import Plotly from 'plotly.js-basic-dist-min';
-import type { HistogramBins } from '../../../../shared/budget/result';
+import type { HistogramBins } from '../../../shared/budget/result';
 
 const Plot = createPlotlyComponent(Plotly);
 
