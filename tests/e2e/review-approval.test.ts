@@ -198,7 +198,7 @@ describe('review and approval as a controlled act', () => {
     const confirm = admin.getByRole('dialog', { name: 'Change the role of Nia Castell' });
     await containsText(confirm, /from trainee to metrologist/);
     await confirm.getByRole('button', { name: 'Make metrologist' }).click();
-    await shows(confirm.getByText('Say why; the reason is recorded with the change.'));
+    await shows(confirm.getByText('say why the role or the access changes; the reason goes into the audit trail'));
     await shot(admin, 'role-change-dialog');
     await confirm.getByRole('button', { name: 'Cancel' }).click();
     await countIs(admin.getByRole('dialog', { name: 'Change the role of Nia Castell' }), 0);
