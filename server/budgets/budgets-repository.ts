@@ -187,8 +187,7 @@ export function listInReview(db: DbLike): InReviewRow[] {
     .all();
 }
 
-/** Version metadata without the document and result text, with the names of author and approver. */
-/** One page of a budget's versions, oldest first unless `order` is desc. */
+/** One page of a budget's version metadata (without document and result text, with the names of author and approver), oldest first unless `order` is desc. */
 export function listVersions(db: DbLike, budgetId: number, page: { limit: number; offset: number; order: 'asc' | 'desc' }): VersionMeta[] {
   return db
     .select({
