@@ -5,15 +5,18 @@ import { correlatedNormalSampler, type CorrelatedSampler } from './correlated-no
 import { coverageIntervals, probabilisticallySymmetricInterval } from './coverage-interval';
 import { DEFAULT_BIN_COUNT, histogramBins, histogramFromBuckets } from './histogram';
 import { bucketCountFor, countInBuckets } from './value-buckets';
-import { MomentAccumulator } from './summary';
+import { blockSums, MomentAccumulator } from './summary';
 import { numericalTolerance } from './validation';
 
 export interface MonteCarloPlan {
   /** One entry per input column, in order; null for inputs drawn jointly by `correlated`. */
   samplers: (Sampler | null)[];
   correlated?: { indices: number[]; means: number[]; standardUncertainties: number[]; correlation: number[][] };
-  /** The model compiled once to JavaScript: reads columns[i][0..n), writes out[offset + t] for t < n. */
-  evaluateBlock(columns: Float64Array[], out: Float64Array, offset: number, n: number): void;
+  /**
+   * The model compiled once to JavaScript: reads columns[i][0..n), writes out[offset + t] for t < n.
+   * Given `sums` (see blockSums) it may also gather the block's moment sums in the same loop and return true.
+   */
+  evaluateBlock(columns: Float64Array[], out: Float64Array, offset: number, n: number, sums?: Float64Array): boolean | void;
 }
 
 /** The phases of a run that `PhaseTimer` measures. */
@@ -116,6 +119,7 @@ class TrialGenerator {
   /** The inputs with their own sampler (the others are drawn by the correlated group). */
   private readonly singles: number[] = [];
   readonly blockSize: number;
+  private readonly sums = blockSums();
   done = 0;
 
   constructor(
@@ -165,10 +169,25 @@ class TrialGenerator {
       if (this.correlatedSampler) this.correlatedSampler.fill(this.correlatedStream!, this.correlatedColumns, n);
       if (timer) since = addElapsed(timer, 'sample', since);
       const at = offset + start;
-      plan.evaluateBlock(columns, out, at, n);
-      if (timer) since = addElapsed(timer, 'evaluate', since);
+      let blockMean: number;
+      if (moments.hasShift) {
+        // Sums about the fixed shift gathered by the model kernel itself, while each value is in a register.
+        const sums = this.sums;
+        sums[0] = moments.shiftValue;
+        if (plan.evaluateBlock(columns, out, at, n, sums) === true) {
+          if (timer) since = addElapsed(timer, 'evaluate', since);
+          blockMean = moments.addSums(n, sums[1], sums[2], sums[3], sums[4]);
+        } else {
+          if (timer) since = addElapsed(timer, 'evaluate', since);
+          blockMean = moments.add(out, at, at + n);
+        }
+      } else {
+        // The first block fixes the shift: evaluated, then summed.
+        plan.evaluateBlock(columns, out, at, n);
+        if (timer) since = addElapsed(timer, 'evaluate', since);
+        blockMean = moments.add(out, at, at + n);
+      }
       // The block mean is finite unless a value is not (or the sum overflows): only then look for the value.
-      const blockMean = moments.add(out, at, at + n);
       if (blockMean - blockMean !== 0) this.checkFinite(out, at, n);
       if (timer) addElapsed(timer, 'moments', since);
       this.done += n;
