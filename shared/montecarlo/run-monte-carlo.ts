@@ -6,6 +6,7 @@ import { coverageIntervals, probabilisticallySymmetricInterval } from './coverag
 import { DEFAULT_BIN_COUNT, histogramBins, histogramFromBuckets } from './histogram';
 import { bucketCountFor, countInBuckets } from './value-buckets';
 import { blockSums, MomentAccumulator } from './summary';
+import { scratchFloat64 } from './scratch-buffers';
 import { numericalTolerance } from './validation';
 
 export interface MonteCarloPlan {
@@ -44,7 +45,7 @@ export interface MonteCarloOptions {
   trials: number;
   seed: string;
   coverageProbability: number;
-  /** Trials per block (default 2¹⁵). The numbers drawn depend on seed and block size. */
+  /** Trials per block (default 2¹³). The numbers drawn depend on seed and block size. */
   blockSize?: number;
   onProgress?(done: number, total: number): void;
   shouldStop?(): boolean;
@@ -62,7 +63,11 @@ export interface AdaptiveMonteCarloOptions extends Omit<MonteCarloOptions, 'tria
 
 /** A finished run: the reported figures (JCGM 101:2008 7.6–7.7) plus the model values themselves. */
 export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive' | 'stability' | 'undefinedMoments'> {
-  /** The M model values; the interval search may reorder them. */
+  /**
+   * The M model values; the interval search may reorder them. A fixed run's
+   * values lie in a buffer the next run on this thread reuses (see
+   * scratch-buffers): copy them to keep them.
+   */
   values: Float64Array;
   /**
    * Numerical standard uncertainties of the symmetric interval's endpoints from
@@ -102,7 +107,8 @@ export class MonteCarloNonFiniteValue extends Error {
   }
 }
 
-const DEFAULT_BLOCK_SIZE = 1 << 15;
+/** 2¹³ trials: a block's input columns and values (6 × 64 kB for five inputs) stay in a core's own cache between sampling and evaluation. */
+const DEFAULT_BLOCK_SIZE = 1 << 13;
 
 /**
  * Draws trials block by block into fixed column buffers and evaluates the
@@ -132,7 +138,7 @@ class TrialGenerator {
     if (!(Number.isInteger(blockSize) && blockSize >= 1)) throw new RangeError(`block size must be a whole number ≥ 1 (got ${blockSize})`);
     this.blockSize = blockSize;
     const root = new UniformGenerator(seed);
-    this.columns = plan.samplers.map(() => new Float64Array(blockSize));
+    this.columns = plan.samplers.map((_, i) => scratchFloat64(`column:${i}`, blockSize));
     this.streams = plan.samplers.map((s, i) => (s === null ? null : root.substream(`input:${i}`)));
     const group = plan.correlated;
     if (group) {
@@ -247,7 +253,7 @@ export function runMonteCarlo(plan: MonteCarloPlan, options: MonteCarloOptions):
   const { trials: M, seed, coverageProbability: p } = options;
   checkTrials(M);
   const generator = new TrialGenerator(plan, seed, Math.min(options.blockSize ?? DEFAULT_BLOCK_SIZE, M), options.shouldStop, options.timer);
-  const values = new Float64Array(M);
+  const values = scratchFloat64('values', M);
   const moments = new MomentAccumulator();
   generator.run(values, 0, M, moments, () => options.onProgress?.(generator.done, M));
   return { trials: M, seed, ...summarize(values, moments, p, options.binCount, options.timer), values };
