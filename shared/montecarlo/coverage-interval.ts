@@ -1,4 +1,3 @@
-import { scratchFloat64 } from './scratch-buffers';
 import { sortFloat64 } from './sort-float64';
 import { bucketCountFor, countInBuckets, type ValueBuckets } from './value-buckets';
 import { valueRange } from './value-range';
@@ -126,8 +125,8 @@ function tailsByBuckets(values: Float64Array, tail: number, range?: { min: numbe
   const limit = 2 * tail + (M >> 6);
   if (lowCount > limit || highCount > limit || lowBucket >= highBucket) return null;
   // Each value is written to both buffers and the write kept (index advanced) only if it belongs: no branches.
-  const low = scratchFloat64('tails:low', lowCount + 1);
-  const high = scratchFloat64('tails:high', highCount + 1);
+  const low = new Float64Array(lowCount + 1);
+  const high = new Float64Array(highCount + 1);
   let nLow = 0;
   let nHigh = 0;
   for (let r = 0; r < M; r++) {

@@ -63,11 +63,7 @@ export interface AdaptiveMonteCarloOptions extends Omit<MonteCarloOptions, 'tria
 
 /** A finished run: the reported figures (JCGM 101:2008 7.6–7.7) plus the model values themselves. */
 export interface MonteCarloRun extends Omit<MonteCarloResult, 'adaptive' | 'stability' | 'undefinedMoments'> {
-  /**
-   * The M model values; the interval search may reorder them. A fixed run's
-   * values lie in a buffer the next run on this thread reuses (see
-   * scratch-buffers): copy them to keep them.
-   */
+  /** The M model values; the interval search may reorder them. */
   values: Float64Array;
   /**
    * Numerical standard uncertainties of the symmetric interval's endpoints from
@@ -253,7 +249,7 @@ export function runMonteCarlo(plan: MonteCarloPlan, options: MonteCarloOptions):
   const { trials: M, seed, coverageProbability: p } = options;
   checkTrials(M);
   const generator = new TrialGenerator(plan, seed, Math.min(options.blockSize ?? DEFAULT_BLOCK_SIZE, M), options.shouldStop, options.timer);
-  const values = scratchFloat64('values', M);
+  const values = new Float64Array(M);
   const moments = new MomentAccumulator();
   generator.run(values, 0, M, moments, () => options.onProgress?.(generator.done, M));
   return { trials: M, seed, ...summarize(values, moments, p, options.binCount, options.timer), values };

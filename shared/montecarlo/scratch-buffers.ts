@@ -1,8 +1,8 @@
 /**
  * Typed arrays kept from one Monte Carlo run to the next on this thread,
- * one per named use. A fresh multi-megabyte array costs page faults and
- * zeroing when first written and a garbage collection when dropped, a
- * noticeable part of a 10⁶-trial run; a kept one costs neither. Arrays above
+ * one per named use (the input columns of a block): a fresh array costs page
+ * faults and zeroing when first written and garbage collection when dropped;
+ * a kept one costs neither. Arrays above
  * KEPT_BYTES are not kept, so a 10⁷-trial run leaves no large buffer behind.
  * A kept array is NOT zeroed: its user writes every element it reads. Two
  * users must not hold the same name at once (JavaScript runs one run at a
@@ -25,10 +25,4 @@ function keptBuffer(use: string, bytes: number): ArrayBuffer | null {
 export function scratchFloat64(use: string, length: number): Float64Array {
   const buffer = keptBuffer(use, 8 * length);
   return buffer ? new Float64Array(buffer, 0, length) : new Float64Array(length);
-}
-
-/** An Int32Array of `length` for `use`, kept across runs when small enough; its contents are left from the last use. */
-export function scratchInt32(use: string, length: number): Int32Array {
-  const buffer = keptBuffer(use, 4 * length);
-  return buffer ? new Int32Array(buffer, 0, length) : new Int32Array(length);
 }

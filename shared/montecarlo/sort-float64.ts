@@ -6,8 +6,6 @@
  * crowded, a least-significant-digit radix sort on the 64-bit patterns.
  */
 
-import { scratchFloat64, scratchInt32 } from './scratch-buffers';
-
 const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
 /** Below this length the built-in sort is as fast and needs no buffers. */
 const SMALL = 1024;
@@ -51,7 +49,7 @@ export function sortFloat64(values: Float64Array): void {
     return;
   }
   // (y − min)·scale may reach n at the maximum: one extra bucket.
-  const starts = scratchInt32('sort:starts', n + 2).fill(0);
+  const starts = new Int32Array(n + 2);
   for (let i = 0; i < n; i++) starts[(((values[i] - min) * scale) | 0) + 1]++;
   let crowded = 0;
   for (let b = 1; b <= n + 1; b++) {
@@ -62,9 +60,8 @@ export function sortFloat64(values: Float64Array): void {
     radixSortFloat64(values);
     return;
   }
-  const sorted = scratchFloat64('sort:sorted', n);
-  const next = scratchInt32('sort:next', n + 1);
-  next.set(starts.subarray(0, n + 1));
+  const sorted = new Float64Array(n);
+  const next = starts.slice(0, n + 1);
   for (let i = 0; i < n; i++) {
     const y = values[i];
     sorted[next[((y - min) * scale) | 0]++] = y;
