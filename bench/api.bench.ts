@@ -2,7 +2,8 @@
  * API benchmark on loopback (not a test): reads of GET /api/budgets/:id and
  * PUT saves, 50 connections each, printing requests/s and p99 latency, and
  * the targets with PASS/MISS (never an error exit for a MISS).
- * The server runs in its own process (server/main.ts through tsx) on a fresh
+ * The server runs in its own process, as `npm start` runs it (server/dist/start.js,
+ * built by `npm run build:server` first), on a fresh
  * database in a temporary folder, so the load generator does not share its
  * event loop. Reads are measured in several rounds and the median round is
  * judged, because autocannon and the server share this machine's two cores.
@@ -105,9 +106,11 @@ const engine = engineRate();
 
 const port = await freePort();
 const base = `http://127.0.0.1:${port}`;
-const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
+// The built server, as in production; the client build is not needed for the API.
+const { NODE_OPTIONS: _loader, ...env } = process.env;
+const child = spawn(process.execPath, ['--enable-source-maps', 'server/dist/start.js'], {
   cwd: ROOT,
-  env: { ...process.env, DUBITO_DB: dbFile, PORT: String(port), HOST: '127.0.0.1', DUBITO_DEMO: '0', DUBITO_ALLOWED_ORIGINS: ORIGIN },
+  env: { ...env, DUBITO_DB: dbFile, PORT: String(port), HOST: '127.0.0.1', DUBITO_DEMO: '0', DUBITO_CLIENT_BUILD: '0', DUBITO_ALLOWED_ORIGINS: ORIGIN },
   stdio: ['ignore', 'pipe', 'inherit'],
 });
 // Measure the server as it runs for hours, not as it starts: wait until it listens and its compute workers
@@ -200,7 +203,7 @@ try {
   console.log(`| reads p99 < 50 ms | ${readP99} ms | ${verdict(readP99 < 50)} |`);
   // The bench's own criterion: the worker shares two cores with the server's main thread and autocannon, so a
   // save rate near the engine's own rate (three quarters or more) leaves the database with no visible share.
-  console.log(`| saves limited by the engine (≥ 0.75 × its own rate) | ${rate(saves).toFixed(0)} / ${engine.perSecond.toFixed(0)} saves/s = ${share.toFixed(2)} | ${verdict(share >= 0.75)} |`);
+  console.log(`| saves limited by the engine (≥ 0.8 × its own rate) | ${rate(saves).toFixed(0)} / ${engine.perSecond.toFixed(0)} saves/s = ${share.toFixed(2)} | ${verdict(share >= 0.8)} |`);
 } finally {
   child.kill('SIGTERM');
   await new Promise((r) => child.once('exit', r));

@@ -1,9 +1,11 @@
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
 import { loadConfig, StartRefused, startProblem, type AppConfig } from './config';
 import { seedDemo } from './demo-seed';
+import { projectRoot } from './project-root';
 
-const EXAMPLES = fileURLToPath(new URL('../examples', import.meta.url));
+const EXAMPLES = join(projectRoot(import.meta.url), 'examples');
 
 /** Builds the app, seeds the demo lab into an empty database (unless DUBITO_DEMO=0) and listens on PORT. */
 export async function serve(overrides: Partial<AppConfig> = {}) {
@@ -35,7 +37,8 @@ export async function serve(overrides: Partial<AppConfig> = {}) {
   return { handle, server };
 }
 
-if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+// Run as a script (tsx server/main.ts); in the build this module is part of start.js, which serves by itself.
+if (process.argv[1] && /main\.ts$/.test(process.argv[1]) && fileURLToPath(import.meta.url) === process.argv[1]) {
   serve().catch((e) => {
     console.error('[dubito] could not start:', e instanceof StartRefused ? e.message : e);
     process.exit(1);

@@ -1,11 +1,12 @@
 import { spawnSync } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import { clientBuildIsStale } from './client-build';
 import { loadConfig, startProblem } from './config';
 import { serve } from './main';
+import { projectRoot } from './project-root';
 
-const root = fileURLToPath(new URL('..', import.meta.url));
-const dist = fileURLToPath(new URL('../dist', import.meta.url));
+const root = projectRoot(import.meta.url);
+const dist = join(root, 'dist');
 
 // Say at once, before a client build, when this configuration could sign nobody in.
 const problem = startProblem(loadConfig());
@@ -14,9 +15,10 @@ if (problem) {
   process.exit(1);
 }
 
-if (clientBuildIsStale(root, dist)) {
+// DUBITO_CLIENT_BUILD=0: serve the API (and whatever dist/ holds) without building the client first.
+if (process.env.DUBITO_CLIENT_BUILD !== '0' && clientBuildIsStale(root, dist)) {
   console.log('[dubito] the client build in dist/ is missing or older than its sources: running vite build');
-  const r = spawnSync(process.execPath, [fileURLToPath(new URL('../node_modules/vite/bin/vite.js', import.meta.url)), 'build'], {
+  const r = spawnSync(process.execPath, [join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build'], {
     cwd: root,
     stdio: 'inherit',
   });

@@ -6,13 +6,23 @@ import { AppError, BusyError, UnavailableError, UnprocessableError } from '../ht
 import type { TaskMessage, TaskReply } from './task-worker';
 import { TASK_WORDS, type TaskInput, type TaskKind, type TaskOutput } from './tasks';
 
-export const DEFAULT_ENGINE_MODULE = new URL('../../shared/compute/compute-budget.ts', import.meta.url).href;
-const WORKER_URL = new URL('./task-worker.ts', import.meta.url);
-const TSX_API = pathToFileURL(
-  createRequire(import.meta.url).resolve('tsx/esm/api').replace(/index\.cjs$/, 'index.mjs'),
-).href;
-/** The worker is TypeScript: a one-line bootstrap loads it through tsx in the worker thread itself. */
-const BOOTSTRAP = `import(${JSON.stringify(TSX_API)}).then((m) => m.tsImport(${JSON.stringify(WORKER_URL.href)}, ${JSON.stringify(import.meta.url)}))`;
+/** Whether this module runs from the server's build (server/dist/, plain JavaScript) rather than from TypeScript through tsx. */
+const BUILT = import.meta.url.endsWith('.js');
+/** The engine the workers load: the build's own entry beside this chunk, or the TypeScript source. */
+export const DEFAULT_ENGINE_MODULE = new URL(BUILT ? './compute-budget.js' : '../../shared/compute/compute-budget.ts', import.meta.url).href;
+const WORKER_URL = new URL(BUILT ? './task-worker.js' : './task-worker.ts', import.meta.url);
+
+/**
+ * A worker thread running task-worker: the built JavaScript directly; from
+ * TypeScript, a one-line bootstrap that loads it through tsx in the worker
+ * thread itself (tsx is only looked up then, so a build needs no loader).
+ */
+function startWorker(options: ConstructorParameters<typeof Worker>[1]): Worker {
+  if (BUILT) return new Worker(WORKER_URL, options);
+  const tsxApi = pathToFileURL(createRequire(import.meta.url).resolve('tsx/esm/api').replace(/index\.cjs$/, 'index.mjs')).href;
+  const bootstrap = `import(${JSON.stringify(tsxApi)}).then((m) => m.tsImport(${JSON.stringify(WORKER_URL.href)}, ${JSON.stringify(import.meta.url)}))`;
+  return new Worker(bootstrap, { ...options, eval: true });
+}
 
 export interface SupervisorLimits {
   /** Worker threads. */
@@ -82,8 +92,7 @@ export class ComputeSupervisor {
   }
 
   private spawn(): Slot {
-    const worker = new Worker(BOOTSTRAP, {
-      eval: true,
+    const worker = startWorker({
       workerData: { engineModule: this.o.engineModule },
       resourceLimits: { maxOldGenerationSizeMb: this.o.workerHeapMb },
     });

@@ -1,11 +1,11 @@
 import { mkdirSync } from 'node:fs';
-import { dirname, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { dirname, join, resolve } from 'node:path';
 import Database from 'better-sqlite3';
 import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import type { BaseSQLiteDatabase } from 'drizzle-orm/sqlite-core';
 import type { RunResult } from 'better-sqlite3';
+import { projectRoot } from '../project-root';
 import * as schema from './schema';
 
 export type Schema = typeof schema;
@@ -21,7 +21,7 @@ export interface Connection {
   close(): void;
 }
 
-const MIGRATIONS = resolve(dirname(fileURLToPath(import.meta.url)), '../../drizzle');
+const MIGRATIONS = join(projectRoot(import.meta.url), 'drizzle');
 
 /** Opens (creating if needed) the SQLite file, sets WAL and foreign keys, applies the migrations. */
 export function openDatabase(file: string): Connection {

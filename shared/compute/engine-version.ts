@@ -6,4 +6,6 @@
 // instead of two), so a seed gives other Monte Carlo numbers than 0.2.1.
 // 0.4.0: normal inputs with `dof` drawn from the scaled and shifted t (JCGM 101:2008 6.4.9.7), so such budgets give other
 // Monte Carlo numbers than 0.3.0; validation verdicts with the endpoints' numerical uncertainty; `reported`.
-export const ENGINE_VERSION = 'dubito-engine/0.4.0';
+// 0.5.0: normal draws take one 32-bit generator output per ziggurat attempt instead of two, so a seed gives other Monte
+// Carlo numbers than 0.4.0; ỹ and u(ỹ) summed in the model kernel itself (u can differ in the last digits).
+export const ENGINE_VERSION = 'dubito-engine/0.5.0';

@@ -40,8 +40,13 @@ export interface CompiledModel {
   /** Every line's value in its unit of `lineUnits`: intermediates in coherent SI units (°C or °F for a temperature on that scale), the last one y. */
   lineValues(x: ArrayLike<number>): number[];
   lineUnits: string[];
-  /** out[offset + t] = f(columns[·][t]) for t < n: the Monte Carlo kernel. */
-  evaluateBlock(columns: readonly Float64Array[], out: Float64Array, offset: number, n: number): void;
+  /**
+   * out[offset + t] = f(columns[·][t]) for t < n: the Monte Carlo kernel. With
+   * `sums` (see BlockSums in montecarlo/summary) it also writes the block's
+   * Σ(y − K), Σ(y − K)², min and max for the shift K = sums[0] in the same
+   * loop, and returns true.
+   */
+  evaluateBlock(columns: readonly Float64Array[], out: Float64Array, offset: number, n: number, sums?: Float64Array): boolean;
   /** ∂f/∂x_i compiled from the symbolic derivative; null where mathjs could not differentiate or the bounds of `symbolic-partials.ts` leave it to differences. */
   partials: (ScalarFunction | null)[];
   /** For each partial, the input indices its code reads (sorted; [] for an unused input, null where there is no symbolic partial). */
@@ -171,17 +176,44 @@ export function compileModel(spec: ModelSpec): CompiledModel {
     'x',
     `"use strict";\n${readScalar}\n${lineCode}\nreturn [${parsed.lines.map((_, i) => stated(i)).join(', ')}];`,
   ) as (x: ArrayLike<number>) => number[];
+  const reads = used.map(({ i }) => `const q${i} = c${i}[t] * ${factors[i]};`).join('\n');
+  // Two loops: the plain one, and one that also gathers the block's moment sums while y is in a register (no second pass).
   const evaluateBlock = new Function(
     'columns',
     'out',
     'offset',
     'n',
+    'sums',
     `"use strict";\n${used.map(({ i }) => `const c${i} = columns[${i}];`).join('\n')}
+if (sums === undefined) {
 for (let t = 0; t < n; t++) {
-${used.map(({ i }) => `const q${i} = c${i}[t] * ${factors[i]};`).join('\n')}
+${reads}
 ${lineCode}
 out[offset + t] = ${last} * ${invScale};
-}`,
+}
+return false;
+}
+const K = sums[0];
+let d = 0;
+let dd = 0;
+let lo = Infinity;
+let hi = -Infinity;
+for (let t = 0; t < n; t++) {
+${reads}
+${lineCode}
+const y = ${last} * ${invScale};
+out[offset + t] = y;
+const e = y - K;
+d += e;
+dd += e * e;
+lo = Math.min(lo, y);
+hi = Math.max(hi, y);
+}
+sums[1] = d;
+sums[2] = dd;
+sums[3] = lo;
+sums[4] = hi;
+return true;`,
   ) as CompiledModel['evaluateBlock'];
 
   const symbolic = symbolicPartials(parsed.lines, inputSymbols, parsed.usedSymbols, factors, constantsSI, invScale);

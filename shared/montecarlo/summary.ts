@@ -83,14 +83,32 @@ export class MomentAccumulator {
   /** Adds values[start..end) (end > start) and returns their mean (NaN or ±∞ when one of them is not finite). */
   add(values: Float64Array, start: number, end: number): number {
     if (this.count === 0) this.shift = values[start];
-    const n = end - start;
     const block = shiftedSums(values, start, end, this.shift);
+    return this.addSums(end - start, block.sum, block.sumOfSquares, block.min, block.max);
+  }
+
+  /** Whether the shift K is fixed (some values were added), so that a block's sums about it can be gathered elsewhere. */
+  get hasShift(): boolean {
+    return this.count > 0;
+  }
+
+  /** The shift K about which `addSums` expects the sums. */
+  get shiftValue(): number {
+    return this.shift;
+  }
+
+  /**
+   * Adds a block of n > 0 values given by Σ(y − K), Σ(y − K)², min and max
+   * about this accumulator's shift K (gathered while the values were made, see
+   * BlockSums); returns the block's mean (NaN or ±∞ when a value is not finite).
+   */
+  addSums(n: number, sum: number, sumOfSquares: number, min: number, max: number): number {
     this.count += n;
-    this.sum += block.sum;
-    this.sumOfSquares += block.sumOfSquares;
-    if (block.min < this.min) this.min = block.min;
-    if (block.max > this.max) this.max = block.max;
-    return this.shift + block.sum / n;
+    this.sum += sum;
+    this.sumOfSquares += sumOfSquares;
+    if (min < this.min) this.min = min;
+    if (max > this.max) this.max = max;
+    return this.shift + sum / n;
   }
 
   /**
@@ -117,4 +135,13 @@ export class MomentAccumulator {
     const mean = this.shift + this.sum / M;
     return { mean, standardDeviation: standardDeviationOf(M, this.sumOfSquares - (this.sum * this.sum) / M), min: this.min, max: this.max };
   }
+}
+
+/**
+ * The exchange buffer of a kernel that gathers a block's moment sums while it
+ * evaluates (CompiledModel.evaluateBlock): [0] the shift K (in), then (out)
+ * [1] Σ(y − K), [2] Σ(y − K)², [3] min and [4] max of the block's values.
+ */
+export function blockSums(): Float64Array {
+  return new Float64Array(5);
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { MomentAccumulator, meanAndStandardDeviation } from '../../shared/montecarlo/summary';
+import { compileModel } from '../../shared/model/compile-model';
+import { blockSums, MomentAccumulator, meanAndStandardDeviation } from '../../shared/montecarlo/summary';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
 
 describe('meanAndStandardDeviation (JCGM 101:2008 7.6, eqs. 12–13)', () => {
@@ -55,5 +56,36 @@ describe('MomentAccumulator (JCGM 101:2008 7.6, eqs. 12–13, block by block)', 
   it('returns a non-finite block mean when a value is not finite', () => {
     expect(new MomentAccumulator().add(Float64Array.from([1, NaN, 3]), 0, 3)).toBeNaN();
     expect(new MomentAccumulator().add(Float64Array.from([1, Infinity, 3]), 0, 3)).toBe(Infinity);
+  });
+});
+
+describe('the model kernel gathers a block’s moment sums while it evaluates (JCGM 101:2008 7.6, eqs. 12–13)', () => {
+  it('gives the same values and the same Σ(y − K), Σ(y − K)², min and max as a separate pass', () => {
+    const model = compileModel({ model: 'y = a * b / (1 + b^2)', measurand: { symbol: 'y' }, inputs: [{ symbol: 'a' }, { symbol: 'b' }], constants: [] });
+    const n = 1001;
+    const a = new Float64Array(n);
+    const b = new Float64Array(n);
+    new UniformGenerator('kernel-a').fill(a, n, 10, 1);
+    new UniformGenerator('kernel-b').fill(b, n, -2, 4);
+    const plain = new Float64Array(n);
+    const fused = new Float64Array(n);
+    expect(model.evaluateBlock([a, b], plain, 0, n)).toBe(false);
+    const sums = blockSums();
+    const K = 1.5;
+    sums[0] = K;
+    expect(model.evaluateBlock([a, b], fused, 0, n, sums)).toBe(true);
+    expect(Array.from(fused)).toEqual(Array.from(plain));
+    let d = 0;
+    let dd = 0;
+    for (const y of plain) {
+      d += y - K;
+      dd += (y - K) ** 2;
+    }
+    expect(sums[1]).toBeCloseTo(d, 10);
+    expect(sums[2]).toBeCloseTo(dd, 10);
+    expect(sums[3]).toBe(Math.min(...plain));
+    expect(sums[4]).toBe(Math.max(...plain));
+    // Checked by hand: a = 10.5, b = 1 gives 10.5·1/2.
+    expect(model.value([10.5, 1])).toBe(5.25);
   });
 });
