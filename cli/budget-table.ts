@@ -47,7 +47,7 @@ export function formatBudgetTable(doc: BudgetDocument, result: BudgetResult): st
     `U from ${rf.basisWords}`,
     ...rf.notes,
   ];
-  for (const r of b.rows) for (const w of r.warnings) lines.push(`warning (${r.symbol}): ${w}`);
+  for (const r of b.rows) for (const w of r.warnings) lines.push(`warning (${r.symbol}): ${w.message}`);
   if (rf.secondOrder) lines.push(`u_c with second-order terms = ${withUnit(rf.secondOrder, unit).text}`);
   if (m.monteCarlo) {
     const mc = m.monteCarlo;
@@ -57,6 +57,6 @@ export function formatBudgetTable(doc: BudgetDocument, result: BudgetResult): st
   }
   if (m.validation) lines.push(`${m.validation.headline} ${m.validation.detail.text}`);
   lines.push('', m.statement.text, '', m.caution);
-  for (const w of m.warnings) lines.push(`warning: ${w}`);
+  for (const w of m.warnings) lines.push(`warning: ${w.message}`);
   return `${lines.join('\n')}\n`;
 }

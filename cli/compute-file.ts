@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
-import { BudgetError } from '../shared/budget/budget-error';
+import { BudgetError, type ModelLocation } from '../shared/budget/budget-error';
+import { problemOf } from '../shared/budget/problems';
 import { parseBudgetFile } from '../shared/budget/budget-file';
 import type { BudgetResult } from '../shared/budget/result';
 import type { BudgetDocument } from '../shared/budget/schema';
@@ -12,11 +13,15 @@ export interface RunOptions {
   monteCarlo: boolean;
 }
 
-/** Why a budget gave no result: the engine's code, message and field (null where it names none), or `file_unreadable`, or `internal` for a fault of the program. */
+/**
+ * Why a budget gave no result: the engine's problem (`BudgetProblem`: code, message, field — null where it names none —
+ * and the model location where there is one), or `file_unreadable`, or `internal` for a fault of the program.
+ */
 export interface Refusal {
   code: string;
   message: string;
   field: string | null;
+  location?: ModelLocation;
 }
 
 export type FileOutcome =
@@ -42,7 +47,10 @@ export function computeFile(file: string, options: RunOptions): FileOutcome {
     const result = computeBudget(document, options);
     return { file, document, result };
   } catch (e) {
-    if (e instanceof BudgetError) return { file, error: { code: e.code, message: e.message, field: e.field ?? null } };
+    if (e instanceof BudgetError) {
+      const p = problemOf(e);
+      return { file, error: { ...p, field: p.field || null } };
+    }
     return { file, error: { code: 'internal', message: `internal error: ${(e as Error)?.message ?? String(e)}`, field: null } };
   }
 }

@@ -4,6 +4,7 @@ import { validateBudget } from '../../shared/budget/budget-file';
 import { DEFAULTS } from '../../shared/budget/limits';
 import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
+import { readStoredResult } from '../../shared/budget/stored-result';
 import type { ComputeSupervisor } from '../compute/supervisor';
 import { canEditBudget, isEditableStatus } from '../../shared/policy/policy';
 import type { AuditService } from '../audit/audit-service';
@@ -220,7 +221,7 @@ export class BudgetsService {
 
   get(id: number): BudgetView {
     const row = this.current(id);
-    return { ...this.head(row), document: JSON.parse(row.version.document) as BudgetDocument, result: JSON.parse(row.version.result) as BudgetResult };
+    return { ...this.head(row), document: JSON.parse(row.version.document) as BudgetDocument, result: readStoredResult(row.version.result) };
   }
 
   /**
@@ -250,7 +251,7 @@ export class BudgetsService {
     const named = getVersionNamed(this.db, id, n);
     if (!named) throw new NotFoundError(`budget ${id} has no version ${n}`);
     const v = named.version;
-    return { budgetId: id, ...metaNamed(v, named.authorName, named.approverName), document: JSON.parse(v.document) as BudgetDocument, result: JSON.parse(v.result) as BudgetResult };
+    return { budgetId: id, ...metaNamed(v, named.authorName, named.approverName), document: JSON.parse(v.document) as BudgetDocument, result: readStoredResult(v.result) };
   }
 
   /** The difference of two versions, computed in a worker; versions larger together than `diffMaxBytes` are refused. */

@@ -1,7 +1,7 @@
 import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { BudgetError, type BudgetErrorCode } from '../../shared/budget/budget-error';
+import { BudgetError, type BudgetErrorCode, type ModelLocation } from '../../shared/budget/budget-error';
 import { AppError, BusyError, UnavailableError, UnprocessableError } from '../http/errors';
 import type { TaskMessage, TaskReply } from './task-worker';
 import { TASK_WORDS, type TaskInput, type TaskKind, type TaskOutput } from './tasks';
@@ -293,8 +293,8 @@ export class ComputeSupervisor {
 }
 
 /** A worker's refusal as the server's typed error. */
-function refusal(kind: TaskKind, e: { name: string; code?: string; message: string; field?: string }): Error {
-  if (e.name === 'BudgetError') return new BudgetError((e.code ?? 'invalid_file') as BudgetErrorCode, e.message, e.field);
+function refusal(kind: TaskKind, e: { name: string; code?: string; message: string; field?: string; location?: ModelLocation }): Error {
+  if (e.name === 'BudgetError') return new BudgetError((e.code ?? 'invalid_file') as BudgetErrorCode, e.message, e.field, e.location);
   if (e.name === 'RangeError' && /call stack|memory|Invalid (array|string) length/i.test(e.message)) {
     return new UnprocessableError('too_large_to_compute', `${TASK_WORDS[kind].what} is too large to compute: ${e.message}`);
   }

@@ -8,6 +8,7 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import type { TaskInput, TaskKind, TaskOutput } from './tasks';
+import type { ModelLocation } from '../../shared/budget/budget-error';
 
 interface Engine {
   computeBudget(doc: TaskInput<'budget'>['document'], options?: { trialsCap?: number }): TaskOutput<'budget'>;
@@ -21,7 +22,7 @@ export interface TaskMessage<K extends TaskKind = TaskKind> {
 
 export type TaskReply =
   | { id: number; ok: true; output: unknown }
-  | { id: number; ok: false; error: { name: string; code?: string; message: string; field?: string } };
+  | { id: number; ok: false; error: { name: string; code?: string; message: string; field?: string; location?: ModelLocation } };
 
 const port = parentPort!;
 const engine = (await import((workerData as { engineModule: string }).engineModule)) as Engine;
@@ -46,11 +47,11 @@ port.on('message', async (task: TaskMessage) => {
     const run = runners[task.kind] as (input: unknown) => unknown;
     reply = { id: task.id, ok: true, output: await run(task.input) };
   } catch (e) {
-    const err = e as { name?: string; code?: string; message?: string; field?: string };
+    const err = e as { name?: string; code?: string; message?: string; field?: string; location?: ModelLocation };
     reply = {
       id: task.id,
       ok: false,
-      error: { name: err?.name ?? 'Error', code: err?.code, message: String(err?.message ?? e), field: err?.field },
+      error: { name: err?.name ?? 'Error', code: err?.code, message: String(err?.message ?? e), field: err?.field, location: err?.location },
     };
   }
   try {

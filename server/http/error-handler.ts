@@ -1,10 +1,15 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import multer from 'multer';
 import { BudgetError } from '../../shared/budget/budget-error';
+import { problemOf, type BudgetProblem } from '../../shared/budget/problems';
 import { AppError, MalformedUploadError, NotFoundError, RetryLaterError, StorageFullError, StorageReadOnlyError, UnavailableError } from './errors';
 
+/**
+ * Every error answer. A budget the engine refuses (422) answers its `BudgetProblem`:
+ * `code`, `field` ('' for the budget as a whole), `location` in the model where there is one, `message`.
+ */
 export interface ErrorBody {
-  error: { code: string; message: string; field?: string; [k: string]: unknown };
+  error: { code: string; message: string; field?: string; [k: string]: unknown } | BudgetProblem;
 }
 
 function body(code: string, message: string, field?: string, extra?: Record<string, unknown>): ErrorBody {
@@ -51,7 +56,7 @@ export function errorHandler(log: (msg: string, err: unknown) => void): ErrorReq
       return;
     }
     if (err instanceof BudgetError) {
-      res.status(422).json(body(err.code, err.message, err.field));
+      res.status(422).json({ error: problemOf(err) } satisfies ErrorBody);
       return;
     }
     if (err instanceof multer.MulterError) {

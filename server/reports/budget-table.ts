@@ -133,7 +133,7 @@ export function budgetTable(c: Cursor, m: ResultModel): void {
   drawHead();
   const totalsH = 13 * 4 + 4;
   b.rows.forEach((row, index) => {
-    const warnH = row.warnings.reduce((s, w) => s + drawParagraph(doc, `⚠ ${w}`, 0, 0, c.width - 14, STYLE.small, { markup: false, dryRun: true }), 0);
+    const warnH = row.warnings.reduce((s, w) => s + drawParagraph(doc, `⚠ ${w.message}`, 0, 0, c.width - 14, STYLE.small, { markup: false, dryRun: true }), 0);
     const h = 28 + warnH;
     // the last input keeps the totals with it
     if (c.y + h + (index === b.rows.length - 1 ? totalsH : 0) > c.doc.page.height - 68) {
@@ -165,8 +165,8 @@ export function budgetTable(c: Cursor, m: ResultModel): void {
     drawLine(doc, row.dof.markup, at('dof', 'right'), base, cell, { align: 'right' });
     c.y = top + 28;
     for (const w of row.warnings) {
-      const wh = drawParagraph(doc, `⚠ ${w}`, 0, 0, c.width - 14, STYLE.small, { markup: false, dryRun: true });
-      drawParagraph(doc, `⚠ ${w}`, c.left + 10, c.y - 2, c.width - 14, { ...STYLE.small, color: COLOR.warning }, { markup: false });
+      const wh = drawParagraph(doc, `⚠ ${w.message}`, 0, 0, c.width - 14, STYLE.small, { markup: false, dryRun: true });
+      drawParagraph(doc, `⚠ ${w.message}`, c.left + 10, c.y - 2, c.width - 14, { ...STYLE.small, color: COLOR.warning }, { markup: false });
       c.y += wh;
     }
     rule(doc, c.left, c.right, c.y, COLOR.hairline, 0.5);

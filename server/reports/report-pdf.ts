@@ -9,7 +9,7 @@ import { COLOR, Cursor, STYLE, rule } from './layout';
 import { drawLine, drawParagraph, registerFonts } from './pdf-text';
 import type { ReportData } from './report-data';
 import { footers, titleBlock } from './title-block';
-import { formatDate, formatMoment, groupNumbersIn, plainText } from './typeset';
+import { formatDate, formatMoment, plainText } from './typeset';
 
 function warningsSection(c: Cursor, m: ResultModel): void {
   const beside = m.budget.rows.some((r) => r.warnings.length);
@@ -17,7 +17,7 @@ function warningsSection(c: Cursor, m: ResultModel): void {
     c.paragraph(beside ? 'The warnings of this version stand beside the inputs they concern in the budget.' : 'The engine raised no warnings for this version.', { ...STYLE.body, color: COLOR.muted });
     return;
   }
-  for (const w of m.warnings.map((t) => groupNumbersIn(t))) {
+  for (const w of m.warnings.map((t) => t.message)) {
     const h = drawParagraph(c.doc, w, 0, 0, c.width - 14, STYLE.body, { markup: false, dryRun: true });
     c.need(h);
     c.doc.save().rect(c.left, c.y + 3, 3, h - 4).fill(COLOR.warning).restore();

@@ -5,6 +5,7 @@ import { resultStatement } from '../../shared/gum/statement';
 import type { Comment, NewComment, ReviewQueueItem, ReviewState, SigningCaveat, TransitionOutput, TransitionTarget } from '../../shared/api/reviews';
 import type { BudgetResult, ValidationVerdict } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
+import { readStoredResult } from '../../shared/budget/stored-result';
 import { canApprove, canResolveComment, canReturn, canSubmit, type BudgetStatus } from '../../shared/policy/policy';
 import type { AccountsService } from '../accounts/accounts-service';
 import type { AuditService } from '../audit/audit-service';
@@ -146,14 +147,14 @@ export class ReviewsService {
     const b = this.d.budgets.requireBudget(budgetId);
     const db = this.d.db;
     const v = this.d.budgets.requireVersion(budgetId, b.currentVersion);
-    const result = JSON.parse(v.result) as BudgetResult;
+    const result = readStoredResult(v.result);
     const open = openThreads(db, budgetId);
     const decisions = listDecisions(db, budgetId);
     const lastDecision = decisions[decisions.length - 1];
     const seen = lastVersionSeenBy(db, budgetId, actor.id, b.currentVersion);
     const approved = b.approvedVersion !== null && b.approvedVersion < b.currentVersion ? b.approvedVersion : null;
     const baseline = seen !== null ? { version: seen, basis: 'seen' as const } : approved !== null ? { version: approved, basis: 'approved' as const } : null;
-    const load = (x: VersionRow) => ({ number: x.number, document: JSON.parse(x.document) as Record<string, unknown>, result: JSON.parse(x.result) as BudgetResult });
+    const load = (x: VersionRow) => ({ number: x.number, document: JSON.parse(x.document) as Record<string, unknown>, result: readStoredResult(x.result) });
     const changes = baseline && baseline.version < b.currentVersion ? diffBudgets(load(this.d.budgets.requireVersion(budgetId, baseline.version)), load(v)) : null;
     return {
       budgetId,
@@ -211,7 +212,7 @@ export class ReviewsService {
         );
       }
       if (b.status !== 'in_review') throw illegal();
-      const caveats = signingCaveats(openThreads(this.d.db, budgetId).length, JSON.parse(v.result) as BudgetResult);
+      const caveats = signingCaveats(openThreads(this.d.db, budgetId).length, readStoredResult(v.result));
       if (caveats.length && !reason) {
         throw new ValidationError(`say why you approve although ${caveats.map((c) => c.message).join(', and ')}`, 'reason', 'reason_required');
       }
@@ -230,7 +231,7 @@ export class ReviewsService {
       const n = now.currentVersion;
       // the state the decision was taken in, judged again inside the transaction
       const open = openThreads(tx, budgetId).length;
-      const stored = JSON.parse(this.d.budgets.requireVersion(budgetId, n, tx).result) as BudgetResult;
+      const stored = readStoredResult(this.d.budgets.requireVersion(budgetId, n, tx).result);
       const verdict = verdictOf(stored)?.verdict ?? null;
       // a thread opened since the check above still needs its reason
       if (input.to === 'approved' && !reason && signingCaveats(open, stored).length) {

@@ -1,5 +1,6 @@
 /** Payloads of the review routes (comments, replies, transitions, review state, queue). Types only. */
 import type { GumResult, ReportedResult, ValidationVerdict } from '../budget/result';
+import type { BudgetWarning } from '../budget/warnings';
 import type { BudgetStatus } from '../policy/policy';
 import type { BudgetDiff } from './diff';
 
@@ -95,7 +96,8 @@ export interface ReviewState {
   result: { measurand: { symbol: string; unit?: string }; gum: GumResult; reported: ReportedResult | null; statement: string };
   /** Clause 8 verdict of the stored result; null when it has no Monte Carlo run. */
   validation: { verdict: ValidationVerdict; reason: string | null } | null;
-  warnings: string[];
+  /** The stored result's warnings, each with its code (old stored ones as `recorded`). */
+  warnings: BudgetWarning[];
   evidence: EvidenceRef[];
   /**
    * What the caller compares against: the last version they commented on, returned or

@@ -1,20 +1,6 @@
-import type { z } from 'zod';
 import { BudgetError } from './budget-error';
+import { problemError, problemOfIssue, type BudgetProblem } from './problems';
 import { budgetDocumentSchema, type BudgetDocument } from './schema';
-
-/** Renders a zod path as the budget file writes it: `inputs[2].distribution.u`. */
-export function fieldPath(path: readonly PropertyKey[]): string {
-  return path
-    .map((p, i) => (typeof p === 'number' ? `[${p}]` : i === 0 ? String(p) : `.${String(p)}`))
-    .join('');
-}
-
-function firstIssue(error: z.ZodError): BudgetError {
-  const issue = error.issues[0];
-  const field = fieldPath(issue.path);
-  const message = field ? `${field}: ${issue.message}` : issue.message;
-  return new BudgetError('invalid_field', message, field || undefined);
-}
 
 /**
  * Validates a parsed budget file (any JSON value) against format v1.
@@ -22,15 +8,15 @@ function firstIssue(error: z.ZodError): BudgetError {
  */
 export function validateBudget(value: unknown): BudgetDocument {
   const parsed = budgetDocumentSchema.safeParse(value);
-  if (!parsed.success) throw firstIssue(parsed.error);
+  if (!parsed.success) throw problemError(problemOfIssue(parsed.error.issues[0]));
   return parsed.data;
 }
 
 /** All problems of a budget at once, for forms that mark every field. */
-export function budgetProblems(value: unknown): { field: string; message: string }[] {
+export function budgetProblems(value: unknown): BudgetProblem[] {
   const parsed = budgetDocumentSchema.safeParse(value);
   if (parsed.success) return [];
-  return parsed.error.issues.map((i) => ({ field: fieldPath(i.path), message: i.message }));
+  return parsed.error.issues.map(problemOfIssue);
 }
 
 /** Parses the text of a budget file. */

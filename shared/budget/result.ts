@@ -1,3 +1,5 @@
+import type { BudgetWarning } from './warnings';
+
 /** The result object of a computed budget (what `dubito compute` prints). */
 export interface Contribution {
   symbol: string;
@@ -192,5 +194,6 @@ export interface BudgetResult {
    * (`gum.unreportable`) and no Monte Carlo run was made to replace them.
    */
   reported?: ReportedResult | null;
-  warnings: string[];
+  /** Each with its code (`WarningCode`); results stored before codes are read by `readResult` (`stored-result.ts`). */
+  warnings: BudgetWarning[];
 }

@@ -2,6 +2,7 @@ import { BudgetError } from '../budget/budget-error';
 import { DEFAULTS, LIMITS } from '../budget/limits';
 import type { BudgetResult, MonteCarloResult, UndefinedMoments, ValidationResult } from '../budget/result';
 import type { BudgetDocument } from '../budget/schema';
+import { budgetWarning, inputWarning, inputsWarning, type BudgetWarning } from '../budget/warnings';
 import { gumTreatment, inputKurtosis, samplerFor } from '../distributions/registry';
 import { inValueUnit } from '../distributions/uncertainty-unit';
 import { propagateGum, type GumInput } from '../gum/propagate';
@@ -131,22 +132,22 @@ function undefinedMomentsOf(symbols: string[], samplers: (Sampler | null)[]): Un
 }
 
 /** Warnings for the inputs drawn from t with ν ≤ 2 (see undefinedMomentsOf): few observations, or a small stated ν. */
-function fewDegreesOfFreedomWarnings(doc: BudgetDocument, samplers: (Sampler | null)[]): string[] {
-  const warnings: string[] = [];
+function fewDegreesOfFreedomWarnings(doc: BudgetDocument, samplers: (Sampler | null)[]): BudgetWarning[] {
+  const warnings: BudgetWarning[] = [];
   doc.inputs.forEach((q, i) => {
     const dof = samplers[i]?.tDof;
     if (dof === undefined || dof > 2) return;
     const d = q.distribution;
     const n = d.kind === 'observations' ? d.values.length : 0;
-    warnings.push(
+    const message =
       (d.kind === 'observations' && n - 1 === dof
         ? `The input "${q.symbol}" has only ${n} observations (ν = ${dof}): `
         : `The input "${q.symbol}" is drawn from a t-distribution with ν = ${dofFigure(dof).text} ≤ 2: `) +
         'a t-distribution with ν ≤ 2 has no variance, so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). ' +
         (d.kind === 'observations' && n - 1 === dof
           ? 'Take at least 4 observations, or give a pooled standard deviation with its degrees of freedom.'
-          : 'Check the stated degrees of freedom.'),
-    );
+          : 'Check the stated degrees of freedom.');
+    warnings.push(inputWarning('dof-undefined-variance', message, q.symbol, i));
   });
   return warnings;
 }
@@ -166,10 +167,10 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     inputs: doc.inputs.map((q) => ({ symbol: q.symbol, unit: q.unit })),
     constants: constants.map((c) => ({ symbol: c.symbol, unit: c.unit, value: c.value })),
   });
-  const warnings: string[] = [];
-  for (const q of doc.inputs) {
-    if (!model.usedSymbols.has(q.symbol)) warnings.push(`The input "${q.symbol}" does not appear in the model.`);
-  }
+  const warnings: BudgetWarning[] = [];
+  doc.inputs.forEach((q, i) => {
+    if (!model.usedSymbols.has(q.symbol)) warnings.push(inputWarning('input-not-in-model', `The input "${q.symbol}" does not appear in the model.`, q.symbol, i));
+  });
 
   // Uncertainties stated in their own unit are taken into the value's unit once, refused with the field that names them.
   const distributions = doc.inputs.map((q, i) => inValueUnit(q.distribution, q.unit, `inputs[${i}].distribution`));
@@ -209,11 +210,15 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     const seed = String(options.seed ?? doc.monteCarlo?.seed ?? DEFAULTS.seed);
     const cap = Math.min(options.trialsCap ?? LIMITS.trials, LIMITS.trials);
     const significantDigits = doc.monteCarlo?.significantDigits ?? DEFAULTS.significantDigits;
-    const withDof = correlatedIndices.filter((i) => doc.inputs[i].distribution.dof !== undefined).map((i) => `"${doc.inputs[i].symbol}"`);
+    const withDof = correlatedIndices.filter((i) => doc.inputs[i].distribution.dof !== undefined).map((i) => doc.inputs[i].symbol);
     if (withDof.length) {
       warnings.push(
-        `The correlated inputs ${withDof.join(', ')} state degrees of freedom but are drawn jointly from a Gaussian (JCGM 101:2008 6.4.8), not from t; ` +
-          'the Monte Carlo interval may be narrower than the GUM one.',
+        inputsWarning(
+          'correlated-drawn-gaussian',
+          `The correlated inputs ${withDof.map((s) => `"${s}"`).join(', ')} state degrees of freedom but are drawn jointly from a Gaussian (JCGM 101:2008 6.4.8), not from t; ` +
+            'the Monte Carlo interval may be narrower than the GUM one.',
+          withDof,
+        ),
       );
     }
     const plan: MonteCarloPlan = {
@@ -237,8 +242,11 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     const adaptive = requested === 'adaptive' && !undefinedMoments;
     if (requested === 'adaptive' && undefinedMoments) {
       warnings.push(
-        `The adaptive Monte Carlo procedure judges stability by the standard uncertainty, which does not exist here; ` +
-          `${Math.min(DEFAULTS.trials, cap)} trials were run instead (JCGM 101:2008 7.9.4).`,
+        budgetWarning(
+          'adaptive-not-possible',
+          `The adaptive Monte Carlo procedure judges stability by the standard uncertainty, which does not exist here; ` +
+            `${Math.min(DEFAULTS.trials, cap)} trials were run instead (JCGM 101:2008 7.9.4).`,
+        ),
       );
     }
     const trials = requested === 'adaptive' ? DEFAULTS.trials : requested;
@@ -250,14 +258,16 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
         'monteCarlo.trials',
       );
     }
-    if (!adaptive && trials > cap) warnings.push(`Monte Carlo trials capped at ${cap} (requested ${trials}).`);
+    if (!adaptive && trials > cap) warnings.push(budgetWarning('monte-carlo-trials-capped', `Monte Carlo trials capped at ${cap} (requested ${trials}).`));
     const run = runMethod(() =>
       adaptive
         ? runAdaptiveMonteCarlo(plan, { ...common, significantDigits, maxTrials: cap })
         : runMonteCarlo(plan, { ...common, trials: Math.min(trials, cap) }),
     );
     if (run.adaptive && !run.adaptive.stabilized) {
-      warnings.push(`The adaptive Monte Carlo procedure did not stabilise within ${cap} trials; the results are less reliable than requested.`);
+      warnings.push(
+        budgetWarning('monte-carlo-not-stable', `The adaptive Monte Carlo procedure did not stabilise within ${cap} trials; the results are less reliable than requested.`),
+      );
     }
     monteCarlo = {
       trials: run.trials,
@@ -293,7 +303,7 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
         verdict: same ? 'validated' : 'not-validated',
         reason: 'every Monte Carlo trial gave the same value (u = 0): the intervals are compared exactly',
       };
-      warnings.push('Every Monte Carlo trial gave the same value: the measurand does not vary with the inputs, u = 0.');
+      warnings.push(budgetWarning('monte-carlo-constant-output', 'Every Monte Carlo trial gave the same value: the measurand does not vary with the inputs, u = 0.'));
     }
   }
   // Without a Monte Carlo run, unusable GUM figures leave nothing to report: the result says so (null)

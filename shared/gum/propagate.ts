@@ -1,6 +1,7 @@
 import { significantFigure } from '../presentation/figures';
 import { BudgetError } from '../budget/budget-error';
 import type { Contribution, GumResult } from '../budget/result';
+import { budgetWarning, inputWarning, inputsWarning, type BudgetWarning } from '../budget/warnings';
 import type { CompiledModel } from '../model/compile-model';
 import { coverageFactorFor } from '../statistics/student-t';
 import { combinedVariance } from './combined-uncertainty';
@@ -48,8 +49,8 @@ export function propagateGum(
   inputs: readonly GumInput[],
   correlation: readonly (readonly number[])[] | null,
   coverageProbability: number,
-): { result: GumResult; warnings: string[] } {
-  const warnings: string[] = [];
+): { result: GumResult; warnings: BudgetWarning[] } {
+  const warnings: BudgetWarning[] = [];
   const x = inputs.map((q) => q.estimate);
   const u = inputs.map((q) => q.standardUncertainty);
   if (!inputs.some((q) => q.standardUncertainty > 0 && model.usedSymbols.has(q.symbol))) {
@@ -64,12 +65,24 @@ export function propagateGum(
 
   const { coefficients: c, methods, steps, disagreements } = sensitivityCoefficients(model, x, u);
   for (const s of disagreements) {
-    warnings.push(`The symbolic and numerical derivatives for "${s}" disagree: the model may not be smooth at the estimates; check the Monte Carlo result.`);
+    warnings.push(
+      inputWarning(
+        'derivatives-disagree',
+        `The symbolic and numerical derivatives for "${s}" disagree: the model may not be smooth at the estimates; check the Monte Carlo result.`,
+        s,
+        inputs.findIndex((q) => q.symbol === s),
+      ),
+    );
   }
   methods.forEach((m, i) => {
     if (m === 'numeric' && u[i] > 0 && steps[i] > u[i]) {
       warnings.push(
-        `The numerical derivative for "${inputs[i].symbol}" needs a step (${significantFigure(steps[i], 2).text}) wider than u(x) to resolve the model value in floating point: where the model is not smooth within that step, c is an average slope; check the Monte Carlo result.`,
+        inputWarning(
+          'numerical-step-exceeds-u',
+          `The numerical derivative for "${inputs[i].symbol}" needs a step (${significantFigure(steps[i], 2).text}) wider than u(x) to resolve the model value in floating point: where the model is not smooth within that step, c is an average slope; check the Monte Carlo result.`,
+          inputs[i].symbol,
+          i,
+        ),
       );
     }
   });
@@ -91,11 +104,19 @@ export function propagateGum(
   const uncertainInputs = u.filter((ui) => ui > 0).length;
   if (correlation) {
     if (standardUncertainty === 0) {
-      warnings.push('u_c is 0 at first order; the higher-order terms are not evaluated with correlated inputs: check the Monte Carlo result before reporting.');
+      warnings.push(
+        budgetWarning(
+          'first-order-zero-correlated',
+          'u_c is 0 at first order; the higher-order terms are not evaluated with correlated inputs: check the Monte Carlo result before reporting.',
+        ),
+      );
     }
   } else if (uncertainInputs > SECOND_ORDER_MAX_INPUTS) {
     warnings.push(
-      `The higher-order terms (JCGM 100:2008 5.1.2 note) are not evaluated above ${SECOND_ORDER_MAX_INPUTS} inputs with an uncertainty (this budget has ${uncertainInputs}); the Monte Carlo result shows any non-linearity.`,
+      budgetWarning(
+        'second-order-not-evaluated',
+        `The higher-order terms (JCGM 100:2008 5.1.2 note) are not evaluated above ${SECOND_ORDER_MAX_INPUTS} inputs with an uncertainty (this budget has ${uncertainInputs}); the Monte Carlo result shows any non-linearity.`,
+      ),
     );
   } else {
     const partials = model.partials.map((p, i) => {
@@ -108,19 +129,26 @@ export function propagateGum(
     if (terms.omitted.length) {
       secondOrderOmitted = terms.omitted.map((i) => inputs[i].symbol);
       warnings.push(
-        `The higher-order terms leave out ${secondOrderOmitted.map((s) => `"${s}"`).join(', ')}: a t-distribution with ν ≤ 4 has no fourth moment.`,
+        inputsWarning(
+          'second-order-omitted',
+          `The higher-order terms leave out ${secondOrderOmitted.map((s) => `"${s}"`).join(', ')}: a t-distribution with ν ≤ 4 has no fourth moment.`,
+          secondOrderOmitted,
+        ),
       );
     }
     if (standardUncertaintySecondOrder !== null && standardUncertainty > 0 && standardUncertaintySecondOrder > SECOND_ORDER_WARNING_RATIO * standardUncertainty) {
       const pct = String(Math.round((standardUncertaintySecondOrder / standardUncertainty - 1) * 100));
       warnings.push(
-        `Second-order terms (JCGM 100:2008 5.1.2 note) raise the combined standard uncertainty by ${pct} %: the model is markedly non-linear at these estimates; prefer the Monte Carlo result.`,
+        budgetWarning(
+          'second-order-significant',
+          `Second-order terms (JCGM 100:2008 5.1.2 note) raise the combined standard uncertainty by ${pct} %: the model is markedly non-linear at these estimates; prefer the Monte Carlo result.`,
+        ),
       );
     }
   }
 
   const unreportable = firstOrderRefusal(standardUncertainty, standardUncertaintySecondOrder);
-  if (unreportable) warnings.push(`NOT REPORTABLE: ${unreportable.message}`);
+  if (unreportable) warnings.push(budgetWarning('not-reportable', `NOT REPORTABLE: ${unreportable.message}`));
 
   const effectiveDof = effectiveDegreesOfFreedom(
     c,

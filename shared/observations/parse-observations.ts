@@ -12,6 +12,8 @@
  * (50.02 on one line, 50,03 on the next): it says so instead of guessing.
  */
 
+import Papa from 'papaparse';
+
 export type DecimalMark = '.' | ',';
 /** How the cells of a line are separated; null when each line holds one value. */
 export type CellSeparator = '\t' | ';' | ',' | null;
@@ -79,21 +81,21 @@ function unquote(s: string): string {
   return s.length >= 2 && s.startsWith('"') && s.endsWith('"') ? s.slice(1, -1).replace(/""/g, '"').trim() : s;
 }
 
-/** Splits one line at the separator, keeping separators inside double quotes. */
-function splitLine(line: string, separator: CellSeparator): string[] {
-  if (separator === null) return [line.trim()];
-  const cells: string[] = [];
-  let cell = '';
-  let quoted = false;
-  for (const ch of line) {
-    if (ch === '"') quoted = !quoted;
-    if (ch === separator && !quoted) {
-      cells.push(unquote(cell.trim()));
-      cell = '';
-    } else cell += ch;
-  }
-  cells.push(unquote(cell.trim()));
-  return cells;
+const PAPA = { quoteChar: '"', escapeChar: '"', newline: '\n' } as const;
+
+/**
+ * The cells of every line at the separator, each trimmed and unquoted: one
+ * papaparse run over the lines, quotes as RFC 4180 writes them (`"50,02"` is
+ * one cell, `""` inside quotes a quote). A quote left open would join the
+ * lines after it into one row: then each line is split alone, so every row
+ * keeps its line.
+ */
+function splitLines(lines: readonly { text: string }[], separator: CellSeparator): string[][] {
+  if (separator === null) return lines.map((l) => [l.text.trim()]);
+  const config = { ...PAPA, delimiter: separator };
+  const all = lines.length ? Papa.parse<string[]>(lines.map((l) => l.text).join('\n'), config).data : [];
+  const rows = all.length === lines.length ? all : lines.map((l) => Papa.parse<string[]>(l.text, config).data[0] ?? ['']);
+  return rows.map((cells) => cells.map((c) => unquote(c.trim())));
 }
 
 interface Reading {
@@ -104,8 +106,8 @@ interface Reading {
   unread: number;
 }
 
-function read(lines: { line: number; text: string }[], separator: CellSeparator, decimalMark: DecimalMark): Reading {
-  const rows = lines.map((l) => ({ line: l.line, cells: splitLine(l.text, separator) }));
+function read(lines: { line: number; text: string }[], cells: string[][], separator: CellSeparator, decimalMark: DecimalMark): Reading {
+  const rows = lines.map((l, i) => ({ line: l.line, cells: cells[i] }));
   const numbers = rows.map((r) => r.cells.map((c) => (c === '' ? null : readObservationNumber(c, decimalMark))));
   const unread = numbers.reduce((sum, r, i) => sum + r.filter((n, j) => n === null && rows[i].cells[j] !== '').length, 0);
   return { separator, decimalMark, rows, numbers, unread };
@@ -132,23 +134,26 @@ export function readObservationLayout(text: string, maxLines = Infinity): Observ
   const hasTab = lines.some((l) => l.text.includes('\t'));
   const hasSemicolon = lines.some((l) => l.text.includes(';'));
   // commas separate columns only if every line but a first (heading) one has the same number of them
-  const commas = (t: string) => splitLine(t, ',').length - 1;
-  const numberless = (t: string) => [t, ...splitLine(t, ',')].every((c) => readObservationNumber(c, '.') === null && readObservationNumber(c, ',') === null);
-  const tableLines = lines.length > 1 && numberless(lines[0].text) ? lines.slice(1) : lines;
-  const commaTable = commas(tableLines[0]?.text ?? '') > 0 && tableLines.every((l) => commas(l.text) === commas(tableLines[0].text));
+  const commaCells = hasTab || hasSemicolon ? null : splitLines(lines, ',');
+  const commas = (i: number) => (commaCells?.[i].length ?? 1) - 1;
+  const numberless = [lines[0]?.text ?? '', ...(commaCells?.[0] ?? [])].every((c) => readObservationNumber(c, '.') === null && readObservationNumber(c, ',') === null);
+  const headed = lines.length > 1 && numberless;
+  const from = headed ? 1 : 0;
+  const commaTable = from < lines.length && commas(from) > 0 && lines.every((_, i) => i < from || commas(i) === commas(from));
   const separators: CellSeparator[] = hasTab ? ['\t'] : hasSemicolon ? [';'] : commaTable ? [null, ','] : [null];
   const readings: Reading[] = [];
   for (const separator of separators) {
+    const cells = separator === ',' && commaCells ? commaCells : splitLines(lines, separator);
     for (const mark of ['.', ','] as const) {
       // a comma cannot both separate cells and mark decimals
-      if (!(separator === ',' && mark === ',')) readings.push(read(lines, separator, mark));
+      if (!(separator === ',' && mark === ',')) readings.push(read(lines, cells, separator, mark));
     }
   }
   // A first line no reading finds a number in is a heading: it decides nothing about the marks
   // except that a heading with as many commas as every other line names comma-separated columns.
   const heading = lines.length > 1 && readings.every((r) => r.numbers[0].every((n) => n === null));
   const unread = (r: Reading) => r.unread - (heading ? r.rows[0].cells.filter((c) => c !== '').length : 0);
-  const commaHeading = commaTable && tableLines !== lines && commas(lines[0].text) === commas(tableLines[0].text);
+  const commaHeading = commaTable && headed && commas(0) === commas(from);
   const fewest = Math.min(...readings.map(unread));
   let best = readings.filter((r) => unread(r) === fewest);
   // one value per line wins a tie with comma-separated cells, unless a heading names the columns

@@ -1,5 +1,7 @@
 import type { BudgetResult, Contribution, ReportingBasis } from '../budget/result';
 import type { BudgetDocument, InputQuantity } from '../budget/schema';
+import { readResult } from '../budget/stored-result';
+import type { BudgetWarning, WarningCode } from '../budget/warnings';
 import { groupNumbersIn } from '../format/digit-groups';
 import { budgetKindLabel } from '../format/distribution-labels';
 import { symbolMarkup } from '../format/symbols';
@@ -59,6 +61,12 @@ export interface ReportedFigures {
   notes: string[];
 }
 
+/** A warning as the reader sees it: its code, for deciding where and how it shows, and its words with digits grouped. */
+export interface WarningView {
+  code: WarningCode;
+  message: string;
+}
+
 /** One row of the budget: from the value as stated to the share of the variance. */
 export interface BudgetRow {
   symbol: string;
@@ -75,8 +83,8 @@ export interface BudgetRow {
   contribution: Figure;
   share: Figure;
   dof: Figure;
-  /** The engine's warnings that name this input. */
-  warnings: string[];
+  /** The engine's warnings about this input. */
+  warnings: WarningView[];
 }
 
 /** A term of the ranked contributions, largest first, with the running total of the shares. */
@@ -126,8 +134,8 @@ export interface ResultModel {
   budget: BudgetView;
   monteCarlo: MonteCarloView | null;
   validation: VerdictView | null;
-  /** Warnings that name no single input. */
-  warnings: string[];
+  /** Warnings about no input of the budget table. */
+  warnings: WarningView[];
   /** The model as written, and each intermediate quantity's value at the estimates with its unit. */
   model: { text: string; intermediates: { symbol: string; value: Figure }[] };
   /** The constants of the model, one line each: "g_n = 9.806 65 m/s² — standard acceleration of gravity". */
@@ -206,9 +214,10 @@ function statementOf(result: BudgetResult, unit: UnitText): Text {
   return { text, markup };
 }
 
-const mentions = (warning: string, symbol: string) => new RegExp(`(^|[^\\w])${symbol.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}([^\\w]|$)`).test(warning);
+const concerns = (w: BudgetWarning, symbol: string) => w.symbols?.includes(symbol) ?? false;
+const warningView = (w: BudgetWarning): WarningView => ({ code: w.code, message: groupNumbersIn(w.message) });
 
-function budgetRow(c: Contribution, q: InputQuantity | undefined, measurandUnit: string | undefined, warnings: string[]): BudgetRow {
+function budgetRow(c: Contribution, q: InputQuantity | undefined, measurandUnit: string | undefined, warnings: BudgetWarning[]): BudgetRow {
   const unit = unitText(c.unit);
   return {
     symbol: c.symbol,
@@ -224,14 +233,14 @@ function budgetRow(c: Contribution, q: InputQuantity | undefined, measurandUnit:
     contribution: uncertainty(c.contribution),
     share: share(c.varianceShare),
     dof: dof(c.dof),
-    warnings: warnings.filter((w) => mentions(w, c.symbol)),
+    warnings: warnings.filter((w) => concerns(w, c.symbol)).map(warningView),
   };
 }
 
 function budgetView(document: BudgetDocument, result: BudgetResult): BudgetView {
   const g = result.gum;
   const inputs = new Map(document.inputs.map((q) => [q.symbol, q]));
-  const rows = g.contributions.map((c) => budgetRow(c, inputs.get(c.symbol), result.measurand.unit, result.warnings.map(groupNumbersIn)));
+  const rows = g.contributions.map((c) => budgetRow(c, inputs.get(c.symbol), result.measurand.unit, result.warnings));
   const sorted = [...g.contributions].sort((a, b) => b.varianceShare - a.varianceShare || a.symbol.localeCompare(b.symbol));
   let running = 0;
   const ranked = sorted.map((c) => {
@@ -360,7 +369,9 @@ export function modelValues(m: ResultModel): Record<string, string> {
 }
 
 /** Builds what a reader sees of a computed budget: the single source of every figure on screen, paper and terminal. */
-export function presentResult(document: BudgetDocument, result: BudgetResult): ResultModel {
+export function presentResult(document: BudgetDocument, stored: BudgetResult): ResultModel {
+  // a result may come as it was stored, from before warnings had codes
+  const result = readResult(stored);
   const { unit, monteCarlo, validation } = presentMonteCarlo(result, document.measurand.unit);
   const budget = budgetView(document, result);
   const symbols = new Set(result.gum.contributions.map((c) => c.symbol));
@@ -371,7 +382,7 @@ export function presentResult(document: BudgetDocument, result: BudgetResult): R
     budget,
     monteCarlo,
     validation,
-    warnings: result.warnings.filter((w) => ![...symbols].some((s) => mentions(w, s))).map(groupNumbersIn),
+    warnings: result.warnings.filter((w) => ![...symbols].some((s) => concerns(w, s))).map(warningView),
     model: { text: document.model, intermediates: intermediatesView(document, result) },
     constants: constantsView(document),
     correlations: correlationsView(document),

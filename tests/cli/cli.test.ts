@@ -184,6 +184,17 @@ describe('dubito compute on many budgets', () => {
     expect(out[3].result.monteCarlo.seed).toBe('batch-2');
   });
 
+  it('a refused model names its line and column in `location`, and each warning carries its code', () => {
+    const bad = tempFile(JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a + * a', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 0.1 } }] }));
+    const [refused] = lines(dubito('compute', bad, '--format', 'jsonl', '--no-monte-carlo').stdout);
+    expect(refused.error).toMatchObject({ code: 'model_syntax', field: 'model', location: { line: 1, column: expect.any(Number) } });
+    const spare = tempFile(
+      JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 0.1 } }, { symbol: 'b', distribution: { kind: 'normal', value: 1, u: 0.1 } }] }),
+    );
+    const result = JSON.parse(dubito('compute', spare, '--no-monte-carlo').stdout);
+    expect(result.warnings).toEqual([{ code: 'input-not-in-model', message: 'The input "b" does not appear in the model.', symbols: ['b'], field: 'inputs[1]' }]);
+  });
+
   it('names a file it cannot read in its line, with field null, and computes the rest', () => {
     const r = dubito('compute', '/nonexistent/budget.json', 'examples/dc-voltage-10v.json', '--no-monte-carlo');
     expect(r.status).toBe(2);

@@ -112,3 +112,32 @@ describe('parseObservationText', () => {
     expect(r.ambiguity).toBeNull();
   });
 });
+
+describe('quoted cells (RFC 4180 quoting)', () => {
+  it('reads a semicolon file of quoted decimal commas under a quoted heading', () => {
+    const r = parseObservationText(lines('"Reading";"Temp"', '"50,02";"20,1"', '"50,03";"20,2"'));
+    expect([r.separator, r.decimalMark]).toEqual([';', ',']);
+    expect(r.values).toEqual([50.02, 20.1, 50.03, 20.2]);
+    expect(r.ignored).toEqual([{ line: 1, reason: '"Reading", "Temp" are not numbers (read as a heading)' }]);
+  });
+
+  it('reads digit groups and decimal commas in a semicolon file, quoted or not', () => {
+    expect(parseObservationText(lines('1 234,5;1 235,5', '1 236,5;"1 237,5"')).values).toEqual([1234.5, 1235.5, 1236.5, 1237.5]);
+  });
+
+  it('keeps a separator inside quotes within its cell', () => {
+    const layout = readObservationLayout(lines('"Reading, mm",Temp', '50.02,20.1', '50.03,20.2'));
+    expect(layout.separator).toBe(',');
+    expect(layout.rows.map((r) => r.cells)).toEqual([
+      ['Reading, mm', 'Temp'],
+      ['50.02', '20.1'],
+      ['50.03', '20.2'],
+    ]);
+  });
+
+  it('a quote left open joins no lines: every later line keeps its number', () => {
+    const r = parseObservationText(lines('x;"50,02', '50,03;1', '', '50,04;n/a'));
+    expect(r.values).toEqual([50.02, 50.03, 1, 50.04]);
+    expect(r.ignored.map((l) => l.line)).toEqual([1, 4]);
+  });
+});

@@ -38,7 +38,7 @@ describe('Welch–Satterthwaite with correlated inputs: each correlated group is
     // pairwise eq. G.2b with the correlated u_c gave (2 + 2r)²/(2/4): 0.08 at r = −0.9 (k ≈ 10¹⁵) and 28.9 > Σν = 8 at r = +0.9
     expect(r.gum.effectiveDof).toBeCloseTo(4, 12);
     expect(r.gum.coverageFactor).toBeCloseTo(t975(4), 7); // 2.7764451051977934 (scipy.stats.t.ppf)
-    expect(r.warnings.join(' ')).not.toContain('only indicative');
+    expect(r.warnings.map((w) => w.message).join(' ')).not.toContain('only indicative');
   });
 
   it('coefficients of one straight-line fit give ν_eff = n − 2 (JCGM 100:2008 H.3.6, from memory: ν = n − 2 for the predicted correction)', () => {
@@ -130,7 +130,7 @@ describe('only constants in a budget: refused, never an internal error', () => {
       expect(r.monteCarlo!.standardUncertainty).toBe(0);
       // no δ exists at u = 0 (JCGM 101:2008 8.2): the intervals coincide exactly
       expect(r.validation).toMatchObject({ dLow: 0, dHigh: 0, passed: true });
-      expect(r.warnings).toContain('Every Monte Carlo trial gave the same value: the measurand does not vary with the inputs, u = 0.');
+      expect(r.warnings).toContainEqual({ code: 'monte-carlo-constant-output', message: 'Every Monte Carlo trial gave the same value: the measurand does not vary with the inputs, u = 0.' });
     }
   });
 
@@ -185,7 +185,7 @@ describe('higher-order terms (JCGM 100:2008 5.1.2 note) with each input\'s kurto
   it('a t input with ν ≤ 4 has no fourth moment: its terms are left out and named', () => {
     const r = computeBudget(budget('Y = x^2 + z^2', { x: { kind: 'student-t', value: 1, scale: 0.1, dof: 3 } as Distribution, z: N(1, 0.1) }), gumOnly);
     expect(r.gum.secondOrderOmitted).toEqual(['x']);
-    expect(r.warnings.some((w) => w.includes('leave out "x"'))).toBe(true);
+    expect(r.warnings.some((w) => w.code === 'second-order-omitted' && w.message.includes('leave out "x"') && w.symbols?.includes('x'))).toBe(true);
     // only z's terms: 4·0.01 + 4·0.01 + 2·10⁻⁴
     expect(r.gum.standardUncertaintySecondOrder!).toBeCloseTo(Math.sqrt(0.08 + 2e-4), 6);
   });
@@ -202,7 +202,7 @@ describe('higher-order terms (JCGM 100:2008 5.1.2 note) with each input\'s kurto
     // Var(AB) = u_a²u_b² for independent zero-mean inputs (handbook identity): 0.02
     expect(r.gum.standardUncertaintySecondOrder!).toBeCloseTo(0.02, 9);
     expect(r.gum.unreportable?.reason).toBe('first-order-vanishes');
-    expect(r.warnings.some((w) => w.startsWith('NOT REPORTABLE'))).toBe(true);
+    expect(r.warnings.some((w) => w.code === 'not-reportable' && w.message.startsWith('NOT REPORTABLE'))).toBe(true);
   });
 
   it(`above ${SECOND_ORDER_MAX_INPUTS} uncertain inputs the terms are skipped with a note`, () => {
@@ -210,7 +210,7 @@ describe('higher-order terms (JCGM 100:2008 5.1.2 note) with each input\'s kurto
     const inputs = Object.fromEntries(Array.from({ length: n }, (_, i) => [`x${i}`, N(1, 0.01)]));
     const r = computeBudget(budget(`Y = ${Object.keys(inputs).join(' * ')}`, inputs), gumOnly);
     expect(r.gum.standardUncertaintySecondOrder).toBeNull();
-    expect(r.warnings.some((w) => w.includes(`not evaluated above ${SECOND_ORDER_MAX_INPUTS} inputs`))).toBe(true);
+    expect(r.warnings.some((w) => w.code === 'second-order-not-evaluated' && w.message.includes(`not evaluated above ${SECOND_ORDER_MAX_INPUTS} inputs`))).toBe(true);
   });
 });
 
@@ -246,7 +246,7 @@ describe('numerical sensitivity coefficients at 10⁻¹² relative uncertainty (
     expect(Math.abs(centralDifference(m.value, x, 0, s.steps[0]) - 1)).toBeLessThan(1e-7);
     expect(Math.abs(centralDifference(m.value, x, 1, s.steps[1]) / f - 1)).toBeLessThan(1e-7);
     const r = computeBudget(budget('y = f * (1 + delta)', { f: N(f, 1e-5), delta: N(0, 1e-12) }), gumOnly);
-    expect(r.warnings.filter((w) => w.includes('may not be smooth'))).toEqual([]);
+    expect(r.warnings.filter((w) => w.code === 'derivatives-disagree')).toEqual([]);
     expect(r.gum.standardUncertainty).toBeCloseTo(Math.hypot(1e-5, 1e-5), 17);
   });
 
@@ -256,14 +256,14 @@ describe('numerical sensitivity coefficients at 10⁻¹² relative uncertainty (
     expect(Math.abs(r.gum.contributions[0].sensitivity - 1)).toBeLessThan(1e-7);
     expect(Math.abs(r.gum.contributions[1].sensitivity / f - 1)).toBeLessThan(1e-7);
     // the step that resolves f(x) is wider than u: said, since max() may not be smooth within it
-    expect(r.warnings.some((w) => w.includes('numerical derivative for "f" needs a step'))).toBe(true);
+    expect(r.warnings.some((w) => w.code === 'numerical-step-exceeds-u' && w.symbols?.[0] === 'f' && w.message.includes('numerical derivative for "f" needs a step'))).toBe(true);
   });
 
   it('a time-interval model at 10⁻¹²: y = N/f, u(f)/f = 10⁻¹²; c_f = −N/f² (closed form)', () => {
     const r = computeBudget(budget('T = n / f', { n: { kind: 'constant', value: 1e7 } as Distribution, f: N(9999999.999, 1e-5) }), gumOnly);
     const exact = -1e7 / 9999999.999 ** 2;
     expect(Math.abs(r.gum.contributions[1].sensitivity / exact - 1)).toBeLessThan(1e-9);
-    expect(r.warnings.filter((w) => w.includes('may not be smooth'))).toEqual([]);
+    expect(r.warnings.filter((w) => w.code === 'derivatives-disagree')).toEqual([]);
   });
 });
 

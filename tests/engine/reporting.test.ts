@@ -24,7 +24,7 @@ describe('the budget file\'s "reporting" (zod, with messages that say what to do
 
   it('k-fixed needs k, k needs k-fixed, and an unknown basis names the choices', () => {
     expect(budgetProblems({ ...base, reporting: { basis: 'k-fixed' } })).toEqual([
-      { field: 'reporting.k', message: 'is required with basis "k-fixed": give the coverage factor, conventionally 2' },
+      { code: 'invalid_field', field: 'reporting.k', message: 'reporting.k: is required with basis "k-fixed": give the coverage factor, conventionally 2' },
     ]);
     expect(budgetProblems({ ...base, reporting: { k: 2 } })[0]).toMatchObject({ field: 'reporting.basis', message: expect.stringMatching(/must be "k-fixed" when k is given/) });
     expect(budgetProblems({ ...base, reporting: { basis: 'monte-carlo' } })[0].message).toMatch(/set whenNotValidated to "report-monte-carlo"/);
@@ -140,7 +140,7 @@ describe('reportedResult never reports GUM figures the engine knows to be unusab
   it('reports nothing without a Monte Carlo run, and the statement says why and what to do', () => {
     const r = computeBudget(budget(model, { a: N(0, 1) }), { monteCarlo: false });
     expect(r.reported).toBeNull();
-    expect(r.warnings.some((w) => w.startsWith('NOT REPORTABLE'))).toBe(true);
+    expect(r.warnings.some((w) => w.code === 'not-reportable' && w.message.startsWith('NOT REPORTABLE'))).toBe(true);
     expect(resultStatement({ symbol: 'Y' }, r)).toMatch(/^No expanded uncertainty can be stated for Y: .*every sensitivity coefficient vanishes.* Run the Monte Carlo method/);
   });
 

@@ -34,6 +34,6 @@ describe('sensitivity coefficients', () => {
   it('gives a zero coefficient for an input the model does not use, with a warning', () => {
     const r = computeBudget(budget('Y = 2 * a', { a: N(1, 0.1), spare: N(3, 0.1) }), { monteCarlo: false });
     expect(r.gum.contributions[1].sensitivity).toBe(0);
-    expect(r.warnings).toContain('The input "spare" does not appear in the model.');
+    expect(r.warnings).toContainEqual({ code: 'input-not-in-model', message: 'The input "spare" does not appear in the model.', symbols: ['spare'], field: 'inputs[1]' });
   });
 });

@@ -28,4 +28,13 @@ describe('observations CSV with the shared reader', () => {
     expect(() => parseObservations('50.02\n50,03\n')).toThrow(ValidationError);
     expect(() => parseObservations('50.02\n50,03\n')).toThrow(/mixes decimal points and decimal commas/);
   });
+
+  it('picks a quoted heading that holds the separator and an escaped quote', () => {
+    const comma = parseObservations('"Reading, mm",Temp\n50.02,20.1\n50.03,20.2\n', 'Reading, mm');
+    expect(comma.columns).toEqual(['Reading, mm', 'Temp']);
+    expect(comma.values).toEqual([50.02, 50.03]);
+    const quoted = parseObservations('"the ""first"" reading";Temp\n"50,02";20,1\n\n"n/a";20,2\n50,03;20,3\n', 'the "first" reading');
+    expect(quoted.values).toEqual([50.02, 50.03]);
+    expect(quoted.errors).toEqual([{ row: 4, message: '"n/a" is not a number' }]);
+  });
 });

@@ -130,7 +130,7 @@ export function BudgetTable({
                 <tr key={i}>
                   <td colSpan={7} className="px-2 pb-1.5">
                     <p role="note" className="rounded border-l-2 border-caution-500 bg-caution-50 px-2 py-0.5 text-xs text-caution-700">
-                      ⚠ {w}
+                      ⚠ {w.message}
                     </p>
                   </td>
                 </tr>

@@ -1,14 +1,11 @@
 import { useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
-import type { ModelLocation } from '../../../shared/budget/budget-error';
+import { problemWords, type BudgetProblem } from '../../../shared/budget/problems';
 import type { BudgetResult } from '../../../shared/budget/result';
 import type { BudgetDocument } from '../../../shared/budget/schema';
 import { nextUMove, uReadingOf, type UReading } from './u-move';
 
-export interface Problem {
-  field: string;
-  message: string;
-  location?: ModelLocation;
-}
+/** A problem of the draft: placed by `field` (and `location` in the model), never by its words. */
+export type Problem = BudgetProblem;
 
 export interface LiveOutcome {
   /** Field problems by path (`inputs[2].distribution.u`, `model`, `correlations`…). */
@@ -18,11 +15,9 @@ export interface LiveOutcome {
   valid: BudgetDocument | null;
 }
 
-/** The engine's message without the leading field path, which the UI shows by placing it. */
+/** The problem's words without the place it names, which the UI shows by placing it. */
 export function plainMessage(p: Problem): string {
-  const m = p.message;
-  if (p.field && m.startsWith(`${p.field}: `)) return m.slice(p.field.length + 2);
-  return m.replace(/^model line \d+(, column \d+)?: /, '').replace(/^(correlations|model|monteCarlo): /, '');
+  return problemWords(p);
 }
 
 /** One recompute asked of the live worker, and its answer. */
@@ -88,7 +83,7 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
         if (!j) return;
         clearTimeout(j.timer);
         job.current = null;
-        setComputed({ doc: j.doc, outcome: { problems: [{ field: '', message: `the live recompute failed: ${e.message}` }], result: null, valid: null } });
+        setComputed({ doc: j.doc, outcome: { problems: [{ code: 'internal', field: '', message: `the live recompute failed: ${e.message}` }], result: null, valid: null } });
         next();
       };
     }
@@ -130,7 +125,7 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
   const stopNote: Problem[] =
     wasStopped === null
       ? []
-      : [{ field: '', message: `live recompute stopped after ${wasStopped} s: this budget takes too long to compute in the page` }];
+      : [{ code: 'too_large_to_compute', field: '', message: `live recompute stopped after ${wasStopped} s: this budget takes too long to compute in the page` }];
   const outcome: LiveOutcome =
     current ??
     (isStored && stored

@@ -4,8 +4,8 @@
  * budget never freezes the editor, and the page can stop a recompute that
  * takes too long by ending this worker.
  */
-import { BudgetError } from '../../../shared/budget/budget-error';
 import { budgetProblems } from '../../../shared/budget/budget-file';
+import { problemOfFailure } from '../../../shared/budget/problems';
 import type { BudgetDocument } from '../../../shared/budget/schema';
 import { computeBudget } from '../../../shared/compute/compute-budget';
 import type { LiveOutcome, LiveReply, LiveRequest } from './live';
@@ -26,10 +26,7 @@ function evaluateDraft(doc: BudgetDocument): LiveOutcome {
     const result = computeBudget(value as BudgetDocument, { monteCarlo: false });
     return { problems: [], result, valid: value as BudgetDocument };
   } catch (e) {
-    if (e instanceof BudgetError) {
-      return { problems: [{ field: e.field ?? '', message: e.message, location: e.location }], result: null, valid: null };
-    }
-    return { problems: [{ field: '', message: (e as Error).message }], result: null, valid: null };
+    return { problems: [problemOfFailure(e)], result: null, valid: null };
   }
 }
 

@@ -1,3 +1,4 @@
+import type { BudgetProblem } from '../../../shared/budget/problems';
 import type { BudgetResult } from '../../../shared/budget/result';
 import type { BudgetDocument } from '../../../shared/budget/schema';
 
@@ -15,4 +16,4 @@ export type WorkerMessage =
   | { type: 'progress'; done: number; total: number }
   | { type: 'done'; result: BudgetResult; ms: number }
   | { type: 'cancelled'; done: number }
-  | { type: 'error'; message: string; field?: string };
+  | { type: 'error'; problem: BudgetProblem };

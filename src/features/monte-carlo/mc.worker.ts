@@ -1,5 +1,5 @@
 /// <reference lib="webworker" />
-import { BudgetError } from '../../../shared/budget/budget-error';
+import { problemOfFailure } from '../../../shared/budget/problems';
 import { computeBudget } from '../../../shared/compute/compute-budget';
 import { MonteCarloCancelled } from '../../../shared/montecarlo/run-monte-carlo';
 import type { RunRequest, WorkerMessage } from './mc-protocol';
@@ -30,7 +30,6 @@ self.onmessage = (e: MessageEvent<RunRequest>) => {
     post({ type: 'done', result, ms: performance.now() - t0 });
   } catch (err) {
     if (err instanceof MonteCarloCancelled) post({ type: 'cancelled', done: err.done });
-    else if (err instanceof BudgetError) post({ type: 'error', message: err.message, field: err.field });
-    else post({ type: 'error', message: (err as Error).message ?? String(err) });
+    else post({ type: 'error', problem: problemOfFailure(err) });
   }
 };

@@ -39,7 +39,7 @@ export function ResultCard({
     ...(f.coverageFactor ? [{ key: 'k' as const, label: 'k', figure: f.coverageFactor }] : []),
     { key: 'U', label: 'U', figure: f.expandedUncertainty, unit: u },
   ];
-  const secondOrder = model.warnings.find((w) => w.startsWith('Second-order'));
+  const secondOrder = model.warnings.find((w) => w.code === 'second-order-significant');
   const otherWarnings = model.warnings.filter((w) => w !== secondOrder);
   const delta = move ? move.to - move.from : 0;
   return (
@@ -89,13 +89,13 @@ export function ResultCard({
       </div>
       {secondOrder ? (
         <p role="note" className="mt-2 rounded-md border border-caution-500 bg-caution-50 px-2 py-1 text-xs text-caution-700">
-          ⚠ {secondOrder}
+          ⚠ {secondOrder.message}
         </p>
       ) : null}
       <p className="mt-2 text-[11px] leading-snug text-stone-500">{model.caution}</p>
       {otherWarnings.map((w, i) => (
-        <p key={i} role="note" className="mt-2 rounded-md border border-caution-100 bg-caution-50 px-2 py-1 text-xs text-caution-700">
-          ⚠ {w}
+        <p key={i} role="note" data-warning={w.code} className="mt-2 rounded-md border border-caution-100 bg-caution-50 px-2 py-1 text-xs text-caution-700">
+          ⚠ {w.message}
         </p>
       ))}
     </section>

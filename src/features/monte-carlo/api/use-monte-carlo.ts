@@ -40,7 +40,7 @@ export function useMonteCarloRun() {
         setState({ phase: 'cancelled', done: m.done });
         stopWorker();
       } else {
-        setState({ phase: 'error', message: m.message });
+        setState({ phase: 'error', message: m.problem.message });
         stopWorker();
       }
     };

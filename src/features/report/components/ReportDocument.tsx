@@ -288,7 +288,7 @@ export function ReportDocument({
           </h2>
           <ul className="ml-4 list-disc text-sm text-caution-700">
             {m.warnings.map((w, i) => (
-              <li key={i}>{w}</li>
+              <li key={i}>{w.message}</li>
             ))}
           </ul>
         </section>

@@ -92,7 +92,9 @@ export function SigningBrief({ state }: { state: ReviewState }) {
         {state.warnings.length ? (
           <ul className="ml-4 list-disc text-sm text-caution-700">
             {state.warnings.map((w, i) => (
-              <li key={i}>{w}</li>
+              <li key={i} data-warning={w.code}>
+                {w.message}
+              </li>
             ))}
           </ul>
         ) : (
