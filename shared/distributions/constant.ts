@@ -3,6 +3,8 @@ import type { DistributionRule } from './distribution';
 /** Exactly known quantity: x = value, u = 0, ν = ∞; every draw is the value. */
 export const constantRule: DistributionRule<'constant'> = {
   kind: 'constant',
+  label: 'Exact value (no uncertainty)',
+  shortLabel: 'exact',
   treat(spec) {
     return { estimate: spec.value, standardUncertainty: 0, dof: Infinity };
   },
@@ -14,4 +16,13 @@ export const constantRule: DistributionRule<'constant'> = {
       },
     };
   },
+  uncertaintyFields: [],
+  statement: (d, w) => ({ text: `${w.value(d.value)}, exact`, amount: null, divisor: null, divisorText: null }),
+  explainU: () => ({ formula: 'u(xᵢ) = 0', substituted: 'the value is taken as exact', clause: 'GUM 4.1' }),
+  form: {
+    ways: [{ id: 'value', label: 'an exact value', fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }] }],
+    wayOf: () => 'value',
+  },
+  /** The value alone; u is 0 whatever was given. */
+  fromStandardUncertainty: (x) => ({ kind: 'constant', value: x }),
 };

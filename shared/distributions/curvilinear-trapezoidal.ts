@@ -10,6 +10,8 @@ import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratc
  */
 export const curvilinearTrapezoidalRule: DistributionRule<'curvilinear-trapezoidal'> = {
   kind: 'curvilinear-trapezoidal',
+  label: 'Curvilinear trapezoidal',
+  shortLabel: 'curv. trapezoidal',
   treat(spec) {
     const a = spec.halfWidth;
     const d = spec.halfWidthUncertainty;
@@ -34,4 +36,33 @@ export const curvilinearTrapezoidalRule: DistributionRule<'curvilinear-trapezoid
       },
     };
   },
+  uncertaintyFields: ['halfWidth', 'halfWidthUncertainty'],
+  /** ± a with the limits known to ± d; u = √(a²/3 + d²/9), so the divisor of a depends on d/a and is given as a number (JCGM 101:2008 6.4.3). */
+  statement(d, w) {
+    const divisor = Math.sqrt(1 / (1 / 3 + (d.halfWidthUncertainty / d.halfWidth) ** 2 / 9));
+    return {
+      text: `± ${w.uncertainty(d.halfWidth)}, limits known to ± ${w.inUncertaintyUnit(d.halfWidthUncertainty)}`,
+      amount: d.halfWidth,
+      divisor,
+      divisorText: w.fourDigits(divisor),
+    };
+  },
+  explainU: (d, w) => ({
+    formula: 'u(xᵢ) = √(a²/3 + d²/9)',
+    substituted: `u(xᵢ) = √(${w.figure(d.halfWidth)}²/3 + ${w.figure(d.halfWidthUncertainty)}²/9) = ${w.u}`,
+    clause: 'JCGM 101:2008 6.4.3',
+  }),
+  form: {
+    ways: [
+      {
+        id: 'halfWidth',
+        label: 'a half-width ± a around a value',
+        fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }, { name: 'halfWidthUncertainty', label: 'Uncertainty of the half-width d', unit: 'uncertainty', required: true }],
+      },
+    ],
+    wayOf: () => 'halfWidth',
+    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
+  },
+  /** d = 0 and a = u·√3, a rectangle with exact limits (JCGM 101:2008 6.4.3). */
+  fromStandardUncertainty: (x, u) => ({ kind: 'curvilinear-trapezoidal', value: x, halfWidth: u * Math.sqrt(3), halfWidthUncertainty: 0 }),
 };

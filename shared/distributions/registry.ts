@@ -12,7 +12,7 @@ import { constantRule } from './constant';
 import { shapeKurtosis } from './kurtosis';
 import { inValueUnit } from './uncertainty-unit';
 
-/** Every kind of the budget file has its rule; a kind left out fails to compile. */
+/** The one list of distribution kinds: every kind of the budget file has its rule; a kind left out fails to compile. */
 const RULES: { [K in DistributionKind]: DistributionRule<K> } = {
   normal: normalRule,
   rectangular: rectangularRule,
@@ -25,9 +25,18 @@ const RULES: { [K in DistributionKind]: DistributionRule<K> } = {
   constant: constantRule,
 };
 
-function ruleFor<K extends DistributionKind>(spec: DistributionOf<K>): DistributionRule<K> {
+/** The rule of a kind. */
+export function ruleOf<K extends DistributionKind>(kind: K): DistributionRule<K> {
+  return RULES[kind];
+}
+
+/** The rule of a distribution's kind, typed to take that distribution. */
+export function ruleFor<K extends DistributionKind>(spec: DistributionOf<K>): DistributionRule<K> {
   return RULES[spec.kind as K];
 }
+
+/** Every kind, in the order a kind is offered. */
+export const KINDS = Object.keys(RULES) as DistributionKind[];
 
 /**
  * Effective degrees of freedom from the relative uncertainty of u:

@@ -9,6 +9,8 @@ import { fillStudentT } from '../random/student-t-draws';
  */
 export const studentTRule: DistributionRule<'student-t'> = {
   kind: 'student-t',
+  label: 'Student t (scaled, shifted)',
+  shortLabel: 'scaled t',
   treat(spec) {
     return { estimate: spec.value, standardUncertainty: spec.scale, dof: spec.dof };
   },
@@ -22,4 +24,24 @@ export const studentTRule: DistributionRule<'student-t'> = {
       },
     };
   },
+  uncertaintyFields: ['scale'],
+  /** s with its ν, divisor 1 (JCGM 101:2008 6.4.9). */
+  statement: (d, w) => ({ text: `s = ${w.uncertainty(d.scale)}, ν = ${w.number(d.dof)}`, amount: d.scale, divisor: 1, divisorText: '1', statedDof: d.dof }),
+  explainU: (_d, w) => ({ formula: 'u(xᵢ) = s (scale of the t-distribution)', substituted: `u(xᵢ) = ${w.u}`, clause: 'JCGM 101:2008 6.4.9' }),
+  form: {
+    ways: [
+      {
+        id: 'scale',
+        label: 'a scale s with its degrees of freedom',
+        fields: [
+          { name: 'value', label: 'Value', unit: 'value', required: true },
+          { name: 'scale', label: 'Scale s', unit: 'uncertainty', required: true },
+          { name: 'dof', label: 'Degrees of freedom ν', unit: 'dimensionless', required: true },
+        ],
+      },
+    ],
+    wayOf: () => 'scale',
+  },
+  /** s = u with the given ν, or ν = 10 where the old ν was infinite (JCGM 101:2008 6.4.9). */
+  fromStandardUncertainty: (x, u, nu) => ({ kind: 'student-t', value: x, scale: u, dof: Number.isFinite(nu) ? nu : 10 }),
 };

@@ -12,6 +12,8 @@ import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratc
  */
 export const trapezoidalRule: DistributionRule<'trapezoidal'> = {
   kind: 'trapezoidal',
+  label: 'Trapezoidal',
+  shortLabel: 'trapezoidal',
   treat(spec) {
     const { halfWidth: a, beta } = spec;
     return { estimate: spec.value, standardUncertainty: a * Math.sqrt((1 + beta * beta) / 6), dof: Infinity };
@@ -32,4 +34,28 @@ export const trapezoidalRule: DistributionRule<'trapezoidal'> = {
       },
     };
   },
+  uncertaintyFields: ['halfWidth'],
+  /** ± a with β, divisor √(6/(1 + β²)) as a number (GUM 4.3.9 note 2). */
+  statement(d, w) {
+    const divisor = Math.sqrt(6 / (1 + d.beta * d.beta));
+    return { text: `± ${w.uncertainty(d.halfWidth)}, β = ${w.number(d.beta)}`, amount: d.halfWidth, divisor, divisorText: w.fourDigits(divisor) };
+  },
+  explainU: (d, w) => ({
+    formula: 'u(xᵢ) = a · √((1 + β²) / 6)',
+    substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} · √((1 + ${w.figure(d.beta)}²) / 6) = ${w.u}`,
+    clause: 'GUM 4.3.9, JCGM 101:2008 6.4.4',
+  }),
+  form: {
+    ways: [
+      {
+        id: 'halfWidth',
+        label: 'a half-width ± a around a value',
+        fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }, { name: 'beta', label: 'β (top to base ratio, 0 to 1)', unit: 'dimensionless', required: true }],
+      },
+    ],
+    wayOf: () => 'halfWidth',
+    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
+  },
+  /** β = 0.5 and a = u·√(6/(1 + β²)) (GUM 4.3.9 note 2). */
+  fromStandardUncertainty: (x, u) => ({ kind: 'trapezoidal', value: x, halfWidth: u * Math.sqrt(6 / 1.25), beta: 0.5 }),
 };

@@ -11,6 +11,8 @@ import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratc
  */
 export const triangularRule: DistributionRule<'triangular'> = {
   kind: 'triangular',
+  label: 'Triangular',
+  shortLabel: 'triangular',
   treat(spec) {
     return { estimate: spec.value, standardUncertainty: spec.halfWidth / Math.sqrt(6), dof: Infinity };
   },
@@ -29,4 +31,15 @@ export const triangularRule: DistributionRule<'triangular'> = {
       },
     };
   },
+  uncertaintyFields: ['halfWidth'],
+  /** ± a, divisor √6 (GUM 4.3.9). */
+  statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.sqrt(6), divisorText: '√6' }),
+  explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √6', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √6 = ${w.u}`, clause: 'GUM 4.3.9' }),
+  form: {
+    ways: [{ id: 'halfWidth', label: 'a half-width ± a around a value', fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }] }],
+    wayOf: () => 'halfWidth',
+    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
+  },
+  /** a = u·√6 (GUM 4.3.9). */
+  fromStandardUncertainty: (x, u) => ({ kind: 'triangular', value: x, halfWidth: u * Math.sqrt(6) }),
 };
