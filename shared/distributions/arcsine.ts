@@ -1,4 +1,15 @@
+import { z } from 'zod';
+import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
+
+/** The fields of the `arcsine` kind in the budget file, with the messages that say what to write. */
+export const arcsineSchema = z.looseObject({
+  kind: z.literal('arcsine'),
+  value: finite(),
+  halfWidth: positive(),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Arcsine (U-shaped) input on [x − a, x + a]: x = value, u = a/√2, ν = ∞

@@ -1,4 +1,14 @@
+import { z } from 'zod';
+import { finite, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
+
+/** The fields of the `constant` kind in the budget file, with the messages that say what to write. */
+export const constantSchema = z.looseObject({
+  kind: z.literal('constant'),
+  value: finite(),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /** Exactly known quantity: x = value, u = 0, ν = ∞; every draw is the value. */
 export const constantRule: DistributionRule<'constant'> = {
@@ -17,6 +27,9 @@ export const constantRule: DistributionRule<'constant'> = {
     };
   },
   uncertaintyFields: [],
+  check(d, fail) {
+    if (d.uncertaintyUnit !== undefined) fail('uncertaintyUnit', 'a constant has no uncertainty to give a unit to: remove uncertaintyUnit');
+  },
   statement: (d, w) => ({ text: `${w.value(d.value)}, exact`, amount: null, divisor: null, divisorText: null }),
   explainU: () => ({ formula: 'u(xᵢ) = 0', substituted: 'the value is taken as exact', clause: 'GUM 4.1' }),
   form: {

@@ -1,5 +1,17 @@
+import { z } from 'zod';
+import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
 import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
+
+/** The fields of the `curvilinear-trapezoidal` kind in the budget file, with the messages that say what to write. */
+export const curvilinearTrapezoidalSchema = z.looseObject({
+  kind: z.literal('curvilinear-trapezoidal'),
+  value: finite(),
+  halfWidth: positive(),
+  halfWidthUncertainty: finite().refine((d) => d >= 0, { message: 'must not be negative' }),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Rectangular input whose limits are inexactly known: nominal limits
@@ -37,6 +49,9 @@ export const curvilinearTrapezoidalRule: DistributionRule<'curvilinear-trapezoid
     };
   },
   uncertaintyFields: ['halfWidth', 'halfWidthUncertainty'],
+  check(d, fail) {
+    if (d.halfWidthUncertainty > d.halfWidth) fail('halfWidthUncertainty', 'must not exceed halfWidth');
+  },
   /** ± a with the limits known to ± d; u = √(a²/3 + d²/9), so the divisor of a depends on d/a and is given as a number (JCGM 101:2008 6.4.3). */
   statement(d, w) {
     const divisor = Math.sqrt(1 / (1 / 3 + (d.halfWidthUncertainty / d.halfWidth) ** 2 / 9));

@@ -129,6 +129,10 @@ export interface DistributionRule<K extends DistributionKind> {
   /** x, u and ν before any `dof` / `relativeUncertaintyOfU` override. */
   treat(spec: DistributionOf<K>): GumTreatment;
   sampler(spec: DistributionOf<K>): Sampler;
+  /** `dof` is this kind's own ν, not an override of it (so it may come with `relativeUncertaintyOfU`). */
+  ownDof?: true;
+  /** Refusals that involve several fields of the kind (the budget schema calls it); each names its field and says what to do. */
+  check?(spec: DistributionOf<K>, fail: (field: string, message: string) => void): void;
   /** The fields stated in `uncertaintyUnit` when one is given (values, limits and observations never are). */
   uncertaintyFields: readonly Extract<keyof DistributionOf<K>, string>[];
   /** The statement as entered and its divisor (GUM 4.3), the kind's part of `statedValueOf`. */

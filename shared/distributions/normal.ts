@@ -1,9 +1,24 @@
+import { z } from 'zod';
+import { finite, positive, dofOptions, statedOptions, probability } from '../budget/field-schemas';
 import type { DistributionRule, Draft } from './distribution';
 import { roundSignificant } from '../format/significant-digits';
 import { significantFigure } from '../presentation/figures';
 import { fillNormal } from '../random/ziggurat-normal';
 import { fillStudentT } from '../random/student-t-draws';
 import { coverageFactorFor } from '../statistics/student-t';
+
+/** The fields of the `normal` kind in the budget file, with the messages that say what to write. */
+export const normalSchema = z.looseObject({
+  kind: z.literal('normal'),
+  value: finite(),
+  u: positive().optional(),
+  U: positive().optional(),
+  k: positive().optional(),
+  /** Coverage probability of U, given instead of k: k = t_{(1+p)/2}(dof), or z_{(1+p)/2} without dof (GUM G.3, EA-4/02). */
+  p: probability().optional(),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Gaussian input: x = value, u = u or U/k (GUM 4.3.4; k stated, or from the
@@ -45,6 +60,13 @@ export const normalRule: DistributionRule<'normal'> = {
     };
   },
   uncertaintyFields: ['u', 'U'],
+  check(d, fail) {
+    if (d.u !== undefined && (d.U !== undefined || d.k !== undefined || d.p !== undefined)) fail('u', 'give either u, or U with k or p, not both');
+    else if (d.k !== undefined && d.p !== undefined) fail('p', 'give U with its coverage factor k or with its coverage probability p, not both');
+    else if (d.u === undefined && (d.U === undefined || (d.k === undefined && d.p === undefined))) {
+      fail(d.U === undefined ? 'u' : 'k', 'a normal distribution needs u, or U with its coverage factor k or its coverage probability p');
+    }
+  },
   /** u as stated (divisor 1), or U with k, or U with p and ν (the divisor k from `normalCoverageFactor`) (GUM 4.3.3, G.3.4). */
   statement(d, w) {
     if (d.u !== undefined) return { text: `u = ${w.uncertainty(d.u)}`, amount: d.u, divisor: 1, divisorText: '1' };

@@ -1,8 +1,24 @@
+import { z } from 'zod';
+import { finite, positive, degreesOfFreedom, dofOptions, statedOptions } from '../budget/field-schemas';
+import { LIMITS } from '../budget/limits';
 import type { DistributionOf } from '../budget/schema';
 import type { DistributionRule } from './distribution';
 import { fillStudentT } from '../random/student-t-draws';
 import { arithmeticMean, experimentalStandardDeviation } from './type-a';
 import { roundSignificant } from '../format/significant-digits';
+
+/** The fields of the `observations` kind in the budget file, with the messages that say what to write. */
+export const observationsSchema = z.looseObject({
+  kind: z.literal('observations'),
+  values: z
+    .array(finite(), { error: 'must be a list of numbers' })
+    .min(2, { message: 'needs at least 2 observations' })
+    .max(LIMITS.observations, { message: `allows at most ${LIMITS.observations} observations` }),
+  pooledSd: positive().optional(),
+  pooledDof: degreesOfFreedom().optional(),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Input evaluated from n repeated observations (Type A, GUM 4.2):
@@ -30,6 +46,13 @@ export const observationsRule: DistributionRule<'observations'> = {
     };
   },
   uncertaintyFields: ['pooledSd'],
+  check(d, fail) {
+    if ((d.pooledSd === undefined) !== (d.pooledDof === undefined)) {
+      fail(d.pooledSd === undefined ? 'pooledSd' : 'pooledDof', 'pooledSd and pooledDof go together');
+    } else if (d.uncertaintyUnit !== undefined && d.pooledSd === undefined) {
+      fail('uncertaintyUnit', 'observations are in the unit of the value; uncertaintyUnit applies only to pooledSd');
+    }
+  },
   /** n readings with s, or a pooled s_p with its ν; divisor √n (GUM 4.2.3, 4.2.4). */
   statement(d, w) {
     const n = d.values.length;

@@ -1,5 +1,18 @@
+import { z } from 'zod';
+import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionOf } from '../budget/schema';
 import type { DistributionRule, Draft } from './distribution';
+
+/** The fields of the `rectangular` kind in the budget file, with the messages that say what to write. */
+export const rectangularSchema = z.looseObject({
+  kind: z.literal('rectangular'),
+  value: finite().optional(),
+  halfWidth: positive().optional(),
+  lower: finite().optional(),
+  upper: finite().optional(),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Rectangular input on [a₋, a₊]: x = (a₋ + a₊)/2, u = a/√3 with a = (a₊ − a₋)/2,
@@ -26,6 +39,20 @@ export const rectangularRule: DistributionRule<'rectangular'> = {
     };
   },
   uncertaintyFields: ['halfWidth'],
+  check(d, fail) {
+    const byBounds = d.lower !== undefined || d.upper !== undefined;
+    const byWidth = d.value !== undefined || d.halfWidth !== undefined;
+    if (byBounds && byWidth) fail('lower', 'give value with halfWidth, or lower with upper, not both');
+    else if (byBounds) {
+      if (d.lower === undefined) fail('lower', 'is required with upper');
+      else if (d.upper === undefined) fail('upper', 'is required with lower');
+      else if (!(d.lower < d.upper)) fail('upper', 'must be greater than lower');
+    } else if (d.value === undefined) fail('value', 'a rectangular distribution needs value with halfWidth, or lower with upper');
+    else if (d.halfWidth === undefined) fail('halfWidth', 'is required with value');
+    if (d.uncertaintyUnit !== undefined && d.halfWidth === undefined) {
+      fail('uncertaintyUnit', 'lower and upper are in the unit of the value; uncertaintyUnit applies only to halfWidth');
+    }
+  },
   /** Limits a₋ to a₊ or ± a, divisor √3 (GUM 4.3.7); a resolution r, a = r/2, divisor 2√3 (GUM F.2.2.1). */
   statement(d, w) {
     if (d.halfWidth === undefined) {

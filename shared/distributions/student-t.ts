@@ -1,5 +1,17 @@
+import { z } from 'zod';
+import { finite, positive, degreesOfFreedom, relativeUncertaintyOfU, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
 import { fillStudentT } from '../random/student-t-draws';
+
+/** The fields of the `student-t` kind in the budget file, with the messages that say what to write. */
+export const studentTSchema = z.looseObject({
+  kind: z.literal('student-t'),
+  value: finite(),
+  scale: positive(),
+  dof: degreesOfFreedom(),
+  relativeUncertaintyOfU: relativeUncertaintyOfU().optional(),
+  ...statedOptions,
+});
 
 /**
  * Scaled and shifted t input: x = value, u = scale, ν = dof (the GUM
@@ -25,6 +37,7 @@ export const studentTRule: DistributionRule<'student-t'> = {
     };
   },
   uncertaintyFields: ['scale'],
+  ownDof: true,
   /** s with its ν, divisor 1 (JCGM 101:2008 6.4.9). */
   statement: (d, w) => ({ text: `s = ${w.uncertainty(d.scale)}, ν = ${w.number(d.dof)}`, amount: d.scale, divisor: 1, divisorText: '1', statedDof: d.dof }),
   explainU: (_d, w) => ({ formula: 'u(xᵢ) = s (scale of the t-distribution)', substituted: `u(xᵢ) = ${w.u}`, clause: 'JCGM 101:2008 6.4.9' }),

@@ -1,5 +1,17 @@
+import { z } from 'zod';
+import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
 import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
+
+/** The fields of the `trapezoidal` kind in the budget file, with the messages that say what to write. */
+export const trapezoidalSchema = z.looseObject({
+  kind: z.literal('trapezoidal'),
+  value: finite(),
+  halfWidth: positive(),
+  beta: finite().refine((b) => b >= 0 && b <= 1, { message: 'must lie between 0 and 1' }),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Symmetric trapezoidal input on [x − a, x + a] with top/base ratio β:

@@ -1,5 +1,16 @@
+import { z } from 'zod';
+import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
 import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
+
+/** The fields of the `triangular` kind in the budget file, with the messages that say what to write. */
+export const triangularSchema = z.looseObject({
+  kind: z.literal('triangular'),
+  value: finite(),
+  halfWidth: positive(),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Symmetric triangular input on [x − a, x + a]: x = value, u = a/√6, ν = ∞
