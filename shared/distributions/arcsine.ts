@@ -37,6 +37,8 @@ export const arcsineRule: DistributionRule<'arcsine'> = {
     };
   },
   uncertaintyFields: ['halfWidth'],
+  /** β₂ = 3/2 (handbook moments of the arcsine distribution). */
+  kurtosis: () => 3 / 2,
   /** ± a, divisor √2 (JCGM 101:2008 6.4.6). */
   statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.SQRT2, divisorText: '√2' }),
   explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √2', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √2 = ${w.u}`, clause: 'JCGM 101:2008 6.4.6' }),

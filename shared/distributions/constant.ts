@@ -27,6 +27,8 @@ export const constantRule: DistributionRule<'constant'> = {
     };
   },
   uncertaintyFields: [],
+  /** u = 0, so it never enters; 3 by convention. */
+  kurtosis: () => 3,
   check(d, fail) {
     if (d.uncertaintyUnit !== undefined) fail('uncertaintyUnit', 'a constant has no uncertainty to give a unit to: remove uncertaintyUnit');
   },

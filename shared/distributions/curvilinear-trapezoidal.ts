@@ -49,6 +49,17 @@ export const curvilinearTrapezoidalRule: DistributionRule<'curvilinear-trapezoid
     };
   },
   uncertaintyFields: ['halfWidth', 'halfWidthUncertainty'],
+  /**
+   * A rectangle of half-width A uniform in [a − d, a + d] (JCGM 101:2008 6.4.3):
+   * β₂ = 9·E[A⁴] / (5·E[A²]²) with E[A²] = a² + d²/3 and E[A⁴] = a⁴ + 2a²d² + d⁴/5.
+   */
+  kurtosis(spec) {
+    const a = spec.halfWidth;
+    const d = spec.halfWidthUncertainty;
+    const a2 = a * a + (d * d) / 3;
+    const a4 = a ** 4 + 2 * a * a * d * d + d ** 4 / 5;
+    return (9 * a4) / (5 * a2 * a2);
+  },
   check(d, fail) {
     if (d.halfWidthUncertainty > d.halfWidth) fail('halfWidthUncertainty', 'must not exceed halfWidth');
   },

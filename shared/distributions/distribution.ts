@@ -133,6 +133,8 @@ export interface DistributionRule<K extends DistributionKind> {
   ownDof?: true;
   /** Refusals that involve several fields of the kind (the budget schema calls it); each names its field and says what to do. */
   check?(spec: DistributionOf<K>, fail: (field: string, message: string) => void): void;
+  /** Kurtosis β₂ = μ₄/σ⁴ of the shape drawn, with ν the sampler's own (`drawnDof`, never an override); every shape is symmetric. */
+  kurtosis(spec: DistributionOf<K>, drawnDof: number): number;
   /** The fields stated in `uncertaintyUnit` when one is given (values, limits and observations never are). */
   uncertaintyFields: readonly Extract<keyof DistributionOf<K>, string>[];
   /** The statement as entered and its divisor (GUM 4.3), the kind's part of `statedValueOf`. */

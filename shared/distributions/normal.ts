@@ -60,6 +60,8 @@ export const normalRule: DistributionRule<'normal'> = {
     };
   },
   uncertaintyFields: ['u', 'U'],
+  /** β₂ = 3, the Gaussian's, as the higher-order terms take it (also with `dof`). */
+  kurtosis: () => 3,
   check(d, fail) {
     if (d.u !== undefined && (d.U !== undefined || d.k !== undefined || d.p !== undefined)) fail('u', 'give either u, or U with k or p, not both');
     else if (d.k !== undefined && d.p !== undefined) fail('p', 'give U with its coverage factor k or with its coverage probability p, not both');

@@ -46,6 +46,8 @@ export const observationsRule: DistributionRule<'observations'> = {
     };
   },
   uncertaintyFields: ['pooledSd'],
+  /** t with ν degrees of freedom: 3 + 6/(ν − 4) for ν > 4; Infinity for ν ≤ 4, where the fourth moment does not exist. */
+  kurtosis: (_spec, drawnDof) => (drawnDof > 4 ? 3 + 6 / (drawnDof - 4) : Infinity),
   check(d, fail) {
     if ((d.pooledSd === undefined) !== (d.pooledDof === undefined)) {
       fail(d.pooledSd === undefined ? 'pooledSd' : 'pooledDof', 'pooledSd and pooledDof go together');

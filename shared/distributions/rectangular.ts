@@ -39,6 +39,8 @@ export const rectangularRule: DistributionRule<'rectangular'> = {
     };
   },
   uncertaintyFields: ['halfWidth'],
+  /** β₂ = 9/5 (handbook moments of the uniform distribution). */
+  kurtosis: () => 9 / 5,
   check(d, fail) {
     const byBounds = d.lower !== undefined || d.upper !== undefined;
     const byWidth = d.value !== undefined || d.halfWidth !== undefined;

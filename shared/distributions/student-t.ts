@@ -37,6 +37,8 @@ export const studentTRule: DistributionRule<'student-t'> = {
     };
   },
   uncertaintyFields: ['scale'],
+  /** t with ν degrees of freedom: 3 + 6/(ν − 4) for ν > 4; Infinity for ν ≤ 4, where the fourth moment does not exist. */
+  kurtosis: (_spec, drawnDof) => (drawnDof > 4 ? 3 + 6 / (drawnDof - 4) : Infinity),
   ownDof: true,
   /** s with its ν, divisor 1 (JCGM 101:2008 6.4.9). */
   statement: (d, w) => ({ text: `s = ${w.uncertainty(d.scale)}, ν = ${w.number(d.dof)}`, amount: d.scale, divisor: 1, divisorText: '1', statedDof: d.dof }),

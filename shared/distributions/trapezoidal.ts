@@ -47,6 +47,16 @@ export const trapezoidalRule: DistributionRule<'trapezoidal'> = {
     };
   },
   uncertaintyFields: ['halfWidth'],
+  /**
+   * The sum of two rectangles of half-widths a(1+β)/2 and a(1−β)/2 (JCGM 101:2008 6.4.4):
+   * fourth cumulant −(2/15)(a₁⁴ + a₂⁴) against the variance (a₁² + a₂²)/3.
+   */
+  kurtosis(spec) {
+    const a1 = (1 + spec.beta) / 2;
+    const a2 = (1 - spec.beta) / 2;
+    const variance = (a1 ** 2 + a2 ** 2) / 3;
+    return 3 - ((2 / 15) * (a1 ** 4 + a2 ** 4)) / variance ** 2;
+  },
   /** ± a with β, divisor √(6/(1 + β²)) as a number (GUM 4.3.9 note 2). */
   statement(d, w) {
     const divisor = Math.sqrt(6 / (1 + d.beta * d.beta));

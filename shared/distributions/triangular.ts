@@ -43,6 +43,8 @@ export const triangularRule: DistributionRule<'triangular'> = {
     };
   },
   uncertaintyFields: ['halfWidth'],
+  /** β₂ = 12/5 (handbook moments of the symmetric triangular distribution). */
+  kurtosis: () => 12 / 5,
   /** ± a, divisor √6 (GUM 4.3.9). */
   statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.sqrt(6), divisorText: '√6' }),
   explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √6', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √6 = ${w.u}`, clause: 'GUM 4.3.9' }),
