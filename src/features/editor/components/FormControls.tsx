@@ -9,9 +9,24 @@ import type { InputDraft, InputFormValues } from './input-draft';
  * One number of the distribution, registered with the form so the budget
  * schema's message shows beside it (and aria-invalid marks it). The value is
  * the page's, so the live result follows every keystroke; `shownTimes` shows
- * and takes a multiple of the stored field (a resolution r for a = r/2).
+ * and takes a multiple of the stored field (a resolution r for a = r/2);
+ * a field the kind needs is marked aria-required.
  */
-export function NumberField({ draft, name, label, hint, shownTimes = 1 }: { draft: InputDraft; name: string; label: string; hint?: string; shownTimes?: number }) {
+export function NumberField({
+  draft,
+  name,
+  label,
+  hint,
+  shownTimes = 1,
+  required = false,
+}: {
+  draft: InputDraft;
+  name: string;
+  label: string;
+  hint?: string;
+  shownTimes?: number;
+  required?: boolean;
+}) {
   const path = `distribution.${name}`;
   const { fieldState } = useController({ control: draft.control, name: path as FieldPath<InputFormValues> });
   const stored = draft.distribution[name] as number | undefined;
@@ -28,6 +43,7 @@ export function NumberField({ draft, name, label, hint, shownTimes = 1 }: { draf
       {(fp) => (
         <NumberInput
           {...fp}
+          aria-required={required}
           value={shown}
           onValue={(v) => draft.setDistribution({ [name]: v === undefined || shownTimes === 1 ? v : v / shownTimes })}
         />

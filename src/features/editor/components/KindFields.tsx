@@ -25,7 +25,7 @@ export function KindFields({ draft, way, onWay, canUpload }: { draft: InputDraft
       );
     }
     const hint = typeof f.hint === 'function' ? f.hint(d as Draft<DistributionKind>) : f.hintWhileEditing && draft.readOnly ? undefined : f.hint;
-    return <NumberField key={f.name} draft={draft} name={f.name} label={`${f.label}${suffix[f.unit]}`} hint={hint} shownTimes={f.shownTimes} />;
+    return <NumberField key={f.name} draft={draft} name={f.name} label={`${f.label}${suffix[f.unit]}`} hint={hint} shownTimes={f.shownTimes} required={f.required} />;
   };
   return (
     <>
