@@ -1,7 +1,6 @@
 import type { InputQuantity, StatedAs } from './schema';
-import { gumTreatment } from '../distributions/registry';
-import { normalCoverageFactor } from '../distributions/normal';
-import { experimentalStandardDeviation } from '../distributions/type-a';
+import type { StatementWriter } from '../distributions/distribution';
+import { gumTreatment, ruleFor } from '../distributions/registry';
 import { uncertaintyScale } from '../distributions/uncertainty-unit';
 import { significant, writeNumeral } from '../format/significant-digits';
 import { withTrueMinus } from '../format/signs';
@@ -49,11 +48,11 @@ const withUnit = (n: number, unit: string | undefined) => {
 const fourDigits = (x: number) => writeNumeral(significant(x, 4), superscript);
 
 /**
- * The stated value of an input (GUM 4.3: the divisor of each form: U/k for a
- * certificate (4.3.3), a/√3 for limits ± a (4.3.7), r/(2√3) for a resolution r
- * (F.2.2.1), a/√6 triangular (4.3.9), s/√n for n readings (4.2.3)); where U
- * comes with p instead of k, the divisor is k = t_{(1+p)/2}(ν) or z_{(1+p)/2}
- * (`normalCoverageFactor`). The standard uncertainty is the engine's own
+ * The stated value of an input (GUM 4.3): each kind's rule writes its
+ * statement and divisor (`statement`: U/k for a certificate (4.3.3), a/√3 for
+ * limits ± a (4.3.7), r/(2√3) for a resolution r (F.2.2.1), a/√6 triangular
+ * (4.3.9), s/√n for n readings (4.2.3)); this adds the unit as entered and
+ * whether it is relative to the value. The standard uncertainty is the engine's own
  * (`gumTreatment`), in the value's unit. Throws the engine's refusal for an
  * input it cannot treat (an uncertainty unit of the wrong kind).
  */
@@ -69,75 +68,17 @@ export function statedValueOf(input: InputQuantity): StatedValue {
     source: d.stated?.source ?? null,
     amountUnit,
     relative,
-    coverageProbability: null as number | null,
-    statedDof: null as number | null,
     standardUncertainty,
   };
-  const stated = (text: string, amount: number | null, divisor: number | null, divisorText: string | null): StatedValue => ({
-    ...base,
-    text,
-    amount,
-    divisor,
-    divisorText,
-  });
-  switch (d.kind) {
-    case 'normal': {
-      if (d.u !== undefined) return stated(`u = ${withUnit(d.u, amountUnit)}${of}`, d.u, 1, '1');
-      const k = normalCoverageFactor(d) as number;
-      const U = d.U as number;
-      if (d.p !== undefined) {
-        const nu = d.dof !== undefined ? `, ν = ${asEntered(d.dof)}` : '';
-        const rule = d.dof !== undefined ? 't' : 'normal';
-        return {
-          ...stated(`U = ${withUnit(U, amountUnit)}${of}, p = ${probability(d.p).text}${nu} (k = ${fourDigits(k)}, ${rule})`, U, k, fourDigits(k)),
-          coverageProbability: d.p,
-          statedDof: d.dof ?? null,
-        };
-      }
-      const nu = d.dof !== undefined ? `, ν = ${asEntered(d.dof)}` : '';
-      return { ...stated(`U = ${withUnit(U, amountUnit)}${of}, k = ${asEntered(k)}${nu}`, U, k, asEntered(k)), statedDof: d.dof ?? null };
-    }
-    case 'rectangular': {
-      if (d.halfWidth === undefined) {
-        const lower = d.lower as number;
-        const upper = d.upper as number;
-        return stated(`from ${withUnit(lower, input.unit)} to ${withUnit(upper, input.unit)}`, null, Math.sqrt(3), '√3');
-      }
-      if (d.stated?.as === 'resolution') {
-        return stated(`r = ${withUnit(2 * d.halfWidth, amountUnit)}${of} (a = r/2)`, 2 * d.halfWidth, 2 * Math.sqrt(3), '2√3');
-      }
-      return stated(`± ${withUnit(d.halfWidth, amountUnit)}${of}`, d.halfWidth, Math.sqrt(3), '√3');
-    }
-    case 'triangular':
-      return stated(`± ${withUnit(d.halfWidth, amountUnit)}${of}`, d.halfWidth, Math.sqrt(6), '√6');
-    case 'arcsine':
-      return stated(`± ${withUnit(d.halfWidth, amountUnit)}${of}`, d.halfWidth, Math.SQRT2, '√2');
-    case 'trapezoidal': {
-      const divisor = Math.sqrt(6 / (1 + d.beta * d.beta));
-      return stated(`± ${withUnit(d.halfWidth, amountUnit)}${of}, β = ${asEntered(d.beta)}`, d.halfWidth, divisor, fourDigits(divisor));
-    }
-    case 'curvilinear-trapezoidal': {
-      // u = √(a²/3 + d²/9): the divisor of a depends on d/a, so it is given as a number.
-      const divisor = Math.sqrt(1 / (1 / 3 + (d.halfWidthUncertainty / d.halfWidth) ** 2 / 9));
-      return stated(
-        `± ${withUnit(d.halfWidth, amountUnit)}${of}, limits known to ± ${withUnit(d.halfWidthUncertainty, amountUnit)}`,
-        d.halfWidth,
-        divisor,
-        fourDigits(divisor),
-      );
-    }
-    case 'student-t':
-      return { ...stated(`s = ${withUnit(d.scale, amountUnit)}${of}, ν = ${asEntered(d.dof)}`, d.scale, 1, '1'), statedDof: d.dof };
-    case 'observations': {
-      const n = d.values.length;
-      const pooled = d.pooledSd !== undefined;
-      const s = pooled ? (d.pooledSd as number) : experimentalStandardDeviation(d.values);
-      const text = pooled
-        ? `${n} readings, pooled s = ${withUnit(s, amountUnit)}${of} (ν = ${asEntered(d.pooledDof as number)})`
-        : `${n} readings, s = ${writeNumeral(significant(s, 3), superscript)}${unitText(input.unit) ? ` ${unitText(input.unit)}` : ''}`;
-      return stated(text, s, Math.sqrt(n), `√${n}`);
-    }
-    case 'constant':
-      return stated(`${withUnit(d.value, input.unit)}, exact`, null, null, null);
-  }
+  const write: StatementWriter = {
+    uncertainty: (n) => `${withUnit(n, amountUnit)}${of}`,
+    inUncertaintyUnit: (n) => withUnit(n, amountUnit),
+    value: (n) => withUnit(n, input.unit),
+    number: asEntered,
+    fourDigits,
+    probability: (p) => probability(p).text,
+    computed: (x) => `${writeNumeral(significant(x, 3), superscript)}${unitText(input.unit) ? ` ${unitText(input.unit)}` : ''}`,
+  };
+  const { coverageProbability, statedDof, ...statement } = ruleFor(d).statement(d, write);
+  return { ...base, ...statement, coverageProbability: coverageProbability ?? null, statedDof: statedDof ?? null };
 }

@@ -1,4 +1,15 @@
+import { z } from 'zod';
+import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
+
+/** The fields of the `arcsine` kind in the budget file, with the messages that say what to write. */
+export const arcsineSchema = z.looseObject({
+  kind: z.literal('arcsine'),
+  value: finite(),
+  halfWidth: positive(),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Arcsine (U-shaped) input on [x − a, x + a]: x = value, u = a/√2, ν = ∞
@@ -9,6 +20,8 @@ import type { DistributionRule } from './distribution';
  */
 export const arcsineRule: DistributionRule<'arcsine'> = {
   kind: 'arcsine',
+  label: 'Arcsine (U-shaped)',
+  shortLabel: 'arcsine',
   treat(spec) {
     return { estimate: spec.value, standardUncertainty: spec.halfWidth / Math.SQRT2, dof: Infinity };
   },
@@ -23,4 +36,17 @@ export const arcsineRule: DistributionRule<'arcsine'> = {
       },
     };
   },
+  uncertaintyFields: ['halfWidth'],
+  /** β₂ = 3/2 (handbook moments of the arcsine distribution). */
+  kurtosis: () => 3 / 2,
+  /** ± a, divisor √2 (JCGM 101:2008 6.4.6). */
+  statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.SQRT2, divisorText: '√2' }),
+  explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √2', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √2 = ${w.u}`, clause: 'JCGM 101:2008 6.4.6' }),
+  form: {
+    ways: [{ id: 'halfWidth', label: 'a half-width ± a around a value', fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }] }],
+    wayOf: () => 'halfWidth',
+    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
+  },
+  /** a = u·√2 (JCGM 101:2008 6.4.6). */
+  fromStandardUncertainty: (x, u) => ({ kind: 'arcsine', value: x, halfWidth: u * Math.SQRT2 }),
 };

@@ -1,18 +1,34 @@
 import type { Distribution, DistributionKind, DistributionOf } from '../budget/schema';
 import type { DistributionRule, GumTreatment, Sampler } from './distribution';
-import { normalRule } from './normal';
-import { rectangularRule } from './rectangular';
-import { triangularRule } from './triangular';
-import { arcsineRule } from './arcsine';
-import { trapezoidalRule } from './trapezoidal';
-import { curvilinearTrapezoidalRule } from './curvilinear-trapezoidal';
-import { studentTRule } from './student-t';
-import { observationsRule } from './observations';
-import { constantRule } from './constant';
+import { normalRule, normalSchema } from './normal';
+import { rectangularRule, rectangularSchema } from './rectangular';
+import { triangularRule, triangularSchema } from './triangular';
+import { arcsineRule, arcsineSchema } from './arcsine';
+import { trapezoidalRule, trapezoidalSchema } from './trapezoidal';
+import { curvilinearTrapezoidalRule, curvilinearTrapezoidalSchema } from './curvilinear-trapezoidal';
+import { studentTRule, studentTSchema } from './student-t';
+import { observationsRule, observationsSchema } from './observations';
+import { constantRule, constantSchema } from './constant';
 import { shapeKurtosis } from './kurtosis';
 import { inValueUnit } from './uncertainty-unit';
 
-/** Every kind of the budget file has its rule; a kind left out fails to compile. */
+/**
+ * The one list of distribution kinds: the fields of each in the budget file
+ * (the budget schema is their union), and its rule. A kind with fields but no
+ * rule, or a rule without fields, fails to compile.
+ */
+export const DISTRIBUTION_SCHEMAS = [
+  normalSchema,
+  rectangularSchema,
+  triangularSchema,
+  arcsineSchema,
+  trapezoidalSchema,
+  curvilinearTrapezoidalSchema,
+  studentTSchema,
+  observationsSchema,
+  constantSchema,
+] as const;
+
 const RULES: { [K in DistributionKind]: DistributionRule<K> } = {
   normal: normalRule,
   rectangular: rectangularRule,
@@ -25,9 +41,18 @@ const RULES: { [K in DistributionKind]: DistributionRule<K> } = {
   constant: constantRule,
 };
 
-function ruleFor<K extends DistributionKind>(spec: DistributionOf<K>): DistributionRule<K> {
+/** The rule of a kind. */
+export function ruleOf<K extends DistributionKind>(kind: K): DistributionRule<K> {
+  return RULES[kind];
+}
+
+/** The rule of a distribution's kind, typed to take that distribution. */
+export function ruleFor<K extends DistributionKind>(spec: DistributionOf<K>): DistributionRule<K> {
   return RULES[spec.kind as K];
 }
+
+/** Every kind, in the order a kind is offered. */
+export const KINDS = Object.keys(RULES) as DistributionKind[];
 
 /**
  * Effective degrees of freedom from the relative uncertainty of u:

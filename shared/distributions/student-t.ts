@@ -1,5 +1,17 @@
+import { z } from 'zod';
+import { finite, positive, degreesOfFreedom, relativeUncertaintyOfU, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
 import { fillStudentT } from '../random/student-t-draws';
+
+/** The fields of the `student-t` kind in the budget file, with the messages that say what to write. */
+export const studentTSchema = z.looseObject({
+  kind: z.literal('student-t'),
+  value: finite(),
+  scale: positive(),
+  dof: degreesOfFreedom(),
+  relativeUncertaintyOfU: relativeUncertaintyOfU().optional(),
+  ...statedOptions,
+});
 
 /**
  * Scaled and shifted t input: x = value, u = scale, ν = dof (the GUM
@@ -9,6 +21,8 @@ import { fillStudentT } from '../random/student-t-draws';
  */
 export const studentTRule: DistributionRule<'student-t'> = {
   kind: 'student-t',
+  label: 'Student t (scaled, shifted)',
+  shortLabel: 'scaled t',
   treat(spec) {
     return { estimate: spec.value, standardUncertainty: spec.scale, dof: spec.dof };
   },
@@ -22,4 +36,27 @@ export const studentTRule: DistributionRule<'student-t'> = {
       },
     };
   },
+  uncertaintyFields: ['scale'],
+  /** t with ν degrees of freedom: 3 + 6/(ν − 4) for ν > 4; Infinity for ν ≤ 4, where the fourth moment does not exist. */
+  kurtosis: (_spec, drawnDof) => (drawnDof > 4 ? 3 + 6 / (drawnDof - 4) : Infinity),
+  ownDof: true,
+  /** s with its ν, divisor 1 (JCGM 101:2008 6.4.9). */
+  statement: (d, w) => ({ text: `s = ${w.uncertainty(d.scale)}, ν = ${w.number(d.dof)}`, amount: d.scale, divisor: 1, divisorText: '1', statedDof: d.dof }),
+  explainU: (_d, w) => ({ formula: 'u(xᵢ) = s (scale of the t-distribution)', substituted: `u(xᵢ) = ${w.u}`, clause: 'JCGM 101:2008 6.4.9' }),
+  form: {
+    ways: [
+      {
+        id: 'scale',
+        label: 'a scale s with its degrees of freedom',
+        fields: [
+          { name: 'value', label: 'Value', unit: 'value', required: true },
+          { name: 'scale', label: 'Scale s', unit: 'uncertainty', required: true },
+          { name: 'dof', label: 'Degrees of freedom ν', unit: 'dimensionless', required: true },
+        ],
+      },
+    ],
+    wayOf: () => 'scale',
+  },
+  /** s = u with the given ν, or ν = 10 where the old ν was infinite (JCGM 101:2008 6.4.9). */
+  fromStandardUncertainty: (x, u, nu) => ({ kind: 'student-t', value: x, scale: u, dof: Number.isFinite(nu) ? nu : 10 }),
 };

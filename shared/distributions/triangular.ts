@@ -1,5 +1,16 @@
+import { z } from 'zod';
+import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionRule } from './distribution';
 import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
+
+/** The fields of the `triangular` kind in the budget file, with the messages that say what to write. */
+export const triangularSchema = z.looseObject({
+  kind: z.literal('triangular'),
+  value: finite(),
+  halfWidth: positive(),
+  ...dofOptions,
+  ...statedOptions,
+});
 
 /**
  * Symmetric triangular input on [x − a, x + a]: x = value, u = a/√6, ν = ∞
@@ -11,6 +22,8 @@ import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratc
  */
 export const triangularRule: DistributionRule<'triangular'> = {
   kind: 'triangular',
+  label: 'Triangular',
+  shortLabel: 'triangular',
   treat(spec) {
     return { estimate: spec.value, standardUncertainty: spec.halfWidth / Math.sqrt(6), dof: Infinity };
   },
@@ -29,4 +42,17 @@ export const triangularRule: DistributionRule<'triangular'> = {
       },
     };
   },
+  uncertaintyFields: ['halfWidth'],
+  /** β₂ = 12/5 (handbook moments of the symmetric triangular distribution). */
+  kurtosis: () => 12 / 5,
+  /** ± a, divisor √6 (GUM 4.3.9). */
+  statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.sqrt(6), divisorText: '√6' }),
+  explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √6', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √6 = ${w.u}`, clause: 'GUM 4.3.9' }),
+  form: {
+    ways: [{ id: 'halfWidth', label: 'a half-width ± a around a value', fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }] }],
+    wayOf: () => 'halfWidth',
+    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
+  },
+  /** a = u·√6 (GUM 4.3.9). */
+  fromStandardUncertainty: (x, u) => ({ kind: 'triangular', value: x, halfWidth: u * Math.sqrt(6) }),
 };

@@ -1,19 +1,8 @@
 import { BudgetError } from '../budget/budget-error';
 import type { Distribution } from '../budget/schema';
+// the registry calls inValueUnit and inValueUnit asks the registry for a kind's fields, both only when called
+import { ruleOf } from './registry';
 import { describeDimension, isDimensionless, parseUnit, sameDimension } from '../model/units';
-
-/** The uncertainty fields of each kind: the ones stated in `uncertaintyUnit` (values, limits and observations never are). */
-export const UNCERTAINTY_FIELDS: { readonly [K in Distribution['kind']]: readonly string[] } = {
-  normal: ['u', 'U'],
-  rectangular: ['halfWidth'],
-  triangular: ['halfWidth'],
-  arcsine: ['halfWidth'],
-  trapezoidal: ['halfWidth'],
-  'curvilinear-trapezoidal': ['halfWidth', 'halfWidthUncertainty'],
-  'student-t': ['scale'],
-  observations: ['pooledSd'],
-  constant: [],
-};
 
 /** How an uncertainty stated in its own unit becomes one in the value's unit. */
 export interface UncertaintyScale {
@@ -92,7 +81,7 @@ export function inValueUnit(spec: Distribution, valueUnit: string | undefined, a
   }
   const out: Record<string, unknown> = { ...spec };
   delete out.uncertaintyUnit;
-  for (const name of UNCERTAINTY_FIELDS[spec.kind]) {
+  for (const name of ruleOf(spec.kind).uncertaintyFields as readonly string[]) {
     const n = out[name];
     if (typeof n === 'number') out[name] = n * factor;
   }

@@ -1,13 +1,14 @@
 import type { BudgetResult, Contribution } from '../../../shared/budget/result';
 import type { Distribution, InputQuantity } from '../../../shared/budget/schema';
-import { normalCoverageFactor } from '../../../shared/distributions/normal';
+import type { ExplanationStep, ExplanationWriter } from '../../../shared/distributions/distribution';
+import { ruleFor } from '../../../shared/distributions/registry';
 import { dof, probability, share, significantFigure } from '../../../shared/presentation/figures';
 import { formatUnit } from '../../app/ui/units';
 
 /** How one number was obtained: the formula, the values substituted, the clause it follows. */
 export interface Explanation {
   title: string;
-  steps: { formula: string; substituted?: string; clause: string; note?: string }[];
+  steps: ExplanationStep[];
 }
 
 export type Selection = { type: 'result'; item: 'y' | 'uc' | 'nu' | 'k' | 'U' } | { type: 'input'; symbol: string };
@@ -20,62 +21,22 @@ const withUnit = (x: string, unit?: string) => {
   return u ? `${x} ${u}` : x;
 };
 
-function standardUncertaintyStep(d: Distribution, c: Contribution, unit?: string): Explanation['steps'][number] {
-  const u = withUnit(f(c.standardUncertainty), unit);
-  switch (d.kind) {
-    case 'normal':
-      return d.u !== undefined
-        ? { formula: 'u(xᵢ) as stated', substituted: `u(xᵢ) = ${u}`, clause: 'GUM 4.3.1' }
-        : { formula: 'u(xᵢ) = U / k', substituted: `u(xᵢ) = ${f(d.U ?? NaN)} / ${f(normalCoverageFactor(d) ?? NaN)} = ${u}`, clause: 'GUM 4.3.3' };
-    case 'rectangular': {
-      const a = d.halfWidth ?? ((d.upper ?? 0) - (d.lower ?? 0)) / 2;
-      const how = d.halfWidth === undefined ? `a = (a₊ − a₋)/2 = ${f(a)}; ` : '';
-      return { formula: 'u(xᵢ) = a / √3', substituted: `${how}u(xᵢ) = ${f(a)} / √3 = ${u}`, clause: 'GUM 4.3.7' };
-    }
-    case 'triangular':
-      return { formula: 'u(xᵢ) = a / √6', substituted: `u(xᵢ) = ${f(d.halfWidth)} / √6 = ${u}`, clause: 'GUM 4.3.9' };
-    case 'arcsine':
-      return { formula: 'u(xᵢ) = a / √2', substituted: `u(xᵢ) = ${f(d.halfWidth)} / √2 = ${u}`, clause: 'JCGM 101:2008 6.4.6' };
-    case 'trapezoidal':
-      return {
-        formula: 'u(xᵢ) = a · √((1 + β²) / 6)',
-        substituted: `u(xᵢ) = ${f(d.halfWidth)} · √((1 + ${f(d.beta)}²) / 6) = ${u}`,
-        clause: 'GUM 4.3.9, JCGM 101:2008 6.4.4',
-      };
-    case 'curvilinear-trapezoidal':
-      return {
-        formula: 'u(xᵢ) = √(a²/3 + d²/9)',
-        substituted: `u(xᵢ) = √(${f(d.halfWidth)}²/3 + ${f(d.halfWidthUncertainty)}²/9) = ${u}`,
-        clause: 'JCGM 101:2008 6.4.3',
-      };
-    case 'student-t':
-      return { formula: 'u(xᵢ) = s (scale of the t-distribution)', substituted: `u(xᵢ) = ${u}`, clause: 'JCGM 101:2008 6.4.9' };
-    case 'observations': {
-      const n = d.values.length;
-      if (d.pooledSd !== undefined) {
-        return { formula: 'u(xᵢ) = s_p / √n', substituted: `u(xᵢ) = ${f(d.pooledSd)} / √${n} = ${u}`, clause: 'GUM 4.2.4' };
-      }
-      return { formula: 'u(xᵢ) = s(q) / √n', substituted: `u(xᵢ) = ${f(c.standardUncertainty * Math.sqrt(n))} / √${n} = ${u}`, clause: 'GUM 4.2.2, 4.2.3' };
-    }
-    case 'constant':
-      return { formula: 'u(xᵢ) = 0', substituted: 'the value is taken as exact', clause: 'GUM 4.1' };
-  }
+/** The figures of an input's steps as its kind's rule writes them. */
+function writerFor(c: Contribution, unit?: string): ExplanationWriter {
+  return { figure: f, u: withUnit(f(c.standardUncertainty), unit), standardUncertainty: c.standardUncertainty, nu: formatDof(c.dof) };
 }
 
-function dofStep(d: Distribution, c: Contribution): Explanation['steps'][number] {
+function dofStep(d: Distribution, write: ExplanationWriter): ExplanationStep {
   if (d.relativeUncertaintyOfU !== undefined) {
     return {
       formula: 'νᵢ ≈ ½ · (Δu/u)⁻²',
-      substituted: `νᵢ ≈ ½ · ${f(d.relativeUncertaintyOfU, 3)}⁻² = ${formatDof(c.dof)}`,
+      substituted: `νᵢ ≈ ½ · ${f(d.relativeUncertaintyOfU, 3)}⁻² = ${write.nu}`,
       clause: 'GUM G.4.2',
     };
   }
-  if (d.kind === 'observations' && d.dof === undefined) {
-    return d.pooledDof !== undefined
-      ? { formula: 'νᵢ = ν of the pooled estimate', substituted: `νᵢ = ${formatDof(c.dof)}`, clause: 'GUM 4.2.4' }
-      : { formula: 'νᵢ = n − 1', substituted: `νᵢ = ${d.values.length} − 1 = ${formatDof(c.dof)}`, clause: 'GUM G.3.3' };
-  }
-  if (d.dof !== undefined) return { formula: 'νᵢ as stated', substituted: `νᵢ = ${formatDof(c.dof)}`, clause: 'GUM G.4.1' };
+  if (d.dof !== undefined) return { formula: 'νᵢ as stated', substituted: `νᵢ = ${write.nu}`, clause: 'GUM G.4.1' };
+  const own = ruleFor(d).explainDof?.(d, write);
+  if (own) return own;
   return { formula: 'νᵢ = ∞', substituted: 'u(xᵢ) is taken as exactly known', clause: 'GUM G.4.2', note: 'Give ν or the reliability of u to change this.' };
 }
 
@@ -83,10 +44,12 @@ export function explainInput(result: BudgetResult, input: InputQuantity, measura
   const c = result.gum.contributions.find((x) => x.symbol === input.symbol);
   if (!c) return null;
   const yUnit = measurandUnit;
+  const d = input.distribution;
+  const write = writerFor(c, input.unit);
   return {
     title: `Contribution of ${input.symbol}`,
     steps: [
-      standardUncertaintyStep(input.distribution, c, input.unit),
+      ruleFor(d).explainU(d, write),
       {
         formula: 'cᵢ = ∂f/∂xᵢ at the estimates',
         substituted: `cᵢ = ${f(c.sensitivity)} (${c.sensitivityMethod === 'symbolic' ? 'symbolic derivative' : 'numerical derivative'})`,
@@ -102,7 +65,7 @@ export function explainInput(result: BudgetResult, input: InputQuantity, measura
         substituted: `share = ${f(c.contribution, 3)}² / ${f(Math.sqrt(result.gum.contributions.reduce((s, x) => s + x.contribution ** 2, 0)), 3)}² = ${share(c.varianceShare).text}`,
         clause: 'GUM 5.1.2',
       },
-      dofStep(input.distribution, c),
+      dofStep(d, write),
     ],
   };
 }

@@ -1,5 +1,5 @@
 import type { Distribution, DistributionKind } from '../../../../shared/budget/schema';
-import { gumTreatment } from '../../../../shared/distributions/registry';
+import { gumTreatment, ruleOf } from '../../../../shared/distributions/registry';
 import { roundSignificant } from '../../../../shared/format/significant-digits';
 
 export { KIND_LABELS, KIND_SHORT } from '../../../../shared/format/distribution-labels';
@@ -15,39 +15,30 @@ export function tryTreatment(d: Distribution, unit?: string): { estimate: number
 }
 
 /**
- * A new distribution of another kind that keeps the estimate and, where it can, the standard uncertainty,
- * in the value's unit `unit`; the uncertainty unit and a resolution form belong to the old kind and are dropped.
+ * A new distribution of another kind that keeps the estimate and, where it can, the standard uncertainty
+ * (u to 6 significant digits, the new kind's figures too), in the value's unit `unit`, built by the new
+ * kind's rule (`fromStandardUncertainty`); the uncertainty unit and a resolution form belong to the old
+ * kind and are dropped. A draft that cannot be treated yet keeps its value with u = 1.
  */
 export function convertKind(d: Distribution, kind: DistributionKind, unit?: string): Distribution {
   const t = tryTreatment(d, unit);
   const value = t?.estimate ?? ('value' in d && typeof d.value === 'number' ? d.value : 0);
-  const u = t && t.standardUncertainty > 0 ? t.standardUncertainty : 1;
+  const r = (x: number) => roundSignificant(x, 6);
+  const u = r(t && t.standardUncertainty > 0 ? t.standardUncertainty : 1);
+  const rule = ruleOf(kind);
+  const built: Record<string, unknown> = { ...rule.fromStandardUncertainty(value, u, t?.dof ?? Infinity) };
+  for (const name of rule.uncertaintyFields as readonly string[]) {
+    if (typeof built[name] === 'number') built[name] = r(built[name] as number);
+  }
   // where the figure comes from outlives the kind; a resolution is a rectangular form only
   const stated = d.stated && d.stated.as !== 'resolution' ? { stated: d.stated } : {};
-  const keep = {
-    ...(d.dof !== undefined && kind !== 'student-t' ? { dof: d.dof } : {}),
-    ...(d.relativeUncertaintyOfU !== undefined ? { relativeUncertaintyOfU: d.relativeUncertaintyOfU } : {}),
-    ...stated,
-  };
-  const r = (x: number) => roundSignificant(x, 6);
-  switch (kind) {
-    case 'normal':
-      return { kind, value, u: r(u), ...keep };
-    case 'rectangular':
-      return { kind, value, halfWidth: r(u * Math.sqrt(3)), ...keep };
-    case 'triangular':
-      return { kind, value, halfWidth: r(u * Math.sqrt(6)), ...keep };
-    case 'arcsine':
-      return { kind, value, halfWidth: r(u * Math.SQRT2), ...keep };
-    case 'trapezoidal':
-      return { kind, value, halfWidth: r(u * Math.sqrt(6 / 1.25)), beta: 0.5, ...keep };
-    case 'curvilinear-trapezoidal':
-      return { kind, value, halfWidth: r(u * Math.sqrt(3)), halfWidthUncertainty: 0, ...keep };
-    case 'student-t':
-      return { kind, value, scale: r(u), dof: t && Number.isFinite(t.dof) ? t.dof : 10, ...stated };
-    case 'observations':
-      return { kind, values: d.kind === 'observations' ? d.values : [value, value], ...keep };
-    case 'constant':
-      return { kind, value, ...stated };
-  }
+  // a kind whose ν is its own field (student-t) or which has none (an exact value) takes no override of ν
+  const takesOverrides = rule.form.dof !== undefined;
+  const keep = takesOverrides
+    ? {
+        ...(d.dof !== undefined ? { dof: d.dof } : {}),
+        ...(d.relativeUncertaintyOfU !== undefined ? { relativeUncertaintyOfU: d.relativeUncertaintyOfU } : {}),
+      }
+    : {};
+  return { ...built, ...keep, ...stated } as Distribution;
 }
