@@ -4,7 +4,7 @@ import { fieldName } from '../../../../shared/presentation/field-names';
 import { formatSignificant } from '../../../app/ui/numbers';
 
 /** Added, removed, changed: each its own colour, mark and word. */
-export const MARK = {
+const MARK = {
   added: { mark: '+', word: 'added', cls: 'border-accent-600 bg-accent-50 text-accent-700' },
   removed: { mark: '−', word: 'removed', cls: 'border-caution-500 bg-caution-50 text-caution-700' },
   changed: { mark: '≠', word: 'changed', cls: 'border-caution-500 bg-caution-50 text-caution-700' },
@@ -22,6 +22,7 @@ export function Tag({ kind }: { kind: Kind }) {
   );
 }
 
+/** A field value as the comparison shows it: numbers to six significant digits, long series shortened. */
 export function show(v: unknown): string {
   if (v === null || v === undefined) return '—';
   if (typeof v === 'number') return formatSignificant(v, 6);
