@@ -1,5 +1,6 @@
 import type { Request, RequestHandler } from 'express';
 import { z } from 'zod';
+import { completeTokenBody, linkToken, passwordResetBody, signInBody } from '../../shared/api/accounts';
 import { ROLES } from '../../shared/policy/policy';
 import { PLAIN_HTTP_SIGN_IN } from '../config';
 import { UnauthenticatedError, ValidationError } from '../http/errors';
@@ -15,10 +16,7 @@ const name = z.string().trim().min(1, { message: 'must not be empty' }).max(200)
 const role = z.enum(ROLES, { error: `must be one of ${ROLES.join(', ')}` });
 const password = z.string({ error: 'must be text' }).min(1, { message: 'must not be empty' }).max(1000);
 
-const loginBody = z.strictObject({ email: z.string().max(254), password });
-const resetBody = z.strictObject({ email: z.string().max(254) });
-const completeBody = z.strictObject({ token: z.string().min(10).max(200), password });
-const tokenQuery = z.strictObject({ token: z.string().min(10).max(200) });
+const tokenQuery = z.strictObject({ token: linkToken });
 const newUserBody = z.strictObject({ email, name, role, password: password.optional() });
 const inviteBody = z.strictObject({ email, name, role });
 const patchUserBody = z
@@ -53,7 +51,7 @@ export function accountsRoutes(
   const { accounts, passport } = deps;
 
   t.add('post', '/api/auth/login', 'public', ...deps.signInLimiters, async (req, res, next) => {
-    parse(loginBody, req.body);
+    parse(signInBody, req.body);
     if (deps.cookieSecure && !req.secure) throw new ValidationError(PLAIN_HTTP_SIGN_IN, undefined, 'https_required');
     const user = await new Promise<SessionUser | false>((resolve, reject) =>
       passport.authenticate('local', { session: false }, (err: unknown, u: SessionUser | false) => (err ? reject(err) : resolve(u)))(
@@ -81,7 +79,7 @@ export function accountsRoutes(
   });
 
   t.add('post', '/api/auth/password-reset', 'public', deps.resetLimiter, async (req, res) => {
-    const b = parse(resetBody, req.body);
+    const b = parse(passwordResetBody, req.body);
     res.status(202).json({ message: 'if the address belongs to an account, a link is on its way' });
     accounts.requestPasswordReset(b.email);
   });
@@ -92,7 +90,7 @@ export function accountsRoutes(
   });
 
   t.add('post', '/api/auth/password-reset/complete', 'public', deps.resetLimiter, async (req, res) => {
-    const b = parse(completeBody, req.body);
+    const b = parse(completeTokenBody, req.body);
     const user = await accounts.completeToken(b.token, b.password);
     res.json({ user });
   });

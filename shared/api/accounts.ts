@@ -1,5 +1,31 @@
-/** Payloads of the accounts routes (sign-in, /api/me, users, invitations, tokens). Types only. */
+/**
+ * Payloads of the accounts routes (sign-in, /api/me, users, invitations,
+ * tokens). Besides the types, the bodies of sign-in and the password links as
+ * zod schemas: the server's routes parse them and the client's forms check
+ * them, so both hold one rule.
+ */
+import { z } from 'zod';
 import type { Role } from '../policy/policy';
+
+/** The shortest password accepted; the password is also the approval signature. */
+export const MIN_PASSWORD_LENGTH = 12;
+
+/** An address as typed to sign in or ask for a link: looked up as given, so any text up to the longest address. */
+const typedAddress = z.string({ error: 'must be text' }).max(254, { message: 'is longer than any e-mail address' });
+/** A password as typed: its strength is judged where one is chosen, not here. */
+const typedPassword = z.string({ error: 'must be text' }).min(1, { message: 'must not be empty' }).max(1000, { message: 'must have at most 1000 characters' });
+/** The token of a link from an e-mail. */
+export const linkToken = z.string().min(10).max(200);
+
+/** `POST /api/auth/login`. */
+export const signInBody = z.strictObject({ email: typedAddress, password: typedPassword });
+export type SignInBody = z.infer<typeof signInBody>;
+
+/** `POST /api/auth/password-reset`. */
+export const passwordResetBody = z.strictObject({ email: typedAddress });
+
+/** `POST /api/auth/password-reset/complete`: the token of the link and the new password. */
+export const completeTokenBody = z.strictObject({ token: linkToken, password: typedPassword });
 
 /** The signed-in user: `GET /api/me`, and `user` in the sign-in answers. */
 export interface Me {
