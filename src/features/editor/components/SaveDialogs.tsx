@@ -1,14 +1,12 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery } from '@tanstack/react-query';
-import { useMemo, useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useState } from 'react';
 import { mergeDocuments, type MergeDecision, type TheirChange } from '../../../../shared/budget/merge-documents';
 import type { BudgetDocument } from '../../../../shared/budget/schema';
 import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Field, FormDialog, Modal, Spinner, TextArea } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { budgetVersionQuery, editorVersionsQuery } from '../api/editor';
-import { NOTE_MAX_LENGTH, noteToSave, saveNoteForm, type SaveNoteForm } from '../save-note';
+import { NOTE_MAX_LENGTH, noteProblem, noteToSave } from '../save-note';
 
 export function SaveDialog({
   open,
@@ -25,20 +23,25 @@ export function SaveDialog({
   isNew: boolean;
   error: string | null;
 }) {
-  const schema = useMemo(() => saveNoteForm(isNew), [isNew]);
-  const { register, handleSubmit, formState } = useForm<SaveNoteForm>({ resolver: zodResolver(schema), defaultValues: { note: '' } });
+  const [note, setNote] = useState('');
+  // said from the first try to save on, and again at each change after it
+  const [tried, setTried] = useState(false);
+  const problem = noteProblem(note, isNew);
   return (
     <FormDialog
       open={open}
       onClose={onClose}
       title={isNew ? 'Save the first version' : 'Save a new version'}
-      onSubmit={handleSubmit(({ note }) => onSave(noteToSave(note)))}
+      onSubmit={() => {
+        setTried(true);
+        if (problem === null) onSave(noteToSave(note));
+      }}
       submitLabel="Save version"
       pendingLabel="Saving…"
       pending={saving}
     >
-      <Field label="Change note" error={formState.errors.note?.message} hint={isNew ? 'Optional for the first version.' : 'e.g. “new certificate for the reference, U from 30 nm to 25 nm”'}>
-        {(p) => <TextArea {...p} {...register('note')} rows={3} autoFocus maxLength={NOTE_MAX_LENGTH} />}
+      <Field label="Change note" error={tried ? problem : null} hint={isNew ? 'Optional for the first version.' : 'e.g. “new certificate for the reference, U from 30 nm to 25 nm”'}>
+        {(p) => <TextArea {...p} rows={3} value={note} onChange={(e) => setNote(e.target.value)} autoFocus maxLength={NOTE_MAX_LENGTH} />}
       </Field>
       <p className="text-xs text-stone-600">The server computes the saved version again (GUM and Monte Carlo) and stores the result with it.</p>
       {error ? (
