@@ -4,18 +4,20 @@
  * zod schemas: the server's routes parse them and the client's forms check
  * them, so both hold one rule.
  */
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import type { Role } from '../policy/policy';
 
 /** The shortest password accepted; the password is also the approval signature. */
 export const MIN_PASSWORD_LENGTH = 12;
 
+// zod/mini: these schemas reach the sign-in page, which loads only what it uses
+
 /** An address as typed to sign in or ask for a link: looked up as given, so any text up to the longest address. */
-const typedAddress = z.string({ error: 'must be text' }).max(254, { message: 'is longer than any e-mail address' });
+const typedAddress = z.string({ error: 'must be text' }).check(z.maxLength(254, { error: 'is longer than any e-mail address' }));
 /** A password as typed: its strength is judged where one is chosen, not here. */
-const typedPassword = z.string({ error: 'must be text' }).min(1, { message: 'must not be empty' }).max(1000, { message: 'must have at most 1000 characters' });
+const typedPassword = z.string({ error: 'must be text' }).check(z.minLength(1, { error: 'must not be empty' }), z.maxLength(1000, { error: 'must have at most 1000 characters' }));
 /** The token of a link from an e-mail. */
-export const linkToken = z.string().min(10).max(200);
+export const linkToken = z.string().check(z.minLength(10), z.maxLength(200));
 
 /** `POST /api/auth/login`. */
 export const signInBody = z.strictObject({ email: typedAddress, password: typedPassword });

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { completeTokenBody, MIN_PASSWORD_LENGTH, passwordResetBody, signInBody } from '../../../../shared/api/accounts';
 
 /*
@@ -8,26 +8,28 @@ import { completeTokenBody, MIN_PASSWORD_LENGTH, passwordResetBody, signInBody }
  */
 
 const ADDRESS_SHAPE = /^\S+@\S+\.\S+$/;
-const address = z.string().regex(ADDRESS_SHAPE, { message: 'Enter the e-mail address of your account.' });
+const address = z.string().check(z.regex(ADDRESS_SHAPE, { error: 'Enter the e-mail address of your account.' }));
 
-export const signInForm = signInBody.extend({
-  email: address.pipe(signInBody.shape.email),
-  password: z.string().min(1, { message: 'Enter your password.' }).pipe(signInBody.shape.password),
+export const signInForm = z.extend(signInBody, {
+  email: z.pipe(address, signInBody.shape.email),
+  password: z.pipe(z.string().check(z.minLength(1, { error: 'Enter your password.' })), signInBody.shape.password),
 });
 export type SignInForm = z.infer<typeof signInForm>;
 
-export const forgotPasswordForm = passwordResetBody.extend({ email: address.pipe(passwordResetBody.shape.email) });
+export const forgotPasswordForm = z.extend(passwordResetBody, { email: z.pipe(address, passwordResetBody.shape.email) });
 export type ForgotPasswordForm = z.infer<typeof forgotPasswordForm>;
 
 export const newPasswordForm = z
   .object({
-    password: z.string().min(MIN_PASSWORD_LENGTH, { message: `Use at least ${MIN_PASSWORD_LENGTH} characters.` }).pipe(completeTokenBody.shape.password),
+    password: z.pipe(z.string().check(z.minLength(MIN_PASSWORD_LENGTH, { error: `Use at least ${MIN_PASSWORD_LENGTH} characters.` })), completeTokenBody.shape.password),
     repeat: z.string(),
   })
-  .refine((f) => f.repeat === f.password, {
-    path: ['repeat'],
-    message: 'The two passwords differ.',
-    // said together with a short password, as soon as both are text
-    when: (p) => typeof (p.value as { password?: unknown }).password === 'string' && typeof (p.value as { repeat?: unknown }).repeat === 'string',
-  });
+  .check(
+    z.refine((f) => f.repeat === f.password, {
+      path: ['repeat'],
+      error: 'The two passwords differ.',
+      // said together with a short password, as soon as both are text
+      when: (p) => typeof (p.value as { password?: unknown }).password === 'string' && typeof (p.value as { repeat?: unknown }).repeat === 'string',
+    }),
+  );
 export type NewPasswordForm = z.infer<typeof newPasswordForm>;
