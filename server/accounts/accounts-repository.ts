@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, isNull, or, sql, type SQL } from 'drizzle-orm';
-import type { TokenKind, UserSort } from '../../shared/api/accounts';
+import type { TokenKind } from '../../shared/api/accounts';
+import type { UserSort } from '../../shared/api/user-admin';
 import type { Role } from '../../shared/policy/policy';
 import type { DbLike } from '../db/connection';
 import type { AnySQLiteColumn } from 'drizzle-orm/sqlite-core';

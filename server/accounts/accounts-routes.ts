@@ -1,6 +1,7 @@
 import type { Request, RequestHandler } from 'express';
 import { z } from 'zod';
-import { inviteBody, newUserBody, passwordField, patchUserBody, roleField, USER_SORTS } from '../../shared/api/accounts';
+import { completeTokenBody, linkToken, passwordResetBody, signInBody } from '../../shared/api/accounts';
+import { inviteBody, newUserBody, patchUserBody, roleField, USER_SORTS } from '../../shared/api/user-admin';
 import { PLAIN_HTTP_SIGN_IN } from '../config';
 import { UnauthenticatedError, ValidationError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
@@ -10,12 +11,8 @@ import { parse } from '../http/validate';
 import type { AccountsService } from './accounts-service';
 import type { createPassport } from './auth-setup';
 
-const password = passwordField;
 
-const loginBody = z.strictObject({ email: z.string().max(254), password });
-const resetBody = z.strictObject({ email: z.string().max(254) });
-const completeBody = z.strictObject({ token: z.string().min(10).max(200), password });
-const tokenQuery = z.strictObject({ token: z.string().min(10).max(200) });
+const tokenQuery = z.strictObject({ token: linkToken });
 const usersQuery = z.strictObject({
   q: z.string().max(200).optional(),
   role: roleField.optional(),
@@ -42,7 +39,7 @@ export function accountsRoutes(
   const { accounts, passport } = deps;
 
   t.add('post', '/api/auth/login', 'public', ...deps.signInLimiters, async (req, res, next) => {
-    parse(loginBody, req.body);
+    parse(signInBody, req.body);
     if (deps.cookieSecure && !req.secure) throw new ValidationError(PLAIN_HTTP_SIGN_IN, undefined, 'https_required');
     const user = await new Promise<SessionUser | false>((resolve, reject) =>
       passport.authenticate('local', { session: false }, (err: unknown, u: SessionUser | false) => (err ? reject(err) : resolve(u)))(
@@ -70,7 +67,7 @@ export function accountsRoutes(
   });
 
   t.add('post', '/api/auth/password-reset', 'public', deps.resetLimiter, async (req, res) => {
-    const b = parse(resetBody, req.body);
+    const b = parse(passwordResetBody, req.body);
     res.status(202).json({ message: 'if the address belongs to an account, a link is on its way' });
     accounts.requestPasswordReset(b.email);
   });
@@ -81,7 +78,7 @@ export function accountsRoutes(
   });
 
   t.add('post', '/api/auth/password-reset/complete', 'public', deps.resetLimiter, async (req, res) => {
-    const b = parse(completeBody, req.body);
+    const b = parse(completeTokenBody, req.body);
     const user = await accounts.completeToken(b.token, b.password);
     res.json({ user });
   });

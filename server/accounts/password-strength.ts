@@ -1,7 +1,5 @@
 import { readFileSync } from 'node:fs';
-
-/** The shortest password accepted; the password is also the approval signature. */
-export const MIN_PASSWORD_LENGTH = 12;
+import { MIN_PASSWORD_LENGTH } from '../../shared/api/accounts';
 
 const COMMON = new Set(
   readFileSync(new URL('./common-passwords.txt', import.meta.url), 'utf8')

@@ -1,42 +1,33 @@
 /**
- * Payloads of the accounts routes (sign-in, /api/me, users, invitations, tokens), and the zod
- * schemas of the bodies an administrator's forms send: the server validates with them and the
- * users page checks its fields with them, so a field's message is the server's.
+ * Payloads of the accounts routes (sign-in, /api/me, users, invitations,
+ * tokens). Besides the types, the bodies of sign-in and the password links as
+ * zod schemas: the server's routes parse them and the client's forms check
+ * them, so both hold one rule.
  */
-import { z } from 'zod';
-import { ROLES, type Role } from '../policy/policy';
+import * as z from 'zod/mini';
+import type { Role } from '../policy/policy';
 
-const email = z.email({ message: 'must be an e-mail address' }).max(254).transform((s) => s.toLowerCase());
-const personName = z.string().trim().min(1, { message: 'must not be empty' }).max(200);
-/** A role, named as the policy names it. */
-export const roleField = z.enum(ROLES, { error: `must be one of ${ROLES.join(', ')}` });
+/** The shortest password accepted; the password is also the approval signature. */
+export const MIN_PASSWORD_LENGTH = 12;
 
-/** A password as a body carries it (its strength is judged by the server alone). */
-export const passwordField = z.string({ error: 'must be text' }).min(1, { message: 'must not be empty' }).max(1000);
+// zod/mini: these schemas reach the sign-in page, which loads only what it uses
 
-/** `POST /api/users`. */
-export const newUserBody = z.strictObject({ email, name: personName, role: roleField, password: passwordField.optional() });
-/** `POST /api/invitations`. */
-export const inviteBody = z.strictObject({ email, name: personName, role: roleField });
-export type InviteInput = z.input<typeof inviteBody>;
-/** `PATCH /api/users/:id`: a change of role or access carries the reason the audit trail keeps. */
-export const patchUserBody = z
-  .strictObject({
-    name: personName.optional(),
-    role: roleField.optional(),
-    active: z.boolean().optional(),
-    reason: z.string().trim().max(1000).optional(),
-  })
-  .refine((b) => b.name !== undefined || b.role !== undefined || b.active !== undefined, { message: 'give name, role or active' })
-  .refine((b) => (b.role === undefined && b.active === undefined) || !!b.reason, {
-    message: 'say why the role or the access changes; the reason goes into the audit trail',
-    path: ['reason'],
-  });
-export type UserPatch = z.input<typeof patchUserBody>;
+/** An address as typed to sign in or ask for a link: looked up as given, so any text up to the longest address. */
+const typedAddress = z.string({ error: 'must be text' }).check(z.maxLength(254, { error: 'is longer than any e-mail address' }));
+/** A password as typed: its strength is judged where one is chosen, not here. */
+const typedPassword = z.string({ error: 'must be text' }).check(z.minLength(1, { error: 'must not be empty' }), z.maxLength(1000, { error: 'must have at most 1000 characters' }));
+/** The token of a link from an e-mail. */
+export const linkToken = z.string().check(z.minLength(10), z.maxLength(200));
 
-/** Columns `GET /api/users` sorts by (`sort`), with `order` asc or desc. */
-export const USER_SORTS = ['name', 'email', 'role', 'created'] as const;
-export type UserSort = (typeof USER_SORTS)[number];
+/** `POST /api/auth/login`. */
+export const signInBody = z.strictObject({ email: typedAddress, password: typedPassword });
+export type SignInBody = z.infer<typeof signInBody>;
+
+/** `POST /api/auth/password-reset`. */
+export const passwordResetBody = z.strictObject({ email: typedAddress });
+
+/** `POST /api/auth/password-reset/complete`: the token of the link and the new password. */
+export const completeTokenBody = z.strictObject({ token: linkToken, password: typedPassword });
 
 /** The signed-in user: `GET /api/me`, and `user` in the sign-in answers. */
 export interface Me {

@@ -1,5 +1,6 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
-import type { Me, MailMessage, TokenInfo, UserAccount, UserSort } from '../../shared/api/accounts';
+import type { Me, MailMessage, TokenInfo, UserAccount } from '../../shared/api/accounts';
+import type { UserSort } from '../../shared/api/user-admin';
 import type { AuditPage } from '../../shared/api/audit';
 import type { BudgetListItem, BudgetSort, BudgetView, ComputeLimits, VersionMeta, VersionView } from '../../shared/api/budgets';
 import type { BudgetDiff } from '../../shared/api/diff';

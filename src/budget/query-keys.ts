@@ -1,5 +1,5 @@
 import type { BudgetSort } from '../../shared/api/budgets';
-import type { UserSort } from '../../shared/api/accounts';
+import type { UserSort } from '../../shared/api/user-admin';
 import type { BudgetStatus, Role } from '../../shared/policy/policy';
 
 /**

@@ -6,7 +6,9 @@ import { EvidencePanel } from '../../features/evidence/components/EvidencePanel'
 import { ReviewActions } from '../../features/reviews/components/ReviewActions';
 import { ReturnedNotice } from '../../features/reviews/components/ReturnedNotice';
 import { canAttach, isEditableStatus } from '../../../shared/policy/policy';
-import { CommentBadge, ReviewPanel, type ThreadKey } from '../../features/reviews/components/ReviewPanel';
+import { CommentBadge } from '../../features/reviews/components/CommentBadge';
+import { ReviewPanel } from '../../features/reviews/components/ReviewPanel';
+import type { ThreadKey } from '../../features/reviews/review-context';
 import { TemplateToggle } from '../../features/templates/components/TemplatesPage';
 import { useSignedInUser } from './signed-in-user';
 

@@ -10,12 +10,33 @@ export interface StoredDraft {
 
 const key = (budgetId: number | undefined) => `dubito.draft.${budgetId ?? 'new'}`;
 
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/**
+ * Whether stored text read back is a draft the editor can open: a document
+ * with its list of inputs, a base version and a time. Anything else (another
+ * program's value, a truncated write, an older shape) is ignored rather than
+ * opened; the budget's own validation judges the document's fields.
+ */
+function isStoredDraft(v: unknown): v is StoredDraft {
+  return (
+    isRecord(v) &&
+    isRecord(v.document) &&
+    Array.isArray(v.document.inputs) &&
+    typeof v.baseVersion === 'number' &&
+    Number.isFinite(v.baseVersion) &&
+    typeof v.savedAt === 'number' &&
+    Number.isFinite(v.savedAt)
+  );
+}
+
+/** The draft kept for a budget (`undefined`: the new budget), or null when none is kept or what is kept cannot be read. */
 export function loadDraft(budgetId: number | undefined): StoredDraft | null {
   try {
     const text = localStorage.getItem(key(budgetId));
     if (!text) return null;
-    const d = JSON.parse(text) as StoredDraft;
-    return d && typeof d === 'object' && d.document ? d : null;
+    const d: unknown = JSON.parse(text);
+    return isStoredDraft(d) ? d : null;
   } catch {
     return null;
   }
@@ -33,6 +54,6 @@ export function clearDraft(budgetId: number | undefined): void {
   try {
     localStorage.removeItem(key(budgetId));
   } catch {
-    // ignore
+    // storage disabled: nothing was kept
   }
 }

@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../app/http';
-import type { InvitationResponse, InviteInput, UserAccount, UserPatch, UserSort } from '../../../../shared/api/accounts';
+import type { InvitationResponse, UserAccount } from '../../../../shared/api/accounts';
+import type { InviteInput, UserPatch, UserSort } from '../../../../shared/api/user-admin';
 import { afterAccountChange } from '../../../budget/invalidate';
 import { mailQuery, usersPageQuery } from '../../../budget/queries';
 import type { PageRequest, UserFilter } from '../../../budget/query-keys';

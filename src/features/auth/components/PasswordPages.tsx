@@ -1,10 +1,12 @@
-import { useState, type FormEvent, type ReactNode } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { ReactNode } from 'react';
+import { useForm } from 'react-hook-form';
 import { Link, useSearchParams } from 'react-router-dom';
+import { MIN_PASSWORD_LENGTH } from '../../../../shared/api/accounts';
 import { ApiError, errorMessage } from '../../../app/http';
-import { ErrorNote, Field, FormError, Spinner, SubmitButton, TextInput } from '../../../app/ui/controls';
+import { ErrorNote, Field, FormError, inputClass, Spinner, SubmitButton } from '../../../app/ui/controls';
 import { useCompleteToken, useRequestReset, useToken } from '../api/auth';
-
-const MIN_PASSWORD = 10;
+import { forgotPasswordForm, newPasswordForm, type ForgotPasswordForm, type NewPasswordForm } from './form-schemas';
 
 function Frame({ title, children }: { title: string; children: ReactNode }) {
   return (
@@ -26,9 +28,7 @@ export function SetPasswordPage({ mode }: { mode: 'invitation' | 'reset' }) {
   const token = params.get('token') ?? '';
   const info = useToken(token);
   const complete = useCompleteToken();
-  const [password, setPassword] = useState('');
-  const [repeat, setRepeat] = useState('');
-  const [touched, setTouched] = useState(false);
+  const { register, handleSubmit, formState } = useForm<NewPasswordForm>({ resolver: zodResolver(newPasswordForm), defaultValues: { password: '', repeat: '' } });
   const title = mode === 'invitation' ? 'Set your password' : 'Choose a new password';
 
   if (token.length < 10) {
@@ -81,14 +81,7 @@ export function SetPasswordPage({ mode }: { mode: 'invitation' | 'reset' }) {
       </Frame>
     );
   }
-  const shortError = touched && password.length < MIN_PASSWORD ? `Use at least ${MIN_PASSWORD} characters.` : null;
-  const repeatError = touched && repeat !== password ? 'The two passwords differ.' : null;
-  const submit = (e: FormEvent) => {
-    e.preventDefault();
-    setTouched(true);
-    if (password.length < MIN_PASSWORD || repeat !== password) return;
-    complete.mutate({ token, password });
-  };
+  const submit = handleSubmit(({ password }) => complete.mutate({ token, password }));
   return (
     <Frame title={title}>
       <p className="mb-4 text-sm text-stone-700">
@@ -96,11 +89,11 @@ export function SetPasswordPage({ mode }: { mode: 'invitation' | 'reset' }) {
       </p>
       <form onSubmit={submit} noValidate className="flex flex-col gap-4">
         <input type="email" value={info.data.email} autoComplete="username" readOnly hidden />
-        <Field label="New password" error={shortError} hint={`At least ${MIN_PASSWORD} characters; a short sentence is easy to remember.`}>
-          {(p) => <TextInput {...p} type="password" autoComplete="new-password" value={password} onChange={(e) => setPassword(e.target.value)} autoFocus />}
+        <Field label="New password" error={formState.errors.password?.message} hint={`At least ${MIN_PASSWORD_LENGTH} characters; a short sentence is easy to remember.`}>
+          {(p) => <input {...p} {...register('password')} type="password" autoComplete="new-password" className={inputClass} autoFocus />}
         </Field>
-        <Field label="Repeat the password" error={repeatError}>
-          {(p) => <TextInput {...p} type="password" autoComplete="new-password" value={repeat} onChange={(e) => setRepeat(e.target.value)} />}
+        <Field label="Repeat the password" error={formState.errors.repeat?.message}>
+          {(p) => <input {...p} {...register('repeat')} type="password" autoComplete="new-password" className={inputClass} />}
         </Field>
         {complete.error ? (
           <FormError>
@@ -116,15 +109,13 @@ export function SetPasswordPage({ mode }: { mode: 'invitation' | 'reset' }) {
 }
 
 export function ForgotPasswordPage() {
-  const [email, setEmail] = useState('');
-  const [touched, setTouched] = useState(false);
   const reset = useRequestReset();
-  const emailError = touched && !/^\S+@\S+\.\S+$/.test(email) ? 'Enter the e-mail address of your account.' : null;
+  const { register, handleSubmit, formState, getValues } = useForm<ForgotPasswordForm>({ resolver: zodResolver(forgotPasswordForm), defaultValues: { email: '' } });
   if (reset.isSuccess) {
     return (
       <Frame title="Check your e-mail">
         <p role="status" className="text-sm text-stone-700">
-          If {email} belongs to an account, a link to choose a new password is on its way. The link works once and for a limited time.
+          If {getValues('email')} belongs to an account, a link to choose a new password is on its way. The link works once and for a limited time.
         </p>
         <Link to="/sign-in" className="mt-4 inline-block text-sm text-accent-700 underline">
           Back to sign-in
@@ -137,16 +128,11 @@ export function ForgotPasswordPage() {
       <form
         noValidate
         className="flex flex-col gap-4"
-        onSubmit={(e) => {
-          e.preventDefault();
-          setTouched(true);
-          if (!/^\S+@\S+\.\S+$/.test(email)) return;
-          reset.mutate(email.trim());
-        }}
+        onSubmit={handleSubmit(({ email }) => reset.mutate(email.trim()))}
       >
         <p className="text-sm text-stone-700">Enter the address of your account; Dubito mails you a link to choose a new password.</p>
-        <Field label="E-mail address" error={emailError}>
-          {(p) => <TextInput {...p} type="email" autoComplete="username" value={email} onChange={(e) => setEmail(e.target.value)} autoFocus />}
+        <Field label="E-mail address" error={formState.errors.email?.message}>
+          {(p) => <input {...p} {...register('email')} type="email" autoComplete="username" className={inputClass} autoFocus />}
         </Field>
         {reset.error ? (
           <FormError>

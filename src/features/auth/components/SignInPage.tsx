@@ -1,8 +1,10 @@
-import { useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
 import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { ApiError } from '../../../app/http';
-import { Field, FormError, SubmitButton, TextInput } from '../../../app/ui/controls';
+import { Field, FormError, inputClass, SubmitButton } from '../../../app/ui/controls';
 import { useMe, useSignIn } from '../api/auth';
+import { signInForm, type SignInForm } from './form-schemas';
 
 const DEMO = ['metrologist', 'reviewer', 'auditor', 'trainee', 'admin'];
 
@@ -16,14 +18,10 @@ export function SignInPage() {
   const me = useMe();
   const signIn = useSignIn();
   const navigate = useNavigate();
-  const [email, setEmail] = useState('');
-  const [password, setPassword] = useState('');
-  const [touched, setTouched] = useState(false);
+  const { register, handleSubmit, setValue, formState } = useForm<SignInForm>({ resolver: zodResolver(signInForm), defaultValues: { email: '', password: '' } });
 
   if (me.data) return <Navigate to={next} replace />;
 
-  const emailError = touched && !/^\S+@\S+\.\S+$/.test(email) ? 'Enter the e-mail address of your account.' : null;
-  const passwordError = touched && password === '' ? 'Enter your password.' : null;
   const serverError =
     signIn.error instanceof ApiError
       ? signIn.error.status === 429
@@ -33,12 +31,9 @@ export function SignInPage() {
         ? 'Sign-in failed. Try again.'
         : null;
 
-  const submit = (e: FormEvent) => {
-    e.preventDefault();
-    setTouched(true);
-    if (!/^\S+@\S+\.\S+$/.test(email) || password === '') return;
-    signIn.mutate({ email, password }, { onSuccess: () => navigate(next, { replace: true }) });
-  };
+  const submit = handleSubmit((body) => signIn.mutate(body, { onSuccess: () => navigate(next, { replace: true }) }));
+  // after a first try, a changed field is checked again at once
+  const typed = { shouldValidate: formState.isSubmitted };
 
   return (
     <main className="flex min-h-screen items-center justify-center bg-stone-100 px-4">
@@ -60,11 +55,11 @@ export function SignInPage() {
           <h1 id="signin-title" className="text-xl font-semibold text-stone-900">
             Sign in
           </h1>
-          <Field label="E-mail address" error={emailError}>
-            {(p) => <TextInput {...p} type="email" autoComplete="username" value={email} onChange={(e) => setEmail(e.target.value)} autoFocus />}
+          <Field label="E-mail address" error={formState.errors.email?.message}>
+            {(p) => <input {...p} {...register('email')} type="email" autoComplete="username" className={inputClass} autoFocus />}
           </Field>
-          <Field label="Password" error={passwordError}>
-            {(p) => <TextInput {...p} type="password" autoComplete="current-password" value={password} onChange={(e) => setPassword(e.target.value)} />}
+          <Field label="Password" error={formState.errors.password?.message}>
+            {(p) => <input {...p} {...register('password')} type="password" autoComplete="current-password" className={inputClass} />}
           </Field>
           {serverError ? (
             <FormError>{serverError}</FormError>
@@ -85,8 +80,8 @@ export function SignInPage() {
                     type="button"
                     className="rounded border border-stone-300 px-2 py-0.5 hover:bg-stone-100"
                     onClick={() => {
-                      setEmail(`${r}@dubito.example`);
-                      setPassword('dubito-demo');
+                      setValue('email', `${r}@dubito.example`, typed);
+                      setValue('password', 'dubito-demo', typed);
                     }}
                   >
                     {r}

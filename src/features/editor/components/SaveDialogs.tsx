@@ -6,6 +6,7 @@ import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Field, FormDialog, Modal, Spinner, TextArea } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { versionQuery as budgetVersionQuery, versionListQuery as editorVersionsQuery } from '../../../budget/queries';
+import { NOTE_MAX_LENGTH, noteProblem, noteToSave } from '../save-note';
 
 export function SaveDialog({
   open,
@@ -23,24 +24,24 @@ export function SaveDialog({
   error: string | null;
 }) {
   const [note, setNote] = useState('');
-  const [touched, setTouched] = useState(false);
-  const noteError = touched && !isNew && note.trim() === '' ? 'Say in a few words what changed; the note goes into the version history.' : null;
+  // said from the first try to save on, and again at each change after it
+  const [tried, setTried] = useState(false);
+  const problem = noteProblem(note, isNew);
   return (
     <FormDialog
       open={open}
       onClose={onClose}
       title={isNew ? 'Save the first version' : 'Save a new version'}
       onSubmit={() => {
-        setTouched(true);
-        if (!isNew && note.trim() === '') return;
-        onSave(note.trim() || 'first version');
+        setTried(true);
+        if (problem === null) onSave(noteToSave(note));
       }}
       submitLabel="Save version"
       pendingLabel="Saving…"
       pending={saving}
     >
-      <Field label="Change note" error={noteError} hint={isNew ? 'Optional for the first version.' : 'e.g. “new certificate for the reference, U from 30 nm to 25 nm”'}>
-        {(p) => <TextArea {...p} rows={3} value={note} onChange={(e) => setNote(e.target.value)} autoFocus maxLength={2000} />}
+      <Field label="Change note" error={tried ? problem : null} hint={isNew ? 'Optional for the first version.' : 'e.g. “new certificate for the reference, U from 30 nm to 25 nm”'}>
+        {(p) => <TextArea {...p} rows={3} value={note} onChange={(e) => setNote(e.target.value)} autoFocus maxLength={NOTE_MAX_LENGTH} />}
       </Field>
       <p className="text-xs text-stone-600">The server computes the saved version again (GUM and Monte Carlo) and stores the result with it.</p>
       {error ? (

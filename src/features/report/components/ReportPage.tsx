@@ -6,7 +6,8 @@ import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Spinner } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { reportPdfUrl, useReport } from '../api/report';
-import { ReportDocument, type RenderBudgetTable } from './ReportDocument';
+import type { RenderBudgetTable } from '../report-facts';
+import { ReportDocument } from './ReportDocument';
 
 export type { RenderBudgetTable };
 

@@ -1,18 +1,11 @@
 import { useState } from 'react';
-import { canApprove, canReturn, canSubmit, type Role } from '../../../../shared/policy/policy';
+import { canApprove, canReturn, canSubmit } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Field, FormDialog, Modal, Spinner, SubmitButton, TextArea, TextInput } from '../../../app/ui/controls';
 import { useToast } from '../../../app/ui/toasts';
 import { useReviewState, useTransition } from '../api/reviews';
-import type { ReviewContext } from './ReviewPanel';
+import type { ReviewContext, Reviewer as Me } from '../review-context';
 import { OpenThreadList, SigningBrief } from './SigningBrief';
-
-interface Me {
-  id: number;
-  role: Role;
-  name: string;
-  email?: string;
-}
 
 function transitionError(e: unknown): string {
   if (e instanceof ApiError) {

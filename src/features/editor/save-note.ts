@@ -1,0 +1,18 @@
+/** The longest change note the server keeps with a version. */
+export const NOTE_MAX_LENGTH = 2000;
+
+/**
+ * What is wrong with the change note of the save dialog, or null: it is
+ * required after the first version (it is what the version history says of
+ * the change) and optional for the first, whose note is then "first version".
+ */
+export function noteProblem(note: string, isNew: boolean): string | null {
+  if (!isNew && note.trim() === '') return 'Say in a few words what changed; the note goes into the version history.';
+  if (note.length > NOTE_MAX_LENGTH) return `Keep the note under ${NOTE_MAX_LENGTH} characters.`;
+  return null;
+}
+
+/** The note sent with the save: trimmed; the first version's, when left empty, says so. */
+export function noteToSave(note: string): string {
+  return note.trim() || 'first version';
+}
