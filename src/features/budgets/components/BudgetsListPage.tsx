@@ -213,7 +213,7 @@ export function BudgetsListPage({ role }: { role: Role }) {
                   </td>
                   <td className="px-3 py-2 text-stone-700">{b.ownerName}</td>
                   <td className="num px-3 py-2 text-right">
-                    <Link to={`/budgets/${b.id}/versions`} className="hover:text-accent-700 hover:underline" aria-label={`Versions of ${b.title}: ${b.currentVersion}`}>
+                    <Link to={`/budgets/${b.id}/versions`} className="hover:text-accent-700 hover:underline" aria-label={`v${b.currentVersion}, versions of ${b.title}`}>
                       v{b.currentVersion}
                     </Link>
                   </td>

@@ -58,7 +58,7 @@ export function CommentBadge({ budgetId, symbol, open, onOpen }: { budgetId: num
   const comments = useComments(budgetId);
   const mine = (comments.data ?? []).filter((c) => c.symbol === symbol);
   const unresolved = mine.filter((c) => !c.resolved).length;
-  const label = `Comments on ${symbol} (${mine.length})`;
+  const label = mine.length ? `${mine.length} comment${mine.length === 1 ? '' : 's'} on ${symbol}` : `Comment on ${symbol}`;
   return (
     <button
       type="button"
@@ -146,7 +146,7 @@ function CommentItem({
           </Button>
         ) : null}
         {mayResolve ? (
-          <Button size="sm" disabled={busy} onClick={() => onResolve(c, !c.resolved)} aria-label={c.resolved ? `Reopen the thread of comment ${c.id}` : `Resolve the thread of comment ${c.id}`}>
+          <Button size="sm" disabled={busy} onClick={() => onResolve(c, !c.resolved)} aria-label={c.resolved ? `Reopen thread of comment ${c.id}` : `Resolve thread of comment ${c.id}`}>
             {c.resolved ? 'Reopen thread' : 'Resolve thread'}
           </Button>
         ) : null}
@@ -344,9 +344,13 @@ export function ReviewPanel({ ctx, me, thread, onThread }: { ctx: ReviewContext;
                       type="button"
                       onClick={() => onThread(s)}
                       className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-xs ${n.open ? 'border-caution-500 bg-caution-50 text-caution-700' : 'border-stone-300 text-stone-700'}`}
-                      aria-label={`Open the thread on ${s}: ${n.total} comments, ${n.open} open`}
                     >
+                      <span className="sr-only">Open the thread on </span>
                       <Sym s={s} /> <span className="num">{n.total}</span>
+                      <span className="sr-only">
+                        {' '}
+                        comments, {n.open} open
+                      </span>
                       {n.open ? <span aria-hidden>●</span> : <span aria-hidden>✓</span>}
                     </button>
                   </li>
