@@ -5,7 +5,7 @@ import { normalCoverageFactor } from '../../../../shared/distributions/normal';
 import { roundSignificant } from '../../../../shared/format/significant-digits';
 import { Field, NumberInput, Select, TextInput } from '../../../app/ui/controls';
 import { formatSignificant } from '../../../app/ui/numbers';
-import { givenNumber, ReadOnlyField } from '../../../app/ui/read-only';
+import { givenNumber, ReadOnlyField, ReadOnlyList } from '../../../app/ui/read-only';
 import { formatUnit } from '../../../app/ui/units';
 import { problemAt, type Problem } from '../live';
 import { convertKind, KIND_LABELS } from './kinds';
@@ -339,7 +339,7 @@ export function InputForm({
             : '∞ (u is known well)';
     return (
       <div className="flex flex-col gap-3">
-        <dl aria-label={`Input ${input.symbol}`} className="grid gap-x-4 gap-y-2 md:grid-cols-3">
+        <ReadOnlyList label={`Input ${input.symbol}`} className="md:grid-cols-3">
           <ReadOnlyField label="Symbol" numeric>
             {input.symbol}
           </ReadOnlyField>
@@ -351,7 +351,7 @@ export function InputForm({
           {kindFields()}
           {showDof ? <ReadOnlyField label="Degrees of freedom νᵢ">{dofText}</ReadOnlyField> : null}
           {statedFields}
-        </dl>
+        </ReadOnlyList>
         {observations}
       </div>
     );
