@@ -66,6 +66,5 @@ function describe(where: string, found: Violation[]): string {
 export async function expectAccessible(page: Page, what: string): Promise<void> {
   await settled(page);
   const found = await violations(page);
-  if (found.length && process.env.A11Y_SURVEY) { (await import('node:fs')).appendFileSync(process.env.A11Y_SURVEY, describe(`${what} (${new URL(page.url()).pathname})`, found) + '\n\n'); return; } // SURVEY-TEMP
   if (found.length) throw new Error(describe(`${what} (${new URL(page.url()).pathname})`, found));
 }
