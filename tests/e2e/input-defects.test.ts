@@ -160,5 +160,10 @@ describe('input defects: pasted readings, undo, version status, read-only text',
     await shows(correlations.getByRole('table', { name: 'Correlation coefficients between inputs' }));
     await countIs(correlations.locator('input, select'), 0);
     await shot(page, 'read-only-correlations');
+
+    // the report prints the correlation matrix, each header cell named
+    await page.goto(`${app.baseUrl}/budgets/${dc}/versions/1/report`);
+    await shows(page.getByTestId('report-correlations'));
+    await shot(page, 'report-correlations');
   }, 180_000);
 });

@@ -165,7 +165,8 @@ describe('review and approval as a controlled act', () => {
     // the edit is rendered and its recompute waits for the worker
     await expect.poll(() => save.getAttribute('title')).toBe('Fix the problems shown first');
     release();
-    await expect.poll(() => save.isEnabled()).toBe(true);
+    // the worker's code arrives and computes first: on a busy machine that takes longer than the poll's default second
+    await expect.poll(() => save.isEnabled(), { timeout: 20_000 }).toBe(true);
     expect(await page.evaluate(() => (window as unknown as { saveStates: string[] }).saveStates)).toEqual(['off', 'on']);
   }, 120_000);
 
