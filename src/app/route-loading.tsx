@@ -26,7 +26,7 @@ export function RouteError() {
   if (isMissingCode(error)) {
     return (
       <div className="mx-auto max-w-lg px-6 py-12">
-        <ErrorNote title="This page could not be loaded">
+        <ErrorNote heading title="This page could not be loaded">
           <p>Dubito may have been updated since this tab was opened, or the server could not be reached. Reload to get the current version.</p>
           <Button className="mt-2" onClick={() => window.location.reload()}>
             Reload
@@ -38,7 +38,7 @@ export function RouteError() {
   const message = isRouteErrorResponse(error) ? `${error.status} ${error.statusText}` : errorMessage(error);
   return (
     <div className="mx-auto max-w-lg px-6 py-12">
-      <ErrorNote title="This page failed">
+      <ErrorNote heading title="This page failed">
         <p>{message}</p>
         <a href="/budgets" className="text-accent-700 underline">
           Go to the budgets

@@ -46,7 +46,7 @@ export function RequireSignIn({ children }: { children: (me: Me) => React.ReactN
   if (me.isError) {
     return (
       <div className="mx-auto max-w-lg p-8">
-        <ErrorNote title="Dubito cannot reach its server">{errorMessage(me.error)}</ErrorNote>
+        <ErrorNote heading title="Dubito cannot reach its server">{errorMessage(me.error)}</ErrorNote>
       </div>
     );
   }

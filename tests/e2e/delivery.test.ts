@@ -1,7 +1,6 @@
-import type { BrowserContext, CDPSession, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { screenshotPath, startApp, type AppUnderTest } from './support/app-under-test';
-import { openBrowser, signIn } from './support/browser';
+import type { CDPSession, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { useBrowserSession } from './support/session';
 
 /*
  * How the built client reaches the browser: each page fetches its own code,
@@ -9,17 +8,7 @@ import { openBrowser, signIn } from './support/browser';
  * be fetched says so inside the shell.
  */
 
-let app: AppUnderTest;
-const contexts: BrowserContext[] = [];
-
-beforeAll(async () => {
-  app = await startApp();
-}, 180_000);
-
-afterAll(async () => {
-  await Promise.all(contexts.map((c) => c.close()));
-  await app?.stop();
-});
+const { app, pageAs, signIn, shot } = useBrowserSession('delivery');
 
 interface Fetched {
   path: string;
@@ -30,11 +19,8 @@ interface Fetched {
 
 /** A page with a log of the JavaScript it fetches (the DevTools protocol sees cache hits too). */
 async function watchedPage(): Promise<{ page: Page; scripts: Fetched[] }> {
-  const context = await openBrowser();
-  contexts.push(context);
-  const page = await context.newPage();
-  page.setDefaultTimeout(20_000);
-  const cdp: CDPSession = await context.newCDPSession(page);
+  const page = await pageAs(null);
+  const cdp: CDPSession = await page.context().newCDPSession(page);
   await cdp.send('Network.enable');
   const scripts: Fetched[] = [];
   const byId = new Map<string, Fetched>();
@@ -64,7 +50,7 @@ describe('the client is delivered in pieces', () => {
     expect(scripts.length).toBeGreaterThan(0);
     expect(scripts.filter((s) => HEAVY.test(s.path))).toEqual([]);
     expect(scripts.filter((s) => s.encoding !== 'br')).toEqual([]);
-    await page.screenshot({ path: screenshotPath('delivery', 'sign-in'), fullPage: true });
+    await shot(page, 'sign-in');
 
     scripts.length = 0;
     await page.reload();
@@ -77,7 +63,7 @@ describe('the client is delivered in pieces', () => {
   it('the list fetches the editor ahead; a new budget opens it without the chart library and the engine worker computes its result', async () => {
     const { page, scripts } = await watchedPage();
     const editorFetched = page.waitForRequest(/editor-route-[^/]*\.js$/);
-    await signIn(page, app.baseUrl, 'metrologist@dubito.example');
+    await signIn(page, 'metrologist@dubito.example');
     // The list fetches the editor's code while idle, before any budget is opened.
     await editorFetched;
     expect(page.url()).toMatch(/\/budgets$/);
@@ -88,19 +74,19 @@ describe('the client is delivered in pieces', () => {
     await page.getByRole('region', { name: 'Result' }).getByTestId('card-statement').waitFor();
     expect(scripts.some((s) => s.path.includes('editor-route'))).toBe(true);
     expect(scripts.filter((s) => s.path.includes('HistogramPlot'))).toEqual([]);
-    await page.screenshot({ path: screenshotPath('delivery', 'new-budget'), fullPage: true });
+    await shot(page, 'new-budget');
   });
 
   it('a page whose code cannot be fetched offers a reload inside the shell', async () => {
     const { page } = await watchedPage();
     // As after an update: the tab asks for a chunk the server no longer has.
     await page.route(/editor-route-[^/]*\.js$/, (route) => route.fulfill({ status: 404, body: 'Not found' }));
-    await signIn(page, app.baseUrl, 'metrologist@dubito.example');
+    await signIn(page, 'metrologist@dubito.example');
     await page.getByRole('heading', { name: 'Budgets' }).waitFor();
     await page.locator('a[href^="/budgets/"]').first().click();
     await page.getByRole('alert').filter({ hasText: 'This page could not be loaded' }).waitFor();
     expect(await page.getByRole('button', { name: 'Reload' }).isVisible()).toBe(true);
     expect(await page.getByRole('button', { name: /sign out/i }).isVisible()).toBe(true);
-    await page.screenshot({ path: screenshotPath('delivery', 'page-not-loaded'), fullPage: true });
+    await shot(page, 'page-not-loaded');
   });
 });

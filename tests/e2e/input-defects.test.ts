@@ -1,8 +1,7 @@
-import type { BrowserContext, Locator, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { screenshotPath, startApp, type AppUnderTest } from './support/app-under-test';
-import { openBrowser, signIn } from './support/browser';
+import type { Locator, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { containsText, countIs, hasTexts, shows } from './support/page-expect';
+import { useBrowserSession } from './support/session';
 
 /*
  * Pasted observations with a decimal comma, the lines the reader ignored,
@@ -11,28 +10,7 @@ import { containsText, countIs, hasTexts, shows } from './support/page-expect';
  * client and the server with the demo lab.
  */
 
-let app: AppUnderTest;
-const contexts: BrowserContext[] = [];
-
-beforeAll(async () => {
-  app = await startApp();
-}, 180_000);
-
-afterAll(async () => {
-  await Promise.all(contexts.map((c) => c.close()));
-  await app?.stop();
-});
-
-async function pageAs(email: string): Promise<Page> {
-  const context = await openBrowser();
-  contexts.push(context);
-  const page = await context.newPage();
-  page.setDefaultTimeout(20_000);
-  await signIn(page, app.baseUrl, email);
-  return page;
-}
-
-const shot = (page: Page, name: string) => page.screenshot({ path: screenshotPath('input-defects', name), fullPage: true });
+const { app, pageAs, shot } = useBrowserSession('input-defects');
 
 const inputItems = (page: Page): Locator => page.getByRole('list', { name: 'Input quantities' }).getByRole('listitem');
 
@@ -182,5 +160,10 @@ describe('input defects: pasted readings, undo, version status, read-only text',
     await shows(correlations.getByRole('table', { name: 'Correlation coefficients between inputs' }));
     await countIs(correlations.locator('input, select'), 0);
     await shot(page, 'read-only-correlations');
+
+    // the report prints the correlation matrix, each header cell named
+    await page.goto(`${app.baseUrl}/budgets/${dc}/versions/1/report`);
+    await shows(page.getByTestId('report-correlations'));
+    await shot(page, 'report-correlations');
   }, 180_000);
 });

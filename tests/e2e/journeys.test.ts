@@ -1,11 +1,10 @@
 import { writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { BrowserContext, Locator, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { screenshotPath, startApp, type AppUnderTest } from './support/app-under-test';
-import { openBrowser, signIn } from './support/browser';
+import type { Locator, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { containsText, countIs, hasTexts, shows } from './support/page-expect';
+import { useBrowserSession } from './support/session';
 
 /*
  * The five user journeys of Dubito, in Debian's Chromium against the built
@@ -13,28 +12,7 @@ import { containsText, countIs, hasTexts, shows } from './support/page-expect';
  * Screenshots of the main screens go to tests/.artifacts/screenshots.
  */
 
-let app: AppUnderTest;
-const contexts: BrowserContext[] = [];
-
-beforeAll(async () => {
-  app = await startApp();
-}, 180_000);
-
-afterAll(async () => {
-  await Promise.all(contexts.map((c) => c.close()));
-  await app?.stop();
-});
-
-async function pageAs(email: string | null): Promise<Page> {
-  const context = await openBrowser();
-  contexts.push(context);
-  const page = await context.newPage();
-  page.setDefaultTimeout(20_000);
-  if (email) await signIn(page, app.baseUrl, email);
-  return page;
-}
-
-const shot = (page: Page, journey: string, name: string) => page.screenshot({ path: screenshotPath(journey, name), fullPage: true });
+const { app, pageAs, shot, checkAccessibility } = useBrowserSession('journey');
 
 function inputItems(page: Page): Locator {
   return page.getByRole('list', { name: 'Input quantities' }).getByRole('listitem');
@@ -123,7 +101,7 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     await hasTexts(table.getByTestId('budget-symbol'), typeset(['R_s', 'dR_obs', 'dR_res', 'dR_T']));
     const result = page.getByRole('region', { name: 'Result' });
     await containsText(result.getByRole('button', { name: /^R / }), '100.000');
-    await shot(page, 'journey1', 'budget-table');
+    await shot(page, '1-budget-table');
 
     // reorder by keyboard drag: dR_T from position 4 to position 1
     const handle = page.getByRole('button', { name: /^Move dR_T/ });
@@ -157,16 +135,17 @@ describe('journey 1: a metrologist drafts a budget from scratch', () => {
     // any verdict of JCGM 101:2008 8.2 that compares: at 10⁵ trials the numerical accuracy may be of the size of δ
     await shows(mc.getByTestId('mc-verdict').getByText(/GUM result is (validated|not validated)|comparison with the Monte Carlo method is inconclusive/));
     await shows(mc.locator('.js-plotly-plot, svg.main-svg'));
-    await shot(page, 'journey1', 'monte-carlo');
+    await shot(page, '1-monte-carlo');
     const seenSeed = await mc.getByLabel('Seed').inputValue();
 
     await page.getByRole('button', { name: 'Save version…' }).click();
     const dialog = page.getByRole('dialog');
     await dialog.getByLabel('Change note').fill('First draft from the bench notes');
+    await checkAccessibility(page, 'the save dialog');
     await dialog.getByRole('button', { name: 'Save version' }).click();
     await page.waitForURL(/\/budgets\/\d+/);
     await shows(page.getByText(/saved/i));
-    await shot(page, 'journey1', 'saved');
+    await shot(page, '1-saved');
 
     const id = Number(/\/budgets\/(\d+)/.exec(page.url())?.[1]);
     const stored = await page.evaluate(async (budgetId) => (await fetch(`/api/budgets/${budgetId}`)).json(), id);
@@ -210,22 +189,23 @@ describe('journey 2: review, return, resubmit and approve', () => {
 
     const reviewer = await pageAs('reviewer@dubito.example');
     await reviewer.goto(`${app.baseUrl}/budgets/${id}`);
-    await reviewer.getByRole('button', { name: /^Comments on dm_r \(0\)/ }).click();
+    await reviewer.getByRole('button', { name: 'Comment on dm_r' }).click();
     await reviewer.getByLabel('New comment on dm_r').fill('The certificate KF-2025-077 gives U = 0.025 mg, not 0.030 mg. Please check.');
     await reviewer.getByRole('button', { name: 'Add comment' }).click();
-    await shows(reviewer.getByRole('button', { name: /^Comments on dm_r \(1\)/ }));
-    await shot(reviewer, 'journey2', 'comment-on-contribution');
+    await shows(reviewer.getByRole('button', { name: '1 comment on dm_r' }));
+    await shot(reviewer, '2-comment-on-contribution');
 
     await reviewer.getByRole('button', { name: 'Return to author' }).click();
     const back = reviewer.getByRole('dialog', { name: /Return version 1/ });
     await back.getByRole('button', { name: 'Send back' }).click();
     await shows(back.getByText(/required|give a reason|write/i)); // a return needs its comment
+    await checkAccessibility(reviewer, 'the return dialog with its error');
     await back.getByLabel('Why is it returned?').fill('Uncertainty of the reference weight to be corrected, see the comment on dm_r.');
     await back.getByRole('button', { name: 'Send back' }).click();
     await shows(reviewer.getByText('Returned'));
 
     await author.goto(`${app.baseUrl}/budgets/${id}`);
-    await shows(author.getByRole('button', { name: /^Comments on dm_r \(1\)/ }));
+    await shows(author.getByRole('button', { name: '1 comment on dm_r' }));
     const names = await author.getByRole('button', { name: /^Move / }).evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''));
     const index = names.findIndex((n) => n.startsWith('Move dm_r '));
     const item = await openInput(author, index);
@@ -233,9 +213,12 @@ describe('journey 2: review, return, resubmit and approve', () => {
     await saveVersion(author, 'dm_r: U from certificate KF-2025-077 corrected to 0.025 mg');
     await author.getByRole('button', { name: 'Submit for review' }).click();
     // the dm_r thread and the return comment are still open: the submission lists them first
-    await author.getByRole('dialog', { name: /open comment thread/ }).getByRole('button', { name: 'Submit anyway' }).click();
+    const openThreads = author.getByRole('dialog', { name: /open comment thread/ });
+    await shows(openThreads);
+    await checkAccessibility(author, 'the open threads before a submission');
+    await openThreads.getByRole('button', { name: 'Submit anyway' }).click();
     await shows(author.getByText('In review'));
-    await shot(author, 'journey2', 'resubmitted');
+    await shot(author, '2-resubmitted');
 
     await reviewer.goto(`${app.baseUrl}/budgets/${id}`);
     await reviewer.getByRole('button', { name: 'Approve' }).click();
@@ -244,10 +227,11 @@ describe('journey 2: review, return, resubmit and approve', () => {
     await sign.getByLabel('Your password (signature)').fill('not my password');
     await sign.getByRole('button', { name: 'Sign and approve' }).click();
     await shows(sign.getByText(/password does not match/i));
+    await checkAccessibility(reviewer, 'the approve dialog with a wrong password');
     await sign.getByLabel('Your password (signature)').fill('dubito-demo');
     await sign.getByRole('button', { name: 'Sign and approve' }).click();
     await shows(reviewer.getByText('Approved'));
-    await shot(reviewer, 'journey2', 'approved');
+    await shot(reviewer, '2-approved');
 
     // the approved version is read-only for everyone, its author included
     await author.goto(`${app.baseUrl}/budgets/${id}`);
@@ -266,7 +250,7 @@ describe('journey 2: review, return, resubmit and approve', () => {
     // the report of the approved version: a print-ready page and its PDF
     await reviewer.goto(`${app.baseUrl}/budgets/${id}/versions/2/report`);
     await shows(reviewer.getByTestId('report-statement'));
-    await shot(reviewer, 'journey2', 'report');
+    await shot(reviewer, '2-report');
     const href = await reviewer.getByRole('link', { name: 'Download PDF' }).getAttribute('href');
     const pdf = await reviewer.evaluate(async (url) => {
       const r = await fetch(url as string);
@@ -281,6 +265,8 @@ describe('journey 3: an auditor compares versions and exports the audit trail', 
     const page = await pageAs('auditor@dubito.example');
     const id = await openBudget(page, /Resistor KF-R10K-7/);
     await page.goto(`${app.baseUrl}/budgets/${id}/versions`);
+    await shows(page.getByRole('table'));
+    await checkAccessibility(page, 'the versions');
     const form = page.getByRole('form', { name: 'Compare two versions' }).or(page.getByRole('region', { name: 'Compare two versions' })).first();
     await form.getByLabel('Compare version').selectOption('1');
     await form.getByLabel('with version').selectOption('3');
@@ -292,11 +278,11 @@ describe('journey 3: an auditor compares versions and exports the audit trail', 
     await shows(changed.locator('[data-change="changed"]'));
     await shows(changed.getByText(/changed/i));
     expect(await page.getByTestId('contribution-R_s').getAttribute('data-change')).toBe('changed');
-    await shot(page, 'journey3', 'compare');
+    await shot(page, '3-compare');
 
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /audit/i }).click();
     await shows(page.getByTestId('audit-table'));
-    await shot(page, 'journey3', 'audit-trail');
+    await shot(page, '3-audit-trail');
     const download = page.waitForEvent('download');
     await page.getByRole('link', { name: 'Export CSV' }).click();
     const file = await (await download).path();
@@ -312,10 +298,11 @@ describe('journey 4: a trainee starts from a template', () => {
     const page = await pageAs('trainee@dubito.example');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Templates' }).click();
     await shows(page.getByRole('region', { name: 'Template gallery' }).or(page.getByTestId(/template-/)).first());
-    await shot(page, 'journey4', 'templates');
+    await shot(page, '4-templates');
     await page.getByRole('button', { name: /^Use this template/ }).first().click();
     const dialog = page.getByRole('dialog', { name: 'Start a draft from this template' });
     await dialog.getByLabel('Title of the new draft').fill('Training: gauge block KF-GB-50-201');
+    await checkAccessibility(page, 'the template dialog');
     await dialog.getByRole('button', { name: 'Create draft' }).click();
     await page.waitForURL(/\/budgets\/\d+$/);
     const id = Number(/\/budgets\/(\d+)/.exec(page.url())?.[1]);
@@ -330,7 +317,7 @@ describe('journey 4: a trainee starts from a template', () => {
     await u.fill(String(Number(await u.inputValue()) * 3));
     await expect.poll(() => U.textContent()).not.toBe(before);
     await saveVersion(page, 'First input: standard uncertainty tripled for the exercise');
-    await shot(page, 'journey4', 'trainee-draft');
+    await shot(page, '4-trainee-draft');
 
     await countIs(page.getByRole('button', { name: 'Approve' }), 0);
     const status = await page.evaluate(
@@ -355,7 +342,7 @@ describe('journey 5: signed-out visitors and wrong roles are kept out', () => {
       await page.waitForURL(/\/sign-in/);
       await shows(page.getByRole('heading', { name: 'Sign in' }));
     }
-    await shot(page, 'journey5', 'sign-in');
+    await shot(page, '5-sign-in');
     const api = await page.evaluate(async () => (await fetch('/api/budgets')).status);
     expect(api).toBe(401);
   }, 120_000);
@@ -367,7 +354,7 @@ describe('journey 5: signed-out visitors and wrong roles are kept out', () => {
       await page.goto(`${app.baseUrl}${path}`);
       await shows(page.getByText(/not available for your role/i));
     }
-    await shot(page, 'journey5', 'wrong-role');
+    await shot(page, '5-wrong-role');
     const status = await page.evaluate(async () => (await fetch('/api/audit')).status);
     expect(status).toBe(403);
   }, 120_000);

@@ -1,8 +1,6 @@
-import type { BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { screenshotPath, startApp, type AppUnderTest } from './support/app-under-test';
-import { openBrowser, signIn } from './support/browser';
+import { describe, expect, it } from 'vitest';
 import { countIs, shows } from './support/page-expect';
+import { useBrowserSession } from './support/session';
 
 /*
  * The lists the server pages and sorts, in Chromium against the built client and the demo lab:
@@ -11,28 +9,7 @@ import { countIs, shows } from './support/page-expect';
  * tests/.artifacts/screenshots.
  */
 
-let app: AppUnderTest;
-const contexts: BrowserContext[] = [];
-
-beforeAll(async () => {
-  app = await startApp();
-}, 180_000);
-
-afterAll(async () => {
-  await Promise.all(contexts.map((c) => c.close()));
-  await app?.stop();
-});
-
-async function pageAs(email: string): Promise<Page> {
-  const context = await openBrowser();
-  contexts.push(context);
-  const page = await context.newPage();
-  page.setDefaultTimeout(20_000);
-  await signIn(page, app.baseUrl, email);
-  return page;
-}
-
-const shot = (page: Page, name: string) => page.screenshot({ path: screenshotPath('lists', name), fullPage: true });
+const { app, pageAs, shot } = useBrowserSession('lists');
 
 describe('lists sorted and paged by the server', () => {
   it('sorts the budgets by title on the server, marks the sorted column, and hides a column', async () => {

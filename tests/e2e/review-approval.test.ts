@@ -1,9 +1,8 @@
 import { createHash } from 'node:crypto';
-import type { BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { screenshotPath, startApp, type AppUnderTest } from './support/app-under-test';
-import { openBrowser, signIn } from './support/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { containsText, countIs, shows } from './support/page-expect';
+import { useBrowserSession } from './support/session';
 
 /*
  * Review as a controlled act, in Debian's Chromium against the built client and
@@ -13,28 +12,7 @@ import { containsText, countIs, shows } from './support/page-expect';
  * keeps the other person's change. Screenshots go to tests/.artifacts/screenshots.
  */
 
-let app: AppUnderTest;
-const contexts: BrowserContext[] = [];
-
-beforeAll(async () => {
-  app = await startApp();
-}, 180_000);
-
-afterAll(async () => {
-  await Promise.all(contexts.map((c) => c.close()));
-  await app?.stop();
-});
-
-async function pageAs(email: string): Promise<Page> {
-  const context = await openBrowser();
-  contexts.push(context);
-  const page = await context.newPage();
-  page.setDefaultTimeout(20_000);
-  await signIn(page, app.baseUrl, email);
-  return page;
-}
-
-const shot = (page: Page, name: string) => page.screenshot({ path: screenshotPath('review', name), fullPage: true });
+const { app, pageAs, shot, checkAccessibility } = useBrowserSession('review');
 
 /** A minimal PDF, enough for the server's content sniffing. */
 const PDF = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n', 'latin1');
@@ -76,6 +54,7 @@ describe('review and approval as a controlled act', () => {
     await reviewer.getByRole('button', { name: 'Return to author' }).click();
     const back = reviewer.getByRole('dialog', { name: /Return version 1/ });
     await back.getByLabel('Why is it returned?').fill('The evidence for the reference gauge block is missing.');
+    await checkAccessibility(reviewer, 'the return dialog');
     await back.getByRole('button', { name: 'Send back' }).click();
     await shows(reviewer.getByText('Returned').first());
 
@@ -95,7 +74,7 @@ describe('review and approval as a controlled act', () => {
     await containsText(evidence.getByText(/^SHA-256 /), `SHA-256 ${createHash('sha256').update(PDF).digest('hex')}`);
     await shot(author, 'returned-and-evidence');
     await evidence.scrollIntoViewIfNeeded();
-    await evidence.screenshot({ path: screenshotPath('review', 'evidence-panel') });
+    await shot(evidence, 'evidence-panel');
 
     // submitting with open threads lists them first
     await author.getByRole('button', { name: 'Submit for review' }).click();
@@ -126,7 +105,7 @@ describe('review and approval as a controlled act', () => {
     await containsText(reviewer.getByTestId('review-decisions'), 'The certificate is attached; the threads are answered by it.');
     const history = reviewer.getByTestId('review-decisions');
     await history.scrollIntoViewIfNeeded();
-    await history.screenshot({ path: screenshotPath('review', 'approved-history') });
+    await shot(history, 'approved-history');
 
     const stored = await reviewer.evaluate(async (budgetId) => (await fetch(`/api/budgets/${budgetId}/review`)).json(), id);
     expect(stored.status).toBe('approved');
@@ -186,7 +165,8 @@ describe('review and approval as a controlled act', () => {
     // the edit is rendered and its recompute waits for the worker
     await expect.poll(() => save.getAttribute('title')).toBe('Fix the problems shown first');
     release();
-    await expect.poll(() => save.isEnabled()).toBe(true);
+    // the worker's code arrives and computes first: on a busy machine that takes longer than the poll's default second
+    await expect.poll(() => save.isEnabled(), { timeout: 20_000 }).toBe(true);
     expect(await page.evaluate(() => (window as unknown as { saveStates: string[] }).saveStates)).toEqual(['off', 'on']);
   }, 120_000);
 

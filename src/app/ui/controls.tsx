@@ -144,10 +144,12 @@ export function EmptyState({ title, children }: { title: string; children?: Reac
   );
 }
 
-export function ErrorNote({ title = 'Something went wrong', children }: { title?: string; children: ReactNode }) {
+/** `heading` when the note is all the page shows: its title is then the page's level-one heading. */
+export function ErrorNote({ title = 'Something went wrong', heading, children }: { title?: string; heading?: boolean; children: ReactNode }) {
+  const Title = heading ? 'h1' : 'p';
   return (
     <div role="alert" className="rounded-md border border-caution-500 bg-caution-50 px-3 py-2 text-sm text-caution-700">
-      <p className="font-semibold">{title}</p>
+      <Title className="font-semibold">{title}</Title>
       <div>{children}</div>
     </div>
   );

@@ -78,7 +78,7 @@ export function BudgetTable({
               key={r.symbol}
               tabIndex={0}
               aria-label={`${r.symbol}: contribution ${r.contribution.text}${yUnit ? ` ${yUnit}` : ''}, ${r.share.text} of the variance`}
-              aria-selected={isSel}
+              aria-current={isSel ? 'true' : undefined}
               onClick={select}
               onKeyDown={(e) => {
                 if (e.key === 'Enter' || e.key === ' ') {
@@ -197,7 +197,7 @@ export function ContributionsChart({ model, selected, onSelect }: { model: Resul
   return (
     <figure className="w-full max-w-lg rounded-md border border-stone-200 bg-white p-3" data-testid="contributions-chart">
       <figcaption className="mb-1 text-sm font-medium text-stone-900">{model.budget.dominant.text}</figcaption>
-      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`Shares of the variance, largest first: ${terms.map((t) => `${t.symbol} ${t.share.text}`).join(', ')}`}>
+      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="group" aria-label={`Shares of the variance, largest first: ${terms.map((t) => `${t.symbol} ${t.share.text}`).join(', ')}`}>
         {[0, 0.5, 1].map((f) => (
           <g key={f}>
             <line x1={pad.l} x2={W - pad.r} y1={Y(f)} y2={Y(f)} stroke={f === 0 ? '#78716c' : '#e7e5e4'} strokeWidth={f === 0 ? 1 : 0.6} />
@@ -226,15 +226,20 @@ export function ContributionsChart({ model, selected, onSelect }: { model: Resul
             >
               <rect x={X(i) - slot / 2} y={pad.t} width={slot} height={H - pad.t - pad.b + 40} fill={sel ? '#eef4f8' : 'transparent'} />
               <rect x={X(i) - barW / 2} y={Y(v)} width={barW} height={Math.max(0.8, H - pad.b - Y(v))} fill={i === 0 ? '#1f5a85' : '#b9cada'} />
-              <text x={X(i)} y={H - pad.b + 12} fontSize="9" textAnchor="middle" fill="#1c1917" fontFamily="JetBrains Mono, monospace">
-                <SymbolLabel symbol={t.symbol} maxChars={maxChars} />
-              </text>
-              <text x={X(i)} y={H - pad.b + 23} fontSize="9" textAnchor="middle" fill="#44403c" fontFamily="JetBrains Mono, monospace">
-                {t.share.text}
-              </text>
             </g>
           );
         })}
+        {/* The column's labels lie outside its button, whose name says them in full (a truncated symbol would not match it); clicks fall through to the column. */}
+        {terms.map((t, i) => (
+          <g key={t.symbol} aria-hidden pointerEvents="none">
+            <text x={X(i)} y={H - pad.b + 12} fontSize="9" textAnchor="middle" fill="#1c1917" fontFamily="JetBrains Mono, monospace">
+              <SymbolLabel symbol={t.symbol} maxChars={maxChars} />
+            </text>
+            <text x={X(i)} y={H - pad.b + 23} fontSize="9" textAnchor="middle" fill="#44403c" fontFamily="JetBrains Mono, monospace">
+              {t.share.text}
+            </text>
+          </g>
+        ))}
         {terms.length > 1 ? (
           <polyline fill="none" stroke="#1f5a85" strokeWidth="1.2" points={terms.map((t, i) => `${X(i)},${Y(t.cumulative.value ?? 0)}`).join(' ')} />
         ) : null}

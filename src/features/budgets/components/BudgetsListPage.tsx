@@ -36,7 +36,7 @@ const COLUMNS: ColumnDef<BudgetListItem, unknown>[] = [
     header: 'Version',
     meta: { className: 'num text-right' },
     cell: ({ row: { original: b } }) => (
-      <Link to={`/budgets/${b.id}/versions`} className="hover:text-accent-700 hover:underline" aria-label={`Versions of ${b.title}: ${b.currentVersion}`}>
+      <Link to={`/budgets/${b.id}/versions`} className="hover:text-accent-700 hover:underline" aria-label={`v${b.currentVersion}, versions of ${b.title}`}>
         v{b.currentVersion}
       </Link>
     ),

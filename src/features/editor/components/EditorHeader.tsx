@@ -52,6 +52,8 @@ export function EditorHeader({
           <h1 className="min-w-0 flex-1 px-1 py-0.5 text-xl font-semibold tracking-tight text-stone-900">{title}</h1>
         ) : (
           <>
+            {/* the title field is the page's heading; its text is the heading for a reader that lists headings */}
+            <h1 className="sr-only">{title || 'New budget'}</h1>
             <label htmlFor="budget-title" className="sr-only">
               Title
             </label>

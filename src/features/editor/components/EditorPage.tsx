@@ -38,7 +38,7 @@ export function EditorPage({
     const e = budget.error ?? version.error;
     return (
       <div className="mx-auto max-w-xl p-8">
-        <ErrorNote title={e instanceof ApiError && e.status === 404 ? 'No such budget or version' : 'The budget could not be loaded'}>{errorMessage(e)}</ErrorNote>
+        <ErrorNote heading title={e instanceof ApiError && e.status === 404 ? 'No such budget or version' : 'The budget could not be loaded'}>{errorMessage(e)}</ErrorNote>
         <Link to="/budgets" className="mt-3 inline-block text-sm text-accent-700 underline">
           Back to the budgets
         </Link>

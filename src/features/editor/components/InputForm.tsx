@@ -5,7 +5,7 @@ import { quantitySchema, type Distribution, type DistributionKind, type InputQua
 import type { Draft } from '../../../../shared/distributions/distribution';
 import { KINDS, ruleOf } from '../../../../shared/distributions/registry';
 import { Field, TextInput } from '../../../app/ui/controls';
-import { ReadOnlyField } from '../../../app/ui/read-only';
+import { ReadOnlyField, ReadOnlyList } from '../../../app/ui/read-only';
 import { formatUnit } from '../../../app/ui/units';
 import { problemAt, type Problem } from '../live';
 import { DofFields, dofModeOf, offersDof, type DofMode } from './DofFields';
@@ -93,7 +93,7 @@ export function InputForm({
   if (readOnly) {
     return (
       <div className="flex flex-col gap-3">
-        <dl aria-label={`Input ${input.symbol}`} className="grid gap-x-4 gap-y-2 md:grid-cols-3">
+        <ReadOnlyList label={`Input ${input.symbol}`} className="md:grid-cols-3">
           <ReadOnlyField label="Symbol" numeric>
             {input.symbol}
           </ReadOnlyField>
@@ -105,7 +105,7 @@ export function InputForm({
           {kindFields}
           {dof}
           <StatedFields draft={draft} way={way} />
-        </dl>
+        </ReadOnlyList>
         <ObservationsForm draft={draft} canUpload={canUpload} />
       </div>
     );

@@ -50,9 +50,10 @@ export function ResultCard({
           p = <span className="num">{f.coverageProbability.text}</span>
         </span>
       </div>
-      <dl className="mt-2 grid grid-cols-1 gap-0.5">
+      {/* each figure is a button that explains it, so a list of buttons rather than a definition list */}
+      <ul className="mt-2 grid grid-cols-1 gap-0.5">
         {items.map((it) => (
-          <div key={it.key}>
+          <li key={it.key}>
             <button
               type="button"
               onClick={() => onSelect(it.key)}
@@ -60,15 +61,15 @@ export function ResultCard({
               className={`grid w-full grid-cols-[3.5rem_1fr] items-baseline gap-2 rounded px-2 py-0.5 text-left ${selected === it.key ? 'bg-accent-50 ring-1 ring-accent-600' : 'hover:bg-stone-50'}`}
               title={it.figure.value !== null ? `unrounded: ${unrounded(it.figure.value)} — select to see how it was obtained` : 'select to see how it was obtained'}
             >
-              <dt className="text-sm text-stone-700">{it.label}</dt>
-              <dd className={`num text-right ${it.key === 'y' || it.key === 'U' ? 'text-lg font-semibold text-stone-900' : 'text-sm text-stone-800'}`}>
+              <span className="text-sm text-stone-700">{it.label}</span>
+              <span className={`num text-right ${it.key === 'y' || it.key === 'U' ? 'text-lg font-semibold text-stone-900' : 'text-sm text-stone-800'}`}>
                 {it.figure.text}
                 {it.unit ? <span className="ml-1 text-sm font-normal text-stone-600">{it.unit}</span> : null}
-              </dd>
+              </span>
             </button>
-          </div>
+          </li>
         ))}
-      </dl>
+      </ul>
       <p className="mt-1 px-2 text-[11px] text-stone-600">U from {f.basisWords}</p>
       {f.notes.map((n) => (
         <p key={n} role="note" className="mt-1 rounded-md border border-caution-500 bg-caution-50 px-2 py-1 text-xs text-caution-700">

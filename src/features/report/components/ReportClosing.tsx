@@ -48,7 +48,9 @@ export function ReportAppendix({ model: m }: { model: ResultModel }) {
           <caption className="mb-1 text-left font-sans font-semibold">Correlation coefficients r(xᵢ, xⱼ)</caption>
           <thead>
             <tr>
-              <th />
+              <th>
+                <span className="sr-only">Input</span>
+              </th>
               {m.correlations.symbols.map((s) => (
                 <th key={s} className="px-2 text-right">
                   {s}

@@ -13,7 +13,7 @@ export function CommentBadge({ budgetId, symbol, open, onOpen }: { budgetId: num
   const comments = useComments(budgetId);
   const mine = (comments.data ?? []).filter((c) => c.symbol === symbol);
   const unresolved = mine.filter((c) => !c.resolved).length;
-  const label = `Comments on ${symbol} (${mine.length})`;
+  const label = mine.length ? `${mine.length} comment${mine.length === 1 ? '' : 's'} on ${symbol}` : `Comment on ${symbol}`;
   return (
     <button
       type="button"

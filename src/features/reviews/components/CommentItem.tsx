@@ -69,7 +69,7 @@ export function CommentItem({
           </Button>
         ) : null}
         {mayResolve ? (
-          <Button size="sm" disabled={busy} onClick={() => onResolve(c, !c.resolved)} aria-label={c.resolved ? `Reopen the thread of comment ${c.id}` : `Resolve the thread of comment ${c.id}`}>
+          <Button size="sm" disabled={busy} onClick={() => onResolve(c, !c.resolved)} aria-label={c.resolved ? `Reopen thread of comment ${c.id}` : `Resolve thread of comment ${c.id}`}>
             {c.resolved ? 'Reopen thread' : 'Resolve thread'}
           </Button>
         ) : null}

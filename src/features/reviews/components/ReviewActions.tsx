@@ -59,7 +59,7 @@ function ApproveDialog({ ctx, me, onClose }: { ctx: ReviewContext; me: Me; onClo
             );
           }}
         >
-          <div className="max-h-[28vh] overflow-y-auto rounded-md border border-stone-200 p-3">
+          <div role="region" aria-label="What you sign" tabIndex={0} className="max-h-[28vh] overflow-y-auto rounded-md border border-stone-200 p-3 focus:outline-none focus-visible:ring-2 focus-visible:ring-accent-600">
             <SigningBrief state={state.data} />
           </div>
           <div data-testid="signing-meaning" className="rounded-md border border-accent-600 bg-accent-50 px-3 py-2 text-sm text-stone-900">

@@ -37,9 +37,13 @@ export function ReviewPanel({ ctx, me, thread, onThread }: { ctx: ReviewContext;
                       type="button"
                       onClick={() => onThread(s)}
                       className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-xs ${n.open ? 'border-caution-500 bg-caution-50 text-caution-700' : 'border-stone-300 text-stone-700'}`}
-                      aria-label={`Open the thread on ${s}: ${n.total} comments, ${n.open} open`}
                     >
+                      <span className="sr-only">Open the thread on </span>
                       <Sym s={s} /> <span className="num">{n.total}</span>
+                      <span className="sr-only">
+                        {' '}
+                        comments, {n.open} open
+                      </span>
                       {n.open ? <span aria-hidden>●</span> : <span aria-hidden>✓</span>}
                     </button>
                   </li>
