@@ -92,6 +92,7 @@ export class AttachmentsService {
         throw e;
       }
     }
+    // eslint-disable-next-line no-control-regex -- control characters are what the stored file name must not contain
     const fileName = file.originalname.replace(/[\\/\u0000-\u001f]/g, '_').slice(0, 255) || 'evidence';
     return this.d.budgets.addToCurrentVersion(actor, b, `evidence added: ${fileName}`, (tx, { number: n, isNew: newVersion, at }) => {
       const id = insertAttachment(tx, { budgetId, versionNumber: n, symbol, fileName, size: file.size, sha256: sha, mediaType: sniffed, uploadedBy: actor.id, createdAt: at });

@@ -103,6 +103,7 @@ export function NumberInput({
     last.current = value;
     const current = parseNumberText(text);
     if (!Object.is(current, value) && !(value === null && current === undefined)) {
+      // eslint-disable-next-line react-hooks/set-state-in-effect -- the text follows a value changed from outside, and keeps what was typed when it reads as the same number
       setText(value === undefined || value === null || Number.isNaN(value) ? '' : String(value));
     }
     // eslint-disable-next-line react-hooks/exhaustive-deps
