@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 
 /** The shortest password accepted; the password is also the approval signature. */
-export const MIN_PASSWORD_LENGTH = 12;
+const MIN_PASSWORD_LENGTH = 12;
 
 const COMMON = new Set(
   readFileSync(new URL('./common-passwords.txt', import.meta.url), 'utf8')

@@ -3,7 +3,7 @@ import multer from 'multer';
 import { BudgetError } from '../../shared/budget/budget-error';
 import { AppError, MalformedUploadError, NotFoundError, RetryLaterError, StorageFullError, StorageReadOnlyError, UnavailableError } from './errors';
 
-export interface ErrorBody {
+interface ErrorBody {
   error: { code: string; message: string; field?: string; [k: string]: unknown };
 }
 

@@ -9,7 +9,7 @@ import type { ReportData } from './report-data';
 import { reportFileName } from './report-pdf';
 
 /** The laboratory named on reports whose budget file names none. */
-export const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
+const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
 
 export interface ReportFile {
   fileName: string;

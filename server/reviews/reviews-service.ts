@@ -28,7 +28,7 @@ import {
 } from './reviews-repository';
 
 /** The clause 8 verdict of a stored result; results stored before verdicts existed carry only `passed`. */
-export function verdictOf(result: BudgetResult): { verdict: ValidationVerdict; reason: string | null } | null {
+function verdictOf(result: BudgetResult): { verdict: ValidationVerdict; reason: string | null } | null {
   const v = result.validation;
   if (!v) return null;
   return { verdict: v.verdict ?? (v.passed ? 'validated' : 'not-validated'), reason: v.reason ?? null };

@@ -20,9 +20,9 @@ const SIGNATURES: { type: string; test(b: Buffer): boolean }[] = [
   { type: 'image/jpeg', test: (b) => b[0] === 0xff && b[1] === 0xd8 && b[2] === 0xff },
   { type: 'image/webp', test: (b) => b.subarray(0, 4).toString('latin1') === 'RIFF' && b.subarray(8, 12).toString('latin1') === 'WEBP' },
 ];
-export const ATTACHMENT_TYPES = SIGNATURES.map((s) => s.type);
+const ATTACHMENT_TYPES = SIGNATURES.map((s) => s.type);
 
-export function sniffType(b: Buffer): string | null {
+function sniffType(b: Buffer): string | null {
   return SIGNATURES.find((s) => s.test(b))?.type ?? null;
 }
 

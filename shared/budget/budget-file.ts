@@ -3,7 +3,7 @@ import { BudgetError } from './budget-error';
 import { budgetDocumentSchema, type BudgetDocument } from './schema';
 
 /** Renders a zod path as the budget file writes it: `inputs[2].distribution.u`. */
-export function fieldPath(path: readonly PropertyKey[]): string {
+function fieldPath(path: readonly PropertyKey[]): string {
   return path
     .map((p, i) => (typeof p === 'number' ? `[${p}]` : i === 0 ? String(p) : `.${String(p)}`))
     .join('');

@@ -27,7 +27,7 @@ const degreesOfFreedom = () =>
   });
 
 /** Largest relative uncertainty of u: ½·(Δu/u)⁻² = 1 at Δu/u = 1/√2 (JCGM 100:2008 G.4.2). */
-export const MAX_RELATIVE_UNCERTAINTY_OF_U = Math.SQRT1_2;
+const MAX_RELATIVE_UNCERTAINTY_OF_U = Math.SQRT1_2;
 
 /**
  * Δu/u as a fraction, 0 < Δu/u ≤ 1/√2, so that ν = ½·(Δu/u)⁻² ≥ 1 (JCGM 100:2008 G.4.2):
@@ -52,7 +52,7 @@ const dofOptions = {
  * indicating instrument (a = r/2, GUM F.2.2.1), a manufacturer's specification
  * or a tolerance ± a, repeated observations, or an estimate of the lab's own.
  */
-export const STATED_AS = ['certificate', 'resolution', 'specification', 'tolerance', 'observations', 'estimate'] as const;
+const STATED_AS = ['certificate', 'resolution', 'specification', 'tolerance', 'observations', 'estimate'] as const;
 export type StatedAs = (typeof STATED_AS)[number];
 
 const statedSchema = z.looseObject({
@@ -255,7 +255,7 @@ export const monteCarloSchema = z.looseObject({
  * validated) or "report-monte-carlo" (the Monte Carlo interval replaces them,
  * JCGM 101:2008 8.4).
  */
-export const reportingSchema = z
+const reportingSchema = z
   .looseObject({
     basis: z
       .enum(['t-effective-dof', 'k-fixed'], {
