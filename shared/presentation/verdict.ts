@@ -19,7 +19,7 @@ function sentence(reason: string): string {
 }
 
 /** The verdict of a stored validation; results stored before verdicts existed carry only `passed`. */
-function verdictOf(v: ValidationResult): ValidationVerdict {
+export function verdictOf(v: ValidationResult): ValidationVerdict {
   return v.verdict ?? (v.passed ? 'validated' : 'not-validated');
 }
 
