@@ -4,7 +4,7 @@ import { isAbsolute, join } from 'node:path';
 const GLOB = /[*?[]/;
 
 /** A command-line argument the user meant as a pattern rather than a file name. */
-export function isGlob(arg: string): boolean {
+function isGlob(arg: string): boolean {
   return GLOB.test(arg);
 }
 

@@ -30,7 +30,7 @@ import { ReviewsService } from './reviews/reviews-service';
 import { AttachmentsService } from './uploads/attachments-service';
 import { uploadsRoutes } from './uploads/uploads-routes';
 
-export const SESSION_COOKIE = 'dubito.sid';
+const SESSION_COOKIE = 'dubito.sid';
 
 export interface Services {
   accounts: AccountsService;

@@ -2,7 +2,7 @@ import { readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 
 /** What the client build is made from, relative to the project root. */
-export const CLIENT_SOURCES = ['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json'];
+const CLIENT_SOURCES = ['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json'];
 
 function newestChange(path: string): number {
   let st;

@@ -56,7 +56,7 @@ function int(v: string | undefined, fallback: number): number {
   return Number.isInteger(n) && n > 0 ? n : fallback;
 }
 
-export function defaultLog(msg: string, err?: unknown): void {
+function defaultLog(msg: string, err?: unknown): void {
   if (err === undefined) console.log(`[dubito] ${msg}`);
   else console.error(`[dubito] ${msg}:`, err);
 }

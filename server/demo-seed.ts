@@ -5,7 +5,7 @@ import type { Role } from '../shared/policy/policy';
 import type { Services } from './app';
 import type { SessionUser } from './http/request-user';
 
-export const DEMO_PASSWORD = 'dubito-demo';
+const DEMO_PASSWORD = 'dubito-demo';
 
 /** The fictional Kestrel Fen Metrology Laboratory. */
 const PEOPLE: { role: Role; name: string }[] = [

@@ -106,10 +106,3 @@ export function retireTokens(db: DbLike, userId: number): void {
     .where(and(eq(accountTokens.userId, userId), isNull(accountTokens.usedAt)))
     .run();
 }
-
-/** The display name of a user, or null for an unknown id. */
-export function userName(db: DbLike, id: number): string | null {
-  return (
-    prepared(db, 'user.name', () => db.select({ name: users.name }).from(users).where(eq(users.id, sql.placeholder('id'))).prepare()).get({ id })?.name ?? null
-  );
-}

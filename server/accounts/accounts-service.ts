@@ -30,7 +30,7 @@ const HOUR = 60 * 60 * 1000;
 
 type PublicUser = UserAccount;
 
-export function toSessionUser(u: UserRow): SessionUser {
+function toSessionUser(u: UserRow): SessionUser {
   return { id: u.id, email: u.email, name: u.name, role: u.role };
 }
 

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 
 /** JSON with object keys sorted at every level and no whitespace: the same document always gives the same text. */
-export function canonicalJson(value: unknown): string {
+function canonicalJson(value: unknown): string {
   if (value === null || typeof value !== 'object') return JSON.stringify(value) ?? 'null';
   if (Array.isArray(value)) return `[${value.map((v) => (v === undefined ? 'null' : canonicalJson(v))).join(',')}]`;
   const entries = Object.entries(value as Record<string, unknown>)

@@ -5,7 +5,7 @@ import type { BudgetDocument } from '../../shared/budget/schema';
 import type { ReportData } from '../reports/report-data';
 
 /** A stored version as text, parsed inside the worker. */
-export interface StoredVersionText {
+interface StoredVersionText {
   number: number;
   document: string;
   result: string;

@@ -8,7 +8,7 @@ import type { RunResult } from 'better-sqlite3';
 import { projectRoot } from '../project-root';
 import * as schema from './schema';
 
-export type Schema = typeof schema;
+type Schema = typeof schema;
 export type Db = BetterSQLite3Database<Schema>;
 /** The database or an open transaction: what repositories work on. */
 export type DbLike = BaseSQLiteDatabase<'sync', RunResult, Schema>;

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import type { DbLike } from './connection';
 import { appSettings } from './schema';
 
-export function getSetting(db: DbLike, key: string): string | undefined {
+function getSetting(db: DbLike, key: string): string | undefined {
   return db.select().from(appSettings).where(eq(appSettings.key, key)).get()?.value;
 }
 

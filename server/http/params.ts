@@ -11,8 +11,8 @@ function positiveId(what: string) {
 
 export const budgetId = positiveId('a budget id');
 export const versionNumber = positiveId('a version number');
-export const commentId = positiveId('a comment id');
-export const attachmentId = positiveId('an attachment id');
+const commentId = positiveId('a comment id');
+const attachmentId = positiveId('an attachment id');
 export const userId = positiveId('a user id');
 
 /** `/api/budgets/:id…` */

@@ -13,7 +13,7 @@ export interface RouteInfo {
   access: Access;
 }
 
-export function authorize(access: Access): RequestHandler {
+function authorize(access: Access): RequestHandler {
   return (req, _res, next) => {
     if (access === 'public') return next();
     if (!req.user) return next(new UnauthenticatedError());

@@ -25,7 +25,7 @@ function decodeWords(s: string): string {
 }
 
 /** Reads the headers and the plain-text body of a simple (single-part) message. */
-export function readMessage(raw: string): { headers: Record<string, string>; text: string } {
+function readMessage(raw: string): { headers: Record<string, string>; text: string } {
   const split = raw.search(/\r?\n\r?\n/);
   const head = split < 0 ? raw : raw.slice(0, split);
   const bodyRaw = split < 0 ? '' : raw.slice(split).replace(/^\r?\n\r?\n/, '');

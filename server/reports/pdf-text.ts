@@ -13,7 +13,7 @@ import { THIN } from './typeset';
  */
 
 export type Doc = PDFKit.PDFDocument;
-export type Face = 'sans' | 'bold' | 'mono' | 'mono-bold';
+type Face = 'sans' | 'bold' | 'mono' | 'mono-bold';
 
 export interface TextStyle {
   face: Face;
@@ -34,7 +34,7 @@ const MONO_FILES: Record<string, string> = {
  * WOFF 1 → plain OpenType: the tables are zlib streams, inflated once here
  * with node's zlib, so each report does not inflate them again.
  */
-export function woffToSfnt(woff: Buffer): Buffer {
+function woffToSfnt(woff: Buffer): Buffer {
   if (woff.toString('latin1', 0, 4) !== 'wOFF') return woff;
   const numTables = woff.readUInt16BE(12);
   const tables: { tag: Buffer; checksum: number; data: Buffer }[] = [];

@@ -3,9 +3,6 @@ import type { BudgetResult } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
 import type { VersionStatus } from '../../shared/policy/version-status';
 
-
-export { STATUS_WORDS, type VersionStatus } from '../../shared/presentation/status';
-
 /** Everything the report shows, gathered by the service; the renderer reads nothing else. */
 export interface ReportData {
   lab: string;
@@ -34,4 +31,4 @@ export interface ReportData {
 }
 
 /** One evidence file as the report lists it: its input symbol (null for the whole budget), size in bytes and SHA-256. */
-export type ReportEvidence = Pick<Attachment, 'fileName' | 'symbol' | 'size' | 'sha256' | 'versionNumber' | 'uploaderName' | 'createdAt'>;
+type ReportEvidence = Pick<Attachment, 'fileName' | 'symbol' | 'size' | 'sha256' | 'versionNumber' | 'uploaderName' | 'createdAt'>;

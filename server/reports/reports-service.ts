@@ -5,11 +5,9 @@ import { ForbiddenError, UnprocessableError } from '../http/errors';
 import type { SessionUser } from '../http/request-user';
 import type { AttachmentsService } from '../uploads/attachments-service';
 import { versionStatus } from '../../shared/policy/version-status';
+import { labOf } from '../../shared/presentation/status';
 import type { ReportData } from './report-data';
 import { reportFileName } from './report-pdf';
-
-/** The laboratory named on reports whose budget file names none. */
-export const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
 
 export interface ReportFile {
   fileName: string;
@@ -41,7 +39,7 @@ export class ReportsService {
     const v = this.d.budgets.version(id, n ?? b.currentVersion);
     const doc = v.document as typeof v.document & { lab?: unknown; procedure?: unknown };
     return {
-      lab: text(doc.lab) ?? this.d.lab ?? DEFAULT_LAB,
+      lab: labOf(doc, this.d.lab),
       budgetId: id,
       title: v.document.title,
       procedure: text(doc.procedure),

@@ -2,6 +2,7 @@ import { reportedOf } from '../../shared/compute/reported-result';
 import { superscript } from '../../shared/format/superscript';
 import { unitPieces, writeUnit } from '../../shared/format/unit-symbols';
 import { resultStatement } from '../../shared/gum/statement';
+import { verdictOf as validationVerdict } from '../../shared/presentation/verdict';
 import type { Comment, NewComment, ReviewQueueItem, ReviewState, SigningCaveat, TransitionOutput, TransitionTarget } from '../../shared/api/reviews';
 import type { BudgetResult, ValidationVerdict } from '../../shared/budget/result';
 import type { BudgetDocument } from '../../shared/budget/schema';
@@ -29,10 +30,10 @@ import {
 } from './reviews-repository';
 
 /** The clause 8 verdict of a stored result; results stored before verdicts existed carry only `passed`. */
-export function verdictOf(result: BudgetResult): { verdict: ValidationVerdict; reason: string | null } | null {
+function verdictOf(result: BudgetResult): { verdict: ValidationVerdict; reason: string | null } | null {
   const v = result.validation;
   if (!v) return null;
-  return { verdict: v.verdict ?? (v.passed ? 'validated' : 'not-validated'), reason: v.reason ?? null };
+  return { verdict: validationVerdict(v), reason: v.reason ?? null };
 }
 
 /**

@@ -20,9 +20,9 @@ const SIGNATURES: { type: string; test(b: Buffer): boolean }[] = [
   { type: 'image/jpeg', test: (b) => b[0] === 0xff && b[1] === 0xd8 && b[2] === 0xff },
   { type: 'image/webp', test: (b) => b.subarray(0, 4).toString('latin1') === 'RIFF' && b.subarray(8, 12).toString('latin1') === 'WEBP' },
 ];
-export const ATTACHMENT_TYPES = SIGNATURES.map((s) => s.type);
+const ATTACHMENT_TYPES = SIGNATURES.map((s) => s.type);
 
-export function sniffType(b: Buffer): string | null {
+function sniffType(b: Buffer): string | null {
   return SIGNATURES.find((s) => s.test(b))?.type ?? null;
 }
 
@@ -92,6 +92,7 @@ export class AttachmentsService {
         throw e;
       }
     }
+    // eslint-disable-next-line no-control-regex -- control characters are what the stored file name must not contain
     const fileName = file.originalname.replace(/[\\/\u0000-\u001f]/g, '_').slice(0, 255) || 'evidence';
     return this.d.budgets.addToCurrentVersion(actor, b, `evidence added: ${fileName}`, (tx, { number: n, isNew: newVersion, at }) => {
       const id = insertAttachment(tx, { budgetId, versionNumber: n, symbol, fileName, size: file.size, sha256: sha, mediaType: sniffed, uploadedBy: actor.id, createdAt: at });

@@ -20,7 +20,7 @@ import type { BudgetDocument } from './schema';
 type Obj = Record<string, unknown>;
 
 /** What one change of theirs does to the field it touches. */
-export type ChangeKind = 'changed' | 'added' | 'removed';
+type ChangeKind = 'changed' | 'added' | 'removed';
 
 export interface TheirChange {
   /** Stable key of the field, for the decisions map. */
@@ -131,7 +131,7 @@ function changedPaths(base: unknown, theirs: unknown, mine: unknown, path: strin
 const LIST_NAMES: Record<string, string> = { inputs: 'input', constants: 'constant', correlations: 'correlation' };
 
 /** The field in words: the list item by its symbol, then the field names. */
-export function describeField(path: readonly string[]): string {
+function describeField(path: readonly string[]): string {
   const [head, key, ...rest] = path;
   if (head && LIST_NAMES[head] && key !== undefined) {
     const item = `${LIST_NAMES[head]} ${key}`;

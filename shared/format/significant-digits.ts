@@ -50,8 +50,3 @@ export function writeNumeral(n: Numeral, raise: (exponent: string) => string): s
 export function roundSignificant(x: number, sig: number): number {
   return Number.isFinite(x) && x !== 0 ? Number(x.toPrecision(sig)) : x;
 }
-
-/** x rounded to `decimals` decimal places, as a number to put in an input field. */
-export function roundDecimals(x: number, decimals: number): number {
-  return Number.isFinite(x) ? Number(x.toFixed(decimals)) : x;
-}

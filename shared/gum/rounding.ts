@@ -18,7 +18,7 @@ export function roundUncertainty(u: number, significantDigits = 2): Rounded {
 }
 
 /** Rounds x to the place 10^exponent (half away from zero on the binary value). */
-export function roundToExponent(x: number, exponent: number): number {
+function roundToExponent(x: number, exponent: number): number {
   if (!Number.isFinite(x)) return x;
   if (exponent < 0) return Number(x.toFixed(Math.min(-exponent, 100)));
   const p = 10 ** exponent;
@@ -37,7 +37,7 @@ const DOUBLE_SIGNIFICANT_DIGITS = 15;
  * The place 10^exponent of the last significant digit of x as written with at
  * most 15 significant digits (0.5 → −1, 1200 → 2, 0.1 + 0.2 → −1); 0 for 0.
  */
-export function lastDigitExponent(x: number): number {
+function lastDigitExponent(x: number): number {
   if (x === 0 || !Number.isFinite(x)) return 0;
   const [mantissa, exp] = Math.abs(x).toExponential(DOUBLE_SIGNIFICANT_DIGITS - 1).split('e');
   const digits = mantissa.replace('.', '').replace(/0+$/, '');

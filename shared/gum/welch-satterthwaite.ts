@@ -46,7 +46,7 @@ export function welchSatterthwaite(terms: readonly VarianceTerm[]): number {
  * correlations between errors", Metrologia 44 (2007) 340–349 (from memory):
  * correlated errors are sums of common independent components.
  */
-export function varianceTerms(
+function varianceTerms(
   c: readonly number[],
   u: readonly number[],
   dofs: readonly number[],

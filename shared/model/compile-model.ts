@@ -10,11 +10,11 @@ import { describeDimension, parseUnit, sameDimension, type QuantityUnit } from '
 export type { ScalarFunction } from './symbolic-partials';
 
 /** A quantity the model reads: an input (one column per input) or a constant. */
-export interface ModelQuantity {
+interface ModelQuantity {
   symbol: string;
   unit?: string;
 }
-export interface ModelConstant extends ModelQuantity {
+interface ModelConstant extends ModelQuantity {
   value: number;
 }
 export interface ModelSpec {

@@ -55,7 +55,7 @@ import {
  * only, and these skip the BigNumber, fraction, complex and matrix
  * signatures whose making is most of mathjs's start-up.
  */
-export const math: MathJsInstance = createNumberMath({
+const math: MathJsInstance = createNumberMath({
   parseDependencies,
   derivativeDependencies,
   ConstantNodeDependencies,

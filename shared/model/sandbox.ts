@@ -9,7 +9,7 @@ import { BudgetError } from '../budget/budget-error';
  * because a model is data that travels between users and must never execute
  * anything but arithmetic.
  */
-export const MODEL_OPERATORS: ReadonlyMap<string, string> = new Map([
+const MODEL_OPERATORS: ReadonlyMap<string, string> = new Map([
   ['add', '+'],
   ['subtract', '-'],
   ['multiply', '*'],

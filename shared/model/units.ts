@@ -113,7 +113,7 @@ const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
  * superscript exponents (m², s⁻¹) → ^2, ^-1. Throws for the names in
  * MISREAD with what to write instead.
  */
-export function mathjsUnitText(text: string): string {
+function mathjsUnitText(text: string): string {
   const trimmed = text.trim();
   for (const token of trimmed.split(/[\s*/^()·×]+/)) {
     const why = MISREAD.get(token);
@@ -141,7 +141,7 @@ export function toMathUnit(text: string): Unit {
 }
 
 /** The dimension of a mathjs unit, without the angle exponent. */
-export function dimensionOf(u: Unit): Dimension {
+function dimensionOf(u: Unit): Dimension {
   const dims = u.dimensions as number[];
   return kept().map((i) => dims[i] ?? 0);
 }
@@ -206,7 +206,7 @@ export function powerDimension(a: Dimension, p: number): Dimension {
 }
 
 /** The dimension of temperature alone (K). */
-export const TEMPERATURE: Dimension = DIMENSIONLESS.map((_, i) => (BASE_NAMES[i] === 'K' ? 1 : 0));
+const TEMPERATURE: Dimension = DIMENSIONLESS.map((_, i) => (BASE_NAMES[i] === 'K' ? 1 : 0));
 
 /** Writes a dimension in SI base units, e.g. `kg m^-3`; `1` when dimensionless. */
 export function describeDimension(d: Dimension): string {

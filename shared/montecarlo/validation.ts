@@ -30,7 +30,7 @@ function figure(x: number): string {
  * its numerical standard uncertainty: 2, the factor JCGM 101:2008 7.9.4 uses
  * when it asks 2s ≤ δ of the adaptive procedure (about 95 %).
  */
-export const ENDPOINT_COVERAGE_FACTOR = 2;
+const ENDPOINT_COVERAGE_FACTOR = 2;
 
 export interface ValidationOptions {
   /**

@@ -14,7 +14,7 @@ export type Role = (typeof ROLES)[number];
 export const BUDGET_STATUSES = ['draft', 'in_review', 'approved'] as const;
 export type BudgetStatus = (typeof BUDGET_STATUSES)[number];
 
-export const POLICY = {
+const POLICY = {
   /** Read budgets, versions, diffs, comments, attachments, templates; export. */
   'budget.read': ['admin', 'metrologist', 'reviewer', 'auditor', 'trainee'],
   /** Create a budget (also by import). */
@@ -46,11 +46,6 @@ export const POLICY = {
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;
-export const ACTIONS = Object.keys(POLICY) as Action[];
-
-export function isRole(value: unknown): value is Role {
-  return typeof value === 'string' && (ROLES as readonly string[]).includes(value);
-}
 
 /** May this role attempt this action at all? */
 export function can(role: Role | null | undefined, action: Action): boolean {
@@ -69,7 +64,7 @@ export interface BudgetFacts {
   isTemplate: boolean;
 }
 
-export function isOwner(actor: Actor, budget: BudgetFacts): boolean {
+function isOwner(actor: Actor, budget: BudgetFacts): boolean {
   return actor.id === budget.ownerId;
 }
 

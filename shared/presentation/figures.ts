@@ -24,7 +24,7 @@ export interface Figure {
 const raise = (exponent: string) => `^{${exponent}}`;
 
 /** A figure from a numeral: both spellings. */
-export function fromNumeral(n: Numeral, value: number | null): Figure {
+function fromNumeral(n: Numeral, value: number | null): Figure {
   return { text: writeNumeral(n, superscript), markup: writeNumeral(n, raise), value };
 }
 

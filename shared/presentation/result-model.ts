@@ -37,13 +37,13 @@ import { verdictView, type VerdictView } from './verdict';
  */
 
 /** Plain text for the screen and terminal, and the same with the PDF's raise/lower markup. */
-export interface Text {
+interface Text {
   text: string;
   markup: string;
 }
 
 /** The figures that go to the certificate, and how they were obtained. */
-export interface ReportedFigures {
+interface ReportedFigures {
   basis: ReportingBasis;
   /** How U was obtained, in words that follow "U from": "k = t_p(ν_eff) of the t-distribution (GUM G.4)". */
   basisWords: string;
@@ -68,7 +68,7 @@ export interface WarningView {
 }
 
 /** One row of the budget: from the value as stated to the share of the variance. */
-export interface BudgetRow {
+interface BudgetRow {
   symbol: string;
   description: string;
   kind: string;
@@ -88,13 +88,13 @@ export interface BudgetRow {
 }
 
 /** A term of the ranked contributions, largest first, with the running total of the shares. */
-export interface RankedTerm {
+interface RankedTerm {
   symbol: string;
   share: Figure;
   cumulative: Figure;
 }
 
-export interface BudgetView {
+interface BudgetView {
   rows: BudgetRow[];
   ranked: RankedTerm[];
   /** The largest term in words: "u(T) contributes 72 % of the variance u_c²." */

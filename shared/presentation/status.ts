@@ -23,7 +23,7 @@ export function isUnapproved(status: VersionStatus): boolean {
 export const DRAFT_MARK = 'DRAFT — not approved';
 
 /** The laboratory named on reports whose budget file names none (the demo lab). */
-export const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
+const DEFAULT_LAB = 'Kestrel Fen Metrology Laboratory';
 
 /** The laboratory a report names: the budget file's `lab` when it gives one. */
 export function labOf(document: object, fallback = DEFAULT_LAB): string {

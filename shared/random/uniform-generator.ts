@@ -66,7 +66,9 @@ export class UniformGenerator {
     let s1 = state[1];
     let s2 = state[2];
     let s3 = state[3];
+    // eslint-disable-next-line no-useless-assignment -- declared as integers before the hot loop so they stay small integers
     let t = 0;
+    // eslint-disable-next-line no-useless-assignment -- declared as integers before the hot loop so they stay small integers
     let r = 0;
     for (let i = 0; i < n; i++) {
       t = s1 << 9;

@@ -12,7 +12,7 @@ interface NavItem {
 }
 
 /** Navigation: each entry appears only for the roles the policy map allows. */
-export const NAV: NavItem[] = [
+const NAV: NavItem[] = [
   { to: '/budgets', label: 'Budgets', action: 'budget.read' },
   { to: '/templates', label: 'Templates', action: 'budget.read' },
   { to: '/audit', label: 'Audit trail', action: 'audit.read' },
@@ -28,7 +28,7 @@ const ROLE_LABEL: Record<Role, string> = {
   trainee: 'Trainee',
 };
 
-export function roleLabel(role: Role): string {
+function roleLabel(role: Role): string {
   return ROLE_LABEL[role];
 }
 
@@ -103,7 +103,7 @@ export function AppShell({ me, outlet }: { me: Me; outlet?: React.ReactNode }) {
 }
 
 /** Shown instead of a page the role may not open. */
-export function NotAllowed({ role }: { role: Role }) {
+function NotAllowed({ role }: { role: Role }) {
   return (
     <div className="mx-auto max-w-xl px-6 py-12">
       <h1 className="text-xl font-semibold">Not available for your role</h1>
@@ -118,7 +118,7 @@ export function RequireAction({ me, action, children }: { me: Me; action: Action
   return can(me.role, action) ? <>{children}</> : <NotAllowed role={me.role} />;
 }
 
-export function Placeholder({ title, children }: { title: string; children: React.ReactNode }) {
+function Placeholder({ title, children }: { title: string; children: React.ReactNode }) {
   return (
     <div className="mx-auto max-w-3xl px-6 py-10">
       <h1 className="text-2xl font-semibold tracking-tight">{title}</h1>

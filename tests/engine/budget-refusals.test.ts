@@ -6,6 +6,7 @@ import { budget, N } from '../support/budget-builder';
 
 const base = () => JSON.parse(JSON.stringify(budget('Y = a + b', { a: N(1, 0.1), b: N(2, 0.1) })));
 
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- the test bends the raw JSON into shapes the schema refuses
 function refusalOf(mutate: (doc: any) => void, compute = false): BudgetError {
   const doc = base();
   mutate(doc);
@@ -21,6 +22,7 @@ function refusalOf(mutate: (doc: any) => void, compute = false): BudgetError {
 
 // The rules every budget must satisfy (budget file v1): each refusal names its field.
 describe('budget refusals', () => {
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- the test bends the raw JSON into shapes the schema refuses
   const fieldCases: [string, (d: any) => void, string, string][] = [
     ['u ≤ 0', (d) => (d.inputs[0].distribution.u = 0), 'inputs[0].distribution.u', 'greater than 0'],
     ['u and U together', (d) => Object.assign(d.inputs[0].distribution, { U: 0.2, k: 2 }), 'inputs[0].distribution.u', 'not both'],
@@ -66,6 +68,7 @@ describe('budget refusals', () => {
     expect(e.message).toContain('500');
   });
 
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- the test bends the raw JSON into shapes the schema refuses
   const computeCases: [string, (d: any) => void, string, string][] = [
     ['duplicate symbol', (d) => (d.inputs[1].symbol = 'a'), 'inputs[1].symbol', 'already used'],
     ['reserved symbol', (d) => (d.inputs[1].symbol = 'e'), 'inputs[1].symbol', 'reserved'],

@@ -59,7 +59,7 @@ export function Field({
   );
 }
 
-export const inputClass =
+const inputClass =
   'w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm text-stone-900 placeholder:text-stone-500 aria-[invalid=true]:border-caution-500 aria-[invalid=true]:bg-caution-50 disabled:bg-stone-100 disabled:text-stone-600 read-only:bg-stone-50';
 
 export function TextInput({ className = '', ...rest }: InputHTMLAttributes<HTMLInputElement>) {
@@ -103,6 +103,7 @@ export function NumberInput({
     last.current = value;
     const current = parseNumberText(text);
     if (!Object.is(current, value) && !(value === null && current === undefined)) {
+      // eslint-disable-next-line react-hooks/set-state-in-effect -- the text follows a value changed from outside, and keeps what was typed when it reads as the same number
       setText(value === undefined || value === null || Number.isNaN(value) ? '' : String(value));
     }
     // eslint-disable-next-line react-hooks/exhaustive-deps

@@ -1,5 +1,4 @@
-import { groupDigits } from '../../../shared/format/digit-groups';
-import { count, estimate, share, significantFigure, uncertainty, unrounded } from '../../../shared/presentation/figures';
+import { count, estimate, significantFigure, uncertainty, unrounded } from '../../../shared/presentation/figures';
 
 /*
  * Numbers on screen outside the result model (input fields, lists, hints):
@@ -8,13 +7,8 @@ import { count, estimate, share, significantFigure, uncertainty, unrounded } fro
  * result model and never pass through here.
  */
 
-export { groupDigits };
-
 /** A count, grouped: 200000 → "200 000". */
 export const formatCount = (n: number): string => count(n).text;
-
-/** A share of a whole as a percentage (variance shares). */
-export const formatPercent = (s: number): string => share(s).text;
 
 /** x with `sig` significant digits, ×10ⁿ outside 10⁻³ … 10⁶. */
 export const formatSignificant = (x: number, sig = 3): string => significantFigure(x, sig).text;

@@ -3,7 +3,7 @@ import { createContext, useCallback, useContext, useEffect, useMemo, useState, t
 type Tone = 'success' | 'error' | 'info';
 
 /** A toast's one action, e.g. Undo after a removal. */
-export interface ToastAction {
+interface ToastAction {
   label: string;
   run(): void;
 }

@@ -60,6 +60,7 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
   const waiting = useRef<BudgetDocument | null>(null);
   const nextId = useRef(1);
 
+  // eslint-disable-next-line react-hooks/refs -- the function kept here reads its refs only when called from effects and worker messages, never during render
   const send = useRef((d: BudgetDocument) => {
     if (job.current) {
       // One recompute at a time: the latest draft waits for the one running.
@@ -117,6 +118,7 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
     [],
   );
 
+  // eslint-disable-next-line react-hooks/exhaustive-deps -- only the stored document decides the text, not the rest of the stored version
   const storedText = useMemo(() => (stored ? JSON.stringify(stored.document) : null), [stored?.document]);
   const isStored = useMemo(() => storedText !== null && JSON.stringify(deferred) === storedText, [deferred, storedText]);
 

@@ -14,6 +14,7 @@ export function restoreAt<T>(current: readonly T[], item: T, index: number): T[]
 /** A ref that always holds the latest value, for an Undo that runs after later edits. */
 export function useLatest<T>(value: T) {
   const ref = useRef(value);
+  // eslint-disable-next-line react-hooks/refs -- written during render on purpose: an Undo reads the latest value later, outside render
   ref.current = value;
   return ref;
 }

@@ -19,6 +19,7 @@ export function computeBudget(doc: BudgetDocument, options?: ComputeOptions) {
       for (;;);
     case 'crash':
       process.exit(3);
+    // eslint-disable-next-line no-fallthrough -- process.exit never returns
     case 'hold':
       // Holds its worker until the test creates the release file.
       while (!existsSync(release!)) Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 5);

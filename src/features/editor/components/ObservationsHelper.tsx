@@ -62,7 +62,7 @@ export function ObservationsHelper({
   canUpload: boolean;
   error?: string | null;
 }) {
-  const values = Array.isArray(spec.values) ? spec.values.filter((v) => Number.isFinite(v)) : [];
+  const values = useMemo(() => (Array.isArray(spec.values) ? spec.values.filter((v) => Number.isFinite(v)) : []), [spec.values]);
   const [text, setText] = useState(() => values.join('\n'));
   const [ignored, setIgnored] = useState<IgnoredLine[]>([]);
   const [ambiguity, setAmbiguity] = useState<string | null>(null);

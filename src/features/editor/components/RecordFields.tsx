@@ -15,6 +15,7 @@ export function RecordFields({ doc, readOnly, onChange }: { doc: Record; readOnl
   // the identifiers are typed as one list; the text is kept while typing so a trailing comma survives
   const [equipment, setEquipment] = useState(() => listText(doc.equipment));
   useEffect(() => {
+    // eslint-disable-next-line react-hooks/set-state-in-effect -- the typed list follows the document changed from outside, and keeps a trailing comma while typing
     setEquipment((text) => (listText(text.split(',').map((s) => s.trim()).filter(Boolean)) === listText(doc.equipment) ? text : listText(doc.equipment)));
   }, [doc.equipment]);
   if (readOnly) {

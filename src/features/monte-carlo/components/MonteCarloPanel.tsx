@@ -86,8 +86,10 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
 
   const shown = state.phase === 'done' ? { result: state.result, label: `run in this browser in ${seconds(state.ms)}` } : state.phase === 'idle' ? stored : null;
   const mc = shown?.result.monteCarlo ?? null;
+  // eslint-disable-next-line react-hooks/exhaustive-deps -- the figures depend on the shown result alone, not on its label
   const figures = useMemo(() => (shown ? presentMonteCarlo(shown.result, measurand.unit) : null), [shown?.result, measurand.unit]);
   const running = state.phase === 'running';
+  // eslint-disable-next-line react-hooks/purity -- the elapsed time is read again on each progress message, which re-renders the panel
   const elapsed = running ? performance.now() - state.startedAt : 0;
   const left = running && state.done > 0 ? (elapsed / state.done) * (state.total - state.done) : null;
 
