@@ -17,7 +17,7 @@ export interface RunOptions {
  * Why a budget gave no result: the engine's problem (`BudgetProblem`: code, message, field — null where it names none —
  * and the model location where there is one), or `file_unreadable`, or `internal` for a fault of the program.
  */
-export interface Refusal {
+interface Refusal {
   code: string;
   message: string;
   field: string | null;
@@ -28,10 +28,6 @@ export type FileOutcome =
   | { file: string; document: BudgetDocument; result: BudgetResult }
   | { file: string; error: Refusal };
 
-/** An outcome that is a fault of the program rather than of the budget (exit status 1). */
-export function isInternal(outcome: FileOutcome): boolean {
-  return 'error' in outcome && outcome.error.code === 'internal';
-}
 
 /** Reads, validates and computes one budget file; never throws: every refusal becomes the outcome. */
 export function computeFile(file: string, options: RunOptions): FileOutcome {

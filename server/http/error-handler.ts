@@ -8,7 +8,7 @@ import { AppError, MalformedUploadError, NotFoundError, RetryLaterError, Storage
  * Every error answer. A budget the engine refuses (422) answers its `BudgetProblem`:
  * `code`, `field` ('' for the budget as a whole), `location` in the model where there is one, `message`.
  */
-export interface ErrorBody {
+interface ErrorBody {
   error: { code: string; message: string; field?: string; [k: string]: unknown } | BudgetProblem;
 }
 

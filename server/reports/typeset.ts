@@ -1,4 +1,4 @@
-import { groupDigits, groupNumbersIn } from '../../shared/format/digit-groups';
+import { groupDigits } from '../../shared/format/digit-groups';
 import { DIGIT_GROUP_SEPARATOR } from '../../shared/format/signs';
 import { superscript } from '../../shared/format/superscript';
 
@@ -8,7 +8,7 @@ import { superscript } from '../../shared/format/superscript';
  * model (shared/presentation) in this markup.
  */
 
-export { groupDigits, groupNumbersIn };
+export { groupDigits };
 export const THIN = DIGIT_GROUP_SEPARATOR;
 
 /** Markup to plain text with Unicode superscripts, for places that cannot raise text. */

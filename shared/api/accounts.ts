@@ -21,7 +21,6 @@ export const linkToken = z.string().check(z.minLength(10), z.maxLength(200));
 
 /** `POST /api/auth/login`. */
 export const signInBody = z.strictObject({ email: typedAddress, password: typedPassword });
-export type SignInBody = z.infer<typeof signInBody>;
 
 /** `POST /api/auth/password-reset`. */
 export const passwordResetBody = z.strictObject({ email: typedAddress });

@@ -13,7 +13,7 @@ const personName = z.string().trim().min(1, { message: 'must not be empty' }).ma
 export const roleField = z.enum(ROLES, { error: `must be one of ${ROLES.join(', ')}` });
 
 /** A password as a body carries it (its strength is judged by the server alone). */
-export const passwordField = z.string({ error: 'must be text' }).min(1, { message: 'must not be empty' }).max(1000);
+const passwordField = z.string({ error: 'must be text' }).min(1, { message: 'must not be empty' }).max(1000);
 
 /** `POST /api/users`. */
 export const newUserBody = z.strictObject({ email, name: personName, role: roleField, password: passwordField.optional() });

@@ -28,7 +28,7 @@ export const degreesOfFreedom = () =>
   });
 
 /** Largest relative uncertainty of u: ½·(Δu/u)⁻² = 1 at Δu/u = 1/√2 (JCGM 100:2008 G.4.2). */
-export const MAX_RELATIVE_UNCERTAINTY_OF_U = Math.SQRT1_2;
+const MAX_RELATIVE_UNCERTAINTY_OF_U = Math.SQRT1_2;
 
 /**
  * Δu/u as a fraction, 0 < Δu/u ≤ 1/√2, so that ν = ½·(Δu/u)⁻² ≥ 1 (JCGM 100:2008 G.4.2):
@@ -53,10 +53,10 @@ export const dofOptions = {
  * indicating instrument (a = r/2, GUM F.2.2.1), a manufacturer's specification
  * or a tolerance ± a, repeated observations, or an estimate of the lab's own.
  */
-export const STATED_AS = ['certificate', 'resolution', 'specification', 'tolerance', 'observations', 'estimate'] as const;
+const STATED_AS = ['certificate', 'resolution', 'specification', 'tolerance', 'observations', 'estimate'] as const;
 export type StatedAs = (typeof STATED_AS)[number];
 
-export const statedSchema = z.looseObject({
+const statedSchema = z.looseObject({
   as: z.enum(STATED_AS, { error: `must be one of ${STATED_AS.join(', ')}` }),
   source: z.string({ error: 'must be text, e.g. the certificate number' }).max(300).optional(),
 });

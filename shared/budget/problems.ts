@@ -13,7 +13,7 @@ import { BudgetError, type BudgetErrorCode, type ModelLocation } from './budget-
  * that exhausts its worker) and `internal` (the engine failed: a defect, not a
  * fault of the budget).
  */
-export type ProblemCode = BudgetErrorCode | 'too_large_to_compute' | 'internal';
+type ProblemCode = BudgetErrorCode | 'too_large_to_compute' | 'internal';
 
 export interface BudgetProblem {
   code: ProblemCode;
@@ -26,14 +26,14 @@ export interface BudgetProblem {
 }
 
 /** Renders a zod path as the budget file writes it: `inputs[2].distribution.u`. */
-export function fieldPath(path: readonly PropertyKey[]): string {
+function fieldPath(path: readonly PropertyKey[]): string {
   return path
     .map((p, i) => (typeof p === 'number' ? `[${p}]` : i === 0 ? String(p) : `.${String(p)}`))
     .join('');
 }
 
 /** The place a problem names, as its message begins: `model line 3, column 7`, or the field. */
-export function placeText(field: string, location?: ModelLocation): string {
+function placeText(field: string, location?: ModelLocation): string {
   if (location) return `model line ${location.line}${location.column !== undefined ? `, column ${location.column}` : ''}`;
   return field;
 }

@@ -3,7 +3,7 @@ import { LIMITS } from './limits';
 import { DISTRIBUTION_SCHEMAS, ruleFor } from '../distributions/registry';
 import { finite, symbolName, unitText } from './field-schemas';
 
-export { MAX_RELATIVE_UNCERTAINTY_OF_U, STATED_AS, type StatedAs } from './field-schemas';
+export { type StatedAs } from './field-schemas';
 
 /*
  * Budget file v1 (format "dubito-budget/1"). Objects are loose: fields this
@@ -68,7 +68,7 @@ export const monteCarloSchema = z.looseObject({
  * validated) or "report-monte-carlo" (the Monte Carlo interval replaces them,
  * JCGM 101:2008 8.4).
  */
-export const reportingSchema = z
+const reportingSchema = z
   .looseObject({
     basis: z
       .enum(['t-effective-dof', 'k-fixed'], {

@@ -1,4 +1,4 @@
-import type { Distribution, DistributionKind, DistributionOf, StatedAs } from '../budget/schema';
+import type { DistributionKind, DistributionOf, StatedAs } from '../budget/schema';
 import type { UniformGenerator } from '../random/uniform-generator';
 
 /** The GUM treatment of an input quantity: estimate x, standard uncertainty u(x), degrees of freedom ν (Infinity for ∞). */
@@ -40,7 +40,7 @@ export interface StatementWriter {
 }
 
 /** How an input of one kind was stated: the figure as entered and the divisor that makes it u (GUM 4.3). */
-export interface KindStatement {
+interface KindStatement {
   text: string;
   /** The stated figure before division (U, a, r, s, u), null for limits and constants. */
   amount: number | null;
@@ -93,7 +93,7 @@ export interface KindFormField<K extends DistributionKind> {
 export type Draft<K extends DistributionKind> = Partial<DistributionOf<K>> & { kind: K; stated?: { as: StatedAs; source?: string } };
 
 /** One way of giving an input of a kind ("Given as"): its fields and how a draft is restated in it. */
-export interface KindFormWay<K extends DistributionKind> {
+interface KindFormWay<K extends DistributionKind> {
   id: string;
   /** The option's text in the "Given as" chooser. */
   label: string;
@@ -107,7 +107,7 @@ export interface KindFormWay<K extends DistributionKind> {
 }
 
 /** The input form of a kind: its ways of being given (the first is the default) and its choice of ν. */
-export interface KindForm<K extends DistributionKind> {
+interface KindForm<K extends DistributionKind> {
   ways: readonly KindFormWay<K>[];
   /** Which way a draft is given in. */
   wayOf(spec: Draft<K>): string;
@@ -151,6 +151,3 @@ export interface DistributionRule<K extends DistributionKind> {
   fromStandardUncertainty(x: number, u: number, nu: number): DistributionOf<K>;
 }
 
-/** Any kind's rule, for code that handles every kind alike. */
-export type AnyDistributionRule = { [K in DistributionKind]: DistributionRule<K> }[DistributionKind];
-export type { Distribution };

@@ -158,7 +158,7 @@ function fromCertificate(d: Draft<'normal'>): Record<string, unknown> {
 }
 
 /** k of a U stated with p (`normalCoverageFactor`), or undefined while p or ν is not usable in the draft. */
-export function draftCoverageFactor(d: Draft<'normal'>): number | undefined {
+function draftCoverageFactor(d: Draft<'normal'>): number | undefined {
   try {
     const usable = d.p !== undefined && d.p > 0 && d.p < 1 && (d.dof === undefined || d.dof >= 1);
     return usable ? (normalCoverageFactor(d) ?? undefined) : undefined;

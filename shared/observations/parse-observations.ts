@@ -16,9 +16,9 @@ import Papa from 'papaparse';
 
 export type DecimalMark = '.' | ',';
 /** How the cells of a line are separated; null when each line holds one value. */
-export type CellSeparator = '\t' | ';' | ',' | null;
+type CellSeparator = '\t' | ';' | ',' | null;
 
-export interface ObservationRow {
+interface ObservationRow {
   /** 1-based line number in the text. */
   line: number;
   cells: string[];

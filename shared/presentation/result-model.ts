@@ -62,7 +62,7 @@ interface ReportedFigures {
 }
 
 /** A warning as the reader sees it: its code, for deciding where and how it shows, and its words with digits grouped. */
-export interface WarningView {
+interface WarningView {
   code: WarningCode;
   message: string;
 }

@@ -59,7 +59,7 @@ export function Field({
   );
 }
 
-const inputClass =
+export const inputClass =
   'w-full rounded-md border border-stone-300 bg-white px-2 py-1.5 text-sm text-stone-900 placeholder:text-stone-500 aria-[invalid=true]:border-caution-500 aria-[invalid=true]:bg-caution-50 disabled:bg-stone-100 disabled:text-stone-600 read-only:bg-stone-50';
 
 export function TextInput({ className = '', ...rest }: InputHTMLAttributes<HTMLInputElement>) {

@@ -12,6 +12,8 @@ import { useEffect, useState, type HTMLAttributes, type ReactNode } from 'react'
 import { Pager } from './pager';
 
 declare module '@tanstack/react-table' {
+  // the augmentation must repeat the library's type parameters, used or not
+  // eslint-disable-next-line @typescript-eslint/no-unused-vars
   interface ColumnMeta<TData extends RowData, TValue> {
     /** Classes of the column's header and cells (alignment, width). */
     className?: string;
@@ -20,7 +22,7 @@ declare module '@tanstack/react-table' {
   }
 }
 
-export type SortOrder = 'asc' | 'desc';
+type SortOrder = 'asc' | 'desc';
 
 /** The page the server sent: which one, of how many rows in all. */
 export interface ServerPaging {
@@ -92,6 +94,8 @@ export function DataTable<T>({
 
   const sortingState: SortingState = sorting ? [{ id: sorting.sort, desc: sorting.order === 'desc' }] : [];
   const pages = Math.max(1, Math.ceil(paging.total / paging.pageSize));
+  // the app does not use the React Compiler; the table object is read afresh on every render
+  // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data,
     columns,
@@ -192,5 +196,6 @@ export function useKeepPageInRange(page: number, total: number | undefined, page
   useEffect(() => {
     if (page > last) onPage(last);
     // onPage changes with every render of the page; the numbers say when to act
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [page, last]);
 }

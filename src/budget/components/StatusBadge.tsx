@@ -12,7 +12,7 @@ const STYLES: Record<VersionStatus, { mark: string; className: string; hint: str
   superseded: { mark: '⊘', className: 'border-dashed border-stone-400 bg-stone-100 text-stone-600', hint: 'an older draft, never approved, replaced by a later version' },
 };
 
-export function displayStatus(status: BudgetStatus, returned?: boolean): DisplayStatus {
+function displayStatus(status: BudgetStatus, returned?: boolean): DisplayStatus {
   return status === 'draft' && returned ? 'returned' : status;
 }
 

@@ -31,7 +31,7 @@ export interface LiveReply {
 }
 
 /** A live recompute longer than this is stopped: the page never waits on a budget the server computes on save anyway. */
-export const LIVE_TIME_LIMIT_MS = 20_000;
+const LIVE_TIME_LIMIT_MS = 20_000;
 
 export interface UMove {
   from: number;

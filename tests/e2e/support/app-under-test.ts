@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = fileURLToPath(new URL('../../..', import.meta.url));
-export const artifacts = join(root, 'tests', '.artifacts');
+const artifacts = join(root, 'tests', '.artifacts');
 
 /**
  * Builds the client into a temporary folder (never over the developer's dist/;

@@ -5,7 +5,7 @@ import { formatDateTime, formatSignificant } from '../../../app/ui/numbers';
 import { Sym } from '../../../app/ui/quantity';
 
 /** The clause 8 verdict in words, with whether it asks the signer for a reason. */
-export const VERDICT_WORDS: Record<ValidationVerdict, { label: string; ok: boolean }> = {
+const VERDICT_WORDS: Record<ValidationVerdict, { label: string; ok: boolean }> = {
   validated: { label: 'GUM result validated by the Monte Carlo method', ok: true },
   'not-validated': { label: 'GUM result not validated by the Monte Carlo method', ok: false },
   inconclusive: { label: 'Validation by the Monte Carlo method inconclusive', ok: false },
@@ -25,7 +25,7 @@ function fieldLine(prefix: string, c: FieldChange): string {
 }
 
 /** Every change of a version comparison as one line each, the result's U last. */
-export function changeLines(d: BudgetDiff): string[] {
+function changeLines(d: BudgetDiff): string[] {
   const lines: string[] = [];
   lines.push(...d.other.map((c) => fieldLine('', c)));
   lines.push(...d.measurand.map((c) => fieldLine('measurand ', c)));
