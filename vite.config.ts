@@ -32,10 +32,7 @@ function precompress(): Plugin {
           const path = join(dir, file);
           const body = await readFile(path);
           if (body.length < COMPRESS_FROM_BYTES) return;
-          const [br, gz] = await Promise.all([
-            brotli(body, { params: { [constants.BROTLI_PARAM_QUALITY]: 9, [constants.BROTLI_PARAM_SIZE_HINT]: body.length } }),
-            gzipped(body, { level: 9 }),
-          ]);
+          const [br, gz] = await Promise.all([brotli(body, { params: { [constants.BROTLI_PARAM_QUALITY]: 9, [constants.BROTLI_PARAM_SIZE_HINT]: body.length } }), gzipped(body, { level: 9 })]);
           await Promise.all([writeFile(`${path}.br`, br), writeFile(`${path}.gz`, gz)]);
         }),
       );

@@ -195,7 +195,9 @@ try {
   const readRate = median(reads.map(rate));
   const readP99 = median(reads.map((r) => r.latency.p99));
   const share = rate(saves) / engine.perSecond;
-  console.log(`\nThe engine alone: ${engine.ms.toFixed(1)} ms a save (median of 21, ${trialsCap.toLocaleString('en')} trials at most) on ${workers} worker thread(s): ${engine.perSecond.toFixed(0)} saves/s`);
+  console.log(
+    `\nThe engine alone: ${engine.ms.toFixed(1)} ms a save (median of 21, ${trialsCap.toLocaleString('en')} trials at most) on ${workers} worker thread(s): ${engine.perSecond.toFixed(0)} saves/s`,
+  );
   console.log('\nTargets (median of the read rounds)');
   console.log('| target | measured | verdict |');
   console.log('| --- | --- | --- |');

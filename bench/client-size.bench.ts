@@ -51,7 +51,12 @@ async function buildClient(outDir: string): Promise<Map<string, string[]>> {
   const modulesOf = new Map<string, string[]>();
   for (const o of outputs) {
     if (!('output' in o)) continue;
-    for (const item of o.output) if (item.type === 'chunk') modulesOf.set(item.fileName, item.moduleIds.map((id) => id.split('\\').join('/')));
+    for (const item of o.output)
+      if (item.type === 'chunk')
+        modulesOf.set(
+          item.fileName,
+          item.moduleIds.map((id) => id.split('\\').join('/')),
+        );
   }
   return modulesOf;
 }

@@ -186,7 +186,6 @@ function numpyRun(trials: number) {
   return { python, ...parsed };
 }
 
-
 function main() {
   console.log(`Dubito engine benchmark — Node ${process.version}, ${RUNS} runs (median) after ${WARM_UPS} warm-ups; numpy ${RUNS} runs (median) after a warm-up\n`);
   const compileMs = compileTime(mass);
@@ -206,7 +205,9 @@ function main() {
     console.log(`| ${p.padEnd(10)} | ${fmt(million.phases[p]).padStart(9)} | ${(npSeconds ? fmt(npSeconds[p] * 1000) : '—').padStart(8)} |`);
   }
   console.log(`| MCM phases | ${fmt(million.phaseSum).padStart(9)} | ${'—'.padStart(8)} |`);
-  console.log(`| computeBudget total | ${fmt(million.total)} ms wall, ${fmt(million.cpu)} ms CPU | ${npSeconds ? `${fmt(npSeconds.total * 1000)} ms wall, ${fmt(npSeconds.cpu * 1000)} ms CPU` : '—'} |`);
+  console.log(
+    `| computeBudget total | ${fmt(million.total)} ms wall, ${fmt(million.cpu)} ms CPU | ${npSeconds ? `${fmt(npSeconds.total * 1000)} ms wall, ${fmt(npSeconds.cpu * 1000)} ms CPU` : '—'} |`,
+  );
   console.log(`  the ratio includes everything ${RATIO_INCLUDES}; numpy: draws, model, mean, std, histogram, full sort, both intervals`);
   console.log(
     `  result: y = ${mc.estimate.toFixed(5)} mg, u = ${mc.standardUncertainty.toFixed(5)} mg, symmetric [${mc.interval.map((v) => v.toFixed(4)).join(', ')}], ` +
@@ -221,11 +222,15 @@ function main() {
   }
 
   console.log('\nJCGM 101:2008 9.3 mass model, 10⁷ trials');
-  console.log(`  time ${fmt(ten.ms, 0)} ms (${fmt(ten.trials / (ten.ms / 1000) / 1e6)} M trials/s); peak rss ${fmt(mib(ten.peakRss), 0)} MiB (before the run ${fmt(mib(ten.baseRss), 0)} MiB); peak heap + array buffers ${fmt(mib(ten.peakHeapAndBuffers), 0)} MiB`);
+  console.log(
+    `  time ${fmt(ten.ms, 0)} ms (${fmt(ten.trials / (ten.ms / 1000) / 1e6)} M trials/s); peak rss ${fmt(mib(ten.peakRss), 0)} MiB (before the run ${fmt(mib(ten.baseRss), 0)} MiB); peak heap + array buffers ${fmt(mib(ten.peakHeapAndBuffers), 0)} MiB`,
+  );
   console.log(`  result: y = ${ten.result.monteCarlo!.estimate.toFixed(5)} mg, u = ${ten.result.monteCarlo!.standardUncertainty.toFixed(5)} mg`);
 
   for (const e of editing) {
-    console.log(`\nLive editing, generated ${e.inputs}-input budget (${e.inputs / 2} intermediate lines, units; partials: ${e.symbolic.fallback === 'none' ? 'symbolic' : `central differences (${e.symbolic.fallback})`})`);
+    console.log(
+      `\nLive editing, generated ${e.inputs}-input budget (${e.inputs / 2} intermediate lines, units; partials: ${e.symbolic.fallback === 'none' ? 'symbolic' : `central differences (${e.symbolic.fallback})`})`,
+    );
     console.log(`  GUM recompute with changed estimates (monteCarlo: false): ${fmt(e.recompute.wall, 3)} ms wall, ${fmt(e.recompute.cpu, 3)} ms CPU`);
     console.log(`  model edit (compileModel uncached, one line changed): ${fmt(e.edit.wall, 1)} ms wall, ${fmt(e.edit.cpu, 1)} ms CPU`);
   }
@@ -237,7 +242,9 @@ function main() {
   else {
     const ratio = million.total / (np.seconds.total * 1000);
     const cpuRatio = million.cpu / (np.seconds.cpu * 1000);
-    console.log(`| computeBudget MCM 10⁶ ≤ 0.4 × numpy (everything computeBudget does) | ${fmt(million.total)} ms / ${fmt(np.seconds.total * 1000)} ms = ${fmt(ratio, 3)} | ${verdict(ratio <= 0.4)} |`);
+    console.log(
+      `| computeBudget MCM 10⁶ ≤ 0.4 × numpy (everything computeBudget does) | ${fmt(million.total)} ms / ${fmt(np.seconds.total * 1000)} ms = ${fmt(ratio, 3)} | ${verdict(ratio <= 0.4)} |`,
+    );
     console.log(`| (the same, CPU time) | ${fmt(million.cpu)} ms / ${fmt(np.seconds.cpu * 1000)} ms = ${fmt(cpuRatio, 3)} | ${verdict(cpuRatio <= 0.4)} |`);
   }
   console.log(`| 10⁷ trials, memory well under 1 GB (< 512 MiB rss) | ${fmt(mib(ten.peakRss), 0)} MiB | ${verdict(ten.peakRss < 512 * 2 ** 20)} |`);

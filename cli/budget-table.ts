@@ -10,7 +10,14 @@ const width = (s: string) => [...s].length;
 function table(rows: string[][], left: number[]): string {
   const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => width(r[c]))));
   const pad = (s: string, w: number, atLeft: boolean) => (atLeft ? s + ' '.repeat(w - width(s)) : ' '.repeat(w - width(s)) + s);
-  return rows.map((r) => r.map((cell, c) => pad(cell, widths[c], left.includes(c))).join('  ').trimEnd()).join('\n');
+  return rows
+    .map((r) =>
+      r
+        .map((cell, c) => pad(cell, widths[c], left.includes(c)))
+        .join('  ')
+        .trimEnd(),
+    )
+    .join('\n');
 }
 
 const t = (f: Figure | null) => (f ? f.text : '—');

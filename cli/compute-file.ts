@@ -24,10 +24,7 @@ interface Refusal {
   location?: ModelLocation;
 }
 
-export type FileOutcome =
-  | { file: string; document: BudgetDocument; result: BudgetResult }
-  | { file: string; error: Refusal };
-
+export type FileOutcome = { file: string; document: BudgetDocument; result: BudgetResult } | { file: string; error: Refusal };
 
 /** Reads, validates and computes one budget file; never throws: every refusal becomes the outcome. */
 export function computeFile(file: string, options: RunOptions): FileOutcome {

@@ -81,7 +81,11 @@ export function expandGlob(pattern: string): string[] {
   while (i < segments.length && !isGlob(segments[i])) i++;
   const base = segments.slice(0, i).join('/') || (isAbsolute(pattern) ? '/' : '.');
   const out: string[] = [];
-  walk(base, segments.slice(i).filter((s) => s !== ''), out);
+  walk(
+    base,
+    segments.slice(i).filter((s) => s !== ''),
+    out,
+  );
   return out.filter((f) => !f.endsWith(RESULT_SUFFIX));
 }
 

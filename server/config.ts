@@ -70,7 +70,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     dbFile,
     dataDir: env.DUBITO_DATA_DIR ?? dirname(dbFile),
     publicUrl: (env.DUBITO_PUBLIC_URL ?? `http://localhost:${port}`).replace(/\/+$/, ''),
-    allowedOrigins: (env.DUBITO_ALLOWED_ORIGINS ?? '').split(',').map((s) => s.trim()).filter(Boolean),
+    allowedOrigins: (env.DUBITO_ALLOWED_ORIGINS ?? '')
+      .split(',')
+      .map((s) => s.trim())
+      .filter(Boolean),
     smtpUrl: env.SMTP_URL || undefined,
     mailFrom: env.DUBITO_MAIL_FROM ?? 'Dubito <dubito@localhost>',
     sessionSecret: env.DUBITO_SESSION_SECRET || undefined,

@@ -76,7 +76,9 @@ export async function seedDemo(s: Services, opts: { examplesDir: string; log: (m
 
   let files: string[] = [];
   try {
-    files = readdirSync(opts.examplesDir).filter((f) => f.endsWith('.json')).sort();
+    files = readdirSync(opts.examplesDir)
+      .filter((f) => f.endsWith('.json'))
+      .sort();
   } catch {
     opts.log(`no examples folder at ${opts.examplesDir}`);
   }

@@ -14,7 +14,13 @@ export function findUserByEmail(db: DbLike, email: string): UserRow | undefined 
 }
 
 export function findUserById(db: DbLike, id: number): UserRow | undefined {
-  return prepared(db, 'user.byId', () => db.select().from(users).where(eq(users.id, sql.placeholder('id'))).prepare()).get({ id });
+  return prepared(db, 'user.byId', () =>
+    db
+      .select()
+      .from(users)
+      .where(eq(users.id, sql.placeholder('id')))
+      .prepare(),
+  ).get({ id });
 }
 
 export function listUsers(db: DbLike): UserRow[] {
@@ -46,28 +52,24 @@ function usersWhere(f: Pick<UserFilter, 'q' | 'role'>): SQL | undefined {
 /** One page of the users in the order asked for (equal values by id, in the same direction). */
 export function pageUsers(db: DbLike, f: UserFilter): UserRow[] {
   const dir = f.order === 'asc' ? asc : desc;
-  return db
-    .select()
-    .from(users)
-    .where(usersWhere(f))
-    .orderBy(dir(USER_ORDER[f.sort]), dir(users.id))
-    .limit(f.limit)
-    .offset(f.offset)
-    .all();
+  return db.select().from(users).where(usersWhere(f)).orderBy(dir(USER_ORDER[f.sort]), dir(users.id)).limit(f.limit).offset(f.offset).all();
 }
 
 export function countUsers(db: DbLike, f: Pick<UserFilter, 'q' | 'role'>): number {
-  return db.select({ n: sql<number>`count(*)` }).from(users).where(usersWhere(f)).get()?.n ?? 0;
+  return (
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(users)
+      .where(usersWhere(f))
+      .get()?.n ?? 0
+  );
 }
 
 export function activeUsersWithRole(db: DbLike, roles: Role[]): UserRow[] {
   return listUsers(db).filter((u) => u.active && u.passwordHash && roles.includes(u.role));
 }
 
-export function insertUser(
-  db: DbLike,
-  u: { email: string; name: string; role: Role; passwordHash: string | null; active?: boolean },
-): UserRow {
+export function insertUser(db: DbLike, u: { email: string; name: string; role: Role; passwordHash: string | null; active?: boolean }): UserRow {
   return db
     .insert(users)
     .values({ email: u.email.toLowerCase(), name: u.name, role: u.role, passwordHash: u.passwordHash, active: u.active ?? true, createdAt: Date.now() })
@@ -75,16 +77,14 @@ export function insertUser(
     .get();
 }
 
-export function updateUser(
-  db: DbLike,
-  id: number,
-  patch: Partial<Pick<UserRow, 'name' | 'role' | 'active' | 'passwordHash'>>,
-): UserRow | undefined {
+export function updateUser(db: DbLike, id: number, patch: Partial<Pick<UserRow, 'name' | 'role' | 'active' | 'passwordHash'>>): UserRow | undefined {
   return db.update(users).set(patch).where(eq(users.id, id)).returning().get();
 }
 
 export function insertToken(db: DbLike, t: { kind: TokenKind; userId: number; tokenHash: string; expiresAt: number }): void {
-  db.insert(accountTokens).values({ ...t, createdAt: Date.now() }).run();
+  db.insert(accountTokens)
+    .values({ ...t, createdAt: Date.now() })
+    .run();
 }
 
 export function findUnusedToken(db: DbLike, tokenHash: string) {

@@ -11,7 +11,6 @@ import { parse } from '../http/validate';
 import type { AccountsService } from './accounts-service';
 import type { createPassport } from './auth-setup';
 
-
 const tokenQuery = z.strictObject({ token: linkToken });
 const usersQuery = z.strictObject({
   q: z.string().max(200).optional(),
@@ -42,11 +41,7 @@ export function accountsRoutes(
     parse(signInBody, req.body);
     if (deps.cookieSecure && !req.secure) throw new ValidationError(PLAIN_HTTP_SIGN_IN, undefined, 'https_required');
     const user = await new Promise<SessionUser | false>((resolve, reject) =>
-      passport.authenticate('local', { session: false }, (err: unknown, u: SessionUser | false) => (err ? reject(err) : resolve(u)))(
-        req,
-        res,
-        next,
-      ),
+      passport.authenticate('local', { session: false }, (err: unknown, u: SessionUser | false) => (err ? reject(err) : resolve(u)))(req, res, next),
     );
     if (!user) throw new UnauthenticatedError('e-mail or password is not correct', 'invalid_credentials');
     await logIn(req, user);

@@ -87,9 +87,7 @@ export class AccountsService {
     const user = findUserByEmail(this.d.db, email);
     const ok = await verifyPassword(password, user?.passwordHash);
     if (!user || !ok || !user.active) {
-      inTransaction(this.d.db, (tx) =>
-        this.d.audit.record(tx, { actorId: user?.id ?? null, action: 'auth.sign_in_refused', detail: { email: email.toLowerCase(), address: clientAddress } }),
-      );
+      inTransaction(this.d.db, (tx) => this.d.audit.record(tx, { actorId: user?.id ?? null, action: 'auth.sign_in_refused', detail: { email: email.toLowerCase(), address: clientAddress } }));
       return null;
     }
     this.attempts.succeeded(key);
@@ -146,7 +144,9 @@ export class AccountsService {
   }
 
   reviewersExcept(userId: number): SessionUser[] {
-    return activeUsersWithRole(this.d.db, ['reviewer']).filter((u) => u.id !== userId).map(toSessionUser);
+    return activeUsersWithRole(this.d.db, ['reviewer'])
+      .filter((u) => u.id !== userId)
+      .map(toSessionUser);
   }
 
   userById(id: number): SessionUser | null {
@@ -210,9 +210,7 @@ export class AccountsService {
     await this.d.mail.send({
       to: [user.email],
       subject: 'Your Dubito account',
-      text:
-        `Hello ${user.name},\n\n${actor.name} has invited you to Dubito as ${user.role}.\n` +
-        `Choose your password here (the link works once, for ${this.d.invitationHours} hours):\n\n${link}\n`,
+      text: `Hello ${user.name},\n\n${actor.name} has invited you to Dubito as ${user.role}.\n` + `Choose your password here (the link works once, for ${this.d.invitationHours} hours):\n\n${link}\n`,
     });
     return { user: toPublic(user), expiresAt };
   }

@@ -36,9 +36,7 @@ export function passwordProblem(password: string, person?: { email?: string; nam
   const lower = password.toLowerCase();
   const unit = /^(.+?)\1+$/su.exec(lower)?.[1];
   if (unit) {
-    return unit.length === 1
-      ? 'the password is one character repeated; choose a few unrelated words'
-      : `the password repeats "${unit}"; choose a few unrelated words`;
+    return unit.length === 1 ? 'the password is one character repeated; choose a few unrelated words' : `the password repeats "${unit}"; choose a few unrelated words`;
   }
   if (new Set(lower).size < 5) return 'the password uses fewer than 5 different characters; choose a few unrelated words';
   if (RUNS.some((r) => r.includes(lower))) return 'the password is a simple sequence (alphabet, digits or a keyboard row); choose a few unrelated words';

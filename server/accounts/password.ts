@@ -6,11 +6,7 @@ const P = 1;
 const KEYLEN = 64;
 
 function scryptAsync(password: string, salt: Buffer, opts: ScryptOptions): Promise<Buffer> {
-  return new Promise((resolve, reject) =>
-    scrypt(password.normalize('NFKC'), salt, KEYLEN, { ...opts, maxmem: 64 * 1024 * 1024 }, (err, key) =>
-      err ? reject(err) : resolve(key),
-    ),
-  );
+  return new Promise((resolve, reject) => scrypt(password.normalize('NFKC'), salt, KEYLEN, { ...opts, maxmem: 64 * 1024 * 1024 }, (err, key) => (err ? reject(err) : resolve(key))));
 }
 
 /** `scrypt$N$r$p$salt$hash`, salt and hash in base64. */

@@ -113,9 +113,7 @@ export function verifyAuditChain(db: DbLike): AuditChainReport {
     if (e.id !== expectedId) {
       return broken(
         e.id,
-        expectedId === e.id - 1
-          ? `event ${expectedId} is missing before event ${e.id}: it was removed`
-          : `events ${expectedId} to ${e.id - 1} are missing before event ${e.id}: they were removed`,
+        expectedId === e.id - 1 ? `event ${expectedId} is missing before event ${e.id}: it was removed` : `events ${expectedId} to ${e.id - 1} are missing before event ${e.id}: they were removed`,
       );
     }
     if (e.hash === null) return broken(e.id, `event ${e.id} has no chain hash: it was written outside the application`);
@@ -144,7 +142,12 @@ export function listAudit(db: DbLike, f: AuditFilter): { rows: AuditRow[]; total
   if (f.from !== undefined) where.push(gte(auditEvents.at, f.from));
   if (f.to !== undefined) where.push(lte(auditEvents.at, f.to));
   const cond = where.length ? and(...where) : undefined;
-  const total = db.select({ n: sql<number>`count(*)` }).from(auditEvents).where(cond).get()?.n ?? 0;
+  const total =
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(auditEvents)
+      .where(cond)
+      .get()?.n ?? 0;
   const rows = db
     .select({
       id: auditEvents.id,

@@ -4,15 +4,15 @@ import { budgetId, pageQuery, sortOrder, userId } from '../http/params';
 import { parse } from '../http/validate';
 import type { AuditService } from './audit-service';
 
-const time = z.union([
-  z.coerce.number().int().nonnegative(),
-  z.iso.datetime({ offset: true }).transform((s) => Date.parse(s)),
-]);
+const time = z.union([z.coerce.number().int().nonnegative(), z.iso.datetime({ offset: true }).transform((s) => Date.parse(s))]);
 
 const query = z.strictObject({
   budget: budgetId.optional(),
   actor: userId.optional(),
-  action: z.string().regex(/^[a-z_]+(\.[a-z_]+)?$/, { message: 'must look like "budget" or "budget.approved"' }).optional(),
+  action: z
+    .string()
+    .regex(/^[a-z_]+(\.[a-z_]+)?$/, { message: 'must look like "budget" or "budget.approved"' })
+    .optional(),
   from: time.optional(),
   to: time.optional(),
   format: z.enum(['json', 'csv']).default('json'),

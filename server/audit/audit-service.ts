@@ -18,7 +18,10 @@ function csvCell(v: unknown): string {
 
 /** `commentId` → `comment id`. */
 function words(key: string): string {
-  return key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').replace(/_/g, ' ').toLowerCase();
+  return key
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+    .replace(/_/g, ' ')
+    .toLowerCase();
 }
 
 function phrase(v: unknown): string {
@@ -77,9 +80,7 @@ export class AuditService {
   /** A UTF-8 CSV (with BOM, so spreadsheets read the accents) of flat columns, details in words. */
   toCsv(events: AuditEvent[]): string {
     const head = ['event', 'time', 'actor_id', 'actor_name', 'action', 'budget_id', 'budget_title', 'version', 'details', 'hash'];
-    const lines = events.map((e) =>
-      [e.id, e.time, e.actorId, e.actorName, e.action, e.budgetId, e.budgetTitle, e.versionNumber, e.details, e.hash].map(csvCell).join(','),
-    );
+    const lines = events.map((e) => [e.id, e.time, e.actorId, e.actorName, e.action, e.budgetId, e.budgetTitle, e.versionNumber, e.details, e.hash].map(csvCell).join(','));
     return '\uFEFF' + [head.join(','), ...lines].join('\r\n') + '\r\n';
   }
 }

@@ -38,10 +38,7 @@ const list = (v: unknown): Obj[] => (Array.isArray(v) ? v.filter(isObj) : []);
 const pairKey = (o: Obj) => (Array.isArray(o.between) ? [...(o.between as string[])].sort().join('|') : JSON.stringify(o));
 
 /** The structured difference between two versions of a budget. */
-export function diffBudgets(
-  from: { number: number; document: Obj; result: BudgetResult },
-  to: { number: number; document: Obj; result: BudgetResult },
-): BudgetDiff {
+export function diffBudgets(from: { number: number; document: Obj; result: BudgetResult }, to: { number: number; document: Obj; result: BudgetResult }): BudgetDiff {
   const a = from.document;
   const b = to.document;
   const structural = new Set(['model', 'measurand', 'inputs', 'constants', 'correlations']);

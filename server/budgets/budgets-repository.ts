@@ -35,7 +35,11 @@ const BUDGET_ORDER: Record<BudgetSort, SQL | AnySQLiteColumn> = {
 
 export function getBudget(db: DbLike, id: number): BudgetRow | undefined {
   return prepared(db, 'budget.byId', () =>
-    db.select().from(budgets).where(eq(budgets.id, sql.placeholder('id'))).prepare(),
+    db
+      .select()
+      .from(budgets)
+      .where(eq(budgets.id, sql.placeholder('id')))
+      .prepare(),
   ).get({ id });
 }
 
@@ -81,11 +85,7 @@ export function listBudgets(db: DbLike, f: BudgetFilter): BudgetListItem[] {
     .all();
 }
 
-export function insertBudget(
-  db: DbLike,
-  b: Pick<BudgetRow, 'title' | 'ownerId' | 'isTemplate'> & Partial<Pick<BudgetRow, 'sourceBudgetId' | 'sourceVersion'>>,
-  at: number,
-): BudgetRow {
+export function insertBudget(db: DbLike, b: Pick<BudgetRow, 'title' | 'ownerId' | 'isTemplate'> & Partial<Pick<BudgetRow, 'sourceBudgetId' | 'sourceVersion'>>, at: number): BudgetRow {
   return db
     .insert(budgets)
     .values({ ...b, status: 'draft', currentVersion: 0, createdAt: at, updatedAt: at })
@@ -93,11 +93,7 @@ export function insertBudget(
     .get();
 }
 
-export function updateBudget(
-  db: DbLike,
-  id: number,
-  patch: Partial<Pick<BudgetRow, 'title' | 'status' | 'returned' | 'isTemplate' | 'currentVersion' | 'approvedVersion' | 'updatedAt'>>,
-): void {
+export function updateBudget(db: DbLike, id: number, patch: Partial<Pick<BudgetRow, 'title' | 'status' | 'returned' | 'isTemplate' | 'currentVersion' | 'approvedVersion' | 'updatedAt'>>): void {
   db.update(budgets).set(patch).where(eq(budgets.id, id)).run();
 }
 
@@ -222,5 +218,11 @@ export function recordApproval(db: DbLike, budgetId: number, number: number, use
 
 /** How many budgets match a filter (every budget, templates included, without one). */
 export function countBudgets(db: DbLike, f: ListWhere = { template: 'any' }): number {
-  return db.select({ n: sql<number>`count(*)` }).from(budgets).where(listWhere(f)).get()?.n ?? 0;
+  return (
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(budgets)
+      .where(listWhere(f))
+      .get()?.n ?? 0
+  );
 }

@@ -129,15 +129,7 @@ export class BudgetsService {
    * current one is written, the budget points at it as a draft under the document's title, and the
    * audit event records it with the document's SHA-256 and the note. Returns the new number.
    */
-  private storeVersion(
-    tx: DbLike,
-    before: BudgetRow,
-    author: SessionUser,
-    note: string,
-    content: VersionContent,
-    at: number,
-    event: { action: string; detail: Record<string, unknown> },
-  ): number {
+  private storeVersion(tx: DbLike, before: BudgetRow, author: SessionUser, note: string, content: VersionContent, at: number, event: { action: string; detail: Record<string, unknown> }): number {
     const { title, ...stored } = content;
     const n = before.currentVersion + 1;
     insertVersion(tx, { budgetId: before.id, number: n, authorId: author.id, createdAt: at, note, ...stored });
@@ -270,11 +262,7 @@ export class BudgetsService {
     return this.computer.run('diff', { from: text(a), to: text(b) }, actor.id);
   }
 
-  async create(
-    actor: SessionUser,
-    input: { document: unknown; note: string; template?: boolean },
-    action = 'budget.created',
-  ): Promise<CreatedBudget> {
+  async create(actor: SessionUser, input: { document: unknown; note: string; template?: boolean }, action = 'budget.created'): Promise<CreatedBudget> {
     if (input.template && actor.role !== 'admin') throw new ForbiddenError('only admins create templates');
     const c = await this.computeDocument(input.document, actor);
     const at = Date.now();
@@ -288,9 +276,7 @@ export class BudgetsService {
 
   private checkEditable(actor: SessionUser, b: BudgetRow, baseVersion: number): void {
     if (!canEditBudget(actor, b)) {
-      throw new ForbiddenError(
-        b.isTemplate ? 'only admins edit templates' : actor.role === 'trainee' && b.ownerId === actor.id ? 'trainees edit drafts only' : 'only the owner edits this budget',
-      );
+      throw new ForbiddenError(b.isTemplate ? 'only admins edit templates' : actor.role === 'trainee' && b.ownerId === actor.id ? 'trainees edit drafts only' : 'only the owner edits this budget');
     }
     if (!isEditableStatus(b.status)) throw new ConflictError('the budget is in review; it can be edited once approved or returned', 'in_review');
     if (b.currentVersion !== baseVersion) {
@@ -347,12 +333,7 @@ export class BudgetsService {
    * version, or, when it is approved and so never changes, a new draft version carrying the same
    * document and result with `note`. Refuses with 409 when the budget changed since `seen` was read.
    */
-  addToCurrentVersion<T>(
-    actor: SessionUser,
-    seen: BudgetRow,
-    note: string,
-    write: (tx: DbLike, version: { number: number; isNew: boolean; at: number }) => T,
-  ): T {
+  addToCurrentVersion<T>(actor: SessionUser, seen: BudgetRow, note: string, write: (tx: DbLike, version: { number: number; isNew: boolean; at: number }) => T): T {
     return inTransaction(this.db, (tx) => {
       const now = this.requireUnchanged(seen, tx, 'reload it and attach the file again');
       const at = Date.now();

@@ -1,11 +1,4 @@
-import {
-  budgetDocumentSchema,
-  constantSchema,
-  correlationSchema,
-  distributionSchema,
-  monteCarloSchema,
-  quantitySchema,
-} from '../../shared/budget/schema';
+import { budgetDocumentSchema, constantSchema, correlationSchema, distributionSchema, monteCarloSchema, quantitySchema } from '../../shared/budget/schema';
 import { ValidationError } from '../http/errors';
 
 /**
@@ -56,8 +49,7 @@ function unknownOf(o: unknown, known: Set<string>, path: string): Array<[string,
 }
 
 function unknownFields(doc: Obj): Array<[string, unknown]> {
-  const each = (list: unknown, known: Set<string>, name: string) =>
-    Array.isArray(list) ? list.flatMap((o, i) => unknownOf(o, known, `${name}[${i}]`)) : [];
+  const each = (list: unknown, known: Set<string>, name: string) => (Array.isArray(list) ? list.flatMap((o, i) => unknownOf(o, known, `${name}[${i}]`)) : []);
   const inputs = Array.isArray(doc.inputs) ? doc.inputs : [];
   return [
     ...unknownOf(doc, DOCUMENT_KEYS, ''),

@@ -19,7 +19,11 @@ const WORKER_URL = new URL(BUILT ? './task-worker.js' : './task-worker.ts', impo
  */
 function startWorker(options: ConstructorParameters<typeof Worker>[1]): Worker {
   if (BUILT) return new Worker(WORKER_URL, options);
-  const tsxApi = pathToFileURL(createRequire(import.meta.url).resolve('tsx/esm/api').replace(/index\.cjs$/, 'index.mjs')).href;
+  const tsxApi = pathToFileURL(
+    createRequire(import.meta.url)
+      .resolve('tsx/esm/api')
+      .replace(/index\.cjs$/, 'index.mjs'),
+  ).href;
   const bootstrap = `import(${JSON.stringify(tsxApi)}).then((m) => m.tsImport(${JSON.stringify(WORKER_URL.href)}, ${JSON.stringify(import.meta.url)}))`;
   return new Worker(bootstrap, { ...options, eval: true });
 }
@@ -109,9 +113,7 @@ export class ComputeSupervisor {
       else job.reject(refusal(job.message.kind, msg.error));
       this.pump();
     });
-    worker.on('error', (err: Error & { code?: string }) =>
-      this.lose(slot, err.code === 'ERR_WORKER_OUT_OF_MEMORY' ? { kind: 'memory' } : { kind: 'crash', error: err }),
-    );
+    worker.on('error', (err: Error & { code?: string }) => this.lose(slot, err.code === 'ERR_WORKER_OUT_OF_MEMORY' ? { kind: 'memory' } : { kind: 'crash', error: err }));
     worker.on('exit', (code) => {
       if (!this.closed) this.lose(slot, { kind: 'crash', error: new Error(`compute worker exited with code ${code}`) });
     });
@@ -151,10 +153,7 @@ export class ComputeSupervisor {
         job.reject(this.tooBusy(job));
       } else if (loss.kind === 'deadline') {
         job.reject(
-          new UnprocessableError(
-            'too_large_to_compute',
-            `${what} is too large to compute: ${doing} did not finish within ${seconds(this.o.timeoutMs)} s; reduce the trials or the size of the model`,
-          ),
+          new UnprocessableError('too_large_to_compute', `${what} is too large to compute: ${doing} did not finish within ${seconds(this.o.timeoutMs)} s; reduce the trials or the size of the model`),
         );
       } else {
         const missing = String((loss.error as Error)?.message ?? loss.error).match(/Cannot find module|ERR_MODULE_NOT_FOUND/);
@@ -212,14 +211,17 @@ export class ComputeSupervisor {
     const mine = [...this.jobs].filter((j) => j.user === user);
     if (mine.length >= this.o.jobsPerUser) {
       return Promise.reject(
-        new BusyError(429, 'too_many_jobs', `you already have ${mine.length} computation${mine.length === 1 ? '' : 's'} running or waiting; wait for ${mine.length === 1 ? 'it' : 'them'} to finish`, this.retryAfter(mine)),
+        new BusyError(
+          429,
+          'too_many_jobs',
+          `you already have ${mine.length} computation${mine.length === 1 ? '' : 's'} running or waiting; wait for ${mine.length === 1 ? 'it' : 'them'} to finish`,
+          this.retryAfter(mine),
+        ),
       );
     }
     const idle = this.slots.some((s) => !s.job) || this.slots.length < this.o.size;
     if (!idle && this.queue.length >= this.o.queueLength) {
-      return Promise.reject(
-        new BusyError(503, 'compute_busy', `the server is busy with ${this.jobs.size} computations; try again shortly`, this.retryAfter(this.slots.map((s) => s.job!))),
-      );
+      return Promise.reject(new BusyError(503, 'compute_busy', `the server is busy with ${this.jobs.size} computations; try again shortly`, this.retryAfter(this.slots.map((s) => s.job!))));
     }
     return new Promise<TaskOutput<K>>((resolve, reject) => {
       const now = Date.now();

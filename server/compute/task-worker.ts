@@ -20,9 +20,7 @@ export interface TaskMessage<K extends TaskKind = TaskKind> {
   input: TaskInput<K>;
 }
 
-export type TaskReply =
-  | { id: number; ok: true; output: unknown }
-  | { id: number; ok: false; error: { name: string; code?: string; message: string; field?: string; location?: ModelLocation } };
+export type TaskReply = { id: number; ok: true; output: unknown } | { id: number; ok: false; error: { name: string; code?: string; message: string; field?: string; location?: ModelLocation } };
 
 const port = parentPort!;
 const engine = (await import((workerData as { engineModule: string }).engineModule)) as Engine;

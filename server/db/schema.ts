@@ -40,7 +40,9 @@ export const budgets = sqliteTable(
     ownerId: integer('owner_id')
       .notNull()
       .references(() => users.id),
-    status: text('status', { enum: ['draft', 'in_review', 'approved'] }).notNull().default('draft'),
+    status: text('status', { enum: ['draft', 'in_review', 'approved'] })
+      .notNull()
+      .default('draft'),
     /** Set when a reviewer sent the budget back; cleared when it is submitted again. */
     returned: integer('returned', { mode: 'boolean' }).notNull().default(false),
     isTemplate: integer('is_template', { mode: 'boolean' }).notNull().default(false),
@@ -173,11 +175,7 @@ export const auditEvents = sqliteTable(
      */
     hash: text('hash'),
   },
-  (t) => [
-    index('audit_budget_idx').on(t.budgetId),
-    index('audit_actor_idx').on(t.actorId),
-    index('audit_at_idx').on(t.at),
-  ],
+  (t) => [index('audit_budget_idx').on(t.budgetId), index('audit_actor_idx').on(t.actorId), index('audit_at_idx').on(t.at)],
 );
 
 /** One-time tokens for invitations and password resets; only their SHA-256 is stored. */

@@ -6,7 +6,13 @@ import { httpSessions } from './schema';
 export type SessionRow = typeof httpSessions.$inferSelect;
 
 export function getSession(db: DbLike, sid: string): SessionRow | undefined {
-  return prepared(db, 'session.bySid', () => db.select().from(httpSessions).where(eq(httpSessions.sid, sql.placeholder('sid'))).prepare()).get({ sid });
+  return prepared(db, 'session.bySid', () =>
+    db
+      .select()
+      .from(httpSessions)
+      .where(eq(httpSessions.sid, sql.placeholder('sid')))
+      .prepare(),
+  ).get({ sid });
 }
 
 export function putSession(db: DbLike, sid: string, data: string, expiresAt: number): void {

@@ -101,7 +101,16 @@ export function staticClient(dir: string): Router {
       index: false,
       cacheControl: false,
       setHeaders: (res: Response, file: string) => {
-        res.setHeader('Cache-Control', cacheControlFor('/' + file.slice(root.length + 1).split('\\').join('/')));
+        res.setHeader(
+          'Cache-Control',
+          cacheControlFor(
+            '/' +
+              file
+                .slice(root.length + 1)
+                .split('\\')
+                .join('/'),
+          ),
+        );
       },
     }),
   );

@@ -18,9 +18,7 @@ function decodeQuotedPrintable(s: string): string {
 
 function decodeWords(s: string): string {
   return s.replace(/=\?([^?]+)\?([BbQq])\?([^?]*)\?=/g, (_m, _cs, enc: string, text: string) =>
-    enc.toUpperCase() === 'B'
-      ? Buffer.from(text, 'base64').toString('utf8')
-      : decodeQuotedPrintable(text.replace(/_/g, ' ')),
+    enc.toUpperCase() === 'B' ? Buffer.from(text, 'base64').toString('utf8') : decodeQuotedPrintable(text.replace(/_/g, ' ')),
   );
 }
 
@@ -35,12 +33,7 @@ function readMessage(raw: string): { headers: Record<string, string>; text: stri
     if (i > 0) headers[line.slice(0, i).trim().toLowerCase()] = decodeWords(line.slice(i + 1).trim());
   }
   const cte = (headers['content-transfer-encoding'] ?? '7bit').toLowerCase();
-  const text =
-    cte === 'quoted-printable'
-      ? decodeQuotedPrintable(bodyRaw)
-      : cte === 'base64'
-        ? Buffer.from(bodyRaw.replace(/\s+/g, ''), 'base64').toString('utf8')
-        : bodyRaw;
+  const text = cte === 'quoted-printable' ? decodeQuotedPrintable(bodyRaw) : cte === 'base64' ? Buffer.from(bodyRaw.replace(/\s+/g, ''), 'base64').toString('utf8') : bodyRaw;
   return { headers, text: text.replace(/\r\n/g, '\n') };
 }
 

@@ -27,7 +27,14 @@ export function contributionsChart(c: Cursor, m: ResultModel): void {
   const barW = Math.min(34, slot * 0.62);
   const Y = (f: number) => B - f * (B - T);
   for (const f of [0, 0.25, 0.5, 0.75, 1]) {
-    doc.save().lineWidth(f === 0 ? 0.7 : 0.4).strokeColor(f === 0 ? COLOR.muted : COLOR.hairline).moveTo(L, Y(f)).lineTo(R, Y(f)).stroke().restore();
+    doc
+      .save()
+      .lineWidth(f === 0 ? 0.7 : 0.4)
+      .strokeColor(f === 0 ? COLOR.muted : COLOR.hairline)
+      .moveTo(L, Y(f))
+      .lineTo(R, Y(f))
+      .stroke()
+      .restore();
     drawLine(doc, share(f).markup, L - 4, Y(f) + 2.4, tick, { align: 'right' });
   }
   drawLine(doc, 'cumulative', R + 4, Y(1) + 2.4, { ...tick, color: COLOR.accent });
@@ -35,7 +42,12 @@ export function contributionsChart(c: Cursor, m: ResultModel): void {
   terms.forEach((t, i) => {
     const cx = L + slot * (i + 0.5);
     const v = t.share.value ?? 0;
-    if (v > 0) doc.save().rect(cx - barW / 2, Y(v), barW, Math.max(0.6, B - Y(v))).fill(i === 0 ? COLOR.accent : COLOR.accentLight).restore();
+    if (v > 0)
+      doc
+        .save()
+        .rect(cx - barW / 2, Y(v), barW, Math.max(0.6, B - Y(v)))
+        .fill(i === 0 ? COLOR.accent : COLOR.accentLight)
+        .restore();
     const { base, sub } = symbolParts(t.symbol);
     let tail = sub ?? '';
     const label = () => (sub === null ? base : `${base}_{${tail}}`);
@@ -72,7 +84,10 @@ function legendItem(doc: Doc, x: number, y: number, kind: 'bar' | 'curve' | 'das
   else {
     doc.lineWidth(kind === 'curve' ? 1.3 : 0.9).strokeColor(kind === 'solid' ? COLOR.ink : COLOR.accent);
     if (kind === 'dash') doc.dash(2.5, { space: 2 });
-    doc.moveTo(x, y - 3).lineTo(x + 14, y - 3).stroke();
+    doc
+      .moveTo(x, y - 3)
+      .lineTo(x + 14, y - 3)
+      .stroke();
   }
   doc.restore();
   return 18 + drawLine(doc, label, x + 18, y, STYLE.small) + 14;
@@ -155,9 +170,16 @@ export function histogramChart(c: Cursor, r: ReportData, m: ResultModel): void {
   }
   // intervals
   const mark = (x: number, kind: 'dash' | 'solid') => {
-    doc.save().lineWidth(0.9).strokeColor(kind === 'solid' ? COLOR.ink : COLOR.accent);
+    doc
+      .save()
+      .lineWidth(0.9)
+      .strokeColor(kind === 'solid' ? COLOR.ink : COLOR.accent);
     if (kind === 'dash') doc.dash(2.5, { space: 2 });
-    doc.moveTo(X(x), T + 2).lineTo(X(x), B).stroke().restore();
+    doc
+      .moveTo(X(x), T + 2)
+      .lineTo(X(x), B)
+      .stroke()
+      .restore();
   };
   mark(g.interval[0], 'dash');
   mark(g.interval[1], 'dash');
@@ -168,14 +190,28 @@ export function histogramChart(c: Cursor, r: ReportData, m: ResultModel): void {
   const xt = niceTicks(lo, hi, 6);
   for (const t of xt.ticks) {
     if (t < lo || t > hi) continue;
-    doc.save().lineWidth(0.6).strokeColor(COLOR.muted).moveTo(X(t), B).lineTo(X(t), B + 3).stroke().restore();
+    doc
+      .save()
+      .lineWidth(0.6)
+      .strokeColor(COLOR.muted)
+      .moveTo(X(t), B)
+      .lineTo(X(t), B + 3)
+      .stroke()
+      .restore();
     drawLine(doc, atDecimalPlace(t, xt.exponent).markup, X(t), B + 11, tick, { align: 'center' });
   }
   drawLine(doc, unit ? `${symbol} in ${unit}` : symbol, (L + R) / 2, B + 24, { face: 'sans', size: 8, color: COLOR.ink }, { align: 'center' });
   if (trimmed) drawLine(doc, 'axis: central 99.9 % of the trials', R, B + 24, { ...STYLE.small, size: 6.8, color: COLOR.faint }, { align: 'right' });
   doc.save();
   doc.rotate(-90, { origin: [c.left + 6, (T + B) / 2] });
-  drawLine(doc, `trials per bin (bin width ${significantFigure(width, 2).markup}${unit ? ` ${unit}` : ''})`, c.left + 6, (T + B) / 2 + 2, { face: 'sans', size: 7.2, color: COLOR.muted }, { align: 'center' });
+  drawLine(
+    doc,
+    `trials per bin (bin width ${significantFigure(width, 2).markup}${unit ? ` ${unit}` : ''})`,
+    c.left + 6,
+    (T + B) / 2 + 2,
+    { face: 'sans', size: 7.2, color: COLOR.muted },
+    { align: 'center' },
+  );
   doc.restore();
   c.y = B + 34;
 }

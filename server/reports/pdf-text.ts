@@ -160,7 +160,10 @@ function pieces(doc: Doc, text: string, style: TextStyle, markup: boolean): Piec
       const key = `${p.font}|${p.size}|${p.text}`;
       let w = widthCache.get(key);
       if (w === undefined) {
-        w = doc.font(p.font).fontSize(p.size).widthOfString(p.text, p.font.startsWith('mono') ? { features: PLAIN_FEATURES } : undefined);
+        w = doc
+          .font(p.font)
+          .fontSize(p.size)
+          .widthOfString(p.text, p.font.startsWith('mono') ? { features: PLAIN_FEATURES } : undefined);
         if (widthCache.size > 20_000) widthCache.clear();
         widthCache.set(key, w);
       }
@@ -194,7 +197,10 @@ function drawInfinity(doc: Doc, x: number, baseline: number, size: number, color
 /** The radical sign, drawn: neither Helvetica's encoding nor the shipped mono subsets have it. */
 function drawRadical(doc: Doc, x: number, baseline: number, size: number, color: string): void {
   doc.save();
-  doc.lineWidth(size * 0.07).strokeColor(color).lineJoin('round');
+  doc
+    .lineWidth(size * 0.07)
+    .strokeColor(color)
+    .lineJoin('round');
   doc
     .moveTo(x + size * 0.04, baseline - size * 0.34)
     .lineTo(x + size * 0.16, baseline - size * 0.4)

@@ -20,7 +20,11 @@ function warningsSection(c: Cursor, m: ResultModel): void {
   for (const w of m.warnings.map((t) => t.message)) {
     const h = drawParagraph(c.doc, w, 0, 0, c.width - 14, STYLE.body, { markup: false, dryRun: true });
     c.need(h);
-    c.doc.save().rect(c.left, c.y + 3, 3, h - 4).fill(COLOR.warning).restore();
+    c.doc
+      .save()
+      .rect(c.left, c.y + 3, 3, h - 4)
+      .fill(COLOR.warning)
+      .restore();
     drawParagraph(c.doc, w, c.left + 10, c.y, c.width - 14, STYLE.body, { markup: false });
     c.y += h + 2;
   }

@@ -77,10 +77,7 @@ export class ReportsService {
     const number = n ?? this.d.budgets.requireBudget(id).currentVersion;
     const bytes = this.d.budgets.storedBytes(id, number);
     if (bytes > this.d.maxBytes) {
-      throw new UnprocessableError(
-        'too_large_to_report',
-        `version ${number} takes ${bytes} bytes, more than the ${this.d.maxBytes} a report may be built from; export the budget file instead`,
-      );
+      throw new UnprocessableError('too_large_to_report', `version ${number} takes ${bytes} bytes, more than the ${this.d.maxBytes} a report may be built from; export the budget file instead`);
     }
     const data = this.data(actor, id, number);
     const pdf = await this.d.workers.run('report', data, actor.id);

@@ -59,7 +59,11 @@ export function titleBlock(c: Cursor, r: ReportData, m: ResultModel): void {
       drawLine(doc, label, x, y + 10.5, STYLE.label);
       if (label === 'Status') {
         const color = STATUS_COLOR[v.status];
-        doc.save().rect(x + labelW, y + 4.2, 6.5, 6.5).fill(color).restore();
+        doc
+          .save()
+          .rect(x + labelW, y + 4.2, 6.5, 6.5)
+          .fill(color)
+          .restore();
         drawLine(doc, value, x + labelW + 11, y + 10.5, { face: 'bold', size: 9, color });
       } else {
         const mono = label === 'Seed' || label === 'Engine';

@@ -41,10 +41,7 @@ export function getComment(db: DbLike, budgetId: number, id: number): Comment | 
   return selectComments(db, and(eq(comments.id, id), eq(comments.budgetId, budgetId)))[0];
 }
 
-export function insertComment(
-  db: DbLike,
-  c: { budgetId: number; versionNumber: number; symbol: string | null; parentId?: number | null; authorId: number; body: string; at: number },
-): number {
+export function insertComment(db: DbLike, c: { budgetId: number; versionNumber: number; symbol: string | null; parentId?: number | null; authorId: number; body: string; at: number }): number {
   return db
     .insert(comments)
     .values({ budgetId: c.budgetId, versionNumber: c.versionNumber, symbol: c.symbol, parentId: c.parentId ?? null, authorId: c.authorId, body: c.body, createdAt: c.at })
@@ -83,7 +80,16 @@ export function lastVersionSeenBy(db: DbLike, budgetId: number, userId: number, 
 
 export function insertDecision(
   db: DbLike,
-  d: { budgetId: number; versionNumber: number; decision: 'approved' | 'returned'; actorId: number; reason: string | null; openThreads: number; validationVerdict: ValidationVerdict | null; at: number },
+  d: {
+    budgetId: number;
+    versionNumber: number;
+    decision: 'approved' | 'returned';
+    actorId: number;
+    reason: string | null;
+    openThreads: number;
+    validationVerdict: ValidationVerdict | null;
+    at: number;
+  },
 ): void {
   db.insert(reviewDecisions).values(d).run();
 }

@@ -17,17 +17,7 @@ import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '.
 import type { SessionUser } from '../http/request-user';
 import type { MailService } from '../mail/mail-service';
 import type { AttachmentsService } from '../uploads/attachments-service';
-import {
-  getComment,
-  insertComment,
-  insertDecision,
-  lastVersionSeenBy,
-  listComments,
-  listDecisions,
-  openThreadCounts,
-  openThreads,
-  setThreadResolved,
-} from './reviews-repository';
+import { getComment, insertComment, insertDecision, lastVersionSeenBy, listComments, listDecisions, openThreadCounts, openThreads, setThreadResolved } from './reviews-repository';
 
 /** The clause 8 verdict of a stored result; results stored before verdicts existed carry only `passed`. */
 function verdictOf(result: BudgetResult): { verdict: ValidationVerdict; reason: string | null } | null {
@@ -184,7 +174,10 @@ export class ReviewsService {
   /** In-review budgets the actor may approve: neither owned nor written by them, oldest first. */
   queue(actor: SessionUser): ReviewQueueItem[] {
     const rows = this.d.budgets.inReview().filter((r) => canApprove(actor, { ownerId: r.ownerId, status: 'in_review', isTemplate: r.isTemplate }, r.authorId));
-    const counts = openThreadCounts(this.d.db, rows.map((r) => r.budgetId));
+    const counts = openThreadCounts(
+      this.d.db,
+      rows.map((r) => r.budgetId),
+    );
     return rows.map(({ ownerId: _o, authorId: _a, isTemplate: _t, ...r }) => ({ ...r, openThreads: counts.get(r.budgetId) ?? 0 }));
   }
 
@@ -193,11 +186,7 @@ export class ReviewsService {
    * owner nor the version's author, password re-entered as signature),
    * in_review → draft (returned with a comment).
    */
-  async transition(
-    actor: SessionUser,
-    budgetId: number,
-    input: { to: TransitionTarget; comment?: string; password?: string; reason?: string },
-  ): Promise<TransitionOutput> {
+  async transition(actor: SessionUser, budgetId: number, input: { to: TransitionTarget; comment?: string; password?: string; reason?: string }): Promise<TransitionOutput> {
     const b = this.d.budgets.requireBudget(budgetId);
     const reason = input.reason?.trim() || null;
     const illegal = () => new ConflictError(`a budget that is ${b.status.replace('_', ' ')} cannot go to ${input.to.replace('_', ' ')}`, 'invalid_transition');
@@ -208,9 +197,7 @@ export class ReviewsService {
     } else if (input.to === 'approved') {
       const v = this.d.budgets.requireVersion(budgetId, b.currentVersion);
       if (!canApprove(actor, b, v.authorId)) {
-        throw new ForbiddenError(
-          actor.role === 'reviewer' || actor.role === 'admin' ? 'nobody approves a budget they own or wrote' : 'only a reviewer or an admin approves',
-        );
+        throw new ForbiddenError(actor.role === 'reviewer' || actor.role === 'admin' ? 'nobody approves a budget they own or wrote' : 'only a reviewer or an admin approves');
       }
       if (b.status !== 'in_review') throw illegal();
       const caveats = signingCaveats(openThreads(this.d.db, budgetId).length, readStoredResult(v.result));

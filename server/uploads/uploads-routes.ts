@@ -11,11 +11,7 @@ const observationsForm = z.strictObject({ column: z.string().max(200).optional()
 
 const TEXT_TYPES = new Set(['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel', 'text/tab-separated-values', 'application/octet-stream']);
 
-export function uploadsRoutes(
-  t: RouteTable,
-  attachments: AttachmentsService,
-  limits: { observationsMaxBytes: number; attachmentMaxBytes: number },
-): void {
+export function uploadsRoutes(t: RouteTable, attachments: AttachmentsService, limits: { observationsMaxBytes: number; attachmentMaxBytes: number }): void {
   const csvUpload = multipartForm(limits.observationsMaxBytes);
 
   t.add('post', '/api/uploads/observations', 'observations.upload', requireMultipart('file'), csvUpload, (req, res) => {

@@ -7,7 +7,10 @@
 import { z } from 'zod';
 import { ROLES } from '../policy/policy';
 
-const email = z.email({ message: 'must be an e-mail address' }).max(254).transform((s) => s.toLowerCase());
+const email = z
+  .email({ message: 'must be an e-mail address' })
+  .max(254)
+  .transform((s) => s.toLowerCase());
 const personName = z.string().trim().min(1, { message: 'must not be empty' }).max(200);
 /** A role, named as the policy names it. */
 export const roleField = z.enum(ROLES, { error: `must be one of ${ROLES.join(', ')}` });

@@ -7,14 +7,11 @@ import { z } from 'zod';
  */
 
 /** A finite number; the message names what it must be. */
-export const finite = (what = 'a number') =>
-  z.number({ error: `must be ${what}` }).refine(Number.isFinite, { message: `must be ${what}` });
+export const finite = (what = 'a number') => z.number({ error: `must be ${what}` }).refine(Number.isFinite, { message: `must be ${what}` });
 export const positive = () => finite().refine((v) => v > 0, { message: 'must be greater than 0' });
-export const symbolName = z
-  .string({ error: 'must be a symbol name' })
-  .regex(/^[A-Za-z_][A-Za-z0-9_]*$/, {
-    message: 'must start with a letter or _ and contain only letters, digits and _',
-  });
+export const symbolName = z.string({ error: 'must be a symbol name' }).regex(/^[A-Za-z_][A-Za-z0-9_]*$/, {
+  message: 'must start with a letter or _ and contain only letters, digits and _',
+});
 export const unitText = z.string({ error: 'must be a unit expression such as "mg" or "kg/m^3"' }).max(100);
 
 /**

@@ -174,7 +174,10 @@ function toDocument(tree: Obj, theirs: BudgetDocument, mine: BudgetDocument): Bu
     const theirOrder = order(theirs as Obj);
     for (const [i, k] of theirOrder.entries()) {
       if (!(k in map) || keys.includes(k)) continue;
-      const before = theirOrder.slice(0, i).reverse().find((p) => keys.includes(p));
+      const before = theirOrder
+        .slice(0, i)
+        .reverse()
+        .find((p) => keys.includes(p));
       keys.splice(before === undefined ? 0 : keys.indexOf(before) + 1, 0, k);
     }
     for (const k of Object.keys(map)) if (!keys.includes(k)) keys.push(k);
@@ -197,12 +200,7 @@ function plain(v: unknown): unknown {
  * without a decision is kept when it does not conflict; a conflict without a
  * decision leaves the document null and is listed in `undecided`.
  */
-export function mergeDocuments(
-  base: BudgetDocument,
-  theirs: BudgetDocument,
-  mine: BudgetDocument,
-  decisions: Readonly<Record<string, MergeDecision>> = {},
-): DocumentMerge {
+export function mergeDocuments(base: BudgetDocument, theirs: BudgetDocument, mine: BudgetDocument, decisions: Readonly<Record<string, MergeDecision>> = {}): DocumentMerge {
   const changes = listTheirChanges(base, theirs, mine);
   const undecided = changes.filter((c) => c.conflict && !decisions[c.id]).map((c) => c.id);
   if (undecided.length) return { changes, undecided, document: null };

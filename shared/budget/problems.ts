@@ -27,9 +27,7 @@ export interface BudgetProblem {
 
 /** Renders a zod path as the budget file writes it: `inputs[2].distribution.u`. */
 function fieldPath(path: readonly PropertyKey[]): string {
-  return path
-    .map((p, i) => (typeof p === 'number' ? `[${p}]` : i === 0 ? String(p) : `.${String(p)}`))
-    .join('');
+  return path.map((p, i) => (typeof p === 'number' ? `[${p}]` : i === 0 ? String(p) : `.${String(p)}`)).join('');
 }
 
 /** The place a problem names, as its message begins: `model line 3, column 7`, or the field. */

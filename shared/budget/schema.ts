@@ -13,19 +13,17 @@ export { type StatedAs } from './field-schemas';
 /** Every distribution kind, in the order a kind is offered (the registry's list). */
 export const DISTRIBUTION_KINDS = DISTRIBUTION_SCHEMAS.map((k) => k.shape.kind.value);
 
-export const distributionSchema = z
-  .discriminatedUnion('kind', DISTRIBUTION_SCHEMAS, { error: `kind must be one of ${DISTRIBUTION_KINDS.join(', ')}` })
-  .superRefine((d, ctx) => {
-    const fail = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
-    const rule = ruleFor(d);
-    if (!rule.ownDof && d.dof !== undefined && d.relativeUncertaintyOfU !== undefined) {
-      fail('relativeUncertaintyOfU', 'give either dof or relativeUncertaintyOfU, not both');
-    }
-    rule.check?.(d, fail);
-    if (d.stated?.as === 'resolution' && !(d.kind === 'rectangular' && d.halfWidth !== undefined)) {
-      fail('stated', 'a resolution r is a rectangular distribution with halfWidth a = r/2 (GUM F.2.2.1)');
-    }
-  });
+export const distributionSchema = z.discriminatedUnion('kind', DISTRIBUTION_SCHEMAS, { error: `kind must be one of ${DISTRIBUTION_KINDS.join(', ')}` }).superRefine((d, ctx) => {
+  const fail = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
+  const rule = ruleFor(d);
+  if (!rule.ownDof && d.dof !== undefined && d.relativeUncertaintyOfU !== undefined) {
+    fail('relativeUncertaintyOfU', 'give either dof or relativeUncertaintyOfU, not both');
+  }
+  rule.check?.(d, fail);
+  if (d.stated?.as === 'resolution' && !(d.kind === 'rectangular' && d.halfWidth !== undefined)) {
+    fail('stated', 'a resolution r is a rectangular distribution with halfWidth a = r/2 (GUM F.2.2.1)');
+  }
+});
 
 export const quantitySchema = z.looseObject({
   symbol: symbolName,

@@ -7,14 +7,7 @@ import { gumTreatment, inputKurtosis, samplerFor } from '../distributions/regist
 import { inValueUnit } from '../distributions/uncertainty-unit';
 import { propagateGum, type GumInput } from '../gum/propagate';
 import { compileCached } from './model-cache';
-import {
-  MonteCarloNonFiniteValue,
-  runAdaptiveMonteCarlo,
-  runMonteCarlo,
-  type MonteCarloPlan,
-  type MonteCarloRun,
-  type PhaseTimer,
-} from '../montecarlo/run-monte-carlo';
+import { MonteCarloNonFiniteValue, runAdaptiveMonteCarlo, runMonteCarlo, type MonteCarloPlan, type MonteCarloRun, type PhaseTimer } from '../montecarlo/run-monte-carlo';
 import { validateGumInterval, validationNotPossible } from '../montecarlo/validation';
 import type { Sampler } from '../distributions/distribution';
 import { gumUnusableReason, reportedResult, reportingChoice } from './reported-result';
@@ -62,7 +55,10 @@ function assertUniqueSymbols(doc: BudgetDocument): void {
  * figure built on it could be trusted, so the input is refused by name.
  */
 function finiteTreatment<T extends { estimate: number; standardUncertainty: number }>(t: T, symbol: string, index: number): T {
-  for (const [what, v] of [['estimate', t.estimate], ['standard uncertainty', t.standardUncertainty]] as const) {
+  for (const [what, v] of [
+    ['estimate', t.estimate],
+    ['standard uncertainty', t.standardUncertainty],
+  ] as const) {
     if (!Number.isFinite(v)) {
       const field = `inputs[${index}].distribution`;
       throw new BudgetError(
@@ -116,9 +112,7 @@ function runMethod(run: () => MonteCarloRun): MonteCarloRun {
  * meaningless. Null when every sampled distribution has a variance.
  */
 function undefinedMomentsOf(symbols: string[], samplers: (Sampler | null)[]): UndefinedMoments | null {
-  const heavy = samplers
-    .map((s, i) => ({ symbol: symbols[i], dof: s?.tDof }))
-    .filter((x): x is { symbol: string; dof: number } => x.dof !== undefined && x.dof <= 2);
+  const heavy = samplers.map((s, i) => ({ symbol: symbols[i], dof: s?.tDof })).filter((x): x is { symbol: string; dof: number } => x.dof !== undefined && x.dof <= 2);
   if (heavy.length === 0) return null;
   const smallestDof = Math.min(...heavy.map((x) => x.dof));
   const named = heavy.map((x) => `"${x.symbol}" (ν = ${dofFigure(x.dof).text})`).join(', ');
@@ -143,10 +137,8 @@ function fewDegreesOfFreedomWarnings(doc: BudgetDocument, samplers: (Sampler | n
       (d.kind === 'observations' && n - 1 === dof
         ? `The input "${q.symbol}" has only ${n} observations (ν = ${dof}): `
         : `The input "${q.symbol}" is drawn from a t-distribution with ν = ${dofFigure(dof).text} ≤ 2: `) +
-        'a t-distribution with ν ≤ 2 has no variance, so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). ' +
-        (d.kind === 'observations' && n - 1 === dof
-          ? 'Take at least 4 observations, or give a pooled standard deviation with its degrees of freedom.'
-          : 'Check the stated degrees of freedom.');
+      'a t-distribution with ν ≤ 2 has no variance, so the Monte Carlo method cannot validate the GUM result (JCGM 101:2008 6.4.9). ' +
+      (d.kind === 'observations' && n - 1 === dof ? 'Take at least 4 observations, or give a pooled standard deviation with its degrees of freedom.' : 'Check the stated degrees of freedom.');
     warnings.push(inputWarning('dof-undefined-variance', message, q.symbol, i));
   });
   return warnings;
@@ -223,14 +215,15 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     }
     const plan: MonteCarloPlan = {
       samplers,
-      correlated: correlation && correlatedIndices.length
-        ? {
-            indices: correlatedIndices,
-            means: correlatedIndices.map((i) => inputs[i].estimate),
-            standardUncertainties: correlatedIndices.map((i) => inputs[i].standardUncertainty),
-            correlation: correlatedIndices.map((i) => correlatedIndices.map((j) => correlation[i][j])),
-          }
-        : undefined,
+      correlated:
+        correlation && correlatedIndices.length
+          ? {
+              indices: correlatedIndices,
+              means: correlatedIndices.map((i) => inputs[i].estimate),
+              standardUncertainties: correlatedIndices.map((i) => inputs[i].standardUncertainty),
+              correlation: correlatedIndices.map((i) => correlatedIndices.map((j) => correlation[i][j])),
+            }
+          : undefined,
       evaluateBlock: model.evaluateBlock,
     };
     const common = { seed, coverageProbability: p, onProgress: options.onProgress, shouldStop: options.shouldStop, timer: options.timer };
@@ -252,22 +245,12 @@ export function computeBudget(doc: BudgetDocument, options: ComputeOptions = {})
     const trials = requested === 'adaptive' ? DEFAULTS.trials : requested;
     const minimum = minimumTrials(p);
     if (!adaptive && trials < minimum) {
-      throw new BudgetError(
-        'limit',
-        `monteCarlo.trials: at least ${minimum} trials are needed for a ${probability(p).text} coverage interval (100/(1 − p), JCGM 101:2008 7.9.2)`,
-        'monteCarlo.trials',
-      );
+      throw new BudgetError('limit', `monteCarlo.trials: at least ${minimum} trials are needed for a ${probability(p).text} coverage interval (100/(1 − p), JCGM 101:2008 7.9.2)`, 'monteCarlo.trials');
     }
     if (!adaptive && trials > cap) warnings.push(budgetWarning('monte-carlo-trials-capped', `Monte Carlo trials capped at ${cap} (requested ${trials}).`));
-    const run = runMethod(() =>
-      adaptive
-        ? runAdaptiveMonteCarlo(plan, { ...common, significantDigits, maxTrials: cap })
-        : runMonteCarlo(plan, { ...common, trials: Math.min(trials, cap) }),
-    );
+    const run = runMethod(() => (adaptive ? runAdaptiveMonteCarlo(plan, { ...common, significantDigits, maxTrials: cap }) : runMonteCarlo(plan, { ...common, trials: Math.min(trials, cap) })));
     if (run.adaptive && !run.adaptive.stabilized) {
-      warnings.push(
-        budgetWarning('monte-carlo-not-stable', `The adaptive Monte Carlo procedure did not stabilise within ${cap} trials; the results are less reliable than requested.`),
-      );
+      warnings.push(budgetWarning('monte-carlo-not-stable', `The adaptive Monte Carlo procedure did not stabilise within ${cap} trials; the results are less reliable than requested.`));
     }
     monteCarlo = {
       trials: run.trials,

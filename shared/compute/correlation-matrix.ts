@@ -30,11 +30,7 @@ export function correlationMatrix(inputs: readonly InputQuantity[], correlations
     for (const s of [a, b]) {
       const kind = inputs[index.get(s) as number].distribution.kind;
       if (kind !== 'normal') {
-        throw new BudgetError(
-          'correlation',
-          `${field}.between: "${s}" has a ${kind} distribution; only inputs with a normal distribution can be correlated`,
-          `${field}.between`,
-        );
+        throw new BudgetError('correlation', `${field}.between: "${s}" has a ${kind} distribution; only inputs with a normal distribution can be correlated`, `${field}.between`);
       }
     }
     const i = index.get(a) as number;
@@ -43,7 +39,10 @@ export function correlationMatrix(inputs: readonly InputQuantity[], correlations
     any = true;
   });
   if (!any) return null;
-  assertPositiveSemiDefinite(r, inputs.map((q) => q.symbol));
+  assertPositiveSemiDefinite(
+    r,
+    inputs.map((q) => q.symbol),
+  );
   return r;
 }
 
@@ -72,9 +71,5 @@ function assertPositiveSemiDefinite(r: number[][], symbols: readonly string[]): 
       }
     }
   }
-  throw new BudgetError(
-    'correlation',
-    `correlations: the correlation matrix is not positive semi-definite; the coefficients involving "${symbols[k]}" cannot all hold together`,
-    'correlations',
-  );
+  throw new BudgetError('correlation', `correlations: the correlation matrix is not positive semi-definite; the coefficients involving "${symbols[k]}" cannot all hold together`, 'correlations');
 }

@@ -96,12 +96,7 @@ function monteCarloFigures(gum: GumResult, mc: MonteCarloResult): Omit<ReportedR
  * No Monte Carlo run means no comparison was made: `unvalidated` stays false
  * and the statement claims no validation.
  */
-export function reportedResult(
-  gum: GumResult,
-  monteCarlo: MonteCarloResult | null,
-  validation: ValidationResult | null,
-  choice: ReportingChoice,
-): ReportedResult {
+export function reportedResult(gum: GumResult, monteCarlo: MonteCarloResult | null, validation: ValidationResult | null, choice: ReportingChoice): ReportedResult {
   const unusable = gumUnusableReason(gum);
   if (unusable) {
     if (!monteCarlo) {

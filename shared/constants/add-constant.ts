@@ -12,10 +12,7 @@ export function addPhysicalConstant(doc: BudgetDocument, constant: PhysicalConst
   if (asInput && constant.standardUncertainty > 0) {
     return {
       ...doc,
-      inputs: [
-        ...doc.inputs,
-        { symbol: constant.symbol, unit: constant.unit, description, distribution: { kind: 'normal', value: constant.value, u: constant.standardUncertainty } },
-      ],
+      inputs: [...doc.inputs, { symbol: constant.symbol, unit: constant.unit, description, distribution: { kind: 'normal', value: constant.value, u: constant.standardUncertainty } }],
     };
   }
   return { ...doc, constants: [...(doc.constants ?? []), { symbol: constant.symbol, value: constant.value, unit: constant.unit, description }] };

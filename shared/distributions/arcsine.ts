@@ -43,7 +43,16 @@ export const arcsineRule: DistributionRule<'arcsine'> = {
   statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.SQRT2, divisorText: '√2' }),
   explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √2', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √2 = ${w.u}`, clause: 'JCGM 101:2008 6.4.6' }),
   form: {
-    ways: [{ id: 'halfWidth', label: 'a half-width ± a around a value', fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }] }],
+    ways: [
+      {
+        id: 'halfWidth',
+        label: 'a half-width ± a around a value',
+        fields: [
+          { name: 'value', label: 'Value', unit: 'value', required: true },
+          { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true },
+        ],
+      },
+    ],
     wayOf: () => 'halfWidth',
     dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
   },

@@ -83,7 +83,11 @@ export const curvilinearTrapezoidalRule: DistributionRule<'curvilinear-trapezoid
       {
         id: 'halfWidth',
         label: 'a half-width ± a around a value',
-        fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }, { name: 'halfWidthUncertainty', label: 'Uncertainty of the half-width d', unit: 'uncertainty', required: true }],
+        fields: [
+          { name: 'value', label: 'Value', unit: 'value', required: true },
+          { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true },
+          { name: 'halfWidthUncertainty', label: 'Uncertainty of the half-width d', unit: 'uncertainty', required: true },
+        ],
       },
     ],
     wayOf: () => 'halfWidth',

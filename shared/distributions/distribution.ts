@@ -150,4 +150,3 @@ export interface DistributionRule<K extends DistributionKind> {
    */
   fromStandardUncertainty(x: number, u: number, nu: number): DistributionOf<K>;
 }
-

@@ -72,7 +72,11 @@ export const trapezoidalRule: DistributionRule<'trapezoidal'> = {
       {
         id: 'halfWidth',
         label: 'a half-width ± a around a value',
-        fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }, { name: 'beta', label: 'β (top to base ratio, 0 to 1)', unit: 'dimensionless', required: true }],
+        fields: [
+          { name: 'value', label: 'Value', unit: 'value', required: true },
+          { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true },
+          { name: 'beta', label: 'β (top to base ratio, 0 to 1)', unit: 'dimensionless', required: true },
+        ],
       },
     ],
     wayOf: () => 'halfWidth',

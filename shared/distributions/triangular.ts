@@ -49,7 +49,16 @@ export const triangularRule: DistributionRule<'triangular'> = {
   statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.sqrt(6), divisorText: '√6' }),
   explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √6', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √6 = ${w.u}`, clause: 'GUM 4.3.9' }),
   form: {
-    ways: [{ id: 'halfWidth', label: 'a half-width ± a around a value', fields: [{ name: 'value', label: 'Value', unit: 'value', required: true }, { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true }] }],
+    ways: [
+      {
+        id: 'halfWidth',
+        label: 'a half-width ± a around a value',
+        fields: [
+          { name: 'value', label: 'Value', unit: 'value', required: true },
+          { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true },
+        ],
+      },
+    ],
     wayOf: () => 'halfWidth',
     dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
   },

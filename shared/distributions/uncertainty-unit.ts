@@ -33,8 +33,7 @@ export function uncertaintyScale(uncertaintyUnit: string, valueUnit: string | un
   if (sameDimension(su.dimension, vu.dimension)) {
     if (isDimensionless(su.dimension) && !valueHasUnit && su.factor !== 1) {
       throw new Error(
-        `"${uncertaintyUnit.trim()}" for a value without unit could mean an absolute amount or one relative to the value: ` +
-          'give the uncertainty as a plain number, or give the value its unit',
+        `"${uncertaintyUnit.trim()}" for a value without unit could mean an absolute amount or one relative to the value: ` + 'give the uncertainty as a plain number, or give the value its unit',
       );
     }
     return { factor: su.factor / vu.factor, relative: false };

@@ -6,8 +6,7 @@ import { KINDS, ruleOf } from '../distributions/registry';
  * ones for choosing a kind, short ones for the columns of a budget table.
  */
 
-const byKind = (name: (kind: DistributionKind) => string) =>
-  Object.fromEntries(KINDS.map((k) => [k, name(k)])) as Record<DistributionKind, string>;
+const byKind = (name: (kind: DistributionKind) => string) => Object.fromEntries(KINDS.map((k) => [k, name(k)])) as Record<DistributionKind, string>;
 
 /** The long name of each kind, as offered when a kind is chosen. */
 export const KIND_LABELS: Record<DistributionKind, string> = byKind((k) => ruleOf(k).label);

@@ -14,9 +14,7 @@ export interface UnitPiece {
 }
 
 /** Unit names that take the micro prefix when written with a leading "u" (or a Greek mu). */
-const MICRO_BASES = new Set([
-  'm', 'g', 's', 'V', 'A', 'L', 'l', 'W', 'mol', 'K', 'Hz', 'F', 'H', 'Pa', 'N', 'J', 'C', 'S', 'T', 'rad', 'ohm', 'bar', 'cd', 'Wb', 'sr', 'degC',
-]);
+const MICRO_BASES = new Set(['m', 'g', 's', 'V', 'A', 'L', 'l', 'W', 'mol', 'K', 'Hz', 'F', 'H', 'Pa', 'N', 'J', 'C', 'S', 'T', 'rad', 'ohm', 'bar', 'cd', 'Wb', 'sr', 'degC']);
 
 const SYMBOLS: ReadonlyMap<string, string> = new Map([
   ['degC', '°C'],

@@ -105,10 +105,7 @@ export function propagateGum(
   if (correlation) {
     if (standardUncertainty === 0) {
       warnings.push(
-        budgetWarning(
-          'first-order-zero-correlated',
-          'u_c is 0 at first order; the higher-order terms are not evaluated with correlated inputs: check the Monte Carlo result before reporting.',
-        ),
+        budgetWarning('first-order-zero-correlated', 'u_c is 0 at first order; the higher-order terms are not evaluated with correlated inputs: check the Monte Carlo result before reporting.'),
       );
     }
   } else if (uncertainInputs > SECOND_ORDER_MAX_INPUTS) {
@@ -124,7 +121,13 @@ export function propagateGum(
       return (at: ArrayLike<number>) => centralDifference(model.value, at, i, steps[i]);
     });
     const reads = partials.map((_, i) => (model.partials[i] && methods[i] === 'symbolic' ? model.partialReads[i] : null));
-    const terms = secondOrderTerms(partials, reads, x, u, inputs.map((q) => q.kurtosis ?? NORMAL_KURTOSIS));
+    const terms = secondOrderTerms(
+      partials,
+      reads,
+      x,
+      u,
+      inputs.map((q) => q.kurtosis ?? NORMAL_KURTOSIS),
+    );
     standardUncertaintySecondOrder = Number.isFinite(terms.variance) ? Math.sqrt(Math.max(variance + terms.variance, 0)) : null;
     if (terms.omitted.length) {
       secondOrderOmitted = terms.omitted.map((i) => inputs[i].symbol);

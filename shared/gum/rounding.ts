@@ -39,7 +39,9 @@ const DOUBLE_SIGNIFICANT_DIGITS = 15;
  */
 function lastDigitExponent(x: number): number {
   if (x === 0 || !Number.isFinite(x)) return 0;
-  const [mantissa, exp] = Math.abs(x).toExponential(DOUBLE_SIGNIFICANT_DIGITS - 1).split('e');
+  const [mantissa, exp] = Math.abs(x)
+    .toExponential(DOUBLE_SIGNIFICANT_DIGITS - 1)
+    .split('e');
   const digits = mantissa.replace('.', '').replace(/0+$/, '');
   return Number(exp) - (digits.length - 1);
 }

@@ -28,10 +28,7 @@ function clause(reason: string): string {
 function withoutValidation(verdict: ValidationVerdict | undefined, reason: string | undefined): string {
   switch (verdict) {
     case 'inconclusive':
-      return (
-        ' This result is reported although the Monte Carlo method of JCGM 101:2008 did not validate it: the comparison ' +
-        '(clause 8) was inconclusive at the number of trials used.'
-      );
+      return ' This result is reported although the Monte Carlo method of JCGM 101:2008 did not validate it: the comparison ' + '(clause 8) was inconclusive at the number of trials used.';
     case 'not-possible':
       return ` This result is reported although the Monte Carlo method of JCGM 101:2008 could not validate it: ${reason ? clause(reason) : 'the comparison of clause 8 was not possible'}.`;
     default:
@@ -68,11 +65,7 @@ function replacedBecause(reported: ReportedResult): string {
  *   (JCGM 101:2008 7.7), endpoints rounded to the place of U's second
  *   significant digit; with `replacedGum`, that it replaces the GUM result and why.
  */
-export function certificateStatement(
-  measurand: { symbol: string; unit?: string },
-  reported: ReportedResult,
-  effectiveDof: number | null,
-): string {
+export function certificateStatement(measurand: { symbol: string; unit?: string }, reported: ReportedResult, effectiveDof: number | null): string {
   const { symbol } = measurand;
   const unit = measurand.unit && measurand.unit !== '1' ? ` ${measurand.unit}` : '';
   // GUM 7.2.6: U to two significant digits and y to the same place; U = 0 keeps y's own digits.

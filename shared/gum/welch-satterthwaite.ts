@@ -46,12 +46,7 @@ export function welchSatterthwaite(terms: readonly VarianceTerm[]): number {
  * correlations between errors", Metrologia 44 (2007) 340–349 (from memory):
  * correlated errors are sums of common independent components.
  */
-function varianceTerms(
-  c: readonly number[],
-  u: readonly number[],
-  dofs: readonly number[],
-  correlation: readonly (readonly number[])[] | null,
-): VarianceTerm[] {
+function varianceTerms(c: readonly number[], u: readonly number[], dofs: readonly number[], correlation: readonly (readonly number[])[] | null): VarianceTerm[] {
   return correlationGroups(c.length, correlation).map((members) => {
     const cG = members.map((i) => c[i]);
     const uG = members.map((i) => u[i]);
@@ -67,11 +62,6 @@ function varianceTerms(
  * (JCGM 100:2008 G.4.1 eq. G.2b) over the independent terms of `varianceTerms`,
  * so correlated inputs enter as their groups, never pairwise.
  */
-export function effectiveDegreesOfFreedom(
-  c: readonly number[],
-  u: readonly number[],
-  dofs: readonly number[],
-  correlation: readonly (readonly number[])[] | null,
-): number {
+export function effectiveDegreesOfFreedom(c: readonly number[], u: readonly number[], dofs: readonly number[], correlation: readonly (readonly number[])[] | null): number {
   return welchSatterthwaite(varianceTerms(c, u, dofs, correlation));
 }

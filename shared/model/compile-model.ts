@@ -24,7 +24,6 @@ export interface ModelSpec {
   constants: readonly ModelConstant[];
 }
 
-
 /** A measurement model compiled once into JavaScript. All arguments are input values in their own units. */
 export interface CompiledModel {
   inputSymbols: string[];
@@ -124,11 +123,7 @@ export function compileModel(spec: ModelSpec): CompiledModel {
     if (spec.measurand.unit && spec.measurand.unit.trim() !== '') {
       const target = unitOf(spec.measurand, 'measurand.unit');
       if (!sameDimension(target.dimension, y.dimension)) {
-        throw new BudgetError(
-          'unit',
-          `measurand.unit: the model yields ${describeDimension(y.dimension)}, which cannot be expressed in "${spec.measurand.unit}"`,
-          'measurand.unit',
-        );
+        throw new BudgetError('unit', `measurand.unit: the model yields ${describeDimension(y.dimension)}, which cannot be expressed in "${spec.measurand.unit}"`, 'measurand.unit');
       }
       if (!fitsScale(y.scale, target.temperatureScale)) {
         throw new BudgetError(
@@ -172,10 +167,7 @@ export function compileModel(spec: ModelSpec): CompiledModel {
   const stated = (i: number) => (lineFactors[i] === 1 ? `l${i}` : `l${i} * ${1 / lineFactors[i]}`);
 
   const value = new Function('x', `"use strict";\n${readScalar}\n${lineCode}\nreturn ${last} * ${invScale};`) as ScalarFunction;
-  const lineValuesFn = new Function(
-    'x',
-    `"use strict";\n${readScalar}\n${lineCode}\nreturn [${parsed.lines.map((_, i) => stated(i)).join(', ')}];`,
-  ) as (x: ArrayLike<number>) => number[];
+  const lineValuesFn = new Function('x', `"use strict";\n${readScalar}\n${lineCode}\nreturn [${parsed.lines.map((_, i) => stated(i)).join(', ')}];`) as (x: ArrayLike<number>) => number[];
   const reads = used.map(({ i }) => `const q${i} = c${i}[t] * ${factors[i]};`).join('\n');
   // Two loops: the plain one, and one that also gathers the block's moment sums while y is in a register (no second pass).
   const evaluateBlock = new Function(

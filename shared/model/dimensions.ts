@@ -2,15 +2,7 @@ import type { MathNode } from 'mathjs';
 import { BudgetError } from '../budget/budget-error';
 import type { ModelLine } from './parse-model';
 import { SCALE_UNIT, combineScales, isScalePoint, type TemperatureScale } from './temperature-scale';
-import {
-  DIMENSIONLESS,
-  describeDimension,
-  isDimensionless,
-  multiplyDimensions,
-  powerDimension,
-  sameDimension,
-  type Dimension,
-} from './units';
+import { DIMENSIONLESS, describeDimension, isDimensionless, multiplyDimensions, powerDimension, sameDimension, type Dimension } from './units';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 type AnyNode = MathNode & Record<string, any>;

@@ -73,12 +73,7 @@ function assertNesting(text: string, lineNo: number): void {
 }
 
 function tooDeep(lineNo: number): BudgetError {
-  return new BudgetError(
-    'limit',
-    `model line ${lineNo}: the expression is nested deeper than ${LIMITS.modelTreeDepth} operations; split it into intermediate lines`,
-    'model',
-    { line: lineNo },
-  );
+  return new BudgetError('limit', `model line ${lineNo}: the expression is nested deeper than ${LIMITS.modelTreeDepth} operations; split it into intermediate lines`, 'model', { line: lineNo });
 }
 
 /** Lines kept parsed: a budget of a few hundred lines, and the lines of the other budgets open at the time. */
@@ -161,12 +156,7 @@ export function parseModel(text: string, quantitySymbols: ReadonlySet<string>, m
       symbol = target.name;
       expression = node.value;
       if (isLast && symbol !== measurandSymbol) {
-        throw new BudgetError(
-          'model_syntax',
-          `model line ${lineNo}: the last line assigns "${symbol}", but the measurand is "${measurandSymbol}"`,
-          'model',
-          { line: lineNo, token: symbol },
-        );
+        throw new BudgetError('model_syntax', `model line ${lineNo}: the last line assigns "${symbol}", but the measurand is "${measurandSymbol}"`, 'model', { line: lineNo, token: symbol });
       }
     } else if (isLast) {
       symbol = measurandSymbol;

@@ -131,8 +131,7 @@ export function symbolicPartials(
   const inlinedNodes = inlinedSizes(lines, new Set(inputSymbols)).get(measurand) as number;
   const usedCount = inputSymbols.filter((s) => used.has(s)).length;
   const unused = (s: string) => !used.has(s);
-  const fallback: SymbolicFallback =
-    inlinedNodes > SYMBOLIC_LIMITS.symbolicModelNodes ? 'model-size' : usedCount * inlinedNodes > SYMBOLIC_LIMITS.symbolicWork ? 'work' : 'none';
+  const fallback: SymbolicFallback = inlinedNodes > SYMBOLIC_LIMITS.symbolicModelNodes ? 'model-size' : usedCount * inlinedNodes > SYMBOLIC_LIMITS.symbolicWork ? 'work' : 'none';
   if (fallback !== 'none') {
     return {
       partials: inputSymbols.map((s) => (unused(s) ? () => 0 : null)),

@@ -91,8 +91,7 @@ export interface QuantityUnit {
   temperatureScale?: TemperatureUnitScale;
 }
 
-const QUANTITY_IN_UNIT =
-  'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description';
+const QUANTITY_IN_UNIT = 'a unit symbol carries no information about the quantity (SI Brochure, 9th ed., chapter 5): write "%" and say "relative humidity" in the description';
 /**
  * Names that look like units but would be misread; each is refused with what
  * to write instead.
@@ -210,8 +209,6 @@ const TEMPERATURE: Dimension = DIMENSIONLESS.map((_, i) => (BASE_NAMES[i] === 'K
 
 /** Writes a dimension in SI base units, e.g. `kg m^-3`; `1` when dimensionless. */
 export function describeDimension(d: Dimension): string {
-  const parts = d
-    .map((p, i) => (Math.abs(p) < 1e-9 ? '' : p === 1 ? BASE_NAMES[i] : `${BASE_NAMES[i]}^${Math.round(p * 1e6) / 1e6}`))
-    .filter(Boolean);
+  const parts = d.map((p, i) => (Math.abs(p) < 1e-9 ? '' : p === 1 ? BASE_NAMES[i] : `${BASE_NAMES[i]}^${Math.round(p * 1e6) / 1e6}`)).filter(Boolean);
   return parts.length ? parts.join(' ') : '1';
 }

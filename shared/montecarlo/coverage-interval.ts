@@ -34,9 +34,7 @@ function checkArguments(M: number, p: number): number {
   if (!(p > 0 && p < 1)) throw new RangeError(`coverage probability must lie strictly between 0 and 1 (got ${p})`);
   const q = coverageCount(M, p);
   if (q < 1 || q >= M) {
-    throw new RangeError(
-      `${M} trials are too few for a ${p * 100} % coverage interval: need M > q = ${q}; use at least ${Math.ceil(1 / (1 - p))} trials`,
-    );
+    throw new RangeError(`${M} trials are too few for a ${p * 100} % coverage interval: need M > q = ${q}; use at least ${Math.ceil(1 / (1 - p))} trials`);
   }
   return q;
 }

@@ -12,11 +12,7 @@ export const DEFAULT_BIN_COUNT = 100;
  * the last bin. When all values are equal there is one bin of width 0.
  * `range` passes min and max when the caller has them already (one pass fewer).
  */
-export function histogramBins(
-  values: Float64Array,
-  binCount: number = DEFAULT_BIN_COUNT,
-  range?: { min: number; max: number },
-): HistogramBins {
+export function histogramBins(values: Float64Array, binCount: number = DEFAULT_BIN_COUNT, range?: { min: number; max: number }): HistogramBins {
   if (!(Number.isInteger(binCount) && binCount >= 1)) throw new RangeError(`bin count must be a whole number ≥ 1 (got ${binCount})`);
   const M = values.length;
   if (M === 0) return { start: 0, width: 0, counts: [] };

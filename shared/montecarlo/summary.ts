@@ -4,11 +4,7 @@
  * with the smallest and largest value, which the histogram and the interval
  * search need: values[start..end) taken as one block of a MomentAccumulator.
  */
-export function meanAndStandardDeviation(
-  values: Float64Array,
-  start = 0,
-  end = values.length,
-): { mean: number; standardDeviation: number; min: number; max: number } {
+export function meanAndStandardDeviation(values: Float64Array, start = 0, end = values.length): { mean: number; standardDeviation: number; min: number; max: number } {
   if (end <= start) throw new RangeError('needs at least one model value');
   const acc = new MomentAccumulator();
   acc.add(values, start, end);

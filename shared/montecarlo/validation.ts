@@ -57,13 +57,7 @@ export interface ValidationOptions {
  * Without endpoint uncertainties, validated when both d ≤ δ (8.3 as written).
  * `passed` is true only for `validated`.
  */
-export function validateGumInterval(
-  gum: { y: number; U: number },
-  mcInterval: readonly [number, number],
-  u: number,
-  nDig: number,
-  options: ValidationOptions = {},
-): ValidationResult {
+export function validateGumInterval(gum: { y: number; U: number }, mcInterval: readonly [number, number], u: number, nDig: number, options: ValidationOptions = {}): ValidationResult {
   const tolerance = numericalTolerance(u, nDig);
   const dLow = Math.abs(gum.y - gum.U - mcInterval[0]);
   const dHigh = Math.abs(gum.y + gum.U - mcInterval[1]);
@@ -80,9 +74,7 @@ export function validateGumInterval(
       ...base,
       passed: false,
       verdict: 'not-validated',
-      reason:
-        `the GUM interval differs from the Monte Carlo interval by more than δ = ${figure(tolerance)} ` +
-        `(d_low = ${figure(dLow)}, d_high = ${figure(dHigh)}; JCGM 101:2008 8)`,
+      reason: `the GUM interval differs from the Monte Carlo interval by more than δ = ${figure(tolerance)} ` + `(d_low = ${figure(dLow)}, d_high = ${figure(dHigh)}; JCGM 101:2008 8)`,
       ...withUncertainty,
     };
   }
@@ -104,12 +96,7 @@ export function validateGumInterval(
  * not exist (an input drawn from a t-distribution with ν ≤ 2 has no variance,
  * JCGM 101:2008 6.4.9). d_low and d_high are still given: both intervals exist.
  */
-export function validationNotPossible(
-  gum: { y: number; U: number },
-  mcInterval: readonly [number, number],
-  nDig: number,
-  reason: string,
-): ValidationResult {
+export function validationNotPossible(gum: { y: number; U: number }, mcInterval: readonly [number, number], nDig: number, reason: string): ValidationResult {
   return {
     significantDigits: nDig,
     tolerance: null,

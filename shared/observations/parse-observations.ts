@@ -51,8 +51,7 @@ export interface ObservationText {
 const SPACE = '[ \\u00a0\\u202f\\u2009]';
 const SPACES = /[ \u00a0\u202f\u2009]/g;
 
-const numberPattern = (mark: string, group: string) =>
-  new RegExp(`^([+-]?)(\\d{1,3}(?:${group}\\d{3})+|\\d+)?(?:${mark}(\\d+(?:${SPACE}\\d+)*)?)?(?:[eE]([+-]?\\d+))?$`);
+const numberPattern = (mark: string, group: string) => new RegExp(`^([+-]?)(\\d{1,3}(?:${group}\\d{3})+|\\d+)?(?:${mark}(\\d+(?:${SPACE}\\d+)*)?)?(?:[eE]([+-]?\\d+))?$`);
 const NUMBER_PATTERN: Record<DecimalMark, RegExp> = { '.': numberPattern('\\.', `(?:,|${SPACE})`), ',': numberPattern(',', `(?:\\.|${SPACE})`) };
 
 /**

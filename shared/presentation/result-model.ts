@@ -7,23 +7,7 @@ import { budgetKindLabel } from '../format/distribution-labels';
 import { symbolMarkup } from '../format/symbols';
 import { reportedOf } from '../compute/reported-result';
 import { resultStatement } from '../gum/statement';
-import {
-  atDecimalPlace,
-  count,
-  coverageFactor,
-  dof,
-  estimate,
-  given,
-  intermediate,
-  interval,
-  placeOf,
-  plainFigure,
-  probability,
-  share,
-  significantFigure,
-  uncertainty,
-  type Figure,
-} from './figures';
+import { atDecimalPlace, count, coverageFactor, dof, estimate, given, intermediate, interval, placeOf, plainFigure, probability, share, significantFigure, uncertainty, type Figure } from './figures';
 import { divisor, statedAs } from './stated';
 import { parseUnit, sameDimension } from '../model/units';
 import { sensitivityShown, unitText, withUnit, type ShownCoefficient, type UnitText } from './units';
@@ -147,8 +131,7 @@ export interface ResultModel {
 }
 
 /** The caution every result carries. */
-export const CAUTION =
-  'These results support, and do not replace, the laboratory’s documented procedure and the requirements of ISO/IEC 17025.';
+export const CAUTION = 'These results support, and do not replace, the laboratory’s documented procedure and the requirements of ISO/IEC 17025.';
 
 const BASIS_WORDS: Record<ReportingBasis, string> = {
   't-effective-dof': 'k = t_p(ν_eff) of the t-distribution (GUM G.4)',
@@ -181,7 +164,10 @@ function reportedFigures(result: BudgetResult): ReportedFigures {
   }
   const place = placeOf(r.expandedUncertainty);
   const notes: string[] = [];
-  if (r.replacedGum) notes.push(`The Monte Carlo coverage interval is reported in place of the GUM figures${r.validationReason ? `: ${r.validationReason.replace(/\.$/, '')}` : ', which the Monte Carlo method did not validate (JCGM 101:2008 8)'}.`);
+  if (r.replacedGum)
+    notes.push(
+      `The Monte Carlo coverage interval is reported in place of the GUM figures${r.validationReason ? `: ${r.validationReason.replace(/\.$/, '')}` : ', which the Monte Carlo method did not validate (JCGM 101:2008 8)'}.`,
+    );
   if (r.unvalidated) {
     const how =
       r.validationVerdict === 'inconclusive'
@@ -250,8 +236,7 @@ function budgetView(document: BudgetDocument, result: BudgetResult): BudgetView 
   const [first, second] = sorted;
   const dominantIn = (uc: string, sym: (s: string) => string) => {
     if (!first || !(first.varianceShare > 0)) return 'No input contributes to the variance.';
-    const tail =
-      first.varianceShare < 0.5 && second && second.varianceShare > 0 ? `; with u(${sym(second.symbol)}), ${share(first.varianceShare + second.varianceShare).text}.` : '.';
+    const tail = first.varianceShare < 0.5 && second && second.varianceShare > 0 ? `; with u(${sym(second.symbol)}), ${share(first.varianceShare + second.varianceShare).text}.` : '.';
     return `u(${sym(first.symbol)}) contributes ${share(first.varianceShare).text} of the variance ${uc}²${tail}`;
   };
   const dominant = { text: dominantIn('u_c', (s) => s), markup: dominantIn('u_{c}', symbolMarkup) };
@@ -318,7 +303,7 @@ function correlationsView(document: BudgetDocument): ResultModel['correlations']
   const pairs = document.correlations ?? [];
   if (!pairs.length) return null;
   const symbols = [...new Set(pairs.flatMap((p) => p.between))];
-  const r = (a: string, b: string) => (a === b ? 1 : pairs.find((p) => (p.between[0] === a && p.between[1] === b) || (p.between[0] === b && p.between[1] === a))?.r ?? 0);
+  const r = (a: string, b: string) => (a === b ? 1 : (pairs.find((p) => (p.between[0] === a && p.between[1] === b) || (p.between[0] === b && p.between[1] === a))?.r ?? 0));
   return { symbols, matrix: symbols.map((a) => symbols.map((b) => given(r(a, b)))) };
 }
 
@@ -386,9 +371,7 @@ export function presentResult(document: BudgetDocument, stored: BudgetResult): R
     model: { text: document.model, intermediates: intermediatesView(document, result) },
     constants: constantsView(document),
     correlations: correlationsView(document),
-    observations: document.inputs.flatMap((q) =>
-      q.distribution.kind === 'observations' ? [{ symbol: q.symbol, unit: unitText(q.unit), values: q.distribution.values.map((v) => given(v)) }] : [],
-    ),
+    observations: document.inputs.flatMap((q) => (q.distribution.kind === 'observations' ? [{ symbol: q.symbol, unit: unitText(q.unit), values: q.distribution.values.map((v) => given(v)) }] : [])),
     caution: CAUTION,
   };
 }

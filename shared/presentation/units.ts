@@ -34,7 +34,14 @@ export interface ShownCoefficient {
 }
 
 const PREFIXES: [string, number][] = [
-  ['p', -12], ['n', -9], ['u', -6], ['m', -3], ['', 0], ['k', 3], ['M', 6], ['G', 9],
+  ['p', -12],
+  ['n', -9],
+  ['u', -6],
+  ['m', -3],
+  ['', 0],
+  ['k', 3],
+  ['M', 6],
+  ['G', 9],
 ];
 
 const safeParse = (u: string | undefined) => {

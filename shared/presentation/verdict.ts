@@ -65,7 +65,9 @@ export function verdictView(v: ValidationResult, unit: UnitText, reported?: Repo
         headline: 'The comparison with the Monte Carlo method is inconclusive.',
         detail: v.reason
           ? both(() => `${sentence(v.reason!)} (JCGM 101:2008 8.2, 7.9.)`)
-          : both((s) => `The numerical accuracy of the Monte Carlo interval is of the size of δ, so another seed could change the verdict (${figures(s)}; JCGM 101:2008 8.2). Run more trials to decide.`),
+          : both(
+              (s) => `The numerical accuracy of the Monte Carlo interval is of the size of δ, so another seed could change the verdict (${figures(s)}; JCGM 101:2008 8.2). Run more trials to decide.`,
+            ),
       };
     case 'not-possible':
       return {

@@ -22,7 +22,7 @@ const LAYERS = 256;
 /** Right edge of the base strip for 256 layers (Marsaglia & Tsang 2000, from memory). */
 const R = 3.6541528853610088;
 
-const LN2_HI = 6.93147180369123816490e-1; // ln 2 with trailing zero bits: k·LN2_HI is exact for |k| < 2²⁰
+const LN2_HI = 6.9314718036912381649e-1; // ln 2 with trailing zero bits: k·LN2_HI is exact for |k| < 2²⁰
 const LN2_LO = 1.90821492927058770002e-10;
 const LOG2E = 1.4426950408889634;
 const SQRT2 = 1.4142135623730951;

@@ -3,9 +3,7 @@ import * as jstatModule from 'jstat';
 type JStat = typeof jstatModule.jStat;
 // jstat is CommonJS: bundlers expose `jStat` by name, Node's ESM loader only as `default`.
 const jStat: JStat =
-  (jstatModule as { jStat?: JStat }).jStat ??
-  ((jstatModule as unknown as { default: JStat & { jStat?: JStat } }).default.jStat ??
-    (jstatModule as unknown as { default: JStat }).default);
+  (jstatModule as { jStat?: JStat }).jStat ?? (jstatModule as unknown as { default: JStat & { jStat?: JStat } }).default.jStat ?? (jstatModule as unknown as { default: JStat }).default;
 
 /** Beyond this ν the t quantile equals the normal one to far better than display precision. */
 const NORMAL_LIMIT_DOF = 1e7;

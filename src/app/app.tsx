@@ -45,13 +45,7 @@ const queryClient = new QueryClient({
 });
 
 function SignedIn() {
-  return (
-    <RequireSignIn>
-      {(me) => (
-        <AppShellWithContext me={me} />
-      )}
-    </RequireSignIn>
-  );
+  return <RequireSignIn>{(me) => <AppShellWithContext me={me} />}</RequireSignIn>;
 }
 
 /** The shell stays on screen while a page's chunk loads; only the page area waits. */

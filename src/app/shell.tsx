@@ -46,7 +46,9 @@ export function RequireSignIn({ children }: { children: (me: Me) => React.ReactN
   if (me.isError) {
     return (
       <div className="mx-auto max-w-lg p-8">
-        <ErrorNote heading title="Dubito cannot reach its server">{errorMessage(me.error)}</ErrorNote>
+        <ErrorNote heading title="Dubito cannot reach its server">
+          {errorMessage(me.error)}
+        </ErrorNote>
       </div>
     );
   }
@@ -72,9 +74,7 @@ export function AppShell({ me, outlet }: { me: Me; outlet?: React.ReactNode }) {
               <NavLink
                 key={n.to}
                 to={n.to}
-                className={({ isActive }) =>
-                  `rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? 'bg-stone-700 text-white' : 'text-stone-300 hover:bg-stone-800 hover:text-white'}`
-                }
+                className={({ isActive }) => `rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? 'bg-stone-700 text-white' : 'text-stone-300 hover:bg-stone-800 hover:text-white'}`}
               >
                 {n.label}
               </NavLink>
@@ -107,9 +107,7 @@ function NotAllowed({ role }: { role: Role }) {
   return (
     <div className="mx-auto max-w-xl px-6 py-12">
       <h1 className="text-xl font-semibold">Not available for your role</h1>
-      <p className="mt-2 text-sm text-stone-700">
-        You are signed in as {roleLabel(role).toLowerCase()}. This page is for other roles; ask an administrator if you need access.
-      </p>
+      <p className="mt-2 text-sm text-stone-700">You are signed in as {roleLabel(role).toLowerCase()}. This page is for other roles; ask an administrator if you need access.</p>
     </div>
   );
 }
@@ -130,7 +128,11 @@ function Placeholder({ title, children }: { title: string; children: React.React
 export function NotFound() {
   return (
     <Placeholder title="Page not found">
-      There is nothing at this address. <NavLink to="/budgets" className="text-accent-700 underline">Go to the budgets</NavLink>.
+      There is nothing at this address.{' '}
+      <NavLink to="/budgets" className="text-accent-700 underline">
+        Go to the budgets
+      </NavLink>
+      .
     </Placeholder>
   );
 }

@@ -166,8 +166,7 @@ export const usersPageQuery = (filter: UserFilter, page: PageRequest<UserSort>) 
     placeholderData: keepPreviousData,
   });
 
-export const mailQuery = () =>
-  queryOptions({ queryKey: queryKeys.mail(), queryFn: () => api<MailMessage[]>('/api/dev/mail?limit=200'), refetchInterval: 10_000 });
+export const mailQuery = () => queryOptions({ queryKey: queryKeys.mail(), queryFn: () => api<MailMessage[]>('/api/dev/mail?limit=200'), refetchInterval: 10_000 });
 
 /** The signed-in user, or null when signed out (401). */
 export const meQuery = () =>

@@ -67,7 +67,7 @@ describe('dubito compute', () => {
     expect(r.stdout).toContain('warning (a): The input "a" has only 3 observations (ν = 2)');
   });
 
-  it('prints the adaptive stability (JCGM 101:2008 7.9.4) and a fixed k from the budget\'s reporting choice', () => {
+  it("prints the adaptive stability (JCGM 101:2008 7.9.4) and a fixed k from the budget's reporting choice", () => {
     const file = tempFile(
       JSON.stringify({
         format: 'dubito-budget/1',
@@ -92,9 +92,29 @@ describe('dubito compute', () => {
   const refusals: [string, string[], RegExp][] = [
     ['a file that is not JSON', [tempFile('{ "format": ')], /not a JSON document/],
     ['a missing file', ['/nonexistent/budget.json'], /cannot read .*no such file/],
-    ['a bad field', [tempFile(JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: -1 } }] }))], /inputs\[0\]\.distribution\.u: must be greater than 0/],
-    ['a forbidden function', [tempFile(JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = evaluate(a)', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 1 } }] }))], /the function "evaluate" is not allowed/],
-    ['an unknown symbol', [tempFile(JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a * q', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 1 } }] }))], /unknown symbol "q"/],
+    [
+      'a bad field',
+      [tempFile(JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: -1 } }] }))],
+      /inputs\[0\]\.distribution\.u: must be greater than 0/,
+    ],
+    [
+      'a forbidden function',
+      [
+        tempFile(
+          JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = evaluate(a)', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 1 } }] }),
+        ),
+      ],
+      /the function "evaluate" is not allowed/,
+    ],
+    [
+      'an unknown symbol',
+      [
+        tempFile(
+          JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a * q', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 1 } }] }),
+        ),
+      ],
+      /unknown symbol "q"/,
+    ],
     ['too many trials', ['examples/dc-voltage-10v.json', '--trials', '60000000'], /must not exceed 5e\+7/],
     ['an unknown option', ['examples/dc-voltage-10v.json', '--bogus'], /bogus/],
     ['a bad format', ['examples/dc-voltage-10v.json', '--format', 'xml'], /--format must be json, jsonl or table/],
@@ -131,7 +151,11 @@ function budgetFolder(withRefused: boolean): string {
   return dir;
 }
 
-const lines = (stdout: string) => stdout.trimEnd().split('\n').map((l) => JSON.parse(l));
+const lines = (stdout: string) =>
+  stdout
+    .trimEnd()
+    .split('\n')
+    .map((l) => JSON.parse(l));
 
 describe('dubito compute on many budgets', () => {
   it('takes files and patterns, and writes one JSON line per budget in the order given, each with the figures of a run on its own', () => {
@@ -185,11 +209,22 @@ describe('dubito compute on many budgets', () => {
   });
 
   it('a refused model names its line and column in `location`, and each warning carries its code', () => {
-    const bad = tempFile(JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a + * a', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 0.1 } }] }));
+    const bad = tempFile(
+      JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a + * a', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 0.1 } }] }),
+    );
     const [refused] = lines(dubito('compute', bad, '--format', 'jsonl', '--no-monte-carlo').stdout);
     expect(refused.error).toMatchObject({ code: 'model_syntax', field: 'model', location: { line: 1, column: expect.any(Number) } });
     const spare = tempFile(
-      JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: 0.1 } }, { symbol: 'b', distribution: { kind: 'normal', value: 1, u: 0.1 } }] }),
+      JSON.stringify({
+        format: 'dubito-budget/1',
+        title: 't',
+        measurand: { symbol: 'Y' },
+        model: 'Y = a',
+        inputs: [
+          { symbol: 'a', distribution: { kind: 'normal', value: 1, u: 0.1 } },
+          { symbol: 'b', distribution: { kind: 'normal', value: 1, u: 0.1 } },
+        ],
+      }),
     );
     const result = JSON.parse(dubito('compute', spare, '--no-monte-carlo').stdout);
     expect(result.warnings).toEqual([{ code: 'input-not-in-model', message: 'The input "b" does not appear in the model.', symbols: ['b'], field: 'inputs[1]' }]);
@@ -208,7 +243,9 @@ describe('dubito compute on many budgets', () => {
     const first = dubito('compute', join(dir, '*.json'), '--beside');
     expect(first.status).toBe(0);
     expect(first.stdout).toBe('');
-    const written = readdirSync(dir).filter((f) => f.endsWith('.result.json')).sort();
+    const written = readdirSync(dir)
+      .filter((f) => f.endsWith('.result.json'))
+      .sort();
     expect(written).toEqual(['dc-voltage-10v.result.json', 'gauge-block-50mm.result.json', 'weight-class-f1-200g.result.json']);
     const stored = JSON.parse(readFileSync(join(dir, 'gauge-block-50mm.result.json'), 'utf8'));
     expect(stored).toEqual(JSON.parse(dubito('compute', join(dir, 'gauge-block-50mm.json')).stdout));

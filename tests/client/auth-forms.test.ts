@@ -2,8 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { completeTokenBody, MIN_PASSWORD_LENGTH, signInBody } from '../../shared/api/accounts';
 import { forgotPasswordForm, newPasswordForm, signInForm } from '../../src/features/auth/components/form-schemas';
 
-const problems = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }) =>
-  Object.fromEntries((r.error?.issues ?? []).map((i) => [i.path.join('.'), i.message]));
+const problems = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }) => Object.fromEntries((r.error?.issues ?? []).map((i) => [i.path.join('.'), i.message]));
 
 describe('the sign-in form checks what the server checks, in the words beside each field', () => {
   it('asks for an address and a password', () => {

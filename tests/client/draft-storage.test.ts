@@ -61,7 +61,17 @@ describe('draft storage: unsaved work kept in the browser', () => {
   });
 
   it('ignores a stored draft it cannot read instead of opening it', () => {
-    const corrupt = ['{"document": {"title": "cut off', 'null', '42', '"text"', '[]', '{}', '{"document": {"title": "x"}, "baseVersion": 1, "savedAt": 1}', '{"document": {"inputs": []}, "baseVersion": "1", "savedAt": 1}', '{"document": {"inputs": []}, "baseVersion": 1}'];
+    const corrupt = [
+      '{"document": {"title": "cut off',
+      'null',
+      '42',
+      '"text"',
+      '[]',
+      '{}',
+      '{"document": {"title": "x"}, "baseVersion": 1, "savedAt": 1}',
+      '{"document": {"inputs": []}, "baseVersion": "1", "savedAt": 1}',
+      '{"document": {"inputs": []}, "baseVersion": 1}',
+    ];
     for (const text of corrupt) {
       storage.items.set('dubito.draft.7', text);
       expect(loadDraft(7), text).toBeNull();

@@ -27,7 +27,7 @@ describe('convertKind: the editor changes a kind through u', () => {
     expect(next).toEqual({ kind: 'normal', value: 8000, u: 577.35 });
   });
 
-  it('takes an uncertainty in its own unit into the value\'s and drops that unit: U = 12 mK, k = 2 for a value in °C gives u = 0.006 °C', () => {
+  it("takes an uncertainty in its own unit into the value's and drops that unit: U = 12 mK, k = 2 for a value in °C gives u = 0.006 °C", () => {
     const next = convertKind({ kind: 'normal', value: 20.3, U: 12, k: 2, uncertaintyUnit: 'mK' }, 'arcsine', 'degC');
     expect(next.uncertaintyUnit).toBeUndefined();
     expect(next).toEqual({ kind: 'arcsine', value: 20.3, halfWidth: 0.00848528 });

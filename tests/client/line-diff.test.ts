@@ -2,8 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { LINE_DIFF_MAX_CELLS, lineDiff, type DiffRow } from '../../shared/presentation/line-diff';
 
 /** The rows as `mark text` strings, so an expectation reads like the screen. */
-const view = (rows: DiffRow[]) =>
-  rows.map((r) => (r.change === 'same' ? `= ${r.left}` : r.change === 'added' ? `+ ${r.right}` : r.change === 'removed' ? `- ${r.left}` : `~ ${r.left} -> ${r.right}`));
+const view = (rows: DiffRow[]) => rows.map((r) => (r.change === 'same' ? `= ${r.left}` : r.change === 'added' ? `+ ${r.right}` : r.change === 'removed' ? `- ${r.left}` : `~ ${r.left} -> ${r.right}`));
 
 describe('lineDiff: the model lines of two versions side by side', () => {
   it('marks every line of identical texts unchanged, each on both sides', () => {

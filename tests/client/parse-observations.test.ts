@@ -79,17 +79,17 @@ describe('parseObservationText', () => {
   it('takes a comma heading with as many commas as every line as column names', () => {
     const layout = readObservationLayout(lines('index,reading', '1,5', '2,7'));
     expect(layout.separator).toBe(',');
-    expect(layout.rows.map((r) => r.cells)).toEqual([['index', 'reading'], ['1', '5'], ['2', '7']]);
+    expect(layout.rows.map((r) => r.cells)).toEqual([
+      ['index', 'reading'],
+      ['1', '5'],
+      ['2', '7'],
+    ]);
   });
 
   it('skips blank lines silently and reports every other line it ignored, with its number and why', () => {
     const r = parseObservationText(lines('Reading (mm)', '', '50,02', 'n/a', '   ', '50,04', '\u22120,5e1', '50,03 mm'));
     expect(r.values).toEqual([50.02, 50.04, -5]);
-    expect(r.ignored.map(describeIgnoredLine)).toEqual([
-      'line 1: "Reading (mm)" is not a number (read as a heading)',
-      'line 4: "n/a" is not a number',
-      'line 8: "50,03 mm" is not a number',
-    ]);
+    expect(r.ignored.map(describeIgnoredLine)).toEqual(['line 1: "Reading (mm)" is not a number (read as a heading)', 'line 4: "n/a" is not a number', 'line 8: "50,03 mm" is not a number']);
   });
 
   it('reports each unreadable cell of a line', () => {

@@ -51,10 +51,7 @@ describe('input defects: pasted readings, undo, version status, read-only text',
     await item.getByLabel(/^Observations/).fill(['Reading (mm)', ...readings.slice(0, 2), 'n/a', ...readings.slice(2)].join('\n'));
     await hasTexts(definition(item, 'n'), ['20']);
     await containsText(definition(item, 'mean q̄'), /^50\.020/);
-    await hasTexts(item.getByRole('list', { name: 'Lines not read' }).getByRole('listitem'), [
-      'line 1: "Reading (mm)" is not a number (read as a heading)',
-      'line 4: "n/a" is not a number',
-    ]);
+    await hasTexts(item.getByRole('list', { name: 'Lines not read' }).getByRole('listitem'), ['line 1: "Reading (mm)" is not a number (read as a heading)', 'line 4: "n/a" is not a number']);
     await shot(page, 'pasted-decimal-comma');
 
     // remove the input with its readings, then undo: it comes back first, readings and all

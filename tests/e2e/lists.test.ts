@@ -51,14 +51,20 @@ describe('lists sorted and paged by the server', () => {
   it('shows a budget’s versions newest first and the oldest first after a click', async () => {
     const page = await pageAs('auditor@dubito.example');
     await page.goto(`${app.baseUrl}/budgets`);
-    await page.getByRole('link', { name: /Resistor KF-R10K-7/ }).first().click();
+    await page
+      .getByRole('link', { name: /Resistor KF-R10K-7/ })
+      .first()
+      .click();
     await page.waitForURL(/\/budgets\/\d+$/);
     const id = Number(/\/budgets\/(\d+)/.exec(page.url())?.[1]);
     await page.goto(`${app.baseUrl}/budgets/${id}/versions`);
     const table = page.getByRole('table', { name: /Versions of the budget/ });
     const firstCell = table.locator('tbody tr td:first-child').first();
     await expect.poll(() => firstCell.innerText()).toBe('v3');
-    await table.getByRole('columnheader', { name: /Version/ }).getByRole('button').click();
+    await table
+      .getByRole('columnheader', { name: /Version/ })
+      .getByRole('button')
+      .click();
     await expect.poll(() => firstCell.innerText()).toBe('v1');
     await page.waitForURL(/order=asc/);
     await shot(page, 'versions-oldest-first');

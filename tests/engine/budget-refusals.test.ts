@@ -31,7 +31,12 @@ describe('budget refusals', () => {
     ['lower ≥ upper', (d) => (d.inputs[1].distribution = { kind: 'rectangular', lower: 2, upper: 1 }), 'inputs[1].distribution.upper', 'greater than lower'],
     ['halfWidth ≤ 0', (d) => (d.inputs[1].distribution = { kind: 'triangular', value: 2, halfWidth: 0 }), 'inputs[1].distribution.halfWidth', 'greater than 0'],
     ['beta > 1', (d) => (d.inputs[1].distribution = { kind: 'trapezoidal', value: 2, halfWidth: 1, beta: 1.5 }), 'inputs[1].distribution.beta', 'between 0 and 1'],
-    ['d > a', (d) => (d.inputs[1].distribution = { kind: 'curvilinear-trapezoidal', value: 2, halfWidth: 1, halfWidthUncertainty: 2 }), 'inputs[1].distribution.halfWidthUncertainty', 'must not exceed'],
+    [
+      'd > a',
+      (d) => (d.inputs[1].distribution = { kind: 'curvilinear-trapezoidal', value: 2, halfWidth: 1, halfWidthUncertainty: 2 }),
+      'inputs[1].distribution.halfWidthUncertainty',
+      'must not exceed',
+    ],
     ['scale ≤ 0', (d) => (d.inputs[1].distribution = { kind: 'student-t', value: 2, scale: -1, dof: 3 }), 'inputs[1].distribution.scale', 'greater than 0'],
     ['dof ≤ 0', (d) => (d.inputs[0].distribution.dof = 0), 'inputs[0].distribution.dof', 'greater than 0'],
     // JCGM 100:2008 G.4.2: ν = ½·(Δu/u)⁻²; 10 typed for 10 % gave ν = 0.005 and k = ∞
@@ -77,7 +82,12 @@ describe('budget refusals', () => {
     ['non-finite at the estimates', (d) => (d.model = 'Y = log(a - 1) + b'), 'model', 'not a finite number'],
     ['correlation with an unknown symbol', (d) => (d.correlations = [{ between: ['a', 'z'], r: 0.5 }]), 'correlations[0].between', '"z" is not an input'],
     ['correlation of an input with itself', (d) => (d.correlations = [{ between: ['a', 'a'], r: 0.5 }]), 'correlations[0].between', 'itself'],
-    ['correlation of a non-normal input', (d) => ((d.inputs[1].distribution = { kind: 'rectangular', value: 2, halfWidth: 1 }), (d.correlations = [{ between: ['a', 'b'], r: 0.5 }])), 'correlations[0].between', 'only inputs with a normal distribution'],
+    [
+      'correlation of a non-normal input',
+      (d) => ((d.inputs[1].distribution = { kind: 'rectangular', value: 2, halfWidth: 1 }), (d.correlations = [{ between: ['a', 'b'], r: 0.5 }])),
+      'correlations[0].between',
+      'only inputs with a normal distribution',
+    ],
   ];
   it.each(computeCases)('%s', (_name, mutate, field, message) => {
     const e = refusalOf(mutate, true);

@@ -3,9 +3,7 @@ import { choleskyFactor } from '../../shared/statistics/cholesky';
 
 function multiplyByTranspose(L: number[][]): number[][] {
   const n = L.length;
-  return Array.from({ length: n }, (_, i) =>
-    Array.from({ length: n }, (_, j) => L[i].reduce((s, lik, k) => s + lik * L[j][k], 0)),
-  );
+  return Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => L[i].reduce((s, lik, k) => s + lik * L[j][k], 0)));
 }
 
 function factorOf(matrix: number[][]): number[][] {
@@ -57,23 +55,39 @@ describe('choleskyFactor (JCGM 101:2008 6.4.8)', () => {
   });
 
   it('accepts r = −1 and the zero matrix', () => {
-    expect('factor' in choleskyFactor([[1, -1], [-1, 1]])).toBe(true);
-    expect('factor' in choleskyFactor([[0, 0], [0, 0]])).toBe(true);
+    expect(
+      'factor' in
+        choleskyFactor([
+          [1, -1],
+          [-1, 1],
+        ]),
+    ).toBe(true);
+    expect(
+      'factor' in
+        choleskyFactor([
+          [0, 0],
+          [0, 0],
+        ]),
+    ).toBe(true);
   });
 
   it('reports where a matrix is not positive semi-definite', () => {
     // r12 = r13 = 0.9 with r23 = −0.9: determinant 1 − 3·0.81 − 2·0.729 < 0.
-    expect(choleskyFactor([
-      [1, 0.9, 0.9],
-      [0.9, 1, -0.9],
-      [0.9, -0.9, 1],
-    ])).toEqual({ failedAt: 2 });
+    expect(
+      choleskyFactor([
+        [1, 0.9, 0.9],
+        [0.9, 1, -0.9],
+        [0.9, -0.9, 1],
+      ]),
+    ).toEqual({ failedAt: 2 });
     // Zero pivot with a non-zero entry below it: not semi-definite.
-    expect(choleskyFactor([
-      [1, 1, 0],
-      [1, 1, 0.5],
-      [0, 0.5, 1],
-    ])).toEqual({ failedAt: 1 });
+    expect(
+      choleskyFactor([
+        [1, 1, 0],
+        [1, 1, 0.5],
+        [0, 0.5, 1],
+      ]),
+    ).toEqual({ failedAt: 1 });
     expect(choleskyFactor([[-1]])).toEqual({ failedAt: 0 });
   });
 });

@@ -1,11 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  coverageCount,
-  coverageIntervals,
-  probabilisticallySymmetricInterval,
-  quickselect,
-  shortestInterval,
-} from '../../shared/montecarlo/coverage-interval';
+import { coverageCount, coverageIntervals, probabilisticallySymmetricInterval, quickselect, shortestInterval } from '../../shared/montecarlo/coverage-interval';
 import { histogramBins, histogramFromBuckets } from '../../shared/montecarlo/histogram';
 import { bucketCountFor, countInBuckets } from '../../shared/montecarlo/value-buckets';
 import { meanAndStandardDeviation } from '../../shared/montecarlo/summary';
@@ -17,10 +11,7 @@ import { fillStandardNormal } from '../../shared/random/ziggurat-normal';
  * and the endpoints' numerical uncertainty: (y_(k+s) − y_(k−s))/2 with s = ⌈√(Mα(1 − α))⌉,
  * α = k/M, the binomial spread of the rank of the α-quantile (ranks kept within each tail's M − q values).
  */
-function byFullSort(
-  values: Float64Array,
-  p: number,
-): { symmetric: [number, number]; shortest: [number, number]; symmetricUncertainty: [number, number] } {
+function byFullSort(values: Float64Array, p: number): { symmetric: [number, number]; shortest: [number, number]; symmetricUncertainty: [number, number] } {
   const y = Float64Array.from(values).sort();
   const M = y.length;
   const pM = p * M;

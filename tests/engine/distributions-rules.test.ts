@@ -86,7 +86,11 @@ describe('conversion from u is the inverse of the GUM treatment, for each kind',
 
   it('holds for every kind of the registry over a range of x and u', () => {
     for (const kind of KINDS) {
-      for (const [x, u] of [[0, 1e-6], [-273.15, 0.02], [1e5, 3]] as const) {
+      for (const [x, u] of [
+        [0, 1e-6],
+        [-273.15, 0.02],
+        [1e5, 3],
+      ] as const) {
         const { t } = roundTrip(kind, x, u, 12);
         expect(t.standardUncertainty).toBeCloseTo(kind === 'constant' ? 0 : u, 9);
       }
@@ -119,9 +123,7 @@ describe('what else each rule owns', () => {
     expect(stated({ kind: 'triangular', value: 0, halfWidth: 0.6 }).divisor).toBeCloseTo(Math.sqrt(6), 15);
     expect(stated({ kind: 'arcsine', value: 0, halfWidth: 0.6 }).divisorText).toBe('√2');
     // the relative unit follows the half-width, not the uncertainty of the limits
-    expect(stated({ kind: 'curvilinear-trapezoidal', value: 100, halfWidth: 5, halfWidthUncertainty: 1, uncertaintyUnit: 'ppm' }, 'ohm').text).toBe(
-      '± 5 ppm of the value, limits known to ± 1 ppm',
-    );
+    expect(stated({ kind: 'curvilinear-trapezoidal', value: 100, halfWidth: 5, halfWidthUncertainty: 1, uncertaintyUnit: 'ppm' }, 'ohm').text).toBe('± 5 ppm of the value, limits known to ± 1 ppm');
   });
 
   it('explains u(xᵢ) with the clause of its kind', () => {

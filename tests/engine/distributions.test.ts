@@ -2,11 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { Distribution } from '../../shared/budget/schema';
 import { distributionSchema } from '../../shared/budget/schema';
 import { gumTreatment, samplerFor, dofFromRelativeUncertainty } from '../../shared/distributions/registry';
-import {
-  arithmeticMean,
-  experimentalStandardDeviation,
-  standardUncertaintyOfMean,
-} from '../../shared/distributions/type-a';
+import { arithmeticMean, experimentalStandardDeviation, standardUncertaintyOfMean } from '../../shared/distributions/type-a';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
 import { sampleMoments } from './moments';
 
@@ -37,7 +33,7 @@ function expectRange(x: Float64Array, lower: number, upper: number): void {
   expect(max).toBeLessThanOrEqual(upper);
 }
 
-const observations = [10.012, 10.009, 10.015, 10.011, 10.008, 10.013, 10.010, 10.014, 10.012, 10.009, 10.011, 10.016];
+const observations = [10.012, 10.009, 10.015, 10.011, 10.008, 10.013, 10.01, 10.014, 10.012, 10.009, 10.011, 10.016];
 
 describe('GUM treatment of each kind', () => {
   it('normal: u as given, or U/k (GUM 4.3.4); ν = ∞', () => {
@@ -207,9 +203,7 @@ describe('a normal input stated with U, k and ν (JCGM 101:2008 6.4.9.7, from me
 
   it('relativeUncertaintyOfU leaves a normal input Gaussian', () => {
     const { relativeUncertaintyOfU: _r, ...plain } = { kind: 'normal', value: 1, u: 0.1, relativeUncertaintyOfU: 0.25 } as const;
-    expect(Array.from(draw({ kind: 'normal', value: 1, u: 0.1, relativeUncertaintyOfU: 0.25 }, 'same', 1000))).toEqual(
-      Array.from(draw(plain as Distribution, 'same', 1000)),
-    );
+    expect(Array.from(draw({ kind: 'normal', value: 1, u: 0.1, relativeUncertaintyOfU: 0.25 }, 'same', 1000))).toEqual(Array.from(draw(plain as Distribution, 'same', 1000)));
   });
 });
 

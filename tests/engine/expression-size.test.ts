@@ -9,8 +9,7 @@ import { parseModel } from '../../shared/model/parse-model';
 import { budget, N } from '../support/budget-builder';
 
 /** a1 = x, a_{k+1} = sin(a_k)·cos(a_k), …, y = a_n: the inlined tree is about 4^n nodes. */
-const trigChain = (n: number) =>
-  ['a1 = x', ...Array.from({ length: n - 1 }, (_, i) => `a${i + 2} = sin(a${i + 1}) * cos(a${i + 1})`), `y = a${n}`].join('\n');
+const trigChain = (n: number) => ['a1 = x', ...Array.from({ length: n - 1 }, (_, i) => `a${i + 2} = sin(a${i + 1}) * cos(a${i + 1})`), `y = a${n}`].join('\n');
 /** a1 = x, a_{k+1} = a_k·a_k, …: the inlined tree doubles at each line, y = x^(2^(n−1)). */
 const squareChain = (n: number) => ['a1 = x', ...Array.from({ length: n - 1 }, (_, i) => `a${i + 2} = a${i + 1} * a${i + 1}`), `y = a${n}`].join('\n');
 const compile = (model: string) => compileModel({ model, measurand: { symbol: 'y' }, inputs: [{ symbol: 'x' }], constants: [] });

@@ -11,8 +11,26 @@ describe('steps of the law of propagation', () => {
   it('combined variance with a correlation (JCGM 100:2008 5.2.2 eq. 16)', () => {
     // c = (1, 1), u = (3, 4), r = 0: 25; r = 1: 49; r = −1: 1
     expect(combinedVariance([1, 1], [3, 4], null)).toBe(25);
-    expect(combinedVariance([1, 1], [3, 4], [[1, 1], [1, 1]])).toBe(49);
-    expect(combinedVariance([1, 1], [3, 4], [[1, -1], [-1, 1]])).toBe(1);
+    expect(
+      combinedVariance(
+        [1, 1],
+        [3, 4],
+        [
+          [1, 1],
+          [1, 1],
+        ],
+      ),
+    ).toBe(49);
+    expect(
+      combinedVariance(
+        [1, 1],
+        [3, 4],
+        [
+          [1, -1],
+          [-1, 1],
+        ],
+      ),
+    ).toBe(1);
   });
 
   it('Welch–Satterthwaite (JCGM 100:2008 G.4.1 eq. G.2b)', () => {

@@ -50,9 +50,7 @@ describe('three-way merge of budget documents', () => {
     const mine = copy(base());
     mine.model = 'L = Ls + d + Ls * a * t + 0';
     const m = mergeDocuments(base(), theirs, mine);
-    expect(m.changes).toEqual([
-      expect.objectContaining({ label: 'model', conflict: true, theirs: 'L = Ls + d', mine: 'L = Ls + d + Ls * a * t + 0', base: 'L = Ls + d + Ls * a * t' }),
-    ]);
+    expect(m.changes).toEqual([expect.objectContaining({ label: 'model', conflict: true, theirs: 'L = Ls + d', mine: 'L = Ls + d + Ls * a * t + 0', base: 'L = Ls + d + Ls * a * t' })]);
     expect(m.document).toBeNull();
     expect(m.undecided).toEqual([m.changes[0]!.id]);
     expect(mergeDocuments(base(), theirs, mine, { [m.changes[0]!.id]: 'theirs' }).document!.model).toBe('L = Ls + d');

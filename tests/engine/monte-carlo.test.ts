@@ -1,13 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Distribution } from '../../shared/budget/schema';
 import { gumTreatment, samplerFor } from '../../shared/distributions/registry';
-import {
-  MonteCarloCancelled,
-  MonteCarloNonFiniteValue,
-  runAdaptiveMonteCarlo,
-  runMonteCarlo,
-  type MonteCarloPlan,
-} from '../../shared/montecarlo/run-monte-carlo';
+import { MonteCarloCancelled, MonteCarloNonFiniteValue, runAdaptiveMonteCarlo, runMonteCarlo, type MonteCarloPlan } from '../../shared/montecarlo/run-monte-carlo';
 import { correlatedNormalSampler, NotPositiveSemiDefinite } from '../../shared/montecarlo/correlated-normal';
 import { UniformGenerator } from '../../shared/random/uniform-generator';
 import { computeBudget } from '../../shared/compute/compute-budget';
@@ -71,13 +65,22 @@ describe('runMonteCarlo', () => {
   it('reports progress per block and cancels with MonteCarloCancelled', () => {
     const seen: number[] = [];
     runMonteCarlo(sumPlan(fourStandardNormals), {
-      trials: 10_000, seed: 's', coverageProbability: 0.95, blockSize: 3000, onProgress: (done) => seen.push(done),
+      trials: 10_000,
+      seed: 's',
+      coverageProbability: 0.95,
+      blockSize: 3000,
+      onProgress: (done) => seen.push(done),
     });
     expect(seen).toEqual([3000, 6000, 9000, 10_000]);
     let calls = 0;
-    const cancel = () => runMonteCarlo(sumPlan(fourStandardNormals), {
-      trials: 10_000, seed: 's', coverageProbability: 0.95, blockSize: 1000, shouldStop: () => ++calls > 3,
-    });
+    const cancel = () =>
+      runMonteCarlo(sumPlan(fourStandardNormals), {
+        trials: 10_000,
+        seed: 's',
+        coverageProbability: 0.95,
+        blockSize: 1000,
+        shouldStop: () => ++calls > 3,
+      });
     expect(cancel).toThrow(MonteCarloCancelled);
     calls = 0;
     try {
@@ -113,8 +116,14 @@ describe('correlated Gaussian inputs (JCGM 101:2008 6.4.8)', () => {
   it('a pair with r = 0.8: sample correlation ≈ 0.8, means and u as given', () => {
     const n = 200_000;
     const columns = [new Float64Array(n), new Float64Array(n)];
-    correlatedNormalSampler({ means: [10, -5], standardUncertainties: [0.5, 2], correlation: [[1, 0.8], [0.8, 1]] })
-      .fill(new UniformGenerator('pair'), columns, n);
+    correlatedNormalSampler({
+      means: [10, -5],
+      standardUncertainties: [0.5, 2],
+      correlation: [
+        [1, 0.8],
+        [0.8, 1],
+      ],
+    }).fill(new UniformGenerator('pair'), columns, n);
     // SE of r ≈ (1 − r²)/√n (common practice) = 0.0008.
     expect(Math.abs(sampleCorrelation(columns[0], columns[1]) - 0.8)).toBeLessThan(0.005);
     const m0 = sampleMoments(columns[0]);
@@ -126,7 +135,15 @@ describe('correlated Gaussian inputs (JCGM 101:2008 6.4.8)', () => {
   it('in the driver: Y = X₁ − X₂ with r = 0.8 and u = 1 each has u(y) = √(2 − 2·0.8) (GUM 5.2.2)', () => {
     const plan: MonteCarloPlan = {
       samplers: [null, samplerFor({ kind: 'constant', value: 0 }), null],
-      correlated: { indices: [0, 2], means: [1, 1], standardUncertainties: [1, 1], correlation: [[1, 0.8], [0.8, 1]] },
+      correlated: {
+        indices: [0, 2],
+        means: [1, 1],
+        standardUncertainties: [1, 1],
+        correlation: [
+          [1, 0.8],
+          [0.8, 1],
+        ],
+      },
       evaluateBlock(columns, out, offset, n) {
         for (let t = 0; t < n; t++) out[offset + t] = columns[0][t] + columns[1][t] - columns[2][t];
       },
@@ -136,17 +153,27 @@ describe('correlated Gaussian inputs (JCGM 101:2008 6.4.8)', () => {
   });
 
   it('refuses a correlation matrix that is not positive semi-definite', () => {
-    expect(() => correlatedNormalSampler({
-      means: [0, 0, 0], standardUncertainties: [1, 1, 1],
-      correlation: [[1, 0.9, 0.9], [0.9, 1, -0.9], [0.9, -0.9, 1]],
-    })).toThrow(NotPositiveSemiDefinite);
+    expect(() =>
+      correlatedNormalSampler({
+        means: [0, 0, 0],
+        standardUncertainties: [1, 1, 1],
+        correlation: [
+          [1, 0.9, 0.9],
+          [0.9, 1, -0.9],
+          [0.9, -0.9, 1],
+        ],
+      }),
+    ).toThrow(NotPositiveSemiDefinite);
   });
 });
 
 describe('runAdaptiveMonteCarlo (JCGM 101:2008 7.9.4)', () => {
   it('stabilizes the four-normal sum at n_dig = 2 in whole sequences of M = 10⁴', () => {
     const run = runAdaptiveMonteCarlo(sumPlan(fourStandardNormals), {
-      seed: 'adaptive', coverageProbability: 0.95, significantDigits: 2, maxTrials: 2_000_000,
+      seed: 'adaptive',
+      coverageProbability: 0.95,
+      significantDigits: 2,
+      maxTrials: 2_000_000,
     });
     const a = run.adaptive!;
     // p = 0.95: ⌈100/(1 − p)⌉ = 2000 < 10⁴, so M = 10⁴ (7.9.4 a).
@@ -158,14 +185,20 @@ describe('runAdaptiveMonteCarlo (JCGM 101:2008 7.9.4)', () => {
     for (const s of Object.values(a.spread)) expect(2 * s).toBeLessThanOrEqual(a.tolerance);
     expect(Math.abs(run.standardUncertainty - 2)).toBeLessThan(0.05);
     const again = runAdaptiveMonteCarlo(sumPlan(fourStandardNormals), {
-      seed: 'adaptive', coverageProbability: 0.95, significantDigits: 2, maxTrials: 2_000_000,
+      seed: 'adaptive',
+      coverageProbability: 0.95,
+      significantDigits: 2,
+      maxTrials: 2_000_000,
     });
     expect(again.interval).toEqual(run.interval);
   });
 
   it('M follows ⌈100/(1 − p)⌉ for p = 0.999 and stops at maxTrials, saying so', () => {
     const run = runAdaptiveMonteCarlo(sumPlan(fourStandardNormals), {
-      seed: 'cap', coverageProbability: 0.999, significantDigits: 4, maxTrials: 350_000,
+      seed: 'cap',
+      coverageProbability: 0.999,
+      significantDigits: 4,
+      maxTrials: 350_000,
     });
     expect(run.adaptive!.sequenceLength).toBe(100_000);
     expect(run.adaptive!.sequences).toBe(3);
@@ -199,9 +232,7 @@ describe('numerical uncertainty of the coverage interval endpoints (JCGM 101:200
 });
 
 describe('adaptive runs report their stability in the result (JCGM 101:2008 7.9.4)', () => {
-  const r = computeBudget(
-    budget('Y = X1 + X2 + X3 + X4', { X1: N(0, 1), X2: N(0, 1), X3: N(0, 1), X4: N(0, 1) }, { monteCarlo: { trials: 'adaptive', seed: 'adaptive' } }),
-  );
+  const r = computeBudget(budget('Y = X1 + X2 + X3 + X4', { X1: N(0, 1), X2: N(0, 1), X3: N(0, 1), X4: N(0, 1) }, { monteCarlo: { trials: 'adaptive', seed: 'adaptive' } }));
 
   it('h, M, the standard deviations of the sequence averages and δ; stable when every 2s ≤ δ', () => {
     const st = r.monteCarlo!.stability!;
@@ -213,7 +244,7 @@ describe('adaptive runs report their stability in the result (JCGM 101:2008 7.9.
     for (const s of Object.values(st.spread)) expect(2 * s).toBeLessThanOrEqual(st.tolerance);
   });
 
-  it('the verdict takes the endpoints\' numerical uncertainty from all h·M values: √(α(1 − α)/(hM))/g, g = φ(1.96)/2 (not the rough spread of h sequences)', () => {
+  it("the verdict takes the endpoints' numerical uncertainty from all h·M values: √(α(1 − α)/(hM))/g, g = φ(1.96)/2 (not the rough spread of h sequences)", () => {
     const hM = r.monteCarlo!.trials;
     const expected = Math.sqrt((0.025 * 0.975) / hM) / 0.02922;
     for (const u of r.validation!.endpointUncertainty!) expect(Math.abs(u / expected - 1)).toBeLessThan(0.35);

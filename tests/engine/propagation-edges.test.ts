@@ -63,17 +63,22 @@ describe('Welch–Satterthwaite with correlated inputs: each correlated group is
   it('a correlated group with unequal ν takes the smallest (a documented conservative choice); other terms add by G.2b', () => {
     // group {a, b}: u_G² = 1 + 1 − 2·0.5 = 1, ν_G = min(4, 9) = 4; c uncorrelated: u² = 1, ν = 10
     // ν_eff = (1 + 1)² / (1/4 + 1/10) = 11.428571…
-    const v = effectiveDegreesOfFreedom([1, -1, 1], [1, 1, 1], [4, 9, 10], [
-      [1, 0.5, 0],
-      [0.5, 1, 0],
-      [0, 0, 1],
-    ]);
+    const v = effectiveDegreesOfFreedom(
+      [1, -1, 1],
+      [1, 1, 1],
+      [4, 9, 10],
+      [
+        [1, 0.5, 0],
+        [0.5, 1, 0],
+        [0, 0, 1],
+      ],
+    );
     expect(v).toBeCloseTo(4 / 0.35, 12);
   });
 
   it('ν_eff never exceeds Σν of the independent terms nor falls below the smallest ν of a term (Cauchy–Schwarz on eq. G.2b)', () => {
     let seed = 7;
-    const next = () => ((seed = (seed * 16807) % 2147483647) / 2147483647);
+    const next = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
     for (let trial = 0; trial < 500; trial++) {
       const n = 2 + Math.floor(next() * 4);
       const c = Array.from({ length: n }, () => next() * 4 - 2);
@@ -81,13 +86,18 @@ describe('Welch–Satterthwaite with correlated inputs: each correlated group is
       const dofs = Array.from({ length: n }, () => 1 + Math.floor(next() * 30));
       // one correlated pair (0, 1) with r in (−1, 1), the rest independent
       const rho = next() * 1.98 - 0.99;
-      const corr = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : (i + j === 1 ? rho : 0))));
+      const corr = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : i + j === 1 ? rho : 0)));
       const v = effectiveDegreesOfFreedom(c, u, dofs, corr);
       const termDofs = [Math.min(dofs[0], dofs[1]), ...dofs.slice(2)];
       expect(v).toBeLessThanOrEqual(termDofs.reduce((s, d) => s + d, 0) * (1 + 1e-12));
       expect(v).toBeGreaterThanOrEqual(Math.min(...termDofs) * (1 - 1e-12));
     }
-    expect(welchSatterthwaite([{ variance: 1, dof: 5 }, { variance: 0, dof: 1 }])).toBeCloseTo(5, 12);
+    expect(
+      welchSatterthwaite([
+        { variance: 1, dof: 5 },
+        { variance: 0, dof: 1 },
+      ]),
+    ).toBeCloseTo(5, 12);
   });
 });
 
@@ -120,10 +130,7 @@ describe('only constants in a budget: refused, never an internal error', () => {
   });
 
   it('u = 0 everywhere by both methods (Y = 0·a; a − b fully correlated with equal estimates): reported plainly, no internal error', () => {
-    for (const doc of [
-      budget('Y = 0 * a', { a: N(1, 0.1) }),
-      budget('Y = a - b', { a: N(1, 0.1), b: N(1, 0.1) }, { correlations: [{ between: ['a', 'b'], r: 1 }] }),
-    ]) {
+    for (const doc of [budget('Y = 0 * a', { a: N(1, 0.1) }), budget('Y = a - b', { a: N(1, 0.1), b: N(1, 0.1) }, { correlations: [{ between: ['a', 'b'], r: 1 }] })]) {
       const r = computeBudget(doc, { trials: 10_000 });
       expect(r.gum.standardUncertainty).toBe(0);
       expect(r.gum.expandedUncertainty).toBe(0);
@@ -147,7 +154,7 @@ describe('only constants in a budget: refused, never an internal error', () => {
   });
 });
 
-describe('higher-order terms (JCGM 100:2008 5.1.2 note) with each input\'s kurtosis', () => {
+describe("higher-order terms (JCGM 100:2008 5.1.2 note) with each input's kurtosis", () => {
   it('kurtosis of the shapes (handbook moments; JCGM 101:2008 6.4)', () => {
     expect(shapeKurtosis({ kind: 'rectangular', value: 0, halfWidth: 1 } as Distribution, Infinity)).toBeCloseTo(1.8, 15);
     expect(shapeKurtosis({ kind: 'triangular', value: 0, halfWidth: 1 } as Distribution, Infinity)).toBeCloseTo(2.4, 15);
@@ -177,7 +184,7 @@ describe('higher-order terms (JCGM 100:2008 5.1.2 note) with each input\'s kurto
     expect(Math.abs(mc.standardUncertainty / Math.sqrt(64 / 45) - 1)).toBeLessThan(0.01);
   });
 
-  it('y = x², x normal: the note\'s own value u² = 4μ²u² + 2u⁴ (handbook: Var(X²) for X normal)', () => {
+  it("y = x², x normal: the note's own value u² = 4μ²u² + 2u⁴ (handbook: Var(X²) for X normal)", () => {
     const r = computeBudget(budget('Y = x^2', { x: N(1, 0.5) }), gumOnly);
     expect(r.gum.standardUncertaintySecondOrder!).toBeCloseTo(Math.sqrt(4 * 0.25 + 2 * 0.0625), 6);
   });

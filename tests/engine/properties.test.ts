@@ -24,8 +24,42 @@ const OPERATORS = ['+', '-', '*', '/', '^', '−', '×', '·', ' ', '', '%', '!'
 const HOSTILE_FUNCTIONS = ['eval', 'evaluate', 'parse', 'import', 'constructor', 'toString', 'f', 'derivative', 'sum', 'mod', 'log1p'];
 const NOT_FINITE = ['log(0)', '1/(a-a)', 'sqrt(-1)', 'a/0', '0^0', '(-1)^0.5', 'exp(1000)', 'asin(2)', 'acos(-2)', 'log(-1)', 'tan(pi/2)', '10^400', '0/0', '(a-a)^(-1)', 'a^1e6'];
 const UNITS = [
-  undefined, '', '1', 'm', 'mm', 'um', 'kg', 'g', 'mg', 's', 'Hz', 'rad', 'm^2', 'kg/m^3', 'K', 'degC', 'degF', '1/degC', 'ppm/K',
-  '%', 'percent', 'ppm', 'ppb', 'dB', 'pH', '%RH', 'ppt', 'dBm', 'foo', 'm^x', 'constructor', '__proto__', '°C', 'm s', 'kg*', '',
+  undefined,
+  '',
+  '1',
+  'm',
+  'mm',
+  'um',
+  'kg',
+  'g',
+  'mg',
+  's',
+  'Hz',
+  'rad',
+  'm^2',
+  'kg/m^3',
+  'K',
+  'degC',
+  'degF',
+  '1/degC',
+  'ppm/K',
+  '%',
+  'percent',
+  'ppm',
+  'ppb',
+  'dB',
+  'pH',
+  '%RH',
+  'ppt',
+  'dBm',
+  'foo',
+  'm^x',
+  'constructor',
+  '__proto__',
+  '°C',
+  'm s',
+  'kg*',
+  '',
 ];
 
 const symbol = fc.oneof({ weight: 10, arbitrary: fc.constantFrom('a', 'b') }, { weight: 1, arbitrary: fc.constantFrom(...SYMBOLS) });
@@ -41,40 +75,70 @@ const expression: fc.Arbitrary<string> = fc.letrec<{ e: string }>((tie) => ({
     { depthSize: 'small', withCrossShrink: true },
     w(6, symbol),
     w(3, fc.constantFrom(...NUMBERS.slice(0, 4))),
-    w(6, fc.tuple(tie('e'), fc.constantFrom(...GOOD_OPERATORS), tie('e')).map(([l, op, r]) => `${l} ${op} ${r}`)),
-    w(3, fc.tuple(fc.constantFrom(...MODEL_FUNCTIONS.keys()), tie('e'), tie('e')).map(([f, x, y]) => {
-      const [min] = MODEL_FUNCTIONS.get(f)!;
-      return `${f}(${min === 1 ? x : `${x}, ${y}`})`;
-    })),
-    w(2, tie('e').map((x) => `(${x})`)),
-    w(1, tie('e').map((x) => `-${x}`)),
+    w(
+      6,
+      fc.tuple(tie('e'), fc.constantFrom(...GOOD_OPERATORS), tie('e')).map(([l, op, r]) => `${l} ${op} ${r}`),
+    ),
+    w(
+      3,
+      fc.tuple(fc.constantFrom(...MODEL_FUNCTIONS.keys()), tie('e'), tie('e')).map(([f, x, y]) => {
+        const [min] = MODEL_FUNCTIONS.get(f)!;
+        return `${f}(${min === 1 ? x : `${x}, ${y}`})`;
+      }),
+    ),
+    w(
+      2,
+      tie('e').map((x) => `(${x})`),
+    ),
+    w(
+      1,
+      tie('e').map((x) => `-${x}`),
+    ),
     w(1, fc.constantFrom(...NUMBERS)),
     w(1, fc.constantFrom('pi', 'e', 'Infinity', 'NaN', 'undefined', 'Math', 'process', 'this', 'i', 'true')),
     w(1, fc.constantFrom(...NOT_FINITE)),
-    w(1, fc.tuple(tie('e'), fc.constantFrom(...OPERATORS), tie('e')).map(([l, op, r]) => `${l} ${op} ${r}`)),
+    w(
+      1,
+      fc.tuple(tie('e'), fc.constantFrom(...OPERATORS), tie('e')).map(([l, op, r]) => `${l} ${op} ${r}`),
+    ),
     // Implicit multiplication written without a space: 2a, (a)(b), 2(a)
-    w(1, fc.tuple(fc.constantFrom('2', '(a)', '3.5'), symbol).map(([l, r]) => `${l}${r}`)),
-    w(1, fc
-      .tuple(fc.constantFrom(...MODEL_FUNCTIONS.keys(), ...HOSTILE_FUNCTIONS), fc.array(tie('e'), { minLength: 0, maxLength: 3 }))
-      .map(([f, args]) => `${f}(${args.join(', ')})`)),
+    w(
+      1,
+      fc.tuple(fc.constantFrom('2', '(a)', '3.5'), symbol).map(([l, r]) => `${l}${r}`),
+    ),
+    w(
+      1,
+      fc.tuple(fc.constantFrom(...MODEL_FUNCTIONS.keys(), ...HOSTILE_FUNCTIONS), fc.array(tie('e'), { minLength: 0, maxLength: 3 })).map(([f, args]) => `${f}(${args.join(', ')})`),
+    ),
     // Deep nesting around the 64-level limit of one line, and long sums.
-    w(1, fc.tuple(fc.integer({ min: 30, max: 90 }), symbol).map(([n, s]) => `${'('.repeat(n)}${s}${')'.repeat(n)}`)),
-    w(1, fc.tuple(fc.integer({ min: 2, max: 400 }), symbol).map(([n, s]) => Array(n).fill(s).join(' + '))),
-    w(1, fc.tuple(tie('e'), tie('e')).map(([x, y]) => `${x}[${y}]`)),
+    w(
+      1,
+      fc.tuple(fc.integer({ min: 30, max: 90 }), symbol).map(([n, s]) => `${'('.repeat(n)}${s}${')'.repeat(n)}`),
+    ),
+    w(
+      1,
+      fc.tuple(fc.integer({ min: 2, max: 400 }), symbol).map(([n, s]) => Array(n).fill(s).join(' + ')),
+    ),
+    w(
+      1,
+      fc.tuple(tie('e'), tie('e')).map(([x, y]) => `${x}[${y}]`),
+    ),
   ),
 })).e;
 
 const model = fc
-  .tuple(fc.oneof({ weight: 8, arbitrary: fc.constant('Y') }, { weight: 1, arbitrary: fc.constantFrom('constructor', 'toString', 'a', 't', '__proto__') }), expression, fc.option(expression, { nil: undefined }), fc.oneof({ weight: 8, arbitrary: fc.constantFrom('\n', '\r\n') }, { weight: 1, arbitrary: fc.constant(';') }))
+  .tuple(
+    fc.oneof({ weight: 8, arbitrary: fc.constant('Y') }, { weight: 1, arbitrary: fc.constantFrom('constructor', 'toString', 'a', 't', '__proto__') }),
+    expression,
+    fc.option(expression, { nil: undefined }),
+    fc.oneof({ weight: 8, arbitrary: fc.constantFrom('\n', '\r\n') }, { weight: 1, arbitrary: fc.constant(';') }),
+  )
   .map(([measurand, e, intermediate, sep]) => ({
     measurand,
     text: intermediate === undefined ? `${measurand} = ${e}` : `t = ${intermediate}${sep}${measurand} = ${e.replace(/\ba\b/, 't')}`,
   }));
 
-const number = fc.oneof(
-  fc.constantFrom(0, 1, -1, 0.5, 2, 10, 100, 1e-300, 1e300, -1e300, 5e-324, Number.MAX_VALUE, 1e-12, 20, 273.15),
-  fc.double({ min: -1e6, max: 1e6, noNaN: true }),
-);
+const number = fc.oneof(fc.constantFrom(0, 1, -1, 0.5, 2, 10, 100, 1e-300, 1e300, -1e300, 5e-324, Number.MAX_VALUE, 1e-12, 20, 273.15), fc.double({ min: -1e6, max: 1e6, noNaN: true }));
 const positive = fc.oneof(fc.constantFrom(1e-300, 1e-12, 0.001, 0.1, 1, 2, 1e300, Number.MAX_VALUE), fc.double({ min: 1e-6, max: 1e3, noNaN: true }));
 const hostileValue = fc.constantFrom<unknown>(NaN, Infinity, -Infinity, -1, 0, '1', null, [], {}, true, 1.5, 0.75, 3, 1e9);
 const field = (good: fc.Arbitrary<unknown>) => fc.oneof({ weight: 15, arbitrary: good }, { weight: 1, arbitrary: hostileValue });
@@ -140,13 +204,16 @@ const correlation = fc.record({
 });
 
 const reporting = fc.oneof(
-  { weight: 12, arbitrary: fc.constantFrom<unknown>(
-    undefined,
-    { basis: 'k-fixed', k: 2 },
-    { basis: 'k-fixed', k: 1 },
-    { basis: 't-effective-dof', whenNotValidated: 'report-monte-carlo' },
-    { basis: 'k-fixed', k: 2, whenNotValidated: 'report-monte-carlo' },
-  ) },
+  {
+    weight: 12,
+    arbitrary: fc.constantFrom<unknown>(
+      undefined,
+      { basis: 'k-fixed', k: 2 },
+      { basis: 'k-fixed', k: 1 },
+      { basis: 't-effective-dof', whenNotValidated: 'report-monte-carlo' },
+      { basis: 'k-fixed', k: 2, whenNotValidated: 'report-monte-carlo' },
+    ),
+  },
   { weight: 1, arbitrary: fc.constantFrom<unknown>({ basis: 'k-fixed' }, { k: 2 }, { basis: 'monte-carlo' }) },
 );
 
@@ -166,7 +233,10 @@ const document = fc
     commonUnit: unit,
     ownUnits: fc.array(fc.boolean(), { minLength: 4, maxLength: 4 }).map((b) => b.map((x, i) => x && i % 3 === 0)),
     measurandUnit: fc.oneof(w(10, fc.constant(undefined)), w(1, unit)),
-    constants: fc.option(fc.uniqueArray(fc.record({ symbol: fc.constantFrom('k0', 'k1', 'toString', 'a'), value: number, unit }), { maxLength: 2, selector: (c) => c.symbol }), { nil: undefined, freq: 1 }),
+    constants: fc.option(fc.uniqueArray(fc.record({ symbol: fc.constantFrom('k0', 'k1', 'toString', 'a'), value: number, unit }), { maxLength: 2, selector: (c) => c.symbol }), {
+      nil: undefined,
+      freq: 1,
+    }),
     correlations: fc.option(fc.oneof(notPositiveSemiDefinite, fc.array(correlation, { maxLength: 3 })), { nil: undefined, freq: 3 }),
     coverageProbability: fc.oneof({ weight: 15, arbitrary: fc.constantFrom(undefined, 0.95) }, { weight: 1, arbitrary: fc.constantFrom(0.9, 0.6827, 0.5, 0.99, 0, 1, 1.2) }),
     reporting,
@@ -273,9 +343,7 @@ describe('computeBudget on random budgets', () => {
 
   it('holds for well-formed budgets over a, b, c with any correlation', () => {
     const outcomes = { refused: 0, computed: 0 };
-    const inputs = fc.tuple(distribution, distribution, distribution).map((ds) =>
-      ds.map((d, i) => ({ symbol: 'abc'[i], distribution: d })),
-    );
+    const inputs = fc.tuple(distribution, distribution, distribution).map((ds) => ds.map((d, i) => ({ symbol: 'abc'[i], distribution: d })));
     fc.assert(
       fc.property(
         fc.oneof(w(3, fc.constantFrom('0', 'a', '1', 'a^2 - 2*b*c', 'a*b*c - b*c', 'exp(b*c)', 'sqrt(abs(a))')), w(2, expression)),
@@ -287,15 +355,17 @@ describe('computeBudget on random budgets', () => {
         ),
         reporting,
         (e, qs, correlations, rep) => {
-          outcomes[computeOrRefuse({
-            format: 'dubito-budget/1',
-            title: 'property budget',
-            measurand: { symbol: 'Y' },
-            model: `Y = a + b * c + ${e}`,
-            inputs: qs,
-            correlations,
-            ...(rep === undefined ? {} : { reporting: rep }),
-          })]++;
+          outcomes[
+            computeOrRefuse({
+              format: 'dubito-budget/1',
+              title: 'property budget',
+              measurand: { symbol: 'Y' },
+              model: `Y = a + b * c + ${e}`,
+              inputs: qs,
+              correlations,
+              ...(rep === undefined ? {} : { reporting: rep }),
+            })
+          ]++;
         },
       ),
       propertyRuns(200),

@@ -7,8 +7,7 @@ import { budget, N, R } from '../support/budget-builder';
  * Check values from JCGM 101:2008 Tables 2–4 (from memory).
  */
 const model = 'Y = X1 + X2 + X3 + X4';
-const run = (inputs: Parameters<typeof budget>[1]) =>
-  computeBudget(budget(model, inputs, { monteCarlo: { trials: 1000000, seed: 'additive-9.2' } }));
+const run = (inputs: Parameters<typeof budget>[1]) => computeBudget(budget(model, inputs, { monteCarlo: { trials: 1000000, seed: 'additive-9.2' } }));
 
 describe('JCGM 101:2008 9.2 additive model', () => {
   it('9.2.2: four N(0,1): GUF and MCM both give [−3.92, 3.92]', () => {
@@ -20,7 +19,7 @@ describe('JCGM 101:2008 9.2 additive model', () => {
     expect(r.monteCarlo!.standardUncertainty).toBeCloseTo(2, 2);
   });
 
-  it('9.2.3: four rectangular with u = 1: GUF [−3.92, 3.92], MCM [−3.88, 3.88]; at 10⁶ trials d is within the endpoints\' numerical uncertainty of δ', () => {
+  it("9.2.3: four rectangular with u = 1: GUF [−3.92, 3.92], MCM [−3.88, 3.88]; at 10⁶ trials d is within the endpoints' numerical uncertainty of δ", () => {
     const a = Math.sqrt(3);
     const r = run({ X1: R(0, a), X2: R(0, a), X3: R(0, a), X4: R(0, a) });
     expect(r.gum.interval[1]).toBeCloseTo(3.92, 2);
@@ -56,10 +55,14 @@ describe('JCGM 101:2008 9.2 additive model', () => {
   });
 
   it('MCM agrees with the GUF for a linear Gaussian model with correlated inputs (JCGM 101:2008 9.4.1: exact for linear Gaussian)', () => {
-    const doc = budget('Y = X1 + 2*X2', { X1: N(1, 1), X2: N(2, 0.5) }, {
-      correlations: [{ between: ['X1', 'X2'], r: 0.5 }],
-      monteCarlo: { trials: 400000, seed: 'linear' },
-    });
+    const doc = budget(
+      'Y = X1 + 2*X2',
+      { X1: N(1, 1), X2: N(2, 0.5) },
+      {
+        correlations: [{ between: ['X1', 'X2'], r: 0.5 }],
+        monteCarlo: { trials: 400000, seed: 'linear' },
+      },
+    );
     const r = computeBudget(doc);
     // u² = 1 + 1 + 2·1·2·1·0.5·0.5 = 3 (JCGM 100:2008 5.2.2 eq. 16)
     expect(r.gum.standardUncertainty).toBeCloseTo(Math.sqrt(3), 10);

@@ -10,10 +10,7 @@ import { budget, N } from '../support/budget-builder';
  */
 describe('EURACHEM/CITAC QUAM A1 cadmium standard', () => {
   it('with the guide’s factor 1000 and no units', () => {
-    const r = computeBudget(
-      budget('c = 1000 * m * P / V', { m: N(100.28, 0.05), P: N(0.9999, 0.000058), V: N(100.0, 0.066) }),
-      { monteCarlo: false },
-    ).gum;
+    const r = computeBudget(budget('c = 1000 * m * P / V', { m: N(100.28, 0.05), P: N(0.9999, 0.000058), V: N(100.0, 0.066) }), { monteCarlo: false }).gum;
     expect(r.estimate).toBeCloseTo(1002.7, 1);
     expect(r.standardUncertainty).toBeCloseTo(0.83, 2);
   });

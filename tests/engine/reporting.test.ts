@@ -84,10 +84,14 @@ describe('result.reported and the certificate statement', () => {
   // JCGM 101:2008 9.2.4 (from memory): three N(0, 1) and one rectangular with u = 10; GUF ±19.9, MCM ±17.0: not validated.
   const notValidated = (reporting?: BudgetDocument['reporting']) =>
     computeBudget(
-      budget('Y = X1 + X2 + X3 + X4', { X1: N(0, 1), X2: N(0, 1), X3: N(0, 1), X4: R(0, 10 * Math.sqrt(3)) }, {
-        monteCarlo: { trials: 200_000, seed: 'reporting' },
-        ...(reporting ? { reporting } : {}),
-      }),
+      budget(
+        'Y = X1 + X2 + X3 + X4',
+        { X1: N(0, 1), X2: N(0, 1), X3: N(0, 1), X4: R(0, 10 * Math.sqrt(3)) },
+        {
+          monteCarlo: { trials: 200_000, seed: 'reporting' },
+          ...(reporting ? { reporting } : {}),
+        },
+      ),
     );
 
   it('not validated, default: the GUM figures, flagged unvalidated, and the statement says so', () => {
@@ -114,10 +118,14 @@ describe('result.reported and the certificate statement', () => {
 
   it('validated: the GUM figures whatever whenNotValidated says (JCGM 101:2008 9.2.2: four N(0, 1))', () => {
     const r = computeBudget(
-      budget('Y = X1 + X2 + X3 + X4', { X1: N(0, 1), X2: N(0, 1), X3: N(0, 1), X4: N(0, 1) }, {
-        monteCarlo: { trials: 1_000_000, seed: 'additive-9.2' },
-        reporting: { whenNotValidated: 'report-monte-carlo' },
-      }),
+      budget(
+        'Y = X1 + X2 + X3 + X4',
+        { X1: N(0, 1), X2: N(0, 1), X3: N(0, 1), X4: N(0, 1) },
+        {
+          monteCarlo: { trials: 1_000_000, seed: 'additive-9.2' },
+          reporting: { whenNotValidated: 'report-monte-carlo' },
+        },
+      ),
     );
     expect(r.validation!.verdict).toBe('validated');
     expect(r.reported).toMatchObject({ basis: 't-effective-dof', replacedGum: false, unvalidated: false });

@@ -26,7 +26,12 @@ describe('higher-order terms of the JCGM 100:2008 5.1.2 note', () => {
     const partials = m.partials.map((p) => p!);
     const x = symbols.map((_, i) => 0.5 + i / 7);
     const u = symbols.map((_, i) => 0.01 + i / 100);
-    const dense = secondOrderVarianceTerms(partials, partials.map(() => null), x, u);
+    const dense = secondOrderVarianceTerms(
+      partials,
+      partials.map(() => null),
+      x,
+      u,
+    );
     expect(secondOrderVarianceTerms(partials, m.partialReads, x, u)).toBe(dense);
     expect(dense).toBeGreaterThan(0);
   });

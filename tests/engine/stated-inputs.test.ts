@@ -94,9 +94,7 @@ describe('an uncertainty in its own unit (ISO 80000-1 quantity calculus)', () =>
   });
 
   it('refuses kg for a value in m, naming the field', () => {
-    const e = refusal(() =>
-      computeBudget(budget('Y = x', { x: [D({ kind: 'normal', value: 1, u: 1, uncertaintyUnit: 'kg' }), 'm'] }), { monteCarlo: false }),
-    );
+    const e = refusal(() => computeBudget(budget('Y = x', { x: [D({ kind: 'normal', value: 1, u: 1, uncertaintyUnit: 'kg' }), 'm'] }), { monteCarlo: false }));
     expect(e.field).toBe('inputs[0].distribution.uncertaintyUnit');
     expect(e.message).toMatch(/^inputs\[0\]\.distribution\.uncertaintyUnit: "kg" \(kg\) cannot state an uncertainty of a value in "m" \(m\)/);
   });

@@ -16,7 +16,12 @@ describe('studentTQuantile against @stdlib/stats-base-dists-t-quantile', () => {
   }
 
   it('lower-tail and central quantiles and real ν', () => {
-    for (const [P, nu] of [[0.025, 4], [0.5, 3], [0.1, 2.5], [0.8, 0.7]] as const) {
+    for (const [P, nu] of [
+      [0.025, 4],
+      [0.5, 3],
+      [0.1, 2.5],
+      [0.8, 0.7],
+    ] as const) {
       const reference = stdlibTQuantile(P, nu);
       expect(Math.abs(studentTQuantile(P, nu) - reference)).toBeLessThan(1e-7 * Math.max(1, Math.abs(reference)));
     }
@@ -42,7 +47,12 @@ describe('coverageFactorFor', () => {
   it('takes t_p at the real ν, as the note to GUM G.4.1 allows (interpolation), so k matches the ν_eff stated', () => {
     // scipy.stats.t.ppf(0.975, ν) (scipy 1.17, recomputed for this test):
     // ν = 18.9987 → 2.093033747757869, between t(19) = 2.093024 and t(18) = 2.100922 (the old truncation)
-    const scipy: [number, number][] = [[2.5, 3.5746548420036817], [7.3, 2.345066736547703], [18.9987, 2.093033747757869], [42.42, 2.0174899064769707]];
+    const scipy: [number, number][] = [
+      [2.5, 3.5746548420036817],
+      [7.3, 2.345066736547703],
+      [18.9987, 2.093033747757869],
+      [42.42, 2.0174899064769707],
+    ];
     for (const [nu, k] of scipy) {
       expect(Math.abs(coverageFactorFor(0.95, nu) - k)).toBeLessThan(1e-7 * k);
       expect(Math.abs(coverageFactorFor(0.95, nu) - stdlibTQuantile(0.975, nu))).toBeLessThan(1e-7 * k);

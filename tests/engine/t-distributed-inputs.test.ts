@@ -45,7 +45,7 @@ describe('few observations: ν = n − 1 ≤ 2 leaves the Monte Carlo u undefine
   it('the quantiles still exist: the Monte Carlo interval is x̄ ± t_0.975(ν)·s/√n (12.706·0.05, 4.3027·0.0289)', () => {
     // binomial spread of the 2.5 % order statistic at 2·10⁵ draws: ν = 1, √(0.025·0.975/2e5)/g = 0.00035/0.039 = 0.009 (g = t₁ density at 12.706, /0.05)
     expect(two.monteCarlo!.interval[0]).toBeCloseTo(10.05 - 12.7062 * 0.05, 1);
-    expect(Math.abs(three.monteCarlo!.interval[1] - (10.05 + 4.3027 * 0.05 / Math.sqrt(3)))).toBeLessThan(0.005);
+    expect(Math.abs(three.monteCarlo!.interval[1] - (10.05 + (4.3027 * 0.05) / Math.sqrt(3)))).toBeLessThan(0.005);
   });
 
   it('reports the GUM figures (k = t_p(ν) holds for a Type A input) and says they could not be validated', () => {
@@ -58,9 +58,7 @@ describe('few observations: ν = n − 1 ≤ 2 leaves the Monte Carlo u undefine
   });
 
   it('when the lab reports the Monte Carlo interval instead, u is null and the estimate is f(x), not the Cauchy average', () => {
-    const r = computeBudget(
-      budget('Y = a', { a: observations([10.0, 10.1]) }, { monteCarlo: { trials: 200_000, seed: 'few' }, reporting: { whenNotValidated: 'report-monte-carlo' } }),
-    );
+    const r = computeBudget(budget('Y = a', { a: observations([10.0, 10.1]) }, { monteCarlo: { trials: 200_000, seed: 'few' }, reporting: { whenNotValidated: 'report-monte-carlo' } }));
     expect(r.reported).toMatchObject({ basis: 'monte-carlo', replacedGum: true, standardUncertainty: null, estimate: 10.05, coverageFactor: null });
     expect(r.reported!.interval).toEqual(r.monteCarlo!.interval);
     const statement = certificateStatement({ symbol: 'Y', unit: 'mm' }, r.reported!, r.gum.effectiveDof);

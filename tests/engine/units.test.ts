@@ -224,11 +224,13 @@ describe('the temperature rule (°C and °F without offset; scales never mixed)'
 
   it('computes a thermodynamic temperature from one in °C as T0 + (t − t0) (SI Brochure 2.3.1: T = t + 273.15 K)', () => {
     // ideal gas density ρ = p·M/(R·T): 101 325 Pa, 28.96 g/mol, 20 °C → 1.2041 kg/m³ (closed form below)
-    const doc = budget(
-      'T = T0 + (t - t0)\nrho = p * M / (R * T)',
-      { t: [N(20, 0.01), 'degC'], p: [N(101325, 1), 'Pa'], M: [N(28.96, 0.001), 'g/mol'] },
-      { constants: [{ symbol: 'T0', value: 273.15, unit: 'K' }, { symbol: 't0', value: 0, unit: 'degC' }, { symbol: 'R', value: 8.314462618, unit: 'J/(mol K)' }] } as never,
-    );
+    const doc = budget('T = T0 + (t - t0)\nrho = p * M / (R * T)', { t: [N(20, 0.01), 'degC'], p: [N(101325, 1), 'Pa'], M: [N(28.96, 0.001), 'g/mol'] }, {
+      constants: [
+        { symbol: 'T0', value: 273.15, unit: 'K' },
+        { symbol: 't0', value: 0, unit: 'degC' },
+        { symbol: 'R', value: 8.314462618, unit: 'J/(mol K)' },
+      ],
+    } as never);
     doc.measurand.unit = 'kg/m^3';
     const r = gum(doc);
     expect(r.intermediates[0]).toMatchObject({ symbol: 'T', unit: 'K' });

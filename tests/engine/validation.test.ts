@@ -49,10 +49,9 @@ describe('validateGumInterval (JCGM 101:2008 8.3)', () => {
   });
 });
 
-describe('a verdict that accounts for the Monte Carlo endpoints\' numerical uncertainty (JCGM 101:2008 7.9, 8)', () => {
+describe("a verdict that accounts for the Monte Carlo endpoints' numerical uncertainty (JCGM 101:2008 7.9, 8)", () => {
   // δ = 0.05 (u = 2.0, n_dig = 2); a verdict holds only when d ± 2u(endpoint) lies wholly on one side of δ (2: the factor of 7.9.4).
-  const at = (d: number, uEnd: number) =>
-    validateGumInterval({ y: 0, U: 3.92 }, [-3.92 + d, 3.92], 2.0, 2, { endpointUncertainty: [uEnd, uEnd], trials: 100_000 });
+  const at = (d: number, uEnd: number) => validateGumInterval({ y: 0, U: 3.92 }, [-3.92 + d, 3.92], 2.0, 2, { endpointUncertainty: [uEnd, uEnd], trials: 100_000 });
 
   it('validated when d + 2u ≤ δ: d = 0.04, u = 0.004', () => {
     expect(at(0.04, 0.004)).toMatchObject({ verdict: 'validated', passed: true, endpointUncertainty: [0.004, 0.004] });

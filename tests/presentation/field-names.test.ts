@@ -36,15 +36,6 @@ describe('fields of a budget file in words', () => {
     const before = { symbol: 'dL_res', unit: 'um', distribution: { kind: 'rectangular', value: 0, halfWidth: 0.05, stated: { as: 'resolution' } } };
     const after = { symbol: 'dL_res', unit: 'nm', distribution: { kind: 'normal', value: 0, U: 0.04, k: 2, dof: 12, stated: { as: 'certificate', source: 'KF-2291' } } };
     const names = fieldChanges(before, after).map((c) => fieldName(c.field));
-    expect(names).toEqual([
-      'expanded uncertainty U',
-      'degrees of freedom ν',
-      'half-width a',
-      'coverage factor k',
-      'distribution',
-      'stated as',
-      'source of the statement',
-      'unit',
-    ]);
+    expect(names).toEqual(['expanded uncertainty U', 'degrees of freedom ν', 'half-width a', 'coverage factor k', 'distribution', 'stated as', 'source of the statement', 'unit']);
   });
 });

@@ -1,18 +1,6 @@
 import type { InputQuantity } from '../../shared/budget/schema';
 import { describe, expect, it } from 'vitest';
-import {
-  coefficient,
-  count,
-  coverageFactor,
-  dof,
-  estimate,
-  given,
-  interval,
-  probability,
-  relativeChange,
-  share,
-  uncertainty,
-} from '../../shared/presentation/figures';
+import { coefficient, count, coverageFactor, dof, estimate, given, interval, probability, relativeChange, share, uncertainty } from '../../shared/presentation/figures';
 import { divisor, statedAs } from '../../shared/presentation/stated';
 import { sensitivityShown } from '../../shared/presentation/units';
 

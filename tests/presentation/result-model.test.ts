@@ -36,8 +36,15 @@ describe('the result model', () => {
 
   it('shows the Monte Carlo basis without a coverage factor, and says why it replaced the GUM figures', () => {
     const reported: BudgetResult['reported'] = {
-      basis: 'monte-carlo', estimate: 12.01, standardUncertainty: 4.3, coverageProbability: 0.95, coverageFactor: null,
-      expandedUncertainty: 8.6, interval: [3.5, 20.6], replacedGum: true, unvalidated: false,
+      basis: 'monte-carlo',
+      estimate: 12.01,
+      standardUncertainty: 4.3,
+      coverageProbability: 0.95,
+      coverageFactor: null,
+      expandedUncertainty: 8.6,
+      interval: [3.5, 20.6],
+      replacedGum: true,
+      unvalidated: false,
     };
     const m = presentResult(document, { ...result, reported });
     expect(m.reported.coverageFactor).toBeNull();

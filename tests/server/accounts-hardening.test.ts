@@ -22,7 +22,11 @@ describe('failed sign-ins slow the guesser, never the owner', () => {
   it('lets the admin in from their own address after five failures elsewhere, and doubles the guesser’s wait', async () => {
     const email = s.users.admin.email;
     const guesser = '203.0.113.9';
-    for (let i = 0; i < 5; i++) await from(guesser).post('/api/auth/login').send({ email, password: `guess number ${i}` }).expect(401);
+    for (let i = 0; i < 5; i++)
+      await from(guesser)
+        .post('/api/auth/login')
+        .send({ email, password: `guess number ${i}` })
+        .expect(401);
     // The sixth attempt from the guesser waits, even with the right password...
     const waiting = await from(guesser).post('/api/auth/login').send({ email, password: PASSWORD }).expect(429);
     expect(waiting.body.error.code).toBe('rate_limited');
@@ -33,8 +37,18 @@ describe('failed sign-ins slow the guesser, never the owner', () => {
     const waits: string[] = [];
     for (let i = 0; i < 3; i++) {
       now += Number(waiting.headers['retry-after']) * 1000 * 2 ** i;
-      await from(guesser).post('/api/auth/login').send({ email, password: `more guesses ${i}` }).expect(401);
-      waits.push((await from(guesser).post('/api/auth/login').send({ email, password: `more guesses ${i}` }).expect(429)).headers['retry-after']);
+      await from(guesser)
+        .post('/api/auth/login')
+        .send({ email, password: `more guesses ${i}` })
+        .expect(401);
+      waits.push(
+        (
+          await from(guesser)
+            .post('/api/auth/login')
+            .send({ email, password: `more guesses ${i}` })
+            .expect(429)
+        ).headers['retry-after'],
+      );
     }
     // 1 s · 2^k after the k-th failure beyond the five free ones.
     expect(waits).toEqual(['2', '4', '8']);
@@ -48,7 +62,11 @@ describe('guesses sent in parallel', () => {
   it('count before the password is checked, so no more than the free ones get through', async () => {
     const email = s.users.metrologist.email;
     const answers = await Promise.all(
-      Array.from({ length: 12 }, (_, i) => from('203.0.113.77').post('/api/auth/login').send({ email, password: `parallel guess ${i}` })),
+      Array.from({ length: 12 }, (_, i) =>
+        from('203.0.113.77')
+          .post('/api/auth/login')
+          .send({ email, password: `parallel guess ${i}` }),
+      ),
     );
     const statuses = answers.map((r) => r.status).sort();
     expect(statuses.filter((x) => x === 401)).toHaveLength(5);
@@ -60,11 +78,19 @@ describe('approval signatures', () => {
   it('slows repeated wrong signatures and writes each rejection to the audit trail', async () => {
     const m = await s.as('metrologist');
     const r = await s.as('reviewer');
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('Signed with care') }).expect(201)).body.id;
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Signed with care') })
+        .expect(201)
+    ).body.id;
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
     // the sample's short Monte Carlo run leaves its validation inconclusive; the reason keeps this test on the signature
     for (let i = 0; i < 5; i++) {
-      const no = await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: `not it ${i}`, reason: 'checked by hand' }).expect(403);
+      const no = await r
+        .post(`/api/budgets/${id}/transitions`)
+        .send({ to: 'approved', password: `not it ${i}`, reason: 'checked by hand' })
+        .expect(403);
       expect(no.body.error.code).toBe('signature_rejected');
     }
     const slowed = await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', password: PASSWORD, reason: 'checked by hand' }).expect(429);

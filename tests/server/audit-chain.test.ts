@@ -31,7 +31,12 @@ function byHand(s: TestServer, ...statements: string[]): void {
 
 async function budgetWithHistory(s: TestServer): Promise<number> {
   const m = await s.as('metrologist');
-  const id = (await m.post('/api/budgets').send({ document: sampleDocument('Chained') }).expect(201)).body.id;
+  const id = (
+    await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Chained') })
+      .expect(201)
+  ).body.id;
   await m.post(`/api/budgets/${id}/comments`).send({ version: 1, body: 'uncertainty of c: is the 0.01 from the certificate?' }).expect(201);
   await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
   return id;
@@ -62,11 +67,14 @@ describe('what the trail says', () => {
 
   it('exports a UTF-8 CSV with flat columns, details in words and the chain head', async () => {
     const auditor = await s.as('auditor');
-    const r = await auditor.get(`/api/audit?budget=${id}&format=csv`).buffer(true).parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const r = await auditor
+      .get(`/api/audit?budget=${id}&format=csv`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     const bytes = r.body as Buffer;
     expect([...bytes.subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
     const lines = bytes.subarray(3).toString('utf8').trim().split('\r\n');
@@ -80,9 +88,7 @@ describe('what the trail says', () => {
   });
 
   it('words the particulars of each kind of event', () => {
-    expect(describeDetail({ userId: 7, changes: { role: { from: 'trainee', to: 'metrologist' } }, reason: 'trained' })).toBe(
-      'user id 7; changed role "trainee" → "metrologist"; reason "trained"',
-    );
+    expect(describeDetail({ userId: 7, changes: { role: { from: 'trainee', to: 'metrologist' } }, reason: 'trained' })).toBe('user id 7; changed role "trainee" → "metrologist"; reason "trained"');
     expect(describeDetail({})).toBe('');
   });
 });
@@ -143,7 +149,9 @@ describe('tamper evidence', () => {
     const rewrite = new Database(s.config.dbFile);
     for (const r of rows) {
       const detail = r.id === 2 ? '{"rewritten":true}' : (r.detail as string);
-      const hash = createHash('sha256').update(`${prev}\n${JSON.stringify([r.id, r.at, r.actor_id, r.action, r.budget_id, r.version_number, detail])}`).digest('hex');
+      const hash = createHash('sha256')
+        .update(`${prev}\n${JSON.stringify([r.id, r.at, r.actor_id, r.action, r.budget_id, r.version_number, detail])}`)
+        .digest('hex');
       rewrite.prepare('UPDATE audit_events SET detail = ?, hash = ? WHERE id = ?').run(detail, hash, r.id);
       prev = hash;
     }
@@ -162,7 +170,10 @@ describe('events from before the chain', () => {
     cpSync(fileURLToPath(new URL('../../drizzle', import.meta.url)), folder, { recursive: true });
     const journalFile = join(folder, 'meta', '_journal.json');
     const journal = JSON.parse(readFileSync(journalFile, 'utf8')) as { entries: { tag: string }[] };
-    journal.entries = journal.entries.slice(0, journal.entries.findIndex((e) => e.tag.endsWith('audit_chain')));
+    journal.entries = journal.entries.slice(
+      0,
+      journal.entries.findIndex((e) => e.tag.endsWith('audit_chain')),
+    );
     writeFileSync(journalFile, JSON.stringify(journal));
     const old = new Database(file);
     migrate(drizzle({ client: old }), { migrationsFolder: folder });

@@ -16,7 +16,12 @@ afterAll(async () => {
 describe('diff, clone and templates', () => {
   it('reports model, inputs field by field and result deltas between versions', async () => {
     const m = await s.as('metrologist');
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('Diffed'), note: '' }).expect(201)).body.id;
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Diffed'), note: '' })
+        .expect(201)
+    ).body.id;
     const v2 = sampleDocument('Diffed', {
       model: 'y = a + b * c + d',
       inputs: [
@@ -41,7 +46,12 @@ describe('diff, clone and templates', () => {
 
   it('clones a template into a draft of the caller that records its source', async () => {
     const admin = await s.as('admin');
-    const t = (await admin.post('/api/budgets').send({ document: sampleDocument('Lab template'), note: '', template: true }).expect(201)).body.id;
+    const t = (
+      await admin
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Lab template'), note: '', template: true })
+        .expect(201)
+    ).body.id;
     const templates = (await (await s.as('trainee')).get('/api/templates').expect(200)).body;
     expect(templates.map((x: { id: number }) => x.id)).toContain(t);
     const list = (await (await s.as('trainee')).get('/api/budgets').expect(200)).body;
@@ -50,7 +60,10 @@ describe('diff, clone and templates', () => {
     const c = (await trainee.post(`/api/budgets/${t}/clone`).send({ title: 'My first budget' }).expect(201)).body;
     const b = (await trainee.get(`/api/budgets/${c.id}`).expect(200)).body;
     expect(b).toMatchObject({ ownerId: s.users.trainee.id, status: 'draft', isTemplate: false, source: { budgetId: t, version: 1 }, title: 'My first budget' });
-    await trainee.put(`/api/budgets/${c.id}`).send({ baseVersion: 1, document: sampleDocument('Mine'), note: '' }).expect(200);
+    await trainee
+      .put(`/api/budgets/${c.id}`)
+      .send({ baseVersion: 1, document: sampleDocument('Mine'), note: '' })
+      .expect(200);
     // Templates are the admins' to edit.
     await (await s.as('metrologist')).put(`/api/budgets/${t}`).send({ baseVersion: 1, document: sampleDocument(), note: '' }).expect(403);
   });
@@ -69,8 +82,16 @@ describe('audit trail', () => {
   it('records each change with its actor and filters by budget, actor, action and time, also as CSV', async () => {
     const m = await s.as('metrologist');
     const t0 = Date.now();
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('Audited'), note: 'n1' }).expect(201)).body.id;
-    await m.put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument('Audited 2'), note: 'n2' }).expect(200);
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Audited'), note: 'n1' })
+        .expect(201)
+    ).body.id;
+    await m
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 1, document: sampleDocument('Audited 2'), note: 'n2' })
+      .expect(200);
     await m.post(`/api/budgets/${id}/comments`).send({ version: 2, body: 'self note' }).expect(201);
     const auditor = await s.as('auditor');
     const all = (await auditor.get(`/api/audit?budget=${id}`).expect(200)).body;
@@ -85,7 +106,10 @@ describe('audit trail', () => {
     expect(none.events).toEqual([]);
     const csv = await auditor.get(`/api/audit?budget=${id}&format=csv`).expect(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
-    const lines = csv.text.replace(/^\uFEFF/, '').trim().split('\r\n');
+    const lines = csv.text
+      .replace(/^\uFEFF/, '')
+      .trim()
+      .split('\r\n');
     expect(lines[0]).toBe('event,time,actor_id,actor_name,action,budget_id,budget_title,version,details,hash');
     expect(lines).toHaveLength(4);
     expect(lines[2]).toContain('budget.version_saved');
@@ -111,7 +135,11 @@ describe('demo seed', () => {
       expect(comments.length).toBeGreaterThanOrEqual(3);
       expect((await a.get('/api/templates').expect(200)).body).toHaveLength(2);
       for (const role of ['admin', 'reviewer', 'auditor', 'trainee']) {
-        await t.anonymous().post('/api/auth/login').send({ email: `${role}@dubito.example`, password: PASSWORD }).expect(200);
+        await t
+          .anonymous()
+          .post('/api/auth/login')
+          .send({ email: `${role}@dubito.example`, password: PASSWORD })
+          .expect(200);
       }
     } finally {
       await t.stop();

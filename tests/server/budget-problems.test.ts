@@ -13,7 +13,10 @@ afterAll(async () => {
 describe('a refused budget answers its typed problem', () => {
   it('a model syntax error: 422 with code model_syntax, field model and the line and column', async () => {
     const m = await s.as('metrologist');
-    const r = await m.post('/api/budgets').send({ document: sampleDocument('syntax', { model: 'y = a + * b * c' }) }).expect(422);
+    const r = await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('syntax', { model: 'y = a + * b * c' }) })
+      .expect(422);
     const e = r.body.error;
     expect(e.code).toBe('model_syntax');
     expect(e.field).toBe('model');
@@ -30,7 +33,10 @@ describe('a refused budget answers its typed problem', () => {
 
   it('an unknown symbol in a saved version: 422 naming its token', async () => {
     const m = await s.as('metrologist');
-    const r = await m.post('/api/budgets').send({ document: sampleDocument('unknown', { model: 'y = a + b * zz' }) }).expect(422);
+    const r = await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('unknown', { model: 'y = a + b * zz' }) })
+      .expect(422);
     expect(r.body.error).toMatchObject({ code: 'unknown_symbol', field: 'model', location: { line: 1, token: 'zz' } });
   });
 });

@@ -7,9 +7,7 @@ let id: number;
 
 const TABLES = ['users', 'budgets', 'budget_versions', 'comments', 'attachments', 'account_tokens', 'audit_events', 'outbox'];
 function counts(): Record<string, number> {
-  return Object.fromEntries(
-    TABLES.map((t) => [t, (s.connection.sqlite.prepare(`SELECT count(*) AS n FROM ${t}`).get() as { n: number }).n]),
-  );
+  return Object.fromEntries(TABLES.map((t) => [t, (s.connection.sqlite.prepare(`SELECT count(*) AS n FROM ${t}`).get() as { n: number }).n]));
 }
 
 beforeAll(async () => {
@@ -45,7 +43,10 @@ describe('saves on the same base', () => {
     expect(counts().budget_versions).toBe(before.budget_versions + 1);
     expect(counts().audit_events).toBe(before.audit_events + 1);
     // The loser retries on the new base and nothing is lost.
-    await m.put(`/api/budgets/${id}`).send({ baseVersion: 2, document: sampleDocument('From tab B, merged'), note: 'B again' }).expect(200);
+    await m
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 2, document: sampleDocument('From tab B, merged'), note: 'B again' })
+      .expect(200);
   });
 
   it('stores the engine version, the seed and the SHA-256 of the canonical document with each version', async () => {
@@ -66,7 +67,10 @@ describe('saves on the same base', () => {
 
   it('caps server-side trials', async () => {
     const m = await s.as('metrologist');
-    const r = await m.post('/api/budgets').send({ document: sampleDocument('Many trials', { monteCarlo: { trials: 1_000_000, seed: 'x' } }), note: '' }).expect(201);
+    const r = await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Many trials', { monteCarlo: { trials: 1_000_000, seed: 'x' } }), note: '' })
+      .expect(201);
     expect(r.body.result.monteCarlo.trials).toBeLessThanOrEqual(5_000);
   });
 });
@@ -85,7 +89,12 @@ describe('bad input on every route: a clear 4xx and nothing written', () => {
       ['create with a string document', () => m.post('/api/budgets').send({ document: 'text' }), 400, 'document'],
       ['create with an unknown field', () => m.post('/api/budgets').send({ document: sampleDocument(), colour: 'red' }), 400],
       ['create with a wrong format', () => m.post('/api/budgets').send({ document: { ...sampleDocument(), format: 'other/2' } }), 422, 'format'],
-      ['create with a bad u', () => m.post('/api/budgets').send({ document: sampleDocument('x', { inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: -1 } }], model: 'y = a' }) }), 422, 'inputs[0].distribution.u'],
+      [
+        'create with a bad u',
+        () => m.post('/api/budgets').send({ document: sampleDocument('x', { inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: -1 } }], model: 'y = a' }) }),
+        422,
+        'inputs[0].distribution.u',
+      ],
       ['create with an unknown symbol', () => m.post('/api/budgets').send({ document: sampleDocument('x', { model: 'y = a + zz' }) }), 422],
       ['create a template without being admin', () => m.post('/api/budgets').send({ document: sampleDocument(), template: true }), 403],
       ['list with a bad status', () => m.get('/api/budgets?status=published'), 400, 'status'],
@@ -112,8 +121,18 @@ describe('bad input on every route: a clear 4xx and nothing written', () => {
       ['transition to nowhere', () => m.post(`/api/budgets/${id}/transitions`).send({ to: 'published' }), 400, 'to'],
       ['approve a draft', () => r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: 'dubito-demo' }), 409],
       ['observations without a file', () => m.post('/api/uploads/observations').send({}), 400, 'file'],
-      ['observations from two columns without a choice', () => m.post('/api/uploads/observations').attach('file', Buffer.from('a,b\n1,2\n3,4\n'), { filename: 'x.csv', contentType: 'text/csv' }), 400, 'column'],
-      ['observations from a missing column', () => m.post('/api/uploads/observations').field('column', '7').attach('file', Buffer.from('1\n2\n'), { filename: 'x.csv', contentType: 'text/csv' }), 400, 'column'],
+      [
+        'observations from two columns without a choice',
+        () => m.post('/api/uploads/observations').attach('file', Buffer.from('a,b\n1,2\n3,4\n'), { filename: 'x.csv', contentType: 'text/csv' }),
+        400,
+        'column',
+      ],
+      [
+        'observations from a missing column',
+        () => m.post('/api/uploads/observations').field('column', '7').attach('file', Buffer.from('1\n2\n'), { filename: 'x.csv', contentType: 'text/csv' }),
+        400,
+        'column',
+      ],
       ['observations from a PDF', () => m.post('/api/uploads/observations').attach('file', PDF, { filename: 'x.pdf', contentType: 'application/pdf' }), 415],
       ['attachment of a wrong type', () => m.post(`/api/budgets/${id}/attachments`).attach('file', Buffer.from('hello'), { filename: 'x.txt', contentType: 'text/plain' }), 415],
       ['attachment claiming another type', () => m.post(`/api/budgets/${id}/attachments`).attach('file', PNG, { filename: 'x.pdf', contentType: 'application/pdf' }), 415],
@@ -130,7 +149,16 @@ describe('bad input on every route: a clear 4xx and nothing written', () => {
       ['patch a missing user', () => admin.patch('/api/users/9999').send({ name: 'x' }), 404],
       ['invitation without role', () => admin.post('/api/invitations').send({ email: 'c@lab.test', name: 'x' }), 400, 'role'],
       ['reset without address', () => s.anonymous().post('/api/auth/password-reset').send({}), 400, 'email'],
-      ['complete with a short password', () => s.anonymous().post('/api/auth/password-reset/complete').send({ token: 'x'.repeat(43), password: 'short' }), 400, 'password'],
+      [
+        'complete with a short password',
+        () =>
+          s
+            .anonymous()
+            .post('/api/auth/password-reset/complete')
+            .send({ token: 'x'.repeat(43), password: 'short' }),
+        400,
+        'password',
+      ],
       ['unknown API route', () => m.get('/api/nothing-here'), 404],
     ];
     const before = counts();

@@ -46,16 +46,27 @@ describe('the document shape is limited at the edge, and the compute slot stays 
     expect(r.body.error).toMatchObject({ code: 'too_deep', field: 'document' });
     expect(r.body.error.message).toMatch(/nested more than 32 levels/);
     expect(s.pool.load()).toMatchObject({ running: 0, waiting: 0 });
-    await (await s.as('admin')).post('/api/budgets').send({ document: sampleDocument('Trivial') }).expect(201);
+    await (
+      await s.as('admin')
+    )
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Trivial') })
+      .expect(201);
   });
 
   it(`refuses unknown fields larger than ${DOCUMENT_LIMITS.unknownFieldBytes} bytes with 400 and keeps smaller ones`, async () => {
     const m = await s.as('metrologist');
     const big = Object.fromEntries(Array.from({ length: 20_000 }, (_, i) => [`k${i}`, i]));
-    const r = await m.post('/api/budgets').send({ document: sampleDocument('Big', { notes: big }) }).expect(400);
+    const r = await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Big', { notes: big }) })
+      .expect(400);
     expect(r.body.error).toMatchObject({ code: 'unknown_fields_too_large', field: 'notes' });
     expect(r.body.error.message).toMatch(/more than the 65536 allowed/);
-    const ok = await m.post('/api/budgets').send({ document: sampleDocument('Small', { lab: 'Kestrel Fen Metrology Laboratory' }) }).expect(201);
+    const ok = await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Small', { lab: 'Kestrel Fen Metrology Laboratory' }) })
+      .expect(201);
     const stored = (await m.get(`/api/budgets/${ok.body.id}`).expect(200)).body;
     expect(stored.document.lab).toBe('Kestrel Fen Metrology Laboratory');
   });
@@ -84,10 +95,16 @@ describe('checkDocumentShape', () => {
 describe('the server survives a worker running out of memory', () => {
   it('answers 422 naming the budget as too large to compute, then computes the next save', async () => {
     const m = await s.as('metrologist');
-    const r = await m.post('/api/budgets').send({ document: sampleDocument('exhaust the heap') }).expect(422);
+    const r = await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('exhaust the heap') })
+      .expect(422);
     expect(r.body.error.code).toBe('too_large_to_compute');
     expect(r.body.error.message).toMatch(/too large to compute.*64 MiB/);
-    await m.post('/api/budgets').send({ document: sampleDocument('Next') }).expect(201);
+    await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Next') })
+      .expect(201);
     await s.anonymous().get('/api/health').expect(200);
   }, 120_000);
 });
@@ -96,14 +113,28 @@ describe('saves beyond the limits are refused at once with Retry-After', () => {
   it('429 for a second job of the same user, 503 when the queue is full; the held and queued saves then complete', async () => {
     const release = join(dir, 'release');
     const m = await s.as('metrologist');
-    const held = m.post('/api/budgets').send({ document: sampleDocument('hold', { releaseFile: release }) }).then((r) => r);
+    const held = m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('hold', { releaseFile: release }) })
+      .then((r) => r);
     await untilRunning(1);
-    const mine = await m.post('/api/budgets').send({ document: sampleDocument('Second') }).expect(429);
+    const mine = await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Second') })
+      .expect(429);
     expect(mine.body.error.code).toBe('too_many_jobs');
     expect(Number(mine.headers['retry-after'])).toBeGreaterThanOrEqual(1);
-    const queued = (await s.as('admin')).post('/api/budgets').send({ document: sampleDocument('Queued') }).then((r) => r);
+    const queued = (await s.as('admin'))
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Queued') })
+      .then((r) => r);
     while (s.pool.load().waiting !== 1) await new Promise((r) => setImmediate(r));
-    const full = await (await s.as('trainee')).post('/api/budgets').send({ document: sampleDocument('Refused') }).expect(503);
+    const full = await (
+      await s.as('trainee')
+    )
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Refused') })
+      .expect(503);
     expect(full.body.error.code).toBe('compute_busy');
     expect(Number(full.headers['retry-after'])).toBeGreaterThanOrEqual(1);
     writeFileSync(release, '');
@@ -115,8 +146,16 @@ describe('saves beyond the limits are refused at once with Retry-After', () => {
 describe('reports and diffs are built in the workers, with size caps', () => {
   it('builds the PDF and the diff, and refuses versions past the caps with 422', async () => {
     const m = await s.as('metrologist');
-    const { id } = (await m.post('/api/budgets').send({ document: sampleDocument('Report') }).expect(201)).body;
-    await m.put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument('Report, second'), note: '' }).expect(200);
+    const { id } = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Report') })
+        .expect(201)
+    ).body;
+    await m
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 1, document: sampleDocument('Report, second'), note: '' })
+      .expect(200);
     const pdf = await m.get(`/api/budgets/${id}/report.pdf`).buffer(true).expect(200);
     expect(pdf.headers['content-type']).toMatch(/application\/pdf/);
     expect((pdf.body as Buffer).subarray(0, 5).toString()).toBe('%PDF-');
@@ -124,8 +163,16 @@ describe('reports and diffs are built in the workers, with size caps', () => {
     expect(d.other).toContainEqual({ field: 'title', from: 'Report', to: 'Report, second' });
 
     const notes = 'x'.repeat(60_000);
-    const big = (await m.post('/api/budgets').send({ document: sampleDocument('Large', { notes }) }).expect(201)).body.id;
-    await m.put(`/api/budgets/${big}`).send({ baseVersion: 1, document: sampleDocument('Large', { notes: notes + 'y' }), note: '' }).expect(200);
+    const big = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Large', { notes }) })
+        .expect(201)
+    ).body.id;
+    await m
+      .put(`/api/budgets/${big}`)
+      .send({ baseVersion: 1, document: sampleDocument('Large', { notes: notes + 'y' }), note: '' })
+      .expect(200);
     const report = await m.get(`/api/budgets/${big}/report.pdf`).expect(422);
     expect(report.body.error.code).toBe('too_large_to_report');
     const diff = await m.get(`/api/budgets/${big}/diff?from=1&to=2`).expect(422);

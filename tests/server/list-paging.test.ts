@@ -10,11 +10,22 @@ beforeAll(async () => {
   ids = {};
   // titles whose order differs with and without case
   for (const title of ['beta gauge', 'Alpha bath', 'charlie thermometer', 'Delta balance']) {
-    ids[title] = (await m.post('/api/budgets').send({ document: sampleDocument(title), note: 'v1' }).expect(201)).body.id;
+    ids[title] = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument(title), note: 'v1' })
+        .expect(201)
+    ).body.id;
   }
   // two more versions of one budget, and one budget sent back by the reviewer
-  await m.put(`/api/budgets/${ids['beta gauge']}`).send({ baseVersion: 1, document: sampleDocument('beta gauge'), note: 'v2' }).expect(200);
-  await m.put(`/api/budgets/${ids['beta gauge']}`).send({ baseVersion: 2, document: sampleDocument('beta gauge'), note: 'v3' }).expect(200);
+  await m
+    .put(`/api/budgets/${ids['beta gauge']}`)
+    .send({ baseVersion: 1, document: sampleDocument('beta gauge'), note: 'v2' })
+    .expect(200);
+  await m
+    .put(`/api/budgets/${ids['beta gauge']}`)
+    .send({ baseVersion: 2, document: sampleDocument('beta gauge'), note: 'v3' })
+    .expect(200);
   await m.post(`/api/budgets/${ids['Delta balance']}/transitions`).send({ to: 'in_review' }).expect(200);
   await (await s.as('reviewer')).post(`/api/budgets/${ids['Delta balance']}/transitions`).send({ to: 'draft', comment: 'state the balance class' }).expect(200);
   await m.post(`/api/budgets/${ids['charlie thermometer']}/transitions`).send({ to: 'in_review' }).expect(200);

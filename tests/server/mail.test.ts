@@ -73,7 +73,12 @@ describe('mail through the in-process SMTP server', () => {
   it('tells reviewers about a review request and the owner about approval and return', async () => {
     const m = await s.as('metrologist');
     const r = await s.as('reviewer');
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('Mailed budget'), note: '' }).expect(201)).body.id;
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Mailed budget'), note: '' })
+        .expect(201)
+    ).body.id;
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
     const requested = (await mailTo(s.users.reviewer.email)).filter((x) => x.subject === 'Review requested: Mailed budget');
     expect(requested).toHaveLength(1);

@@ -14,7 +14,12 @@ afterAll(async () => {
 /** A budget of the metrologist, submitted and approved by the reviewer. */
 async function approvedBudget(title: string): Promise<number> {
   const m = await s.as('metrologist');
-  const id = (await m.post('/api/budgets').send({ document: sampleDocument(title), note: '' }).expect(201)).body.id as number;
+  const id = (
+    await m
+      .post('/api/budgets')
+      .send({ document: sampleDocument(title), note: '' })
+      .expect(201)
+  ).body.id as number;
   await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
   await (await s.as('reviewer')).post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
   return id;
@@ -33,7 +38,12 @@ describe("people's names in payloads", () => {
     expect(list).toEqual([expect.objectContaining({ number: 1, authorName: 'Test metrologist', approverName: 'Test reviewer' })]);
 
     // a later draft has an author and no approver yet
-    await (await s.as('metrologist')).put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument('Named 2'), note: '' }).expect(200);
+    await (
+      await s.as('metrologist')
+    )
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 1, document: sampleDocument('Named 2'), note: '' })
+      .expect(200);
     const after = (await auditor.get(`/api/budgets/${id}/versions`).expect(200)).body;
     expect(after[1]).toMatchObject({ number: 2, authorName: 'Test metrologist', approvedBy: null, approverName: null });
     expect((await auditor.get(`/api/budgets/${id}`).expect(200)).body.version.approverName).toBeNull();
@@ -41,7 +51,12 @@ describe("people's names in payloads", () => {
 
   it('names the author of each comment', async () => {
     const m = await s.as('metrologist');
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('Commented'), note: '' }).expect(201)).body.id;
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Commented'), note: '' })
+        .expect(201)
+    ).body.id;
     const c = (await (await s.as('reviewer')).post(`/api/budgets/${id}/comments`).send({ version: 1, symbol: 'a', body: 'Source of u(a)?' }).expect(201)).body;
     expect(c).toMatchObject({ authorId: s.users.reviewer.id, authorName: 'Test reviewer', parentId: null, symbol: 'a' });
     const resolved = (await m.patch(`/api/budgets/${id}/comments/${c.id}`).send({ resolved: true }).expect(200)).body;
@@ -55,7 +70,12 @@ describe('replies', () => {
   it('attaches a reply to its thread, and a reply to a reply to the thread root', async () => {
     const m = await s.as('metrologist');
     const r = await s.as('reviewer');
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('Threads'), note: '' }).expect(201)).body.id;
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Threads'), note: '' })
+        .expect(201)
+    ).body.id;
     const root = (await r.post(`/api/budgets/${id}/comments`).send({ version: 1, symbol: 'b', body: 'Why rectangular?' }).expect(201)).body;
     const reply = (await m.post(`/api/budgets/${id}/comments`).send({ version: 1, parentId: root.id, body: 'Only limits are known.' }).expect(201)).body;
     expect(reply).toMatchObject({ parentId: root.id, symbol: 'b', body: 'Only limits are known.', authorName: 'Test metrologist' });
@@ -73,8 +93,18 @@ describe('replies', () => {
 
   it('refuses a parent of another budget, an unknown parent, a different thread and a malformed id', async () => {
     const m = await s.as('metrologist');
-    const a = (await m.post('/api/budgets').send({ document: sampleDocument('A'), note: '' }).expect(201)).body.id;
-    const b = (await m.post('/api/budgets').send({ document: sampleDocument('B'), note: '' }).expect(201)).body.id;
+    const a = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('A'), note: '' })
+        .expect(201)
+    ).body.id;
+    const b = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('B'), note: '' })
+        .expect(201)
+    ).body.id;
     const onA = (await m.post(`/api/budgets/${a}/comments`).send({ version: 1, body: 'on A' }).expect(201)).body;
     const other = await m.post(`/api/budgets/${b}/comments`).send({ version: 1, parentId: onA.id, body: 'x' }).expect(400);
     expect(other.body.error.field).toBe('parentId');
@@ -97,9 +127,22 @@ describe('replies', () => {
 describe('audit trail order and list totals', () => {
   it('lists the newest event first, the later of equal times first, and pages in that order', async () => {
     const m = await s.as('metrologist');
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('Ordered'), note: '' }).expect(201)).body.id;
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Ordered'), note: '' })
+        .expect(201)
+    ).body.id;
     const notes: number[] = [];
-    for (let i = 1; i <= 3; i++) notes.push((await m.post(`/api/budgets/${id}/comments`).send({ version: 1, body: `note ${i}` }).expect(201)).body.id);
+    for (let i = 1; i <= 3; i++)
+      notes.push(
+        (
+          await m
+            .post(`/api/budgets/${id}/comments`)
+            .send({ version: 1, body: `note ${i}` })
+            .expect(201)
+        ).body.id,
+      );
     const auditor = await s.as('auditor');
     const mine = (await auditor.get(`/api/audit?budget=${id}`).expect(200)).body.events;
     expect(mine.map((e: { action: string; detail: { commentId?: number } }) => e.detail.commentId ?? e.action)).toEqual([notes[2], notes[1], notes[0], 'budget.created']);
@@ -121,7 +164,11 @@ describe('audit trail order and list totals', () => {
 
   it('gives the number of matching budgets in X-Total-Count and keeps the array', async () => {
     const m = await s.as('metrologist');
-    for (const t of ['Count zz-1', 'Count zz-2', 'Count zz-3']) await m.post('/api/budgets').send({ document: sampleDocument(t), note: '' }).expect(201);
+    for (const t of ['Count zz-1', 'Count zz-2', 'Count zz-3'])
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument(t), note: '' })
+        .expect(201);
     const r = await m.get('/api/budgets?q=zz-&limit=2').expect(200);
     expect(Array.isArray(r.body)).toBe(true);
     expect(r.body).toHaveLength(2);

@@ -24,18 +24,55 @@ afterAll(async () => {
 });
 
 const hostile = fc.constantFrom<unknown>(
-  null, true, 0, -1, 1e308, -1e-308, '', 'x', '__proto__', [], {}, [[[]]], { __proto__: { polluted: true } },
-  'a'.repeat(5000), Array.from({ length: 2000 }, (_, i) => i), { constructor: { prototype: { polluted: true } } },
+  null,
+  true,
+  0,
+  -1,
+  1e308,
+  -1e-308,
+  '',
+  'x',
+  '__proto__',
+  [],
+  {},
+  [[[]]],
+  { __proto__: { polluted: true } },
+  'a'.repeat(5000),
+  Array.from({ length: 2000 }, (_, i) => i),
+  { constructor: { prototype: { polluted: true } } },
 );
 const value = fc.oneof(hostile, fc.jsonValue({ maxDepth: 3 }));
 
 /** Places of a budget document where a mutation lands. */
 const PATHS: (string | number)[][] = [
-  [], ['format'], ['title'], ['measurand'], ['measurand', 'symbol'], ['measurand', 'unit'], ['model'], ['inputs'], ['inputs', 0],
-  ['inputs', 0, 'symbol'], ['inputs', 0, 'unit'], ['inputs', 0, 'distribution'], ['inputs', 0, 'distribution', 'kind'],
-  ['inputs', 0, 'distribution', 'value'], ['inputs', 0, 'distribution', 'u'], ['inputs', 1, 'distribution', 'halfWidth'],
-  ['inputs', 2, 'distribution', 'dof'], ['correlations'], ['constants'], ['monteCarlo'], ['monteCarlo', 'trials'], ['monteCarlo', 'seed'],
-  ['coverageProbability'], ['reporting'], ['reporting', 'basis'], ['__proto__'], ['constructor'], ['labNote'],
+  [],
+  ['format'],
+  ['title'],
+  ['measurand'],
+  ['measurand', 'symbol'],
+  ['measurand', 'unit'],
+  ['model'],
+  ['inputs'],
+  ['inputs', 0],
+  ['inputs', 0, 'symbol'],
+  ['inputs', 0, 'unit'],
+  ['inputs', 0, 'distribution'],
+  ['inputs', 0, 'distribution', 'kind'],
+  ['inputs', 0, 'distribution', 'value'],
+  ['inputs', 0, 'distribution', 'u'],
+  ['inputs', 1, 'distribution', 'halfWidth'],
+  ['inputs', 2, 'distribution', 'dof'],
+  ['correlations'],
+  ['constants'],
+  ['monteCarlo'],
+  ['monteCarlo', 'trials'],
+  ['monteCarlo', 'seed'],
+  ['coverageProbability'],
+  ['reporting'],
+  ['reporting', 'basis'],
+  ['__proto__'],
+  ['constructor'],
+  ['labNote'],
 ];
 
 function mutate(doc: Record<string, unknown>, path: (string | number)[], v: unknown): unknown {

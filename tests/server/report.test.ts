@@ -57,7 +57,11 @@ async function pdfText(data: Buffer): Promise<string> {
 }
 
 /** Compares text regardless of spacing and of raised or lowered markup. */
-const squash = (t: string) => t.normalize('NFKC').replace(/[_^]\{([^}]*)\}/g, '$1').replace(/[\s\u202f\u2009]+/g, '');
+const squash = (t: string) =>
+  t
+    .normalize('NFKC')
+    .replace(/[_^]\{([^}]*)\}/g, '$1')
+    .replace(/[\s\u202f\u2009]+/g, '');
 
 beforeAll(async () => {
   s = await startTestServer();

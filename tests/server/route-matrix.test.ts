@@ -137,9 +137,7 @@ describe('route × role matrix from the policy map', () => {
     // Every case still names a registered route, so a renamed route cannot leave its case behind untested.
     const registered = new Set(s.routes.map((r) => `${r.method} ${r.path}`));
     expect(Object.keys(cases).filter((k) => !registered.has(k))).toEqual([]);
-    expect([...registered]).toEqual(
-      expect.arrayContaining(['get /api/config', 'get /api/audit/verify', 'get /api/budgets/:id/review', 'get /api/reviews/queue']),
-    );
+    expect([...registered]).toEqual(expect.arrayContaining(['get /api/config', 'get /api/audit/verify', 'get /api/budgets/:id/review', 'get /api/reviews/queue']));
   });
 
   it('answers every route for every role and for anonymous as the policy says', async () => {
@@ -165,7 +163,10 @@ describe('route × role matrix from the policy map', () => {
 describe('rules beyond the role', () => {
   it('nobody approves a budget they own or wrote', async () => {
     const admin = await s.as('admin');
-    const created = await admin.post('/api/budgets').send({ document: sampleDocument('Admin own'), note: '' }).expect(201);
+    const created = await admin
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Admin own'), note: '' })
+      .expect(201);
     const id = created.body.id;
     await admin.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
     const own = await admin.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(403);
@@ -181,7 +182,10 @@ describe('rules beyond the role', () => {
 
   it('the author of the version under review cannot approve it even when someone else owns the budget', async () => {
     const admin = await s.as('admin');
-    const t = await admin.post('/api/budgets').send({ document: sampleDocument('Template'), note: '', template: true }).expect(201);
+    const t = await admin
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Template'), note: '', template: true })
+      .expect(201);
     // A second admin owns nothing here but wrote nothing either; the author (first admin) may not sign.
     const other = await s.services.accounts.create(null, { email: 'admin2@lab.test', name: 'Second admin', role: 'admin', password: PASSWORD });
     await s.services.budgets.save(other, t.body.id, { baseVersion: 1, document: sampleDocument('Template v2'), note: 'by admin 2' });
@@ -194,15 +198,27 @@ describe('rules beyond the role', () => {
   it('trainees edit only their own drafts and never approve', async () => {
     const trainee = await s.as('trainee');
     await trainee.put(`/api/budgets/${shared}`).send({ baseVersion: 2, document: sampleDocument(), note: '' }).expect(403);
-    const own = await trainee.post('/api/budgets').send({ document: sampleDocument('Trainee'), note: '' }).expect(201);
+    const own = await trainee
+      .post('/api/budgets')
+      .send({ document: sampleDocument('Trainee'), note: '' })
+      .expect(201);
     const id = own.body.id;
-    await trainee.put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument('Trainee 2'), note: '' }).expect(200);
+    await trainee
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 1, document: sampleDocument('Trainee 2'), note: '' })
+      .expect(200);
     await trainee.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
-    await trainee.put(`/api/budgets/${id}`).send({ baseVersion: 2, document: sampleDocument('Trainee 3'), note: '' }).expect(403);
+    await trainee
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 2, document: sampleDocument('Trainee 3'), note: '' })
+      .expect(403);
     const reviewer = await s.as('reviewer');
     await reviewer.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
     // Approved: a trainee may not start a new draft from it; a metrologist owner could.
-    await trainee.put(`/api/budgets/${id}`).send({ baseVersion: 2, document: sampleDocument('Trainee 3'), note: '' }).expect(403);
+    await trainee
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 2, document: sampleDocument('Trainee 3'), note: '' })
+      .expect(403);
     const other = await s.services.budgets.create(s.users.metrologist, { document: sampleDocument('M'), note: '' });
     await s.services.reviews.transition(s.users.metrologist, other.id, { to: 'in_review' });
     await trainee.post(`/api/budgets/${other.id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(403);
@@ -210,9 +226,17 @@ describe('rules beyond the role', () => {
 
   it('editing an approved budget makes a new draft and keeps the approved version', async () => {
     const m = await s.as('metrologist');
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('To approve'), note: '' }).expect(201)).body.id;
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('To approve'), note: '' })
+        .expect(201)
+    ).body.id;
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
-    await m.put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument('x'), note: '' }).expect(409);
+    await m
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 1, document: sampleDocument('x'), note: '' })
+      .expect(409);
     const r = await s.as('reviewer');
     await r.post(`/api/budgets/${id}/transitions`).send({ to: 'draft' }).expect(400);
     await r.post(`/api/budgets/${id}/transitions`).send({ to: 'draft', comment: 'Add the resolution term.' }).expect(200);
@@ -220,7 +244,10 @@ describe('rules beyond the role', () => {
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
     await r.post(`/api/budgets/${id}/transitions`).send({ to: 'approved', reason: 'the open points are minor', password: PASSWORD }).expect(200);
     const approved = (await m.get(`/api/budgets/${id}/versions/1`)).body;
-    await m.put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument('After approval'), note: 'next' }).expect(200);
+    await m
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 1, document: sampleDocument('After approval'), note: 'next' })
+      .expect(200);
     const b = (await m.get(`/api/budgets/${id}`)).body;
     expect(b).toMatchObject({ status: 'draft', currentVersion: 2, approvedVersion: 1 });
     const again = (await m.get(`/api/budgets/${id}/versions/1`)).body;

@@ -106,7 +106,11 @@ describe('sign-in limit per address', () => {
     const s = await startTestServer({ trustProxy: 1, signIn: { windowMs: 60_000, perAddress: 4, freeFailures: 100, firstDelayMs: 1_000, maxDelayMs: 60_000 } });
     try {
       const from = (ip: string) => s.anonymous().set('X-Forwarded-For', ip);
-      for (let i = 0; i < 4; i++) await from('203.0.113.50').post('/api/auth/login').send({ email: `nobody${i}@lab.test`, password: 'guess guess' }).expect(401);
+      for (let i = 0; i < 4; i++)
+        await from('203.0.113.50')
+          .post('/api/auth/login')
+          .send({ email: `nobody${i}@lab.test`, password: 'guess guess' })
+          .expect(401);
       const refused = await from('203.0.113.50').post('/api/auth/login').send({ email: s.users.admin.email, password: PASSWORD }).expect(429);
       expect(refused.body.error.code).toBe('rate_limited');
       await from('198.51.100.20').post('/api/auth/login').send({ email: s.users.admin.email, password: PASSWORD }).expect(200);

@@ -19,7 +19,10 @@ describe('a budget goes from draft to approved', () => {
     const got = await m.get(`/api/budgets/${id}`).expect(200);
     expect(got.body.document.title).toBe('Length of a test bar');
     expect(got.body.version.documentSha256).toMatch(/^[0-9a-f]{64}$/);
-    const saved = await m.put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument('Length v2'), note: 'second' }).expect(200);
+    const saved = await m
+      .put(`/api/budgets/${id}`)
+      .send({ baseVersion: 1, document: sampleDocument('Length v2'), note: 'second' })
+      .expect(200);
     expect(saved.body.version).toBe(2);
     await m.post(`/api/budgets/${id}/transitions`).send({ to: 'in_review' }).expect(200);
     const r = await s.as('reviewer');

@@ -38,10 +38,7 @@ describe('multipart bodies that cannot be read', () => {
     const noBoundary = await raw('multipart/form-data', 'whatever').expect(400);
     expect(noBoundary.body.error).toMatchObject({ code: 'invalid_upload' });
     expect(noBoundary.body.error.message).toMatch(/boundary/);
-    const truncated = await raw(
-      'multipart/form-data; boundary=XyZ',
-      '--XyZ\r\nContent-Disposition: form-data; name="file"; filename="r.csv"\r\nContent-Type: text/csv\r\n\r\n1\n2\n',
-    ).expect(400);
+    const truncated = await raw('multipart/form-data; boundary=XyZ', '--XyZ\r\nContent-Disposition: form-data; name="file"; filename="r.csv"\r\nContent-Type: text/csv\r\n\r\n1\n2\n').expect(400);
     expect(truncated.body.error).toMatchObject({ code: 'invalid_upload' });
     expect(truncated.body.error.message).toMatch(/ended before the form was complete/);
   });
@@ -76,7 +73,10 @@ describe('storage failures', () => {
     const m = await s.as('metrologist');
     s.connection.sqlite.pragma('query_only = ON');
     try {
-      const r = await m.post('/api/budgets').send({ document: sampleDocument('Read-only') }).expect(503);
+      const r = await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Read-only') })
+        .expect(503);
       expect(r.body.error).toMatchObject({ code: 'storage_read_only' });
       expect(r.body.error.message).toMatch(/cannot write/);
     } finally {

@@ -27,13 +27,31 @@ describe('every way of writing a version stores it the same way', () => {
     const m = await s.as('metrologist');
     const auditor = await s.as('auditor');
 
-    const created = (await m.post('/api/budgets').send({ document: sampleDocument('Stored'), note: 'first' }).expect(201)).body.id;
-    await m.put(`/api/budgets/${created}`).send({ baseVersion: 1, document: sampleDocument('Stored again'), note: 'second' }).expect(200);
-    const imported = (await m.post('/api/budgets/import').send({ document: sampleDocument('Imported'), note: 'from a file' }).expect(201)).body.id;
+    const created = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Stored'), note: 'first' })
+        .expect(201)
+    ).body.id;
+    await m
+      .put(`/api/budgets/${created}`)
+      .send({ baseVersion: 1, document: sampleDocument('Stored again'), note: 'second' })
+      .expect(200);
+    const imported = (
+      await m
+        .post('/api/budgets/import')
+        .send({ document: sampleDocument('Imported'), note: 'from a file' })
+        .expect(201)
+    ).body.id;
     const cloned = (await m.post(`/api/budgets/${created}/clone`).send({ version: 1 }).expect(201)).body.id;
 
     // evidence on an approved version starts a new draft version that copies the approved one
-    const evidenced = (await m.post('/api/budgets').send({ document: sampleDocument('Evidenced'), note: 'v1' }).expect(201)).body.id;
+    const evidenced = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Evidenced'), note: 'v1' })
+        .expect(201)
+    ).body.id;
     await m.post(`/api/budgets/${evidenced}/transitions`).send({ to: 'in_review' }).expect(200);
     await (await s.as('reviewer')).post(`/api/budgets/${evidenced}/transitions`).send({ to: 'approved', password: PASSWORD, reason: 'checked by hand' }).expect(200);
     await m.post(`/api/budgets/${evidenced}/attachments`).attach('file', PNG, { filename: 'bath.png', contentType: 'image/png' }).expect(201);
@@ -70,7 +88,12 @@ describe('route ids', () => {
   it('refuses an id that is not a positive whole number, saying what kind of id it must be', async () => {
     const m = await s.as('metrologist');
     const admin = await s.as('admin');
-    const id = (await m.post('/api/budgets').send({ document: sampleDocument('Ids'), note: '' }).expect(201)).body.id;
+    const id = (
+      await m
+        .post('/api/budgets')
+        .send({ document: sampleDocument('Ids'), note: '' })
+        .expect(201)
+    ).body.id;
     const cases: [Agent, 'get' | 'patch', string, string, string][] = [
       [m, 'get', '/api/budgets/x', 'id', 'must be a budget id'],
       [m, 'get', `/api/budgets/${id}/versions/0`, 'n', 'must be a version number'],

@@ -79,7 +79,11 @@ export function Select({ className = '', children, ...rest }: SelectHTMLAttribut
 }
 
 function parseNumberText(text: string): number | undefined {
-  const t = text.trim().replace(/[\s\u202f\u2009]/g, '').replace(/\u2212/g, '-').replace(/,/g, '.');
+  const t = text
+    .trim()
+    .replace(/[\s\u202f\u2009]/g, '')
+    .replace(/\u2212/g, '-')
+    .replace(/,/g, '.');
   if (t === '') return undefined;
   if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t)) return NaN;
   return Number(t);

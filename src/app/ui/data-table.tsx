@@ -1,13 +1,4 @@
-import {
-  flexRender,
-  getCoreRowModel,
-  useReactTable,
-  type ColumnDef,
-  type RowData,
-  type SortingState,
-  type Updater,
-  type VisibilityState,
-} from '@tanstack/react-table';
+import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type RowData, type SortingState, type Updater, type VisibilityState } from '@tanstack/react-table';
 import { useEffect, useState, type HTMLAttributes, type ReactNode } from 'react';
 import { Pager } from './pager';
 

@@ -42,8 +42,8 @@ export function BudgetTable({
     <div className="overflow-x-auto rounded-md border border-stone-200 bg-white" data-testid="budget-table">
       <table className="w-full border-collapse text-sm">
         <caption className="sr-only">
-          Uncertainty budget: for each input quantity the value as stated, the divisor, the standard uncertainty, the sensitivity coefficient, the contribution and its share of the variance. Select an input to see how its
-          contribution was obtained.
+          Uncertainty budget: for each input quantity the value as stated, the divisor, the standard uncertainty, the sensitivity coefficient, the contribution and its share of the variance. Select an
+          input to see how its contribution was obtained.
         </caption>
         <thead className="border-b border-stone-300 bg-stone-50">
           <tr>
@@ -51,16 +51,28 @@ export function BudgetTable({
               As stated
             </th>
             <th scope="col" className={`${th} text-right`}>
-              <span aria-hidden className="text-stone-400">÷ </span>divisor
+              <span aria-hidden className="text-stone-400">
+                ÷{' '}
+              </span>
+              divisor
             </th>
             <th scope="col" className={`${th} text-right`}>
-              <span aria-hidden className="text-stone-400">= </span>u(xᵢ)
+              <span aria-hidden className="text-stone-400">
+                ={' '}
+              </span>
+              u(xᵢ)
             </th>
             <th scope="col" className={`${th} text-right`}>
-              <span aria-hidden className="text-stone-400">× </span>cᵢ
+              <span aria-hidden className="text-stone-400">
+                ×{' '}
+              </span>
+              cᵢ
             </th>
             <th scope="col" className={`${th} text-right`}>
-              <span aria-hidden className="text-stone-400">= </span>|cᵢ|·u(xᵢ){yUnit ? <span className="font-normal"> / {yUnit}</span> : null}
+              <span aria-hidden className="text-stone-400">
+                ={' '}
+              </span>
+              |cᵢ|·u(xᵢ){yUnit ? <span className="font-normal"> / {yUnit}</span> : null}
             </th>
             <th scope="col" className={`${th} text-right`}>
               share
@@ -104,19 +116,27 @@ export function BudgetTable({
               <tr className="align-baseline">
                 <td className="num px-2 pb-1.5 text-left text-xs text-stone-700">{r.stated.text}</td>
                 <td className="px-2 pb-1.5 text-right">
-                  <span aria-hidden className={op}>÷</span>
+                  <span aria-hidden className={op}>
+                    ÷
+                  </span>
                   <Fig f={r.divisor} />
                 </td>
                 <td className="px-2 pb-1.5 text-right">
-                  <span aria-hidden className={op}>=</span>
+                  <span aria-hidden className={op}>
+                    =
+                  </span>
                   <Fig f={r.standardUncertainty} unit={r.unit.text} />
                 </td>
                 <td className="px-2 pb-1.5 text-right" title={r.sensitivityMethod === 'symbolic' ? 'symbolic derivative' : 'numerical derivative'}>
-                  <span aria-hidden className={op}>×</span>
+                  <span aria-hidden className={op}>
+                    ×
+                  </span>
                   <Fig f={r.sensitivity.figure} unit={r.sensitivity.unit.text} />
                 </td>
                 <td className="px-2 pb-1.5 text-right">
-                  <span aria-hidden className={op}>=</span>
+                  <span aria-hidden className={op}>
+                    =
+                  </span>
                   <Fig f={r.contribution} strong />
                 </td>
                 <td className="px-2 pb-1.5 text-right">
@@ -142,10 +162,28 @@ export function BudgetTable({
         <tbody className="border-t-2 border-stone-300 bg-stone-50 text-sm">
           {(
             [
-              [<>combined standard uncertainty u<sub>c</sub> = √Σ (cᵢu(xᵢ))²</>, b.totals.standardUncertainty, yUnit],
-              [<>effective degrees of freedom ν<sub>eff</sub></>, b.totals.effectiveDof, ''],
+              [
+                <>
+                  combined standard uncertainty u<sub>c</sub> = √Σ (cᵢu(xᵢ))²
+                </>,
+                b.totals.standardUncertainty,
+                yUnit,
+              ],
+              [
+                <>
+                  effective degrees of freedom ν<sub>eff</sub>
+                </>,
+                b.totals.effectiveDof,
+                '',
+              ],
               [<>coverage factor k for p = {b.totals.coverageProbability.text}</>, b.totals.coverageFactor, ''],
-              [<>expanded uncertainty U = k·u<sub>c</sub></>, b.totals.expandedUncertainty, yUnit],
+              [
+                <>
+                  expanded uncertainty U = k·u<sub>c</sub>
+                </>,
+                b.totals.expandedUncertainty,
+                yUnit,
+              ],
             ] as [ReactNode, Figure, string][]
           ).map(([label, f, unit], i) => (
             <tr key={i}>
@@ -240,9 +278,7 @@ export function ContributionsChart({ model, selected, onSelect }: { model: Resul
             </text>
           </g>
         ))}
-        {terms.length > 1 ? (
-          <polyline fill="none" stroke="#1f5a85" strokeWidth="1.2" points={terms.map((t, i) => `${X(i)},${Y(t.cumulative.value ?? 0)}`).join(' ')} />
-        ) : null}
+        {terms.length > 1 ? <polyline fill="none" stroke="#1f5a85" strokeWidth="1.2" points={terms.map((t, i) => `${X(i)},${Y(t.cumulative.value ?? 0)}`).join(' ')} /> : null}
         {terms.map((t, i) => (
           <circle key={t.symbol} cx={X(i)} cy={Y(t.cumulative.value ?? 0)} r="2" fill="#1f5a85" />
         ))}

@@ -28,14 +28,6 @@ export function editorAccess(a: { me: Editor; isNew: boolean; facts: BudgetFacts
   const statusAllows = !a.facts || isEditableStatus(a.facts.status);
   const approvedLock = a.facts?.status === 'approved' && !a.unlocked;
   const readOnly = a.viewingOld || !mayEdit || !statusAllows || approvedLock;
-  const reason: ReadOnlyReason = a.viewingOld
-    ? 'past-version'
-    : a.facts?.status === 'in_review'
-      ? 'in-review'
-      : approvedLock
-        ? 'approved'
-        : !mayEdit && !isNew
-          ? 'not-yours'
-          : null;
+  const reason: ReadOnlyReason = a.viewingOld ? 'past-version' : a.facts?.status === 'in_review' ? 'in-review' : approvedLock ? 'approved' : !mayEdit && !isNew ? 'not-yours' : null;
   return { mayEdit, approvedLock, readOnly, reason };
 }

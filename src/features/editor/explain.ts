@@ -81,7 +81,13 @@ export function explainResult(result: BudgetResult, item: 'y' | 'uc' | 'nu' | 'k
         steps: [
           {
             formula: 'y = f(x₁, …, x_N) at the input estimates',
-            substituted: `${model.trim().split(/\r?\n/).filter((l) => l.trim() && !l.trim().startsWith('#')).pop() ?? ''}  →  y = ${withUnit(f(g.estimate, 8), unit)}`,
+            substituted: `${
+              model
+                .trim()
+                .split(/\r?\n/)
+                .filter((l) => l.trim() && !l.trim().startsWith('#'))
+                .pop() ?? ''
+            }  →  y = ${withUnit(f(g.estimate, 8), unit)}`,
             clause: 'GUM 4.1.4',
           },
         ],
@@ -124,9 +130,9 @@ export function explainResult(result: BudgetResult, item: 'y' | 'uc' | 'nu' | 'k
                 : correlated
                   ? `each group of correlated inputs is one term, with its covariances and the smallest ν of the group: ν_eff = ${formatDof(g.effectiveDof)}`
                   : `ν_eff = ${f(g.standardUncertainty, 3)}⁴ / (${contributions
-                    .filter((c) => c.dof !== null)
-                    .map((c) => `${f(c.contribution, 3)}⁴/${formatDof(c.dof)}`)
-                    .join(' + ')}) = ${formatDof(g.effectiveDof)}`,
+                      .filter((c) => c.dof !== null)
+                      .map((c) => `${f(c.contribution, 3)}⁴/${formatDof(c.dof)}`)
+                      .join(' + ')}) = ${formatDof(g.effectiveDof)}`,
             clause: 'GUM G.4.1, eq. (G.2b)',
           },
         ],

@@ -125,9 +125,7 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
   const current = computed?.doc === deferred ? computed.outcome : null;
   const wasStopped = stopped?.doc === deferred ? stopped.seconds : null;
   const stopNote: Problem[] =
-    wasStopped === null
-      ? []
-      : [{ code: 'too_large_to_compute', field: '', message: `live recompute stopped after ${wasStopped} s: this budget takes too long to compute in the page` }];
+    wasStopped === null ? [] : [{ code: 'too_large_to_compute', field: '', message: `live recompute stopped after ${wasStopped} s: this budget takes too long to compute in the page` }];
   const outcome: LiveOutcome =
     current ??
     (isStored && stored

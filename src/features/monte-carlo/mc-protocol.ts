@@ -13,7 +13,4 @@ export interface RunRequest {
 }
 
 export type WorkerMessage =
-  | { type: 'progress'; done: number; total: number }
-  | { type: 'done'; result: BudgetResult; ms: number }
-  | { type: 'cancelled'; done: number }
-  | { type: 'error'; problem: BudgetProblem };
+  { type: 'progress'; done: number; total: number } | { type: 'done'; result: BudgetResult; ms: number } | { type: 'cancelled'; done: number } | { type: 'error'; problem: BudgetProblem };

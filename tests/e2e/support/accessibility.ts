@@ -35,17 +35,20 @@ async function settled(page: Page): Promise<void> {
 /** Runs axe-core in the page as it is now and returns its violations, every rule that is on by default. */
 async function violations(page: Page): Promise<Violation[]> {
   if (!(await page.evaluate(() => 'axe' in window))) await page.addScriptTag({ path: axeScript });
-  return page.evaluate(async (notChecked) => {
-    const axe = (window as unknown as { axe: typeof import('axe-core') }).axe;
-    const results = await axe.run({ exclude: notChecked.map((s) => [s]) } as never, { resultTypes: ['violations'] });
-    return results.violations.map((v) => ({
-      id: v.id,
-      impact: v.impact ?? null,
-      help: v.help,
-      helpUrl: v.helpUrl,
-      nodes: v.nodes.map((n) => ({ target: n.target.map(String), summary: n.failureSummary ?? '' })),
-    }));
-  }, NOT_CHECKED.map((n) => n.selector));
+  return page.evaluate(
+    async (notChecked) => {
+      const axe = (window as unknown as { axe: typeof import('axe-core') }).axe;
+      const results = await axe.run({ exclude: notChecked.map((s) => [s]) } as never, { resultTypes: ['violations'] });
+      return results.violations.map((v) => ({
+        id: v.id,
+        impact: v.impact ?? null,
+        help: v.help,
+        helpUrl: v.helpUrl,
+        nodes: v.nodes.map((n) => ({ target: n.target.map(String), summary: n.failureSummary ?? '' })),
+      }));
+    },
+    NOT_CHECKED.map((n) => n.selector),
+  );
 }
 
 /** One line per rule, then each element it found with what axe says is wrong there. */
@@ -53,7 +56,14 @@ function describe(where: string, found: Violation[]): string {
   const lines = [`${found.length} accessibility rule(s) broken on ${where}:`];
   for (const v of found) {
     lines.push(`- ${v.id} [${v.impact ?? 'no impact given'}]: ${v.help} (${v.helpUrl})`);
-    for (const n of v.nodes) lines.push(`    at ${n.target.join(' >>> ')}`, ...n.summary.split('\n').filter(Boolean).map((s) => `      ${s.trim()}`));
+    for (const n of v.nodes)
+      lines.push(
+        `    at ${n.target.join(' >>> ')}`,
+        ...n.summary
+          .split('\n')
+          .filter(Boolean)
+          .map((s) => `      ${s.trim()}`),
+      );
   }
   return lines.join('\n');
 }

@@ -143,7 +143,14 @@ function roleChange(u: UserAccount, role: Role): PendingChange {
 
 function accessChange(u: UserAccount, active: boolean): PendingChange {
   return active
-    ? { patch: { active }, title: `Activate ${u.name}`, consequence: `${u.name} can sign in again with their role of ${ROLE_WORD[u.role].toLowerCase()}.`, submitLabel: 'Activate', done: `${u.name} can sign in again.`, danger: false }
+    ? {
+        patch: { active },
+        title: `Activate ${u.name}`,
+        consequence: `${u.name} can sign in again with their role of ${ROLE_WORD[u.role].toLowerCase()}.`,
+        submitLabel: 'Activate',
+        done: `${u.name} can sign in again.`,
+        danger: false,
+      }
     : {
         patch: { active },
         title: `Deactivate ${u.name}`,
@@ -201,7 +208,14 @@ function userColumns(meId: number, ask: (u: UserAccount, change: PendingChange) 
             <label className="sr-only" htmlFor={`role-${u.id}`}>
               Role of {u.name}
             </label>
-            <Select id={`role-${u.id}`} value={u.role} disabled={self} title={self ? 'You cannot change your own role' : undefined} onChange={(e) => ask(u, roleChange(u, e.target.value as Role))} className="w-40">
+            <Select
+              id={`role-${u.id}`}
+              value={u.role}
+              disabled={self}
+              title={self ? 'You cannot change your own role' : undefined}
+              onChange={(e) => ask(u, roleChange(u, e.target.value as Role))}
+              className="w-40"
+            >
               {ROLES.map((r) => (
                 <option key={r} value={r}>
                   {ROLE_WORD[r]}
@@ -213,7 +227,13 @@ function userColumns(meId: number, ask: (u: UserAccount, change: PendingChange) 
       },
     },
     { id: 'state', header: 'State', enableSorting: false, cell: ({ row: { original: u } }) => <AccountState u={u} /> },
-    { id: 'created', accessorFn: (u) => u.createdAt, header: 'Since', meta: { className: 'whitespace-nowrap text-xs text-stone-700' }, cell: ({ row: { original: u } }) => formatDateTime(u.createdAt) },
+    {
+      id: 'created',
+      accessorFn: (u) => u.createdAt,
+      header: 'Since',
+      meta: { className: 'whitespace-nowrap text-xs text-stone-700' },
+      cell: ({ row: { original: u } }) => formatDateTime(u.createdAt),
+    },
     {
       id: 'actions',
       header: () => <span className="sr-only">Actions</span>,
@@ -256,7 +276,12 @@ export function UsersPage({ meId }: { meId: number }) {
         <p className="text-sm text-stone-600">A role change or a deactivation ends the person’s open sessions at once.</p>
       </div>
       <InviteForm />
-      <form role="search" aria-label="Filter the users" className="grid grid-cols-1 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-[2fr_1fr_auto]" onSubmit={(e) => e.preventDefault()}>
+      <form
+        role="search"
+        aria-label="Filter the users"
+        className="grid grid-cols-1 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-[2fr_1fr_auto]"
+        onSubmit={(e) => e.preventDefault()}
+      >
         <Field label="Search names and addresses">
           {(p) => (
             <TextInput

@@ -4,7 +4,11 @@ import type { AuditFilter, PageRequest } from '../../../budget/query-keys';
 
 /** Every action the server records, grouped by what it concerns. */
 export const AUDIT_ACTIONS: { group: string; label: string; actions: string[] }[] = [
-  { group: 'budget', label: 'Budgets', actions: ['budget.created', 'budget.imported', 'budget.version_saved', 'budget.cloned', 'budget.submitted', 'budget.approved', 'budget.returned', 'budget.template_changed'] },
+  {
+    group: 'budget',
+    label: 'Budgets',
+    actions: ['budget.created', 'budget.imported', 'budget.version_saved', 'budget.cloned', 'budget.submitted', 'budget.approved', 'budget.returned', 'budget.template_changed'],
+  },
   { group: 'comment', label: 'Comments', actions: ['comment.created', 'comment.resolved', 'comment.reopened'] },
   { group: 'attachment', label: 'Attachments', actions: ['attachment.added'] },
   { group: 'user', label: 'Users', actions: ['user.created', 'user.invited', 'user.updated', 'user.password_reset_requested', 'user.password_set'] },

@@ -89,16 +89,17 @@ export function AuditPage() {
           <h1 className="text-2xl font-semibold tracking-tight">Audit trail</h1>
           <p className="text-sm text-stone-600">Every change to budgets, reviews and accounts, newest first unless you sort by time. Entries cannot be edited or deleted.</p>
         </div>
-        <a
-          href={auditCsvUrl(filter)}
-          download="dubito-audit.csv"
-          className="inline-flex items-center gap-1.5 rounded-md bg-accent-600 px-3 py-1.5 text-sm font-medium text-white hover:bg-accent-700"
-        >
+        <a href={auditCsvUrl(filter)} download="dubito-audit.csv" className="inline-flex items-center gap-1.5 rounded-md bg-accent-600 px-3 py-1.5 text-sm font-medium text-white hover:bg-accent-700">
           Export CSV
         </a>
       </div>
 
-      <form role="search" aria-label="Filter the audit trail" className="grid grid-cols-1 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-2 lg:grid-cols-[2fr_1.5fr_1.5fr_1fr_1fr_auto]" onSubmit={(e) => e.preventDefault()}>
+      <form
+        role="search"
+        aria-label="Filter the audit trail"
+        className="grid grid-cols-1 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-2 lg:grid-cols-[2fr_1.5fr_1.5fr_1fr_1fr_auto]"
+        onSubmit={(e) => e.preventDefault()}
+      >
         <Field label="Budget">
           {(p) => (
             <Select {...p} value={filter.budget ?? ''} onChange={(e) => set({ budget: e.target.value || undefined })}>
@@ -140,9 +141,7 @@ export function AuditPage() {
             </Select>
           )}
         </Field>
-        <Field label="From">
-          {(p) => <TextInput {...p} type="datetime-local" value={toLocalInput(filter.from)} onChange={(e) => set({ from: fromLocalInput(e.target.value)?.toString() })} />}
-        </Field>
+        <Field label="From">{(p) => <TextInput {...p} type="datetime-local" value={toLocalInput(filter.from)} onChange={(e) => set({ from: fromLocalInput(e.target.value)?.toString() })} />}</Field>
         <Field label="To" error={rangeError}>
           {(p) => <TextInput {...p} type="datetime-local" value={toLocalInput(filter.to)} onChange={(e) => set({ to: fromLocalInput(e.target.value)?.toString() })} />}
         </Field>

@@ -96,9 +96,7 @@ export function SetPasswordPage({ mode }: { mode: 'invitation' | 'reset' }) {
           {(p) => <input {...p} {...register('repeat')} type="password" autoComplete="new-password" className={inputClass} />}
         </Field>
         {complete.error ? (
-          <FormError>
-            {complete.error instanceof ApiError && complete.error.code === 'invalid_token' ? 'This link is no longer valid. Ask for a new one.' : errorMessage(complete.error)}
-          </FormError>
+          <FormError>{complete.error instanceof ApiError && complete.error.code === 'invalid_token' ? 'This link is no longer valid. Ask for a new one.' : errorMessage(complete.error)}</FormError>
         ) : null}
         <SubmitButton pending={complete.isPending} pendingLabel="Saving…">
           Save password
@@ -125,19 +123,13 @@ export function ForgotPasswordPage() {
   }
   return (
     <Frame title="Forgot your password?">
-      <form
-        noValidate
-        className="flex flex-col gap-4"
-        onSubmit={handleSubmit(({ email }) => reset.mutate(email.trim()))}
-      >
+      <form noValidate className="flex flex-col gap-4" onSubmit={handleSubmit(({ email }) => reset.mutate(email.trim()))}>
         <p className="text-sm text-stone-700">Enter the address of your account; Dubito mails you a link to choose a new password.</p>
         <Field label="E-mail address" error={formState.errors.email?.message}>
           {(p) => <input {...p} {...register('email')} type="email" autoComplete="username" className={inputClass} autoFocus />}
         </Field>
         {reset.error ? (
-          <FormError>
-            {reset.error instanceof ApiError && reset.error.status === 429 ? 'Too many requests. Wait a few minutes and try again.' : errorMessage(reset.error)}
-          </FormError>
+          <FormError>{reset.error instanceof ApiError && reset.error.status === 429 ? 'Too many requests. Wait a few minutes and try again.' : errorMessage(reset.error)}</FormError>
         ) : null}
         <SubmitButton pending={reset.isPending} pendingLabel="Sending…">
           Send reset link

@@ -47,8 +47,7 @@ export function SignInPage() {
           </div>
           <p className="num text-xs leading-relaxed text-stone-300">
             U = k · u<sub>c</sub>(y)
-            <br />
-            u<sub>c</sub>²(y) = Σ c<sub>i</sub>² u²(x<sub>i</sub>)
+            <br />u<sub>c</sub>²(y) = Σ c<sub>i</sub>² u²(x<sub>i</sub>)
           </p>
         </section>
         <form onSubmit={submit} noValidate className="flex flex-col gap-4 p-8" aria-labelledby="signin-title">
@@ -61,9 +60,7 @@ export function SignInPage() {
           <Field label="Password" error={formState.errors.password?.message}>
             {(p) => <input {...p} {...register('password')} type="password" autoComplete="current-password" className={inputClass} />}
           </Field>
-          {serverError ? (
-            <FormError>{serverError}</FormError>
-          ) : null}
+          {serverError ? <FormError>{serverError}</FormError> : null}
           <SubmitButton pending={signIn.isPending} pendingLabel="Signing in…">
             Sign in
           </SubmitButton>

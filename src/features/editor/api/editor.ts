@@ -15,9 +15,7 @@ export function useBudgetVersion(id: number | undefined, n: number | undefined) 
   return useQuery({ ...versionQuery(id ?? 0, n ?? 0), enabled: id !== undefined && n !== undefined });
 }
 
-export type SaveInput =
-  | { kind: 'create'; document: BudgetDocument; note: string }
-  | { kind: 'update'; id: number; baseVersion: number; document: BudgetDocument; note: string };
+export type SaveInput = { kind: 'create'; document: BudgetDocument; note: string } | { kind: 'update'; id: number; baseVersion: number; document: BudgetDocument; note: string };
 
 export interface SaveOutput {
   id: number;

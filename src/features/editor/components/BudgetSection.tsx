@@ -51,7 +51,9 @@ export function ResultStrip({ model }: { model: ResultModel }) {
       <span className="num font-semibold">
         {model.measurand.symbol} = {model.reported.estimate.text} {model.measurand.unit.text}
       </span>
-      <span className="num">U = {model.reported.expandedUncertainty.text} {model.measurand.unit.text}</span>
+      <span className="num">
+        U = {model.reported.expandedUncertainty.text} {model.measurand.unit.text}
+      </span>
       {model.reported.coverageFactor ? <span className="num text-stone-700">k = {model.reported.coverageFactor.text}</span> : null}
     </div>
   );

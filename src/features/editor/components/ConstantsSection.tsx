@@ -45,10 +45,18 @@ export function ConstantsSection({
         <caption className="sr-only">Constants of the model</caption>
         <thead className="text-xs text-stone-600">
           <tr>
-            <th scope="col" className="py-1 pr-3 font-medium">Symbol</th>
-            <th scope="col" className="py-1 pr-3 text-right font-medium">Value</th>
-            <th scope="col" className="py-1 pr-3 font-medium">Unit</th>
-            <th scope="col" className="py-1 font-medium">Description</th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              Symbol
+            </th>
+            <th scope="col" className="py-1 pr-3 text-right font-medium">
+              Value
+            </th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              Unit
+            </th>
+            <th scope="col" className="py-1 font-medium">
+              Description
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -81,9 +89,7 @@ export function ConstantsSection({
             <Field label="Unit" error={problemAt(problems, `constants[${i}].unit`)}>
               {(p) => <TextInput {...p} className="num" value={c.unit ?? ''} onChange={(e) => set(i, { ...c, unit: e.target.value || undefined })} />}
             </Field>
-            <Field label="Description">
-              {(p) => <TextInput {...p} value={c.description ?? ''} onChange={(e) => set(i, { ...c, description: e.target.value || undefined })} />}
-            </Field>
+            <Field label="Description">{(p) => <TextInput {...p} value={c.description ?? ''} onChange={(e) => set(i, { ...c, description: e.target.value || undefined })} />}</Field>
             <Button size="sm" variant="ghost" className="mt-5" onClick={() => remove(i)} aria-label={`Remove constant ${c.symbol}`}>
               Remove
             </Button>
@@ -104,7 +110,9 @@ export function ConstantsSection({
                 <th className="px-2 py-1.5">Value</th>
                 <th className="px-2 py-1.5">u</th>
                 <th className="px-2 py-1.5">Source</th>
-                <th className="px-2 py-1.5"><span className="sr-only">Add</span></th>
+                <th className="px-2 py-1.5">
+                  <span className="sr-only">Add</span>
+                </th>
               </tr>
             </thead>
             <tbody>

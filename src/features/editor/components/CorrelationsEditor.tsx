@@ -37,9 +37,15 @@ export function CorrelationsEditor({
         <caption className="sr-only">Correlation coefficients between inputs</caption>
         <thead className="text-xs text-stone-600">
           <tr>
-            <th scope="col" className="py-1 pr-3 font-medium">Input</th>
-            <th scope="col" className="py-1 pr-3 font-medium">with</th>
-            <th scope="col" className="py-1 text-right font-medium">r</th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              Input
+            </th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              with
+            </th>
+            <th scope="col" className="py-1 text-right font-medium">
+              r
+            </th>
           </tr>
         </thead>
         <tbody>

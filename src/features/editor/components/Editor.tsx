@@ -70,7 +70,13 @@ export function Editor({
 
   const explanation = useMemo(() => {
     if (!selection || !live.result) return null;
-    if (selection.type === 'result') return explainResult(live.result, selection.item, doc.model, (doc.correlations ?? []).some((c) => c.r !== 0));
+    if (selection.type === 'result')
+      return explainResult(
+        live.result,
+        selection.item,
+        doc.model,
+        (doc.correlations ?? []).some((c) => c.r !== 0),
+      );
     const q = doc.inputs.find((x) => x.symbol === selection.symbol);
     return q ? explainInput(live.result, q, live.result.measurand.unit) : null;
   }, [selection, live.result, doc]);
@@ -154,13 +160,7 @@ export function Editor({
           </Section>
         </div>
 
-        <BudgetSection
-          model={model}
-          generalProblems={generalProblems(live.problems)}
-          selected={selectedSymbol}
-          onSelect={selectInput}
-          adornment={slotProps ? slots.renderRowAdornment : undefined}
-        />
+        <BudgetSection model={model} generalProblems={generalProblems(live.problems)} selected={selectedSymbol} onSelect={selectInput} adornment={slotProps ? slots.renderRowAdornment : undefined} />
 
         {renderMonteCarlo({
           document: live.valid,

@@ -44,7 +44,11 @@ export function ReadOnlyNotice({
     case 'past-version':
       return (
         <p className="rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm text-stone-800">
-          You are looking at version {version}, read-only. <Link to={`/budgets/${budgetId}`} className="font-medium text-accent-700 underline">Open the current version</Link>.
+          You are looking at version {version}, read-only.{' '}
+          <Link to={`/budgets/${budgetId}`} className="font-medium text-accent-700 underline">
+            Open the current version
+          </Link>
+          .
         </p>
       );
     case 'in-review':
@@ -56,7 +60,11 @@ export function ReadOnlyNotice({
         </p>
       );
     case 'not-yours':
-      return <p className="rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm text-stone-800">Read-only: only the owner{trainee ? ' (and only while it is a draft)' : ''} can change this budget.</p>;
+      return (
+        <p className="rounded-md border border-stone-300 bg-stone-100 px-3 py-2 text-sm text-stone-800">
+          Read-only: only the owner{trainee ? ' (and only while it is a draft)' : ''} can change this budget.
+        </p>
+      );
     default:
       return null;
   }

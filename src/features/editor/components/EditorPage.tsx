@@ -38,7 +38,9 @@ export function EditorPage({
     const e = budget.error ?? version.error;
     return (
       <div className="mx-auto max-w-xl p-8">
-        <ErrorNote heading title={e instanceof ApiError && e.status === 404 ? 'No such budget or version' : 'The budget could not be loaded'}>{errorMessage(e)}</ErrorNote>
+        <ErrorNote heading title={e instanceof ApiError && e.status === 404 ? 'No such budget or version' : 'The budget could not be loaded'}>
+          {errorMessage(e)}
+        </ErrorNote>
         <Link to="/budgets" className="mt-3 inline-block text-sm text-accent-700 underline">
           Back to the budgets
         </Link>
@@ -46,7 +48,12 @@ export function EditorPage({
     );
   }
   const viewingOld = versionNumber !== undefined && loaded && versionNumber !== loaded.currentVersion;
-  const start = viewingOld && version.data ? { document: version.data.document, result: version.data.result, version: version.data.number } : loaded ? { document: loaded.document, result: loaded.result, version: loaded.currentVersion } : null;
+  const start =
+    viewingOld && version.data
+      ? { document: version.data.document, result: version.data.result, version: version.data.number }
+      : loaded
+        ? { document: loaded.document, result: loaded.result, version: loaded.currentVersion }
+        : null;
   const shown = viewingOld && version.data ? version.data : (loaded?.version ?? null);
   return <Editor me={me} budgetId={budgetId} view={loaded ?? null} shown={shown} start={start} viewingOld={!!viewingOld} renderMonteCarlo={renderMonteCarlo} slots={slots ?? {}} />;
 }

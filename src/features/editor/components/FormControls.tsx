@@ -40,14 +40,7 @@ export function NumberField({
   }
   return (
     <Field label={label} error={fieldState.error?.message ?? draft.errorAt(path)} hint={hint}>
-      {(fp) => (
-        <NumberInput
-          {...fp}
-          aria-required={required}
-          value={shown}
-          onValue={(v) => draft.setDistribution({ [name]: v === undefined || shownTimes === 1 ? v : v / shownTimes })}
-        />
-      )}
+      {(fp) => <NumberInput {...fp} aria-required={required} value={shown} onValue={(v) => draft.setDistribution({ [name]: v === undefined || shownTimes === 1 ? v : v / shownTimes })} />}
     </Field>
   );
 }

@@ -119,10 +119,7 @@ export function InputsList({
   selectedSymbol?: string;
   onAdd(): void;
 }) {
-  const sensors = useSensors(
-    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
+  const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 4 } }), useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }));
   const onDragEnd = (e: DragEndEvent) => {
     if (!e.over || e.active.id === e.over.id) return;
     const from = items.findIndex((i) => i.key === e.active.id);
@@ -145,9 +142,14 @@ export function InputsList({
     const symbol = item.input.symbol || 'the input';
     const d = item.input.distribution;
     const readings = d.kind === 'observations' && Array.isArray(d.values) && d.values.length ? ` with its ${d.values.length} observations` : '';
-    onItems(items.filter((x) => x.key !== item.key), `Removed ${symbol}.`);
+    onItems(
+      items.filter((x) => x.key !== item.key),
+      `Removed ${symbol}.`,
+    );
     focusRow(index);
-    toast(`Removed input ${symbol}${readings}.`, 'info', { label: 'Undo', run: () => {
+    toast(`Removed input ${symbol}${readings}.`, 'info', {
+      label: 'Undo',
+      run: () => {
         if (latest.current.some((x) => x.key === item.key)) return;
         onItems(restoreAt(latest.current, item, index), `Restored ${symbol}.`);
         focusRow(index);

@@ -30,14 +30,7 @@ export function KindFields({ draft, way, onWay, canUpload }: { draft: InputDraft
   return (
     <>
       {form.ways.length > 1 ? (
-        <Choice
-          label="Given as"
-          value={current.id}
-          onChoose={onWay}
-          options={form.ways.map((w) => [w.id, w.label] as const)}
-          readOnly={draft.readOnly}
-          className="md:col-span-3"
-        />
+        <Choice label="Given as" value={current.id} onChoose={onWay} options={form.ways.map((w) => [w.id, w.label] as const)} readOnly={draft.readOnly} className="md:col-span-3" />
       ) : null}
       {(current.fields as readonly KindFormField<DistributionKind>[]).map(field)}
     </>

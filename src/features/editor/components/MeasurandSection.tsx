@@ -15,10 +15,16 @@ export function MeasurandSection({ doc, setDoc, problems, readOnly }: { doc: Bud
     <Section id="measurand" title="Measurand" description="The quantity the budget determines.">
       {readOnly ? (
         <ReadOnlyList className="md:grid-cols-[8rem_8rem_1fr_9rem]">
-          <ReadOnlyField label="Symbol" numeric>{doc.measurand.symbol}</ReadOnlyField>
-          <ReadOnlyField label="Unit" numeric>{formatUnit(doc.measurand.unit) || 'dimensionless'}</ReadOnlyField>
+          <ReadOnlyField label="Symbol" numeric>
+            {doc.measurand.symbol}
+          </ReadOnlyField>
+          <ReadOnlyField label="Unit" numeric>
+            {formatUnit(doc.measurand.unit) || 'dimensionless'}
+          </ReadOnlyField>
           <ReadOnlyField label="Description">{doc.measurand.description}</ReadOnlyField>
-          <ReadOnlyField label="Coverage probability p" numeric>{givenNumber(doc.coverageProbability ?? 0.95)}</ReadOnlyField>
+          <ReadOnlyField label="Coverage probability p" numeric>
+            {givenNumber(doc.coverageProbability ?? 0.95)}
+          </ReadOnlyField>
         </ReadOnlyList>
       ) : (
         <div className="grid gap-3 md:grid-cols-[8rem_8rem_1fr_9rem]">

@@ -14,7 +14,7 @@ function typesetExpression(text: string): ReactNode[] {
   let i = 0;
   while ((m = re.exec(text))) {
     const [tok, ident, power, number, times, minus, space] = m;
-    if (ident) out.push(ident === 'sqrt' ? '√' : FUNCTIONS.has(ident) || ident === 'pi' ? (ident === 'pi' ? 'π' : ident) : <Sym key={i} s={ident} />);
+    if (ident) out.push(ident === 'sqrt' ? '√' : FUNCTIONS.has(ident) || ident === 'pi' ? ident === 'pi' ? 'π' : ident : <Sym key={i} s={ident} />);
     else if (power) out.push(superscript(power.replace(/[\^\s()]/g, '')));
     else if (number) out.push(number);
     else if (times) out.push(' · ');
@@ -32,16 +32,26 @@ function typesetExpression(text: string): ReactNode[] {
  */
 function TypesetModel({ lines, values }: { lines: string[]; values: Record<string, string> }) {
   return (
-    <div aria-label="The model typeset, with the value of each quantity" role="group" className="hidden min-w-0 border-l border-stone-200 bg-stone-50 px-3 py-2 text-sm leading-6 text-stone-800 md:block md:w-[44%]">
+    <div
+      aria-label="The model typeset, with the value of each quantity"
+      role="group"
+      className="hidden min-w-0 border-l border-stone-200 bg-stone-50 px-3 py-2 text-sm leading-6 text-stone-800 md:block md:w-[44%]"
+    >
       {lines.map((line, i) => {
         const code = line.replace(/#.*$/, '').trim();
         const eq = /^([A-Za-z][A-Za-z0-9_]*)\s*=\s*(.+)$/.exec(code);
-        if (!eq) return <div key={i} className="truncate text-stone-400">{line.trim().startsWith('#') ? line.trim() : '\u00a0'}</div>;
+        if (!eq)
+          return (
+            <div key={i} className="truncate text-stone-400">
+              {line.trim().startsWith('#') ? line.trim() : '\u00a0'}
+            </div>
+          );
         const value = values[eq[1]];
         return (
           <div key={i} className="flex items-baseline gap-2 whitespace-nowrap">
             <span className="min-w-0 truncate">
-              <Sym s={eq[1]} /> = {typesetExpression(eq[2]).map((n, j) => (
+              <Sym s={eq[1]} /> ={' '}
+              {typesetExpression(eq[2]).map((n, j) => (
                 <Fragment key={j}>{n}</Fragment>
               ))}
             </span>
@@ -107,9 +117,7 @@ export function ModelEditor({
       <label htmlFor={id} className="text-xs font-medium text-stone-700">
         Model equation(s) <span className="font-normal text-stone-600">— one “name = expression” per line; the last line gives the measurand; # starts a comment</span>
       </label>
-      <div
-        className={`relative flex overflow-hidden rounded-md border bg-white focus-within:outline-2 focus-within:outline-accent-600 ${problem ? 'border-caution-500' : 'border-stone-300'}`}
-      >
+      <div className={`relative flex overflow-hidden rounded-md border bg-white focus-within:outline-2 focus-within:outline-accent-600 ${problem ? 'border-caution-500' : 'border-stone-300'}`}>
         <div ref={gutter} aria-hidden className="num select-none overflow-hidden border-r border-stone-200 bg-stone-50 px-2 py-2 text-right text-sm leading-6 text-stone-500">
           {Array.from({ length: rows }, (_, i) => (
             <div key={i} className={i + 1 === errLine ? 'font-semibold text-caution-700' : ''}>
@@ -152,14 +160,18 @@ export function ModelEditor({
         <p id={`${id}-err`} role="alert" className="rounded-md bg-caution-50 px-2 py-1 text-sm text-caution-700">
           <span className="font-semibold">
             {errLine ? `Line ${errLine}${column ? `, column ${column}` : ''}` : 'Model'}
-            {token ? <> at “<span className="num">{token}</span>”</> : null}:
+            {token ? (
+              <>
+                {' '}
+                at “<span className="num">{token}</span>”
+              </>
+            ) : null}
+            :
           </span>{' '}
           {plainMessage(problem)}
         </p>
       ) : (
-        <p className="text-xs text-stone-600">
-          Allowed: + − * / ^, parentheses, numbers, pi, e, and sqrt exp log log10 sin cos tan asin acos atan atan2 abs min max.
-        </p>
+        <p className="text-xs text-stone-600">Allowed: + − * / ^, parentheses, numbers, pi, e, and sqrt exp log log10 sin cos tan asin acos atan atan2 abs min max.</p>
       )}
     </div>
   );

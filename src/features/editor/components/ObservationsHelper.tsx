@@ -172,7 +172,11 @@ export function ObservationsHelper({
               <Button size="sm" onClick={() => fileRef.current?.click()} disabled={send.isPending}>
                 {send.isPending ? 'Reading…' : 'Upload CSV…'}
               </Button>
-              {send.isError && !upload ? <span role="alert" className="text-xs text-caution-700">{errorMessage(send.error)}</span> : null}
+              {send.isError && !upload ? (
+                <span role="alert" className="text-xs text-caution-700">
+                  {errorMessage(send.error)}
+                </span>
+              ) : null}
             </div>
           ) : null}
           {upload ? (

@@ -16,13 +16,24 @@ export function RecordFields({ doc, readOnly, onChange }: { doc: Record; readOnl
   const [equipment, setEquipment] = useState(() => listText(doc.equipment));
   useEffect(() => {
     // eslint-disable-next-line react-hooks/set-state-in-effect -- the typed list follows the document changed from outside, and keeps a trailing comma while typing
-    setEquipment((text) => (listText(text.split(',').map((s) => s.trim()).filter(Boolean)) === listText(doc.equipment) ? text : listText(doc.equipment)));
+    setEquipment((text) =>
+      listText(
+        text
+          .split(',')
+          .map((s) => s.trim())
+          .filter(Boolean),
+      ) === listText(doc.equipment)
+        ? text
+        : listText(doc.equipment),
+    );
   }, [doc.equipment]);
   if (readOnly) {
     return (
       <ReadOnlyList className="mt-3 border-t border-stone-200 pt-3 md:grid-cols-3">
         <ReadOnlyField label="Procedure">{doc.procedure}</ReadOnlyField>
-        <ReadOnlyField label="Equipment used" numeric>{listText(doc.equipment)}</ReadOnlyField>
+        <ReadOnlyField label="Equipment used" numeric>
+          {listText(doc.equipment)}
+        </ReadOnlyField>
         <ReadOnlyField label="Environmental conditions">{doc.environment}</ReadOnlyField>
       </ReadOnlyList>
     );
@@ -40,7 +51,10 @@ export function RecordFields({ doc, readOnly, onChange }: { doc: Record; readOnl
             value={equipment}
             onChange={(e) => {
               setEquipment(e.target.value);
-              const items = e.target.value.split(',').map((s) => s.trim()).filter(Boolean);
+              const items = e.target.value
+                .split(',')
+                .map((s) => s.trim())
+                .filter(Boolean);
               onChange({ equipment: items.length ? items : undefined });
             }}
           />

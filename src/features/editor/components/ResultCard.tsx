@@ -24,9 +24,7 @@ export function ResultCard({
     return (
       <section aria-label="Result" className="rounded-lg border border-caution-500 bg-white p-4">
         <h2 className="text-sm font-semibold text-stone-800">Result</h2>
-        <p className="mt-2 text-sm text-caution-700">
-          ⚠ {problemsCount === 1 ? 'One problem stops' : `${problemsCount} problems stop`} the computation. Each is shown beside its field.
-        </p>
+        <p className="mt-2 text-sm text-caution-700">⚠ {problemsCount === 1 ? 'One problem stops' : `${problemsCount} problems stop`} the computation. Each is shown beside its field.</p>
       </section>
     );
   }
@@ -34,8 +32,25 @@ export function ResultCard({
   const u = model.measurand.unit.text;
   const items: { key: Item; label: React.ReactNode; figure: Figure; unit?: string }[] = [
     { key: 'y', label: <Sym s={model.measurand.symbol} />, figure: f.estimate, unit: u },
-    { key: 'uc', label: <>u<sub>c</sub></>, figure: f.standardUncertainty, unit: u },
-    { key: 'nu', label: <>ν<sub>eff</sub></>, figure: f.effectiveDof },
+    {
+      key: 'uc',
+      label: (
+        <>
+          u<sub>c</sub>
+        </>
+      ),
+      figure: f.standardUncertainty,
+      unit: u,
+    },
+    {
+      key: 'nu',
+      label: (
+        <>
+          ν<sub>eff</sub>
+        </>
+      ),
+      figure: f.effectiveDof,
+    },
     ...(f.coverageFactor ? [{ key: 'k' as const, label: 'k', figure: f.coverageFactor }] : []),
     { key: 'U', label: 'U', figure: f.expandedUncertainty, unit: u },
   ];
@@ -79,7 +94,13 @@ export function ResultCard({
       {move && delta !== 0 ? (
         <p className="mt-2 text-xs text-stone-700">
           Your last edit {delta > 0 ? 'raised' : 'lowered'} U by <span className="num">{uncertainty(Math.abs(delta)).text}</span> {u}
-          {move.from !== 0 ? <> (<span className="num">{relativeChange(delta / move.from).text}</span>)</> : null}.
+          {move.from !== 0 ? (
+            <>
+              {' '}
+              (<span className="num">{relativeChange(delta / move.from).text}</span>)
+            </>
+          ) : null}
+          .
         </p>
       ) : null}
       <div className="mt-3 rounded-md bg-stone-50 p-2">

@@ -8,21 +8,7 @@ import { formatDateTime } from '../../../app/ui/numbers';
 import { versionQuery as budgetVersionQuery, versionListQuery as editorVersionsQuery } from '../../../budget/queries';
 import { NOTE_MAX_LENGTH, noteProblem, noteToSave } from '../save-note';
 
-export function SaveDialog({
-  open,
-  onClose,
-  onSave,
-  saving,
-  isNew,
-  error,
-}: {
-  open: boolean;
-  onClose(): void;
-  onSave(note: string): void;
-  saving: boolean;
-  isNew: boolean;
-  error: string | null;
-}) {
+export function SaveDialog({ open, onClose, onSave, saving, isNew, error }: { open: boolean; onClose(): void; onSave(note: string): void; saving: boolean; isNew: boolean; error: string | null }) {
   const [note, setNote] = useState('');
   // said from the first try to save on, and again at each change after it
   const [tried, setTried] = useState(false);
@@ -98,8 +84,8 @@ export function ConflictDialog({
   return (
     <Modal open onClose={onClose} title="Someone saved this budget meanwhile" wide>
       <p className="text-sm text-stone-700">
-        You started from version {baseVersion}; the budget is now at version {currentVersion}. Your changes are still here and kept in this browser. Choose, for each
-        change made meanwhile, whether it stays; then save the result as version {currentVersion + 1}.
+        You started from version {baseVersion}; the budget is now at version {currentVersion}. Your changes are still here and kept in this browser. Choose, for each change made meanwhile, whether it
+        stays; then save the result as version {currentVersion + 1}.
       </p>
       {versions.isPending ? (
         <Spinner label="Loading the newer versions" />
@@ -126,10 +112,18 @@ export function ConflictDialog({
             <caption className="sr-only">Changes made in the newer version, with your value and the choice to keep or drop each</caption>
             <thead className="sticky top-0 border-b border-stone-200 bg-stone-50 text-xs text-stone-700">
               <tr>
-                <th scope="col" className="px-2 py-1.5 font-semibold">Changed meanwhile</th>
-                <th scope="col" className="px-2 py-1.5 font-semibold">Theirs (v{currentVersion})</th>
-                <th scope="col" className="px-2 py-1.5 font-semibold">Yours</th>
-                <th scope="col" className="px-2 py-1.5 font-semibold">Keep</th>
+                <th scope="col" className="px-2 py-1.5 font-semibold">
+                  Changed meanwhile
+                </th>
+                <th scope="col" className="px-2 py-1.5 font-semibold">
+                  Theirs (v{currentVersion})
+                </th>
+                <th scope="col" className="px-2 py-1.5 font-semibold">
+                  Yours
+                </th>
+                <th scope="col" className="px-2 py-1.5 font-semibold">
+                  Keep
+                </th>
               </tr>
             </thead>
             <tbody>

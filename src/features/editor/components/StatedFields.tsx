@@ -11,10 +11,10 @@ import type { InputDraft } from './input-draft';
 const STATED_CHOICES = [
   ['', 'not recorded'],
   ['certificate', 'a calibration certificate'],
-  ['specification', 'a manufacturer\'s specification'],
+  ['specification', "a manufacturer's specification"],
   ['tolerance', 'a tolerance'],
   ['observations', 'repeated observations'],
-  ['estimate', 'the laboratory\'s own estimate'],
+  ['estimate', "the laboratory's own estimate"],
 ] as const satisfies readonly (readonly [StatedAs | '', string])[];
 
 /** The statement as the engine reads it, with its divisor and u, or null while the draft cannot be treated. */
@@ -61,8 +61,7 @@ export function StatedFields({ draft, way }: { draft: InputDraft; way: string })
   }
   // the uncertainty unit applies where the way's fields state an uncertainty, or an uncertainty field is given (a pooled s)
   const current = rule.form.ways.find((w) => w.id === way) ?? rule.form.ways[0];
-  const takesUncertaintyUnit =
-    current.fields.some((f) => f.unit === 'uncertainty') || (rule.uncertaintyFields as readonly string[]).some((n) => d[n] !== undefined);
+  const takesUncertaintyUnit = current.fields.some((f) => f.unit === 'uncertainty') || (rule.uncertaintyFields as readonly string[]).some((n) => d[n] !== undefined);
   const setStatedAs = (as: StatedAs | '') => draft.setDistribution(as ? { stated: { ...(d.stated ?? {}), as } } : { stated: undefined });
   return (
     <fieldset className="grid gap-3 rounded-md border border-stone-200 p-3 md:grid-cols-3">
@@ -80,14 +79,7 @@ export function StatedFields({ draft, way }: { draft: InputDraft; way: string })
         />
       )}
       <Field label="Source" error={draft.errorAt('distribution.stated.source')} hint={statedAs ? 'e.g. the certificate number' : 'choose how it was stated first'}>
-        {(fp) => (
-          <TextInput
-            {...fp}
-            value={d.stated?.source ?? ''}
-            disabled={!statedAs}
-            onChange={(e) => draft.setDistribution({ stated: { ...d.stated, source: e.target.value || undefined } })}
-          />
-        )}
+        {(fp) => <TextInput {...fp} value={d.stated?.source ?? ''} disabled={!statedAs} onChange={(e) => draft.setDistribution({ stated: { ...d.stated, source: e.target.value || undefined } })} />}
       </Field>
       {takesUncertaintyUnit ? (
         <Field
@@ -95,9 +87,7 @@ export function StatedFields({ draft, way }: { draft: InputDraft; way: string })
           error={draft.errorAt('distribution.uncertaintyUnit')}
           hint={d.uncertaintyUnit ? `shown as ${draft.uncertaintyUnit}; %, ppm, ppb are relative to the value` : 'empty = the unit of the value; e.g. mK, um, ppm'}
         >
-          {(fp) => (
-            <TextInput {...fp} className="num" value={d.uncertaintyUnit ?? ''} onChange={(e) => draft.setDistribution({ uncertaintyUnit: e.target.value || undefined })} />
-          )}
+          {(fp) => <TextInput {...fp} className="num" value={d.uncertaintyUnit ?? ''} onChange={(e) => draft.setDistribution({ uncertaintyUnit: e.target.value || undefined })} />}
         </Field>
       ) : null}
       {note ? <p className="num text-xs text-stone-700 md:col-span-3">{note}</p> : null}

@@ -96,7 +96,9 @@ export function EvidencePanel({ ctx, onNewVersion }: { ctx: EvidenceContext; onN
                   setFile(null);
                   setSymbol('');
                   if (fileRef.current) fileRef.current.value = '';
-                  toast(a.newVersion ? `${a.fileName} attached; version ${a.versionNumber} is a new draft, the approved version is unchanged.` : `${a.fileName} attached to version ${a.versionNumber}.`);
+                  toast(
+                    a.newVersion ? `${a.fileName} attached; version ${a.versionNumber} is a new draft, the approved version is unchanged.` : `${a.fileName} attached to version ${a.versionNumber}.`,
+                  );
                   if (a.newVersion) onNewVersion(a);
                 },
                 onError: (err) => setError(errorMessage(err)),

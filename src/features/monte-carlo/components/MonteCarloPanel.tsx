@@ -20,7 +20,11 @@ const seconds = (ms: number): string => duration(ms).text;
 export function Verdict({ view }: { view: VerdictView | null }) {
   if (!view) return null;
   const tone =
-    view.tone === 'good' ? 'border-accent-600 bg-accent-50 text-accent-700' : view.tone === 'warning' ? 'border-caution-500 bg-caution-50 text-caution-700' : 'border-stone-300 bg-white text-stone-800';
+    view.tone === 'good'
+      ? 'border-accent-600 bg-accent-50 text-accent-700'
+      : view.tone === 'warning'
+        ? 'border-caution-500 bg-caution-50 text-caution-700'
+        : 'border-stone-300 bg-white text-stone-800';
   return (
     <p className={`rounded-md border px-3 py-2 text-sm ${tone}`} data-testid="mc-verdict">
       <span className="font-semibold">
@@ -148,8 +152,8 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
 
       {cap !== null ? (
         <p className="mt-2 text-xs text-stone-600">
-          A saved version stores at most <span className="num">{formatCount(cap)}</span> trials, computed on the server with this seed: the browser runs with the same cap, so the
-          stored result is the one seen here.
+          A saved version stores at most <span className="num">{formatCount(cap)}</span> trials, computed on the server with this seed: the browser runs with the same cap, so the stored result is the
+          one seen here.
           {overCap ? (
             <span className="text-caution-700">
               {' '}
@@ -170,7 +174,14 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
             </span>
             <span>{left !== null ? `about ${seconds(left)} left` : 'starting…'}</span>
           </div>
-          <div role="progressbar" aria-label="Monte Carlo progress" aria-valuemin={0} aria-valuemax={state.total} aria-valuenow={state.done} className="mt-1 h-2 overflow-hidden rounded-full bg-stone-200">
+          <div
+            role="progressbar"
+            aria-label="Monte Carlo progress"
+            aria-valuemin={0}
+            aria-valuemax={state.total}
+            aria-valuenow={state.done}
+            className="mt-1 h-2 overflow-hidden rounded-full bg-stone-200"
+          >
             <div className="h-2 rounded-full bg-accent-600 transition-[width]" style={{ width: `${(state.done / Math.max(1, state.total)) * 100}%` }} />
           </div>
         </div>
@@ -190,7 +201,13 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
           </p>
           <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             <div className="rounded-md border border-stone-200 bg-white p-2">
-              <Suspense fallback={<div className="flex h-[300px] items-center justify-center"><Spinner label="Loading the chart" /></div>}>
+              <Suspense
+                fallback={
+                  <div className="flex h-[300px] items-center justify-center">
+                    <Spinner label="Loading the chart" />
+                  </div>
+                }
+              >
                 <HistogramPlot
                   histogram={mc.histogram}
                   trials={mc.trials}

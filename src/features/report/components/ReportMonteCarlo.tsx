@@ -14,7 +14,12 @@ function Histogram({ h, gum, mc, unit, place }: { h: HistogramBins; gum: [number
   const y = (c: number) => H - pad.b - (c / max) * (H - pad.t - pad.b);
   const ticks = [lo, (lo + hi) / 2, hi];
   return (
-    <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label="Histogram of the Monte Carlo values with the GUM interval (dashed) and the Monte Carlo interval (solid); the figures are in the table above">
+    <svg
+      viewBox={`0 0 ${W} ${H}`}
+      className="w-full"
+      role="img"
+      aria-label="Histogram of the Monte Carlo values with the GUM interval (dashed) and the Monte Carlo interval (solid); the figures are in the table above"
+    >
       {h.counts.map((c, i) => {
         const x0 = x(h.start + i * h.width);
         const x1 = x(h.start + (i + 1) * h.width);

@@ -26,7 +26,9 @@ export function ReportPage({ budgetId, versionNumber, renderBudgetTable }: { bud
   if (version.isError || budget.isError || evidence.isError || !model) {
     return (
       <div className="mx-auto max-w-xl p-8">
-        <ErrorNote heading title="The report could not be prepared">{errorMessage(version.error ?? budget.error ?? evidence.error)}</ErrorNote>
+        <ErrorNote heading title="The report could not be prepared">
+          {errorMessage(version.error ?? budget.error ?? evidence.error)}
+        </ErrorNote>
       </div>
     );
   }

@@ -16,7 +16,10 @@ export function ReportResult({ model: m }: { model: ResultModel }) {
         <p className="text-sm leading-relaxed" data-testid="report-statement">
           {m.statement.text}
         </p>
-        <dl className="num mt-2 grid grid-cols-[auto_1fr_auto_1fr] gap-x-3 gap-y-0.5 border-t border-stone-300 pt-1 text-sm sm:grid-cols-[auto_1fr_auto_1fr_auto_1fr] [&_dd]:whitespace-nowrap" data-testid="report-figures">
+        <dl
+          className="num mt-2 grid grid-cols-[auto_1fr_auto_1fr] gap-x-3 gap-y-0.5 border-t border-stone-300 pt-1 text-sm sm:grid-cols-[auto_1fr_auto_1fr_auto_1fr] [&_dd]:whitespace-nowrap"
+          data-testid="report-figures"
+        >
           <Row label={m.measurand.symbol}>{u(f.estimate)}</Row>
           <Row label="u_c">{u(f.standardUncertainty)}</Row>
           <Row label="ν_eff">{f.effectiveDof.text}</Row>
@@ -31,7 +34,9 @@ export function ReportResult({ model: m }: { model: ResultModel }) {
           </p>
         ))}
       </div>
-      {f.secondOrder ? <p className="mt-1 text-xs text-stone-700">With the second-order terms of the Taylor series (GUM 5.1.2, note) the combined standard uncertainty is {u(f.secondOrder)}.</p> : null}
+      {f.secondOrder ? (
+        <p className="mt-1 text-xs text-stone-700">With the second-order terms of the Taylor series (GUM 5.1.2, note) the combined standard uncertainty is {u(f.secondOrder)}.</p>
+      ) : null}
     </section>
   );
 }

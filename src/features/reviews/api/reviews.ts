@@ -27,8 +27,7 @@ export function useAddComment(budgetId: number) {
 export function useResolveComment(budgetId: number) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: { id: number; resolved: boolean }) =>
-      api<Comment>(`/api/budgets/${budgetId}/comments/${input.id}`, { method: 'PATCH', json: { resolved: input.resolved } }),
+    mutationFn: (input: { id: number; resolved: boolean }) => api<Comment>(`/api/budgets/${budgetId}/comments/${input.id}`, { method: 'PATCH', json: { resolved: input.resolved } }),
     onSuccess: () => afterCommentChanged(qc, budgetId),
   });
 }

@@ -59,11 +59,7 @@ export function Thread({ ctx, me, thread, onClose }: { ctx: ReviewContext; me: M
     'Comments on the whole budget'
   );
   return (
-    <section
-      aria-label={symbol ? `Comments on ${symbol}` : 'Comments on the whole budget'}
-      data-testid={symbol ? `thread-${symbol}` : 'thread-budget'}
-      className="flex flex-col gap-2"
-    >
+    <section aria-label={symbol ? `Comments on ${symbol}` : 'Comments on the whole budget'} data-testid={symbol ? `thread-${symbol}` : 'thread-budget'} className="flex flex-col gap-2">
       <div className="flex items-center justify-between gap-2">
         <h3 ref={headingRef} tabIndex={-1} className="text-sm font-semibold text-stone-900">
           {title}

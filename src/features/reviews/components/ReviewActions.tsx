@@ -30,7 +30,8 @@ function ApproveDialog({ ctx, me, onClose }: { ctx: ReviewContext; me: Me; onClo
   const [error, setError] = useState<{ field: 'reason' | 'password'; message: string } | null>(null);
   const caveats = state.data?.caveats ?? [];
   const needsReason = caveats.length > 0;
-  const reasonError = touched && needsReason && !reason.trim() ? 'Say why you sign despite the points above; the reason is kept with your signature.' : error?.field === 'reason' ? error.message : null;
+  const reasonError =
+    touched && needsReason && !reason.trim() ? 'Say why you sign despite the points above; the reason is kept with your signature.' : error?.field === 'reason' ? error.message : null;
   const passwordError = touched && !password ? 'Enter your password to sign.' : error?.field === 'password' ? error.message : null;
   return (
     <Modal open onClose={onClose} title={`Approve version ${ctx.currentVersion}`} wide>
@@ -53,22 +54,25 @@ function ApproveDialog({ ctx, me, onClose }: { ctx: ReviewContext; me: Me; onClo
                   onClose();
                   toast(`Version ${r.version} approved and signed by ${me.name}.`);
                 },
-                onError: (err) =>
-                  setError({ field: err instanceof ApiError && err.field === 'reason' ? 'reason' : 'password', message: transitionError(err) }),
+                onError: (err) => setError({ field: err instanceof ApiError && err.field === 'reason' ? 'reason' : 'password', message: transitionError(err) }),
               },
             );
           }}
         >
-          <div role="region" aria-label="What you sign" tabIndex={0} className="max-h-[28vh] overflow-y-auto rounded-md border border-stone-200 p-3 focus:outline-none focus-visible:ring-2 focus-visible:ring-accent-600">
+          <div
+            role="region"
+            aria-label="What you sign"
+            tabIndex={0}
+            className="max-h-[28vh] overflow-y-auto rounded-md border border-stone-200 p-3 focus:outline-none focus-visible:ring-2 focus-visible:ring-accent-600"
+          >
             <SigningBrief state={state.data} />
           </div>
           <div data-testid="signing-meaning" className="rounded-md border border-accent-600 bg-accent-50 px-3 py-2 text-sm text-stone-900">
             <p className="font-semibold">What your signature means</p>
             <p>
-              By signing you state that you have examined this uncertainty budget — its model, its input quantities and how each was evaluated, its evidence and
-              its result — and that you find it fit to support the laboratory&rsquo;s reported results under its ISO/IEC 17025 procedures. The signature covers
-              version {ctx.currentVersion} exactly as stored (document SHA-256 <span className="num break-all text-xs">{state.data.documentSha256}</span>); any
-              later change becomes a new version that needs its own approval.
+              By signing you state that you have examined this uncertainty budget — its model, its input quantities and how each was evaluated, its evidence and its result — and that you find it fit
+              to support the laboratory&rsquo;s reported results under its ISO/IEC 17025 procedures. The signature covers version {ctx.currentVersion} exactly as stored (document SHA-256{' '}
+              <span className="num break-all text-xs">{state.data.documentSha256}</span>); any later change becomes a new version that needs its own approval.
             </p>
           </div>
           {needsReason ? (
@@ -97,9 +101,7 @@ function SubmitOverOpenThreads({ ctx, onSubmit, onClose, pending }: { ctx: Revie
   const open = state.data?.openThreads ?? [];
   return (
     <Modal open onClose={onClose} title={`Submit version ${ctx.currentVersion} with ${open.length} open comment thread${open.length === 1 ? '' : 's'}?`} wide>
-      <p className="text-sm text-stone-700">
-        These threads are not resolved. A reviewer who approves over them has to say why. Resolve the ones you have answered, or submit as it is.
-      </p>
+      <p className="text-sm text-stone-700">These threads are not resolved. A reviewer who approves over them has to say why. Resolve the ones you have answered, or submit as it is.</p>
       <OpenThreadList threads={open} />
       <div className="flex justify-end gap-2">
         <Button onClick={onClose}>Go back and resolve</Button>

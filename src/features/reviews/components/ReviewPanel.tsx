@@ -40,10 +40,7 @@ export function ReviewPanel({ ctx, me, thread, onThread }: { ctx: ReviewContext;
                     >
                       <span className="sr-only">Open the thread on </span>
                       <Sym s={s} /> <span className="num">{n.total}</span>
-                      <span className="sr-only">
-                        {' '}
-                        comments, {n.open} open
-                      </span>
+                      <span className="sr-only"> comments, {n.open} open</span>
                       {n.open ? <span aria-hidden>●</span> : <span aria-hidden>✓</span>}
                     </button>
                   </li>

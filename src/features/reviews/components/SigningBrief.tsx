@@ -133,7 +133,10 @@ export function SigningBrief({ state }: { state: ReviewState }) {
           <ul className="flex flex-col gap-0.5 text-sm">
             {state.evidence.map((e) => (
               <li key={e.id} className="break-all">
-                {e.fileName} <span className="text-xs text-stone-600">({e.symbol ? `for ${e.symbol}` : 'whole budget'}, v{e.versionNumber})</span>{' '}
+                {e.fileName}{' '}
+                <span className="text-xs text-stone-600">
+                  ({e.symbol ? `for ${e.symbol}` : 'whole budget'}, v{e.versionNumber})
+                </span>{' '}
                 {state.baseline && e.versionNumber > state.baseline.version ? (
                   <span className="rounded-full border border-caution-500 bg-caution-50 px-1.5 text-[11px] font-medium text-caution-700">new since v{state.baseline.version}</span>
                 ) : null}{' '}
@@ -164,8 +167,7 @@ export function DecisionLine({ d }: { d: ReviewDecision }) {
   ].filter(Boolean);
   return (
     <li data-testid={`decision-${d.id}`} className="rounded-md border border-stone-200 px-2 py-1 text-xs text-stone-700">
-      <span className="font-semibold text-stone-900">{d.decision === 'approved' ? `✓ v${d.versionNumber} approved` : `↩ v${d.versionNumber} returned`}</span> by {d.actorName},{' '}
-      {formatDateTime(d.at)}
+      <span className="font-semibold text-stone-900">{d.decision === 'approved' ? `✓ v${d.versionNumber} approved` : `↩ v${d.versionNumber} returned`}</span> by {d.actorName}, {formatDateTime(d.at)}
       {d.decision === 'approved' && over.length ? <span className="text-caution-700"> — signed over {over.join(' and ')}</span> : null}
       {d.reason ? <p className="mt-0.5 whitespace-pre-wrap break-words text-stone-900">“{d.reason}”</p> : null}
     </li>

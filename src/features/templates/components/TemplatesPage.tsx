@@ -38,9 +38,7 @@ function UseDialog({ template, onClose }: { template: BudgetListItem; onClose():
       pendingLabel="Creating…"
       pending={clone.isPending}
     >
-      <p className="text-sm text-stone-700">
-        The draft is yours: a copy of version {template.currentVersion} of the template that records where it came from. The template itself does not change.
-      </p>
+      <p className="text-sm text-stone-700">The draft is yours: a copy of version {template.currentVersion} of the template that records where it came from. The template itself does not change.</p>
       <Field label="Title of the new draft" error={error}>
         {(p) => <TextInput {...p} value={title} onChange={(e) => setTitle(e.target.value)} autoFocus maxLength={300} />}
       </Field>

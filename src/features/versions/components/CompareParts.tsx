@@ -27,8 +27,15 @@ export function show(v: unknown): string {
   if (v === null || v === undefined) return '—';
   if (typeof v === 'number') return formatSignificant(v, 6);
   if (typeof v === 'string') return v === '' ? '“”' : v;
-  if (Array.isArray(v) && v.length > 6 && v.every((x) => typeof x === 'number')) return `${v.length} values: ${v.slice(0, 4).map((x) => formatSignificant(x as number, 4)).join(', ')}, …`;
-  if (typeof v === 'object' && !Array.isArray(v)) return Object.entries(v as Record<string, unknown>).map(([k, x]) => `${fieldName(k)} ${show(x)}`).join(', ');
+  if (Array.isArray(v) && v.length > 6 && v.every((x) => typeof x === 'number'))
+    return `${v.length} values: ${v
+      .slice(0, 4)
+      .map((x) => formatSignificant(x as number, 4))
+      .join(', ')}, …`;
+  if (typeof v === 'object' && !Array.isArray(v))
+    return Object.entries(v as Record<string, unknown>)
+      .map(([k, x]) => `${fieldName(k)} ${show(x)}`)
+      .join(', ');
   return JSON.stringify(v);
 }
 
@@ -72,10 +79,18 @@ export function FieldTable({ children, caption }: { children: ReactNode; caption
       <caption className="sr-only">{caption}</caption>
       <thead className="border-b border-stone-200 text-xs text-stone-700">
         <tr>
-          <th scope="col" className="px-2 py-1 font-semibold">Field</th>
-          <th scope="col" className="px-2 py-1 font-semibold">Before</th>
-          <th scope="col" className="px-2 py-1 font-semibold">After</th>
-          <th scope="col" className="px-2 py-1 font-semibold"><span className="sr-only">Change</span></th>
+          <th scope="col" className="px-2 py-1 font-semibold">
+            Field
+          </th>
+          <th scope="col" className="px-2 py-1 font-semibold">
+            Before
+          </th>
+          <th scope="col" className="px-2 py-1 font-semibold">
+            After
+          </th>
+          <th scope="col" className="px-2 py-1 font-semibold">
+            <span className="sr-only">Change</span>
+          </th>
         </tr>
       </thead>
       <tbody>{children}</tbody>

@@ -35,10 +35,18 @@ export function ResultSection({ d, unit }: { d: BudgetDiff; unit: string }) {
       <caption className="sr-only">The result in both versions</caption>
       <thead className="border-b border-stone-200 text-xs text-stone-700">
         <tr>
-          <th scope="col" className="px-2 py-1 text-left font-semibold">Quantity</th>
-          <th scope="col" className="px-2 py-1 text-right font-semibold">v{d.from}</th>
-          <th scope="col" className="px-2 py-1 text-right font-semibold">v{d.to}</th>
-          <th scope="col" className="px-2 py-1 text-left font-semibold">Change</th>
+          <th scope="col" className="px-2 py-1 text-left font-semibold">
+            Quantity
+          </th>
+          <th scope="col" className="px-2 py-1 text-right font-semibold">
+            v{d.from}
+          </th>
+          <th scope="col" className="px-2 py-1 text-right font-semibold">
+            v{d.to}
+          </th>
+          <th scope="col" className="px-2 py-1 text-left font-semibold">
+            Change
+          </th>
         </tr>
       </thead>
       <tbody>
@@ -71,20 +79,39 @@ export function ContributionsSection({ d, unit }: { d: BudgetDiff; unit: string 
         <caption className="sr-only">Each contribution in both versions</caption>
         <thead className="border-b border-stone-200 text-xs text-stone-700">
           <tr>
-            <th scope="col" className="px-2 py-1 text-left font-semibold">Xᵢ</th>
-            <th scope="col" className="px-2 py-1 text-right font-semibold">u(xᵢ) v{d.from}</th>
-            <th scope="col" className="px-2 py-1 text-right font-semibold">u(xᵢ) v{d.to}</th>
-            <th scope="col" className="px-2 py-1 text-right font-semibold">|cᵢ|·u(xᵢ) v{d.from}</th>
-            <th scope="col" className="px-2 py-1 text-right font-semibold">|cᵢ|·u(xᵢ) v{d.to}</th>
-            <th scope="col" className="px-2 py-1 text-left font-semibold">Change of |cᵢ|·u(xᵢ){unit ? ` / ${unit}` : ''}</th>
-            <th scope="col" className="px-2 py-1 text-right font-semibold">Share v{d.from} → v{d.to}</th>
+            <th scope="col" className="px-2 py-1 text-left font-semibold">
+              Xᵢ
+            </th>
+            <th scope="col" className="px-2 py-1 text-right font-semibold">
+              u(xᵢ) v{d.from}
+            </th>
+            <th scope="col" className="px-2 py-1 text-right font-semibold">
+              u(xᵢ) v{d.to}
+            </th>
+            <th scope="col" className="px-2 py-1 text-right font-semibold">
+              |cᵢ|·u(xᵢ) v{d.from}
+            </th>
+            <th scope="col" className="px-2 py-1 text-right font-semibold">
+              |cᵢ|·u(xᵢ) v{d.to}
+            </th>
+            <th scope="col" className="px-2 py-1 text-left font-semibold">
+              Change of |cᵢ|·u(xᵢ){unit ? ` / ${unit}` : ''}
+            </th>
+            <th scope="col" className="px-2 py-1 text-right font-semibold">
+              Share v{d.from} → v{d.to}
+            </th>
           </tr>
         </thead>
         <tbody>
           {compareContributions(d.result).map((c) => {
             const k = deltaKind(c.contribution.delta);
             return (
-              <tr key={c.symbol} data-testid={`contribution-${c.symbol}`} data-change={k} className={`border-b border-stone-100 last:border-0 ${k === 'same' ? '' : k === 'added' ? 'bg-accent-50/60' : 'bg-caution-50/50'}`}>
+              <tr
+                key={c.symbol}
+                data-testid={`contribution-${c.symbol}`}
+                data-change={k}
+                className={`border-b border-stone-100 last:border-0 ${k === 'same' ? '' : k === 'added' ? 'bg-accent-50/60' : 'bg-caution-50/50'}`}
+              >
                 <th scope="row" className="px-2 py-1 text-left">
                   <span className="inline-flex items-center gap-1.5">
                     <Sym s={c.symbol} className="font-semibold" />

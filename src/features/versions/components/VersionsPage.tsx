@@ -114,13 +114,7 @@ export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; bud
   const columns = useMemo(() => versionColumns(budgetId, b), [budgetId, b]);
   return (
     <div className="mx-auto flex max-w-5xl flex-col gap-4 px-6 py-6">
-      <Breadcrumb
-        trail={[
-          { label: 'Budgets', to: '/budgets' },
-          { label: b?.title ?? `budget ${budgetId}`, to: `/budgets/${budgetId}` },
-          { label: 'versions' },
-        ]}
-      />
+      <Breadcrumb trail={[{ label: 'Budgets', to: '/budgets' }, { label: b?.title ?? `budget ${budgetId}`, to: `/budgets/${budgetId}` }, { label: 'versions' }]} />
       <div className="flex flex-wrap items-center gap-3">
         <h1 className="text-2xl font-semibold tracking-tight">Version history</h1>
         {b ? <StatusBadge status={b.status} returned={b.returned} prefix="budget now:" /> : null}
