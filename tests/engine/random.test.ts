@@ -36,11 +36,10 @@ describe('UniformGenerator', () => {
   });
 
   it('keeps fixed outputs for a fixed seed (guards against silent changes of the stream)', () => {
+    // recorded from this generator when its stream was fixed (engine 0.5.0); a change here changes every stored seed's results
+    const recorded = [7318665706295439, 6038128179438548, 5958226172795247].map((n) => n / 2 ** 53);
     const g = new UniformGenerator('dubito');
-    const first = [g.next(), g.next(), g.next()];
-    const again = new UniformGenerator('dubito');
-    expect([again.next(), again.next(), again.next()]).toEqual(first);
-    for (const r of first) expect(Number.isInteger(r * 2 ** 53)).toBe(true); // 53-bit grid
+    expect([g.next(), g.next(), g.next()]).toEqual(recorded);
   });
 
   it('draws in the open interval (0, 1) with mean 1/2 and variance 1/12', () => {
