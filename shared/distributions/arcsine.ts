@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
-import type { DistributionRule } from './distribution';
+import { halfWidthForm, type DistributionRule } from './distribution';
 
 /** The fields of the `arcsine` kind in the budget file, with the messages that say what to write. */
 export const arcsineSchema = z.looseObject({
@@ -42,20 +42,7 @@ export const arcsineRule: DistributionRule<'arcsine'> = {
   /** ± a, divisor √2 (JCGM 101:2008 6.4.6). */
   statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.SQRT2, divisorText: '√2' }),
   explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √2', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √2 = ${w.u}`, clause: 'JCGM 101:2008 6.4.6' }),
-  form: {
-    ways: [
-      {
-        id: 'halfWidth',
-        label: 'a half-width ± a around a value',
-        fields: [
-          { name: 'value', label: 'Value', unit: 'value', required: true },
-          { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true },
-        ],
-      },
-    ],
-    wayOf: () => 'halfWidth',
-    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
-  },
+  form: halfWidthForm(),
   /** a = u·√2 (JCGM 101:2008 6.4.6). */
   fromStandardUncertainty: (x, u) => ({ kind: 'arcsine', value: x, halfWidth: u * Math.SQRT2 }),
 };

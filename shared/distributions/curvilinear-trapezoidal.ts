@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
-import type { DistributionRule } from './distribution';
+import { halfWidthForm, type DistributionRule } from './distribution';
 import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
 
 /** The fields of the `curvilinear-trapezoidal` kind in the budget file, with the messages that say what to write. */
@@ -78,21 +78,7 @@ export const curvilinearTrapezoidalRule: DistributionRule<'curvilinear-trapezoid
     substituted: `u(xᵢ) = √(${w.figure(d.halfWidth)}²/3 + ${w.figure(d.halfWidthUncertainty)}²/9) = ${w.u}`,
     clause: 'JCGM 101:2008 6.4.3',
   }),
-  form: {
-    ways: [
-      {
-        id: 'halfWidth',
-        label: 'a half-width ± a around a value',
-        fields: [
-          { name: 'value', label: 'Value', unit: 'value', required: true },
-          { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true },
-          { name: 'halfWidthUncertainty', label: 'Uncertainty of the half-width d', unit: 'uncertainty', required: true },
-        ],
-      },
-    ],
-    wayOf: () => 'halfWidth',
-    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
-  },
+  form: halfWidthForm({ name: 'halfWidthUncertainty', label: 'Uncertainty of the half-width d', unit: 'uncertainty', required: true }),
   /** d = 0 and a = u·√3, a rectangle with exact limits (JCGM 101:2008 6.4.3). */
   fromStandardUncertainty: (x, u) => ({ kind: 'curvilinear-trapezoidal', value: x, halfWidth: u * Math.sqrt(3), halfWidthUncertainty: 0 }),
 };

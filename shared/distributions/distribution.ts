@@ -115,6 +115,22 @@ interface KindForm<K extends DistributionKind> {
   dof?: { option: string; text: string; start?: number };
 }
 
+/** The default ν of a kind whose u is taken as known well (ν = ∞, GUM G.4.2), as the form's chooser offers it. */
+export const KNOWN_WELL_DOF = { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 };
+
+/** The kinds stated as ± a about a value. */
+type HalfWidthKind = 'arcsine' | 'triangular' | 'trapezoidal' | 'curvilinear-trapezoidal';
+
+/** The form of a kind given as a half-width ± a about a value, with the kind's own further fields; ν known well. */
+export function halfWidthForm<K extends HalfWidthKind>(...further: KindFormField<K>[]): KindForm<K> {
+  const field = (name: string, label: string, unit: UnitRole): KindFormField<K> => ({ name: name as KindFormField<K>['name'], label, unit, required: true });
+  return {
+    ways: [{ id: 'halfWidth', label: 'a half-width ± a around a value', fields: [field('value', 'Value', 'value'), field('halfWidth', 'Half-width a', 'uncertainty'), ...further] }],
+    wayOf: () => 'halfWidth',
+    dof: KNOWN_WELL_DOF,
+  };
+}
+
 /**
  * One distribution kind of the budget file, all it means: its names, its GUM
  * treatment and Monte Carlo sampler, how it is stated, explained and entered,

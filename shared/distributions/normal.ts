@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { finite, positive, dofOptions, statedOptions, probability } from '../budget/field-schemas';
-import type { DistributionRule, Draft } from './distribution';
+import { KNOWN_WELL_DOF, type DistributionRule, type Draft } from './distribution';
 import { roundSignificant } from '../format/significant-digits';
 import { significantFigure } from '../presentation/figures';
 import { fillNormal } from '../random/ziggurat-normal';
@@ -146,7 +146,7 @@ export const normalRule: DistributionRule<'normal'> = {
       },
     ],
     wayOf: (d) => (d.u === undefined ? (d.p !== undefined ? 'Up' : 'Uk') : 'u'),
-    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
+    dof: KNOWN_WELL_DOF,
   },
   /** x = value, u as given (GUM 4.3.4). */
   fromStandardUncertainty: (x, u) => ({ kind: 'normal', value: x, u }),

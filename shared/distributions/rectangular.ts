@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
 import type { DistributionOf } from '../budget/schema';
-import type { DistributionRule, Draft } from './distribution';
+import { KNOWN_WELL_DOF, type DistributionRule, type Draft } from './distribution';
 
 /** The fields of the `rectangular` kind in the budget file, with the messages that say what to write. */
 export const rectangularSchema = z.looseObject({
@@ -113,7 +113,7 @@ export const rectangularRule: DistributionRule<'rectangular'> = {
       },
     ],
     wayOf: (d) => (d.lower !== undefined ? 'limits' : d.stated?.as === 'resolution' ? 'resolution' : 'tolerance'),
-    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
+    dof: KNOWN_WELL_DOF,
   },
   /** a = u·√3 around x (GUM 4.3.7). */
   fromStandardUncertainty: (x, u) => ({ kind: 'rectangular', value: x, halfWidth: u * Math.sqrt(3) }),

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
-import type { DistributionRule } from './distribution';
+import { halfWidthForm, type DistributionRule } from './distribution';
 import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
 
 /** The fields of the `trapezoidal` kind in the budget file, with the messages that say what to write. */
@@ -67,21 +67,7 @@ export const trapezoidalRule: DistributionRule<'trapezoidal'> = {
     substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} · √((1 + ${w.figure(d.beta)}²) / 6) = ${w.u}`,
     clause: 'GUM 4.3.9, JCGM 101:2008 6.4.4',
   }),
-  form: {
-    ways: [
-      {
-        id: 'halfWidth',
-        label: 'a half-width ± a around a value',
-        fields: [
-          { name: 'value', label: 'Value', unit: 'value', required: true },
-          { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true },
-          { name: 'beta', label: 'β (top to base ratio, 0 to 1)', unit: 'dimensionless', required: true },
-        ],
-      },
-    ],
-    wayOf: () => 'halfWidth',
-    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
-  },
+  form: halfWidthForm({ name: 'beta', label: 'β (top to base ratio, 0 to 1)', unit: 'dimensionless', required: true }),
   /** β = 0.5 and a = u·√(6/(1 + β²)) (GUM 4.3.9 note 2). */
   fromStandardUncertainty: (x, u) => ({ kind: 'trapezoidal', value: x, halfWidth: u * Math.sqrt(6 / 1.25), beta: 0.5 }),
 };

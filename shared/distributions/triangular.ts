@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { finite, positive, dofOptions, statedOptions } from '../budget/field-schemas';
-import type { DistributionRule } from './distribution';
+import { halfWidthForm, type DistributionRule } from './distribution';
 import { UNIFORM_SCRATCH_LENGTH, uniformScratch } from '../random/uniform-scratch';
 
 /** The fields of the `triangular` kind in the budget file, with the messages that say what to write. */
@@ -48,20 +48,7 @@ export const triangularRule: DistributionRule<'triangular'> = {
   /** ± a, divisor √6 (GUM 4.3.9). */
   statement: (d, w) => ({ text: `± ${w.uncertainty(d.halfWidth)}`, amount: d.halfWidth, divisor: Math.sqrt(6), divisorText: '√6' }),
   explainU: (d, w) => ({ formula: 'u(xᵢ) = a / √6', substituted: `u(xᵢ) = ${w.figure(d.halfWidth)} / √6 = ${w.u}`, clause: 'GUM 4.3.9' }),
-  form: {
-    ways: [
-      {
-        id: 'halfWidth',
-        label: 'a half-width ± a around a value',
-        fields: [
-          { name: 'value', label: 'Value', unit: 'value', required: true },
-          { name: 'halfWidth', label: 'Half-width a', unit: 'uncertainty', required: true },
-        ],
-      },
-    ],
-    wayOf: () => 'halfWidth',
-    dof: { option: '∞: u is known well (default)', text: '∞ (u is known well)', start: 50 },
-  },
+  form: halfWidthForm(),
   /** a = u·√6 (GUM 4.3.9). */
   fromStandardUncertainty: (x, u) => ({ kind: 'triangular', value: x, halfWidth: u * Math.sqrt(6) }),
 };

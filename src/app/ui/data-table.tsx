@@ -1,5 +1,6 @@
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type RowData, type SortingState, type Updater, type VisibilityState } from '@tanstack/react-table';
 import { useEffect, useState, type HTMLAttributes, type ReactNode } from 'react';
+import { Button } from './controls';
 import { Pager } from './pager';
 
 declare module '@tanstack/react-table' {
@@ -189,4 +190,15 @@ export function useKeepPageInRange(page: number, total: number | undefined, page
     // onPage changes with every render of the page; the numbers say when to act
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [page, last]);
+}
+
+/** The button beside a list's filters that empties them all; off while no filter is set. */
+export function ClearFilters({ disabled, onClear }: { disabled: boolean; onClear(): void }) {
+  return (
+    <div className="flex items-end">
+      <Button variant="ghost" disabled={disabled} onClick={onClear}>
+        Clear filters
+      </Button>
+    </div>
+  );
 }

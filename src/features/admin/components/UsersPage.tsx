@@ -8,7 +8,7 @@ import { ROLES, type Role } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
 import { useListParams } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, FormDialog, Select, Spinner, SubmitButton, TextArea, TextInput } from '../../../app/ui/controls';
-import { DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
+import { ClearFilters, DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { useToast } from '../../../app/ui/toasts';
 import { useInvite, useUpdateUser, useUsers } from '../api/admin';
@@ -307,18 +307,13 @@ export function UsersPage({ meId }: { meId: number }) {
             </Select>
           )}
         </Field>
-        <div className="flex items-end">
-          <Button
-            variant="ghost"
-            disabled={!filtered}
-            onClick={() => {
-              setText('');
-              clear();
-            }}
-          >
-            Clear filters
-          </Button>
-        </div>
+        <ClearFilters
+          disabled={!filtered}
+          onClear={() => {
+            setText('');
+            clear();
+          }}
+        />
       </form>
       {users.isPending ? (
         <Spinner label="Loading users" />

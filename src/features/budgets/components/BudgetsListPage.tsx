@@ -6,7 +6,7 @@ import { can, type BudgetStatus, type Role } from '../../../../shared/policy/pol
 import { errorMessage } from '../../../app/http';
 import { useListParams } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
-import { DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
+import { ClearFilters, DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { useToast } from '../../../app/ui/toasts';
 import { StatusBadge, statusLabel, type DisplayStatus } from '../../../budget/components/StatusBadge';
@@ -148,18 +148,13 @@ export function BudgetsListPage({ role }: { role: Role }) {
             </Select>
           )}
         </Field>
-        <div className="flex items-end">
-          <Button
-            variant="ghost"
-            disabled={!filtered}
-            onClick={() => {
-              setText('');
-              clear();
-            }}
-          >
-            Clear filters
-          </Button>
-        </div>
+        <ClearFilters
+          disabled={!filtered}
+          onClear={() => {
+            setText('');
+            clear();
+          }}
+        />
       </form>
 
       {list.isPending ? (
