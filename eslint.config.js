@@ -73,7 +73,7 @@ const BOUNDARY_POLICIES = [
 
 export default tseslint.config(
   {
-    ignores: ['node_modules/', 'dist/', 'cli/dist/', 'data/', 'tests/.artifacts/', '.tsbuild/', '.vite/', 'drizzle/meta/'],
+    ignores: ['node_modules/', 'dist/', 'cli/dist/', 'server/dist/', 'data/', 'tests/.artifacts/', '.tsbuild/', '.vite/', 'drizzle/meta/'],
   },
   { files: TS_AND_JS, ...js.configs.recommended },
   ...tseslint.configs.recommended,
