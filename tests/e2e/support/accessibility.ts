@@ -74,6 +74,14 @@ function describe(where: string, found: Violation[]): string {
  * axe-core finds any.
  */
 export async function expectAccessible(page: Page, what: string): Promise<void> {
+  // colours are judged in their final state: a transition caught half-way (a button turning on as a recompute answers) is not what a reader sees
+  await page.evaluate(() => {
+    if (document.getElementById('a11y-no-motion')) return;
+    const style = document.createElement('style');
+    style.id = 'a11y-no-motion';
+    style.textContent = '*, *::before, *::after { transition: none !important; animation: none !important; }';
+    document.head.append(style);
+  });
   await settled(page);
   const found = await violations(page);
   if (found.length) throw new Error(describe(`${what} (${new URL(page.url()).pathname})`, found));
