@@ -72,8 +72,8 @@ export type ParenthesisNode = MathParenthesisNode;
 export type SymbolNode = MathSymbolNode;
 
 /**
- * A new instance for the unit system (`units.ts` changes its units, so it is
- * one of its own): units, and the evaluation of a model on unit quantities
+ * A new instance for evaluating a model on units (`withBudgetUnits` changes
+ * its units, so it is one of its own): units, and the evaluation of a model on unit quantities
  * with every operator and function of the model whitelist (`sandbox.ts`)
  * and the symbols pi and e.
  */

@@ -1,6 +1,7 @@
-import type { MathNode } from 'mathjs';
+import type { MathJsInstance, MathNode } from 'mathjs';
+import { createUnitMath } from './math';
 import type { ModelLine } from './parse-model';
-import { toMathUnit, unitMath } from './units';
+import { toMathUnit, withBudgetUnits } from './units';
 
 interface UnitQuantity {
   symbol: string;
@@ -10,20 +11,27 @@ interface UnitQuantity {
 /**
  * The unit a model yields from the units given, without conversion (used when
  * the measurand has no unit): the model is evaluated once on unit quantities
- * of size 1 (`V · mA` stays `V mA`) with the budget unit system of `units.ts`.
+ * of size 1 (`V · mA` stays `V mA`) with the budget units of `units.ts`.
  * Returns undefined when that cannot be told (the caller then writes SI base
  * units); the caller checks that the text has the dimension the model yields.
  */
+let evaluation: MathJsInstance | undefined;
+/** The budget units in an instance that also evaluates expressions, made on first use. */
+function evaluationMath(): MathJsInstance {
+  evaluation ??= withBudgetUnits(createUnitMath());
+  return evaluation;
+}
+
 export function resultUnitText(lines: readonly ModelLine[], inputs: readonly UnitQuantity[], constants: readonly UnitQuantity[]): string | undefined {
   const scope = new Map<string, unknown>();
   try {
     for (const q of [...inputs, ...constants]) {
       const t = (q.unit ?? '').trim();
-      scope.set(q.symbol, t === '' || t === '1' ? 1 : toMathUnit(t));
+      scope.set(q.symbol, t === '' || t === '1' ? 1 : toMathUnit(t, evaluationMath()));
     }
     let last: unknown;
     for (const line of lines) {
-      last = unitMath().evaluate((line.expression as MathNode).toString(), scope);
+      last = evaluationMath().evaluate((line.expression as MathNode).toString(), scope);
       scope.set(line.symbol, last);
     }
     if (typeof last === 'number') return '1';

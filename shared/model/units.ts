@@ -1,11 +1,10 @@
-import type { MathJsInstance, Unit } from 'mathjs';
-import { createUnitMath } from './math';
+import { create, createUnitDependencies, unitDependencies, type MathJsInstance, type Unit } from 'mathjs';
 import { MINUS } from '../format/signs';
 
 /**
- * The unit system of budgets: mathjs units with the changes a budget needs,
- * in a mathjs instance of its own (`unitMath`) so the rest of the program
- * keeps mathjs as shipped.
+ * The unit system of budgets: mathjs units with the changes a budget needs
+ * (`withBudgetUnits`, applied to each mathjs instance of its own that holds
+ * budget units) so the rest of the program keeps mathjs as shipped.
  * - °C and °F have the size of the kelvin and of 5/9 K and no offset: the
  *   engine never adds 273.15 K by itself (the temperature rule, see
  *   `temperature-scale.ts`).
@@ -19,8 +18,7 @@ import { MINUS } from '../format/signs';
  *   no number factor (10 dB is not 10 × something); a ratio written in dB is
  *   converted in the model by the user (r = 10^(L/10) with L given without unit).
  */
-function createUnitSystem(): MathJsInstance {
-  const math = createUnitMath();
+export function withBudgetUnits(math: MathJsInstance): MathJsInstance {
   math.createUnit('degC', { definition: '1 K', prefixes: 'none' }, { override: true });
   math.createUnit('degF', { definition: `${5 / 9} K`, prefixes: 'none' }, { override: true });
   math.createUnit('percent', { definition: '0.01', prefixes: 'none' }, { override: true });
@@ -34,9 +32,15 @@ function createUnitSystem(): MathJsInstance {
 }
 
 let instance: MathJsInstance | undefined;
-/** The mathjs instance whose units budgets use, made on first use (it takes a noticeable time); only unit code may use it. */
+/**
+ * The mathjs instance that parses the units of budgets, made on first use (it
+ * takes a noticeable time); only unit code may use it. It holds units alone,
+ * without expression evaluation: reading a unit is all the pages need, and
+ * evaluation would bring most of mathjs into them (`result-unit.ts` makes
+ * its own instance that evaluates).
+ */
 export function unitMath(): MathJsInstance {
-  instance ??= createUnitSystem();
+  instance ??= withBudgetUnits(create({ unitDependencies, createUnitDependencies }));
   return instance;
 }
 
@@ -129,11 +133,11 @@ function mathjsUnitText(text: string): string {
     .replace(/⁻?[⁰¹²³⁴⁵⁶⁷⁸⁹]+/g, (e) => `^${[...e].map((c) => (c === '⁻' ? '-' : String(SUPERSCRIPT_DIGITS.indexOf(c)))).join('')}`);
 }
 
-/** The unit `text` as a mathjs Unit of size 1; throws an Error whose message says why. */
-export function toMathUnit(text: string): Unit {
+/** The unit `text` as a mathjs Unit of size 1 of the instance `math` (budget units); throws an Error whose message says why. */
+export function toMathUnit(text: string, math: MathJsInstance = unitMath()): Unit {
   const written = mathjsUnitText(text);
   try {
-    return unitMath().unit(1, written);
+    return math.unit(1, written);
   } catch {
     throw new Error(`unknown unit "${text.trim()}"`);
   }

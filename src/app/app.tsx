@@ -1,11 +1,9 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { lazy, Suspense, useEffect, type ComponentType } from 'react';
-import { createBrowserRouter, Navigate, Outlet, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
-import type { Me } from '../../shared/api/accounts';
+import { createBrowserRouter, Navigate, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
 import { ApiError } from './http';
 import { PageLoading, RouteError } from './route-loading';
 import { useSignedInUser } from './routes/signed-in-user';
-import { AppShell, NotFound, RequireAction, RequireSignIn } from './shell';
 import { ToastProvider } from './ui/toasts';
 
 /**
@@ -30,6 +28,11 @@ const AuditPage = lazyPage(() => import('../features/audit/components/AuditPage'
 const MailboxPage = lazyPage(() => import('../features/admin/components/MailboxPage'), 'MailboxPage');
 const UsersPage = lazyPage(() => import('../features/admin/components/UsersPage'), 'UsersPage');
 // Routes that compose several features live in one module each, so their parts arrive in one chunk, not one after another.
+// The signed-in frame (navigation, sign-in check, role guard) is code the public pages never run.
+const SignedIn = lazyPage(() => import('./shell'), 'SignedIn');
+const RequireAction = lazyPage(() => import('./shell'), 'RequireAction');
+const NotFound = lazyPage(() => import('./shell'), 'NotFound');
+
 const loadEditorRoute = () => import('./routes/editor-route');
 const EditorRoute = lazy(loadEditorRoute);
 const ReportRoute = lazy(() => import('./routes/report-route'));
@@ -43,24 +46,6 @@ const queryClient = new QueryClient({
     },
   },
 });
-
-function SignedIn() {
-  return <RequireSignIn>{(me) => <AppShellWithContext me={me} />}</RequireSignIn>;
-}
-
-/** The shell stays on screen while a page's chunk loads; only the page area waits. */
-function AppShellWithContext({ me }: { me: Me }) {
-  return (
-    <AppShell
-      me={me}
-      outlet={
-        <Suspense fallback={<PageLoading />}>
-          <Outlet context={me} />
-        </Suspense>
-      }
-    />
-  );
-}
 
 /** A page outside the shell (sign-in, passwords), with its own wait while its chunk loads. */
 function publicPage(path: string, element: React.ReactNode) {
@@ -131,7 +116,11 @@ const router = createBrowserRouter([
   publicPage('/reset-password', <SetPasswordPage mode="reset" />),
   {
     path: '/',
-    element: <SignedIn />,
+    element: (
+      <Suspense fallback={<PageLoading />}>
+        <SignedIn />
+      </Suspense>
+    ),
     errorElement: <RouteError />,
     children: [
       {

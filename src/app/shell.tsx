@@ -1,8 +1,10 @@
+import { Suspense } from 'react';
 import { NavLink, Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import type { Me } from '../../shared/api/accounts';
 import { can, type Action, type Role } from '../../shared/policy/policy';
 import { useMe, useSignOut } from '../features/auth/api/auth';
 import { errorMessage } from './http';
+import { PageLoading } from './route-loading';
 import { Button, ErrorNote, Spinner } from './ui/controls';
 
 interface NavItem {
@@ -33,7 +35,7 @@ function roleLabel(role: Role): string {
 }
 
 /** Signed-in area: redirects visitors to the sign-in page, keeping where they wanted to go. */
-export function RequireSignIn({ children }: { children: (me: Me) => React.ReactNode }) {
+function RequireSignIn({ children }: { children: (me: Me) => React.ReactNode }) {
   const me = useMe();
   const location = useLocation();
   if (me.isPending) {
@@ -56,7 +58,25 @@ export function RequireSignIn({ children }: { children: (me: Me) => React.ReactN
   return <>{children(me.data)}</>;
 }
 
-export function AppShell({ me, outlet }: { me: Me; outlet?: React.ReactNode }) {
+/** The signed-in area: the shell stays on screen while a page's chunk loads; only the page area waits. */
+export function SignedIn() {
+  return (
+    <RequireSignIn>
+      {(me) => (
+        <AppShell
+          me={me}
+          outlet={
+            <Suspense fallback={<PageLoading />}>
+              <Outlet context={me} />
+            </Suspense>
+          }
+        />
+      )}
+    </RequireSignIn>
+  );
+}
+
+function AppShell({ me, outlet }: { me: Me; outlet?: React.ReactNode }) {
   const signOut = useSignOut();
   const navigate = useNavigate();
   return (
