@@ -10,6 +10,8 @@ import { atDecimalPlace, coverageFactor, dof, estimate, placeOf, pointsChange, r
 /** A figure of both versions and the change between them. */
 export interface ComparedFigure {
   label: string;
+  /** The figure's symbol, as a budget writes one (u_c, nu_eff), shown after the label. */
+  symbol?: string;
   /** Whether the figure carries the measurand's unit. */
   inUnit: boolean;
   delta: Delta;
@@ -39,11 +41,11 @@ const both = (d: Delta, write: (x: number, side: 'from' | 'to') => Figure) => ({
 export function compareResults(r: BudgetDiff['result']): ComparedFigure[] {
   const U = r.expandedUncertainty;
   const rows: ComparedFigure[] = [
-    { label: 'Estimate y', inUnit: true, delta: r.estimate, ...both(r.estimate, (x, s) => estimate(x, U[s] ?? 0)), ...change(r.estimate) },
-    { label: 'Standard uncertainty u_c', inUnit: true, delta: r.standardUncertainty, ...both(r.standardUncertainty, uncertainty), ...change(r.standardUncertainty) },
-    { label: 'Expanded uncertainty U', inUnit: true, delta: U, ...both(U, uncertainty), ...change(U) },
-    { label: 'Coverage factor k', inUnit: false, delta: r.coverageFactor, ...both(r.coverageFactor, coverageFactor), ...change(r.coverageFactor) },
-    { label: 'Effective degrees of freedom ν_eff', inUnit: false, delta: r.effectiveDof, ...both(r.effectiveDof, dof), ...change(r.effectiveDof) },
+    { label: 'Estimate', symbol: 'y', inUnit: true, delta: r.estimate, ...both(r.estimate, (x, s) => estimate(x, U[s] ?? 0)), ...change(r.estimate) },
+    { label: 'Standard uncertainty', symbol: 'u_c', inUnit: true, delta: r.standardUncertainty, ...both(r.standardUncertainty, uncertainty), ...change(r.standardUncertainty) },
+    { label: 'Expanded uncertainty', symbol: 'U', inUnit: true, delta: U, ...both(U, uncertainty), ...change(U) },
+    { label: 'Coverage factor', symbol: 'k', inUnit: false, delta: r.coverageFactor, ...both(r.coverageFactor, coverageFactor), ...change(r.coverageFactor) },
+    { label: 'Effective degrees of freedom', symbol: 'nu_eff', inUnit: false, delta: r.effectiveDof, ...both(r.effectiveDof, dof), ...change(r.effectiveDof) },
   ];
   const mc = r.monteCarlo;
   if (mc) {

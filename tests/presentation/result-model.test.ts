@@ -112,8 +112,8 @@ describe('two versions compared', () => {
     expect(byLabel['Expanded uncertainty U'].to?.text).toBe('8.6');
     expect(byLabel['Expanded uncertainty U'].change?.text).toBe('+0.46');
     expect(byLabel['Expanded uncertainty U'].relative?.text).toBe('+5.6 %');
-    expect(byLabel['Effective degrees of freedom ν_eff'].from?.text).toBe('> 1000');
-    expect(byLabel['Effective degrees of freedom ν_eff'].to?.text).toBe('57.3');
+    expect(byLabel['Effective degrees of freedom'].from?.text).toBe('> 1000');
+    expect(byLabel['Effective degrees of freedom'].to?.text).toBe('57.3');
     expect(byLabel['Coverage factor k'].change).toBeNull();
   });
 });

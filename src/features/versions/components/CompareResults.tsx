@@ -56,6 +56,12 @@ export function ResultSection({ d, unit }: { d: BudgetDiff; unit: string }) {
             <tr key={r.label} data-change={k} className={`border-b border-stone-100 last:border-0 ${k !== 'same' ? 'bg-caution-50/50' : ''}`}>
               <th scope="row" className="px-2 py-1 text-left font-medium">
                 {r.label}
+                {r.symbol ? (
+                  <>
+                    {' '}
+                    <Sym s={r.symbol} />
+                  </>
+                ) : null}
                 {r.inUnit && unit ? <span className="font-normal text-stone-600"> / {unit}</span> : null}
               </th>
               <td className="px-2 py-1 text-right">{value(r.from)}</td>
