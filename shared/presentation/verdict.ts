@@ -63,11 +63,22 @@ export function verdictView(v: ValidationResult, unit: UnitText, reported?: Repo
         verdict,
         tone: 'neutral',
         headline: 'The comparison with the Monte Carlo method is inconclusive.',
-        detail: v.reason
-          ? both(() => `${sentence(v.reason!)} (JCGM 101:2008 8.2, 7.9.)`)
-          : both(
-              (s) => `The numerical accuracy of the Monte Carlo interval is of the size of δ, so another seed could change the verdict (${figures(s)}; JCGM 101:2008 8.2). Run more trials to decide.`,
-            ),
+        detail: v.endpointUncertainty
+          ? both((s) => {
+              const [uLow, uHigh] = v.endpointUncertainty!;
+              const e = (end: 'low' | 'high', u: number) => `2u(y${s === 'markup' ? `_{${end}}` : `_${end}`}) = ${d(2 * u)[s]}`;
+              return (
+                `The GUM interval's ends are as close to δ as the Monte Carlo interval's ends are uncertain at this number of trials (${figures(s)}; ` +
+                `${e('low', uLow)}, ${e('high', uHigh)}), so another seed could give the other verdict. ` +
+                'Run more trials: four times as many halve that uncertainty (JCGM 101:2008 8.2, 7.9).'
+              );
+            })
+          : v.reason
+            ? both(() => `${sentence(v.reason!)} (JCGM 101:2008 8.2, 7.9.)`)
+            : both(
+                (s) =>
+                  `The numerical accuracy of the Monte Carlo interval is of the size of δ, so another seed could change the verdict (${figures(s)}; JCGM 101:2008 8.2). Run more trials to decide.`,
+              ),
       };
     case 'not-possible':
       return {

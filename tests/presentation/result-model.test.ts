@@ -78,6 +78,12 @@ describe('the validation verdict in words (JCGM 101:2008 8)', () => {
     expect(no.detail.text).toMatch(/^At the upper end/);
     expect(no.detail.markup).toContain('d_{high} = 0.080 mK');
     expect(verdictView({ ...base, passed: false, verdict: 'inconclusive' }, mK).headline).toMatch(/inconclusive/);
+    // The engine's inconclusive verdict carries the endpoints' numerical uncertainties: the figures come with the unit, in both writings.
+    const unsure = verdictView({ ...base, dLow: 0.00015, dHigh: 0.038, passed: false, verdict: 'inconclusive', endpointUncertainty: [0.00021, 0.0225], reason: 'inconclusive at 10 trials' }, mK);
+    expect(unsure.detail.text).toContain('d_low = 1.5×10⁻⁴ mK, d_high = 0.038 mK, δ = 0.050 mK');
+    expect(unsure.detail.text).toContain('2u(y_low) = 4.2×10⁻⁴ mK, 2u(y_high) = 0.045 mK');
+    expect(unsure.detail.markup).toContain('2u(y_{low}) = ');
+    expect(unsure.detail.markup).not.toMatch(/[⁰¹²³⁴⁵⁶⁷⁸⁹⁻]/);
     const impossible = verdictView({ ...base, passed: false, verdict: 'not-possible', reason: 'The input q has ν = 2: its t-distribution has no variance.' }, mK);
     expect(impossible.detail.text).toBe('The input q has ν = 2: its t-distribution has no variance.');
   });
@@ -108,13 +114,14 @@ describe('two versions compared', () => {
       contributions: [],
     });
     const byLabel = Object.fromEntries(rows.map((r) => [r.label, r]));
-    expect(byLabel['Estimate y'].from?.text).toBe('12.0');
-    expect(byLabel['Expanded uncertainty U'].to?.text).toBe('8.6');
-    expect(byLabel['Expanded uncertainty U'].change?.text).toBe('+0.46');
-    expect(byLabel['Expanded uncertainty U'].relative?.text).toBe('+5.6 %');
+    expect(rows.map((r) => r.symbol)).toEqual(['y', 'u_c', 'U', 'k', 'nu_eff']);
+    expect(byLabel['Estimate'].from?.text).toBe('12.0');
+    expect(byLabel['Expanded uncertainty'].to?.text).toBe('8.6');
+    expect(byLabel['Expanded uncertainty'].change?.text).toBe('+0.46');
+    expect(byLabel['Expanded uncertainty'].relative?.text).toBe('+5.6 %');
     expect(byLabel['Effective degrees of freedom'].from?.text).toBe('> 1000');
     expect(byLabel['Effective degrees of freedom'].to?.text).toBe('57.3');
-    expect(byLabel['Coverage factor k'].change).toBeNull();
+    expect(byLabel['Coverage factor'].change).toBeNull();
   });
 });
 
