@@ -8,9 +8,7 @@
  * event loop. Reads are measured in several rounds and the median round is
  * judged, because autocannon and the server share this machine's two cores.
  */
-import { spawn } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -19,6 +17,7 @@ import autocannon from 'autocannon';
 import { createApp } from '../server/app';
 import { computeBudget } from '../shared/compute/compute-budget';
 import type { BudgetDocument } from '../shared/budget/schema';
+import { freePort, median, startBuiltServer, verdict } from './support';
 
 interface Result {
   duration: number;
@@ -61,15 +60,6 @@ function document(title: string) {
   };
 }
 
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = createServer().listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
-}
-
 // Data first, in this process; then the server in its own.
 const setup = await createApp({ dbFile, dataDir: dir, log: () => {} });
 const user = await setup.services.accounts.create(null, { email: 'bench@lab.test', name: 'Bench', role: 'metrologist', password: PASSWORD });
@@ -106,23 +96,9 @@ const engine = engineRate();
 
 const port = await freePort();
 const base = `http://127.0.0.1:${port}`;
-// The built server, as in production; the client build is not needed for the API.
-const { NODE_OPTIONS: _loader, ...env } = process.env;
-const child = spawn(process.execPath, ['--enable-source-maps', 'server/dist/start.js'], {
-  cwd: ROOT,
-  env: { ...env, DUBITO_DB: dbFile, PORT: String(port), HOST: '127.0.0.1', DUBITO_DEMO: '0', DUBITO_CLIENT_BUILD: '0', DUBITO_ALLOWED_ORIGINS: ORIGIN },
-  stdio: ['ignore', 'pipe', 'inherit'],
-});
-// Measure the server as it runs for hours, not as it starts: wait until it listens and its compute workers
-// have loaded the engine (a second or two of CPU on this 2-core machine), then warm the JIT up.
-await new Promise<void>((resolve, reject) => {
-  let out = '';
-  child.stdout!.on('data', (d: Buffer) => {
-    out += d.toString();
-    if (out.includes('listening on') && out.includes('compute workers ready')) resolve();
-  });
-  child.once('exit', (code) => reject(new Error(`server exited with ${code}`)));
-});
+// The built server, as in production; the client build is not needed for the API. Measure the server as it
+// runs for hours, not as it starts: startBuiltServer waits until its compute workers have loaded the engine.
+const child = await startBuiltServer(ROOT, { DUBITO_DB: dbFile, PORT: String(port), HOST: '127.0.0.1', DUBITO_DEMO: '0', DUBITO_CLIENT_BUILD: '0', DUBITO_ALLOWED_ORIGINS: ORIGIN });
 
 async function signIn(email: string): Promise<string> {
   const login = await fetch(`${base}/api/auth/login`, {
@@ -145,9 +121,6 @@ function report(name: string, r: Result): void {
       `   (${r['2xx']} 2xx, ${r.non2xx} other ${JSON.stringify(codes)}, ${r.errors} errors, ${r.timeouts} timeouts)`,
   );
 }
-
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-const verdict = (ok: boolean) => (ok ? 'PASS' : 'MISS');
 
 console.log(
   `Dubito API benchmark — Node ${process.version}, loopback, ${connections} connections, ${rounds} × ${seconds} s of reads after a 3 s warm-up; ` +

@@ -1,4 +1,5 @@
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { createServer } from 'node:net';
 
 /** The median of the runs of a benchmark. */
 export const median = (xs: number[]) => {
@@ -17,4 +18,32 @@ export function findPython(): string | null {
     if (probe.status === 0) return exe;
   }
   return null;
+}
+
+/** A TCP port on the loopback interface that nothing listens on. */
+export function freePort(): Promise<number> {
+  return new Promise((resolve) => {
+    const s = createServer().listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as { port: number };
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+/**
+ * The built server in a process of its own, as `npm start` runs it, resolved once it
+ * listens and its compute workers have loaded the engine (a second or two of CPU).
+ */
+export async function startBuiltServer(root: string, env: Record<string, string>): Promise<ChildProcess> {
+  const { NODE_OPTIONS: _loader, ...inherited } = process.env;
+  const child = spawn(process.execPath, ['--enable-source-maps', 'server/dist/start.js'], { cwd: root, env: { ...inherited, ...env }, stdio: ['ignore', 'pipe', 'inherit'] });
+  await new Promise<void>((resolve, reject) => {
+    let out = '';
+    child.stdout!.on('data', (d: Buffer) => {
+      out += d.toString();
+      if (out.includes('listening on') && out.includes('compute workers ready')) resolve();
+    });
+    child.once('exit', (code) => reject(new Error(`server exited with ${code}`)));
+  });
+  return child;
 }

@@ -39,7 +39,7 @@ let instance: MathJsInstance | undefined;
  * evaluation would bring most of mathjs into them (`result-unit.ts` makes
  * its own instance that evaluates).
  */
-export function unitMath(): MathJsInstance {
+function unitMath(): MathJsInstance {
   instance ??= withBudgetUnits(create({ unitDependencies, createUnitDependencies }));
   return instance;
 }

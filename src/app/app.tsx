@@ -1,19 +1,32 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { lazy, Suspense, useEffect, type ComponentType } from 'react';
-import { createBrowserRouter, Navigate, RouterProvider, useParams, useSearchParams } from 'react-router-dom';
+import { createBrowserRouter, Navigate, RouterProvider, useParams, useSearchParams, type RouteObject } from 'react-router-dom';
+import { meQuery } from '../budget/queries';
 import { ApiError } from './http';
 import { PageLoading, RouteError } from './route-loading';
 import { useSignedInUser } from './routes/signed-in-user';
 import { ToastProvider } from './ui/toasts';
 
+/** Fetches a lazy module's code ahead of its first render; a failure shows when it renders. */
+type Preload = () => void;
+
 /**
  * A page loaded with its own chunk the first time its route is opened, so the
  * sign-in page carries none of the editor, the engine or the chart library.
+ * `preload` fetches that chunk ahead (see fetchAhead).
  */
 function lazyPage<M, K extends keyof M>(load: () => Promise<M>, name: K) {
   // React.lazy's own bound is ComponentType<any>; the page's props stay checked through M[K].
   // eslint-disable-next-line @typescript-eslint/no-explicit-any
-  return lazy(async () => ({ default: (await load())[name] as M[K] & ComponentType<any> }));
+  const page = lazy(async () => ({ default: (await load())[name] as M[K] & ComponentType<any> }));
+  const preload: Preload = () => void load().catch(() => {});
+  return Object.assign(page, { preload });
+}
+
+/** The same for a module whose default export is the page (`src/app/routes/`). */
+function lazyRoute<M extends { default: ComponentType }>(load: () => Promise<M>) {
+  const preload: Preload = () => void load().catch(() => {});
+  return Object.assign(lazy(load), { preload });
 }
 
 const SignInPage = lazyPage(() => import('../features/auth/components/SignInPage'), 'SignInPage');
@@ -27,15 +40,13 @@ const TemplatesPage = lazyPage(() => import('../features/templates/components/Te
 const AuditPage = lazyPage(() => import('../features/audit/components/AuditPage'), 'AuditPage');
 const MailboxPage = lazyPage(() => import('../features/admin/components/MailboxPage'), 'MailboxPage');
 const UsersPage = lazyPage(() => import('../features/admin/components/UsersPage'), 'UsersPage');
-// Routes that compose several features live in one module each, so their parts arrive in one chunk, not one after another.
 // The signed-in frame (navigation, sign-in check, role guard) is code the public pages never run.
 const SignedIn = lazyPage(() => import('./shell'), 'SignedIn');
 const RequireAction = lazyPage(() => import('./shell'), 'RequireAction');
 const NotFound = lazyPage(() => import('./shell'), 'NotFound');
-
-const loadEditorRoute = () => import('./routes/editor-route');
-const EditorRoute = lazy(loadEditorRoute);
-const ReportRoute = lazy(() => import('./routes/report-route'));
+// Routes that compose several features live in one module each, so their parts arrive in one chunk, not one after another.
+const EditorRoute = lazyRoute(() => import('./routes/editor-route'));
+const ReportRoute = lazyRoute(() => import('./routes/report-route'));
 
 const queryClient = new QueryClient({
   defaultOptions: {
@@ -48,8 +59,8 @@ const queryClient = new QueryClient({
 });
 
 /** A page outside the shell (sign-in, passwords), with its own wait while its chunk loads. */
-function publicPage(path: string, element: React.ReactNode) {
-  return { path, errorElement: <RouteError />, element: <Suspense fallback={<PageLoading />}>{element}</Suspense> };
+function publicPage(path: string, element: React.ReactNode, preload: Preload): RouteObject {
+  return { path, errorElement: <RouteError />, element: <Suspense fallback={<PageLoading />}>{element}</Suspense>, ...ahead(preload) };
 }
 
 /** The home page: a reviewer's queue above the list of budgets. */
@@ -57,12 +68,11 @@ function BudgetsRoute() {
   const me = useSignedInUser();
   // Opening a budget is what the list is for: fetch the editor's chunk once the browser is idle, so that click is instant.
   useEffect(() => {
-    const fetchEditor = () => void loadEditorRoute().catch(() => {}); // a failure shows when the editor is opened
     if (typeof requestIdleCallback === 'function') {
-      const handle = requestIdleCallback(fetchEditor);
+      const handle = requestIdleCallback(EditorRoute.preload);
       return () => cancelIdleCallback(handle);
     }
-    fetchEditor();
+    EditorRoute.preload();
   }, []);
   return (
     <>
@@ -104,16 +114,22 @@ function Guarded({ action, children }: { action: Parameters<typeof RequireAction
   );
 }
 
+/** What a route fetches ahead when it is the first page opened (see fetchAhead). */
+interface RouteHandle {
+  preload: Preload[];
+}
+const ahead = (...preload: Preload[]): { handle: RouteHandle } => ({ handle: { preload } });
+
 /** A route only for the roles that the policy allows the action. */
-function guarded(path: string, action: Parameters<typeof Guarded>[0]['action'], element: React.ReactNode) {
-  return { path, element: <Guarded action={action}>{element}</Guarded> };
+function guarded(path: string, action: Parameters<typeof Guarded>[0]['action'], element: React.ReactNode, ...preload: Preload[]): RouteObject {
+  return { path, element: <Guarded action={action}>{element}</Guarded>, ...ahead(RequireAction.preload, ...preload) };
 }
 
 const router = createBrowserRouter([
-  publicPage('/sign-in', <SignInPage />),
-  publicPage('/forgot-password', <ForgotPasswordPage />),
-  publicPage('/set-password', <SetPasswordPage mode="invitation" />),
-  publicPage('/reset-password', <SetPasswordPage mode="reset" />),
+  publicPage('/sign-in', <SignInPage />, SignInPage.preload),
+  publicPage('/forgot-password', <ForgotPasswordPage />, ForgotPasswordPage.preload),
+  publicPage('/set-password', <SetPasswordPage mode="invitation" />, SetPasswordPage.preload),
+  publicPage('/reset-password', <SetPasswordPage mode="reset" />, SetPasswordPage.preload),
   {
     path: '/',
     element: (
@@ -122,29 +138,41 @@ const router = createBrowserRouter([
       </Suspense>
     ),
     errorElement: <RouteError />,
+    ...ahead(SignedIn.preload),
     children: [
       {
         // A page that fails (or whose chunk cannot be loaded) shows its error inside the shell, navigation intact.
         errorElement: <RouteError />,
         children: [
           { index: true, element: <Navigate to="/budgets" replace /> },
-          { path: 'budgets', element: <BudgetsRoute /> },
-          guarded('budgets/new', 'budget.create', <EditorRoute />),
-          { path: 'budgets/:id', element: <EditorRoute /> },
-          { path: 'budgets/:id/versions', element: <VersionsRoute /> },
-          { path: 'budgets/:id/versions/:n', element: <EditorRoute /> },
-          { path: 'budgets/:id/compare', element: <CompareRoute /> },
-          { path: 'budgets/:id/versions/:n/report', element: <ReportRoute /> },
-          guarded('templates', 'budget.read', <TemplatesRoute />),
-          guarded('audit', 'audit.read', <AuditPage />),
-          guarded('admin/users', 'user.manage', <UsersRoute />),
-          guarded('admin/mail', 'mail.read', <MailboxPage />),
-          { path: '*', element: <NotFound /> },
+          { path: 'budgets', element: <BudgetsRoute />, ...ahead(ReviewQueue.preload, BudgetsListPage.preload) },
+          guarded('budgets/new', 'budget.create', <EditorRoute />, EditorRoute.preload),
+          { path: 'budgets/:id', element: <EditorRoute />, ...ahead(EditorRoute.preload) },
+          { path: 'budgets/:id/versions', element: <VersionsRoute />, ...ahead(VersionsPage.preload) },
+          { path: 'budgets/:id/versions/:n', element: <EditorRoute />, ...ahead(EditorRoute.preload) },
+          { path: 'budgets/:id/compare', element: <CompareRoute />, ...ahead(ComparePage.preload) },
+          { path: 'budgets/:id/versions/:n/report', element: <ReportRoute />, ...ahead(ReportRoute.preload) },
+          guarded('templates', 'budget.read', <TemplatesRoute />, TemplatesPage.preload),
+          guarded('audit', 'audit.read', <AuditPage />, AuditPage.preload),
+          guarded('admin/users', 'user.manage', <UsersRoute />, UsersPage.preload),
+          guarded('admin/mail', 'mail.read', <MailboxPage />, MailboxPage.preload),
+          { path: '*', element: <NotFound />, ...ahead(NotFound.preload) },
         ],
       },
     ],
   },
 ]);
+
+/**
+ * Fetches who is signed in and the code of every route the first URL matches (the signed-in
+ * frame and the page) at once, as soon as this module runs, instead of one after another as
+ * each renders: frame, then the sign-in check, then the page's chunk, then its data.
+ */
+function fetchAhead(): void {
+  void queryClient.prefetchQuery(meQuery());
+  for (const match of router.state.matches) (match.route.handle as RouteHandle | undefined)?.preload.forEach((preload) => preload());
+}
+fetchAhead();
 
 export function App() {
   return (
