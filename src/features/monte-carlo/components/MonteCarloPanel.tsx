@@ -1,11 +1,11 @@
 import { lazy, Suspense, useMemo, useState } from 'react';
 import { duration } from '../../../../shared/presentation/figures';
-import { presentMonteCarlo, type MonteCarloView } from '../../../../shared/presentation/result-model';
-import type { VerdictView } from '../../../../shared/presentation/verdict';
+import { presentMonteCarlo } from '../../../../shared/presentation/result-model';
 import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Button, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatCount } from '../../../app/ui/numbers';
 import { formatUnit } from '../../../app/ui/units';
+import { MonteCarloComparison, ValidationVerdict } from '../../../budget/components/MonteCarloComparison';
 import { DEFAULTS } from '../../../../shared/budget/limits';
 import { useComputeLimits } from '../api/compute-limits';
 import { useMonteCarloRun } from '../api/use-monte-carlo';
@@ -16,63 +16,7 @@ const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000, 5_000_000
 
 const seconds = (ms: number): string => duration(ms).text;
 
-/** The clause 8 comparison in words, from the result model. */
-export function Verdict({ view }: { view: VerdictView | null }) {
-  if (!view) return null;
-  const tone =
-    view.tone === 'good'
-      ? 'border-accent-600 bg-accent-50 text-accent-700'
-      : view.tone === 'warning'
-        ? 'border-caution-500 bg-caution-50 text-caution-700'
-        : 'border-stone-300 bg-white text-stone-800';
-  return (
-    <p className={`rounded-md border px-3 py-2 text-sm ${tone}`} data-testid="mc-verdict">
-      <span className="font-semibold">
-        {view.tone === 'good' ? '✓ ' : view.tone === 'warning' ? '⚠ ' : ''}
-        {view.headline}
-      </span>{' '}
-      {view.detail.text}
-    </p>
-  );
-}
-
-/** GUM and Monte Carlo figures side by side, at one decimal place (from the result model). */
-export function Comparison({ view, unit }: { view: MonteCarloView; unit: string }) {
-  return (
-    <table className="w-full text-sm" data-testid="mc-comparison">
-      <caption className="sr-only">GUM and Monte Carlo results side by side</caption>
-      <thead className="text-xs text-stone-700">
-        <tr>
-          <th className="py-1 text-left font-normal text-stone-600">{unit ? `values in ${unit}` : 'dimensionless values'}</th>
-          <th className="py-1 text-right font-semibold">GUM</th>
-          <th className="py-1 text-right font-semibold">Monte Carlo</th>
-        </tr>
-      </thead>
-      <tbody className="num">
-        {view.rows.map((r) => (
-          <tr key={r.label} className="border-t border-stone-100">
-            <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">
-              {r.label}
-            </th>
-            <td className={`py-1 text-right ${r.gum ? '' : 'text-stone-500'}`}>{r.gum ? r.gum.text : '—'}</td>
-            <td className="py-1 text-right">{r.monteCarlo.text}</td>
-          </tr>
-        ))}
-      </tbody>
-      {view.stability ? (
-        <tfoot>
-          <tr>
-            <td colSpan={3} className="pt-1 text-xs text-stone-600">
-              {view.stability}
-            </td>
-          </tr>
-        </tfoot>
-      ) : null}
-    </table>
-  );
-}
-
-export function MonteCarloPanel({ document, gum, measurand, stored, settings, onSettings, readOnly }: MonteCarloSlotProps) {
+export function MonteCarloPanel({ document, measurand, stored, settings, onSettings, readOnly }: MonteCarloSlotProps) {
   const { state, run, cancel } = useMonteCarloRun();
   // A run in the browser uses the server's cap, so the run a save stores is the run seen here (JCGM 101:2008 7.2).
   const limits = useComputeLimits();
@@ -197,7 +141,6 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
         <div className="mt-4 flex flex-col gap-3">
           <p className="text-xs text-stone-600">
             <span className="num">{figures?.monteCarlo?.heading}</span>, seed <span className="num rounded bg-white px-1 text-stone-800">{mc.seed}</span> — {shown.label}
-            {gum && shown === stored ? '' : ''}
           </p>
           <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             <div className="rounded-md border border-stone-200 bg-white p-2">
@@ -218,8 +161,8 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
               </Suspense>
             </div>
             <div className="flex flex-col gap-3">
-              {figures?.monteCarlo ? <Comparison view={figures.monteCarlo} unit={figures.unit.text} /> : null}
-              <Verdict view={figures?.validation ?? null} />
+              {figures?.monteCarlo ? <MonteCarloComparison view={figures.monteCarlo} unit={figures.unit.text} /> : null}
+              <ValidationVerdict view={figures?.validation ?? null} />
             </div>
           </div>
         </div>
