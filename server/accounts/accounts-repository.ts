@@ -6,6 +6,7 @@ import type { DbLike } from '../db/connection';
 import type { AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 import { prepared } from '../db/prepared';
 import { accountTokens, users } from '../db/schema';
+import { containsText } from '../db/text-match';
 
 export type UserRow = typeof users.$inferSelect;
 
@@ -42,10 +43,7 @@ const USER_ORDER: Record<UserSort, SQL | AnySQLiteColumn> = { name: sql`${users.
 function usersWhere(f: Pick<UserFilter, 'q' | 'role'>): SQL | undefined {
   const where: (SQL | undefined)[] = [];
   if (f.role) where.push(eq(users.role, f.role));
-  if (f.q) {
-    const pattern = `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    where.push(or(sql`${users.name} LIKE ${pattern} ESCAPE '\\'`, sql`${users.email} LIKE ${pattern} ESCAPE '\\'`));
-  }
+  if (f.q) where.push(or(containsText(users.name, f.q), containsText(users.email, f.q)));
   return where.length ? and(...where) : undefined;
 }
 

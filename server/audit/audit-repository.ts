@@ -2,6 +2,7 @@ import { and, asc, desc, eq, gt, gte, isNull, lte, sql, type SQL } from 'drizzle
 import type { AuditChainHead, AuditChainReport, AuditEvent } from '../../shared/api/audit';
 import type { DbLike } from '../db/connection';
 import { auditEvents, budgets, users } from '../db/schema';
+import { startsWithText } from '../db/text-match';
 import { chainHash, GENESIS_HASH, type ChainedFields } from './audit-chain';
 
 export interface NewAuditEvent {
@@ -137,7 +138,7 @@ export function listAudit(db: DbLike, f: AuditFilter): { rows: AuditRow[]; total
   if (f.actorId !== undefined) where.push(eq(auditEvents.actorId, f.actorId));
   if (f.action !== undefined) {
     // "budget" matches every budget.* action; "budget.approved" only itself.
-    where.push(f.action.includes('.') ? eq(auditEvents.action, f.action) : sql`${auditEvents.action} LIKE ${f.action + '.%'}`);
+    where.push(f.action.includes('.') ? eq(auditEvents.action, f.action) : startsWithText(auditEvents.action, `${f.action}.`));
   }
   if (f.from !== undefined) where.push(gte(auditEvents.at, f.from));
   if (f.to !== undefined) where.push(lte(auditEvents.at, f.to));

@@ -1,10 +1,11 @@
-import { and, asc, desc, eq, like, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, sql, type SQL } from 'drizzle-orm';
 import { alias, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { BudgetListItem, BudgetSort, VersionMeta } from '../../shared/api/budgets';
 import type { BudgetStatus } from '../../shared/policy/policy';
 import type { DbLike } from '../db/connection';
 import { prepared } from '../db/prepared';
 import { budgets, budgetVersions, users } from '../db/schema';
+import { containsText } from '../db/text-match';
 
 export type BudgetRow = typeof budgets.$inferSelect;
 export type VersionRow = typeof budgetVersions.$inferSelect;
@@ -47,7 +48,7 @@ function listWhere(f: ListWhere): SQL | undefined {
   const where: SQL[] = [];
   if (f.status) where.push(eq(budgets.status, f.status));
   if (f.ownerId !== undefined) where.push(eq(budgets.ownerId, f.ownerId));
-  if (f.q) where.push(like(budgets.title, `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`));
+  if (f.q) where.push(containsText(budgets.title, f.q));
   if (f.template !== 'any') where.push(eq(budgets.isTemplate, f.template === 'true'));
   if (f.returned !== undefined) where.push(eq(budgets.returned, f.returned));
   return where.length ? and(...where) : undefined;

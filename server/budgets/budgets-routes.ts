@@ -2,6 +2,7 @@ import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { BUDGET_SORTS, type ComputeLimits } from '../../shared/api/budgets';
+import { versionNoteField } from '../../shared/api/version-note';
 import { parseBudgetFile, serializeBudget } from '../../shared/budget/budget-file';
 import { BUDGET_STATUSES } from '../../shared/policy/policy';
 import { ValidationError } from '../http/errors';
@@ -10,7 +11,6 @@ import { budgetParams, pageQuery, sortOrder, sortQuery, userId, versionNumber, v
 import { parse } from '../http/validate';
 import type { BudgetsService } from './budgets-service';
 
-const note = z.string({ error: 'must be text' }).max(2000, { message: 'must not exceed 2000 characters' });
 const documentField = z.custom<unknown>((v) => typeof v === 'object' && v !== null && !Array.isArray(v), {
   message: 'must be a budget file object',
 });
@@ -25,14 +25,14 @@ const listQuery = z.strictObject({
   ...pageQuery(1000, 200),
 });
 const versionsQuery = z.strictObject({ order: sortOrder('asc'), ...pageQuery(1000, 1000) });
-const createBody = z.strictObject({ document: documentField, note: note.default(''), template: z.boolean().optional() });
-const saveBody = z.strictObject({ baseVersion: versionNumber, document: documentField, note: note.default('') });
+const createBody = z.strictObject({ document: documentField, note: versionNoteField.default(''), template: z.boolean().optional() });
+const saveBody = z.strictObject({ baseVersion: versionNumber, document: documentField, note: versionNoteField.default('') });
 const patchBody = z.strictObject({ isTemplate: z.boolean({ error: 'must be true or false' }) });
 const diffQuery = z.strictObject({ from: versionNumber, to: versionNumber });
 const cloneBody = z.strictObject({ version: versionNumber.optional(), title: z.string().trim().min(1).max(300).optional() });
 const exportQuery = z.strictObject({ version: versionNumber.optional() });
-const importJson = z.strictObject({ document: documentField, note: note.optional(), template: z.boolean().optional() });
-const importForm = z.strictObject({ note: note.optional(), template: z.enum(['true', 'false']).optional() });
+const importJson = z.strictObject({ document: documentField, note: versionNoteField.optional(), template: z.boolean().optional() });
+const importForm = z.strictObject({ note: versionNoteField.optional(), template: z.enum(['true', 'false']).optional() });
 
 export function budgetsRoutes(t: RouteTable, budgets: BudgetsService, opts: { importMaxBytes: number; limits: ComputeLimits }): void {
   const importUpload: RequestHandler = multer({

@@ -4,7 +4,7 @@ import { KNOWN_WELL_DOF, type DistributionRule, type Draft } from './distributio
 import { roundSignificant } from '../format/significant-digits';
 import { significantFigure } from '../presentation/figures';
 import { fillNormal } from '../random/ziggurat-normal';
-import { fillStudentT } from '../random/student-t-draws';
+import { scaledShiftedT } from './student-t';
 import { coverageFactorFor } from '../statistics/student-t';
 
 /** The fields of the `normal` kind in the budget file, with the messages that say what to write. */
@@ -44,15 +44,7 @@ export const normalRule: DistributionRule<'normal'> = {
     const mean = spec.value;
     const u = normalStandardUncertainty(spec);
     const dof = spec.dof;
-    if (dof !== undefined && dof !== Infinity) {
-      return {
-        tDof: dof,
-        fill(rng, out, n) {
-          fillStudentT(rng, out, n, dof);
-          for (let i = 0; i < n; i++) out[i] = mean + u * out[i];
-        },
-      };
-    }
+    if (dof !== undefined && dof !== Infinity) return scaledShiftedT(mean, u, dof);
     return {
       fill(rng, out, n) {
         fillNormal(rng, out, n, mean, u);

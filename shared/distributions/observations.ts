@@ -3,7 +3,7 @@ import { finite, positive, degreesOfFreedom, dofOptions, statedOptions } from '.
 import { LIMITS } from '../budget/limits';
 import type { DistributionOf } from '../budget/schema';
 import type { DistributionRule } from './distribution';
-import { fillStudentT } from '../random/student-t-draws';
+import { scaledShiftedT, tKurtosis } from './student-t';
 import { arithmeticMean, experimentalStandardDeviation } from './type-a';
 import { roundSignificant } from '../format/significant-digits';
 
@@ -37,17 +37,10 @@ export const observationsRule: DistributionRule<'observations'> = {
   },
   sampler(spec) {
     const { mean, scale, dof } = observationStatistics(spec);
-    return {
-      tDof: dof,
-      fill(rng, out, n) {
-        fillStudentT(rng, out, n, dof);
-        for (let i = 0; i < n; i++) out[i] = mean + scale * out[i];
-      },
-    };
+    return scaledShiftedT(mean, scale, dof);
   },
   uncertaintyFields: ['pooledSd'],
-  /** t with ν degrees of freedom: 3 + 6/(ν − 4) for ν > 4; Infinity for ν ≤ 4, where the fourth moment does not exist. */
-  kurtosis: (_spec, drawnDof) => (drawnDof > 4 ? 3 + 6 / (drawnDof - 4) : Infinity),
+  kurtosis: (_spec, drawnDof) => tKurtosis(drawnDof),
   check(d, fail) {
     if ((d.pooledSd === undefined) !== (d.pooledDof === undefined)) {
       fail(d.pooledSd === undefined ? 'pooledSd' : 'pooledDof', 'pooledSd and pooledDof go together');

@@ -1,9 +1,17 @@
+import { useDeferredValue, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
+
+/** The two directions of a sorted list, as the address and the server's sort query write them. */
+export const SORT_ORDERS = ['asc', 'desc'] as const;
+
+/** Address parameters that order or page a list; every other one narrows it. */
+const NOT_FILTERS = new Set(['page', 'sort', 'dir', 'order']);
 
 /**
  * A list page's filters, sort and page kept in the address, so a view can be
  * linked and survives a reload. Changing anything but the page goes back to
  * page one; history is replaced, not stacked, while the user narrows a list.
+ * `filtered` says whether any filter is set (what Clear filters would empty).
  */
 export function useListParams() {
   const [params, setParams] = useSearchParams();
@@ -17,5 +25,44 @@ export function useListParams() {
     setParams(next, { replace: true });
   };
   const clear = () => setParams(new URLSearchParams(), { replace: true });
-  return { params, set, clear };
+  const filtered = [...params.keys()].some((k) => !NOT_FILTERS.has(k));
+  /** From 1; a page past the last is the list's to correct (`useKeepPageInRange`). */
+  const page = Math.max(1, Number(params.get('page') ?? '1') || 1);
+  /** The parameter when it is one of `choices` (a sort column, an order), else `fallback`: an old or edited link still shows a list. */
+  const oneOf = <T extends string>(key: string, choices: readonly T[], fallback: T): T => {
+    const v = params.get(key);
+    return v !== null && (choices as readonly string[]).includes(v) ? (v as T) : fallback;
+  };
+  return { params, set, clear, filtered, page, oneOf };
+}
+
+export type ListParams = ReturnType<typeof useListParams>;
+
+/** What a list's search box shows and sends (`SearchField`). */
+export interface SearchText {
+  /** As typed, a space before the next word kept. */
+  text: string;
+  onChange(text: string): void;
+}
+
+/**
+ * The search box of a list: the text as typed, and its trimmed form in the
+ * address under `key`, which the list's query reads (`query`) deferred, so
+ * typing is not held up while the list is fetched again. When the address
+ * changes otherwise (Clear filters, a link to the bare list) the box shows it.
+ */
+export function useSearchText(list: ListParams, key = 'q'): SearchText & { query: string | undefined } {
+  const inAddress = list.params.get(key) ?? '';
+  const [text, setText] = useState(inAddress);
+  const [seen, setSeen] = useState(inAddress);
+  if (inAddress !== seen) {
+    setSeen(inAddress);
+    if (inAddress !== text.trim()) setText(inAddress);
+  }
+  const query = useDeferredValue(inAddress) || undefined;
+  const onChange = (typed: string) => {
+    setText(typed);
+    list.set({ [key]: typed.trim() || undefined });
+  };
+  return { text, onChange, query };
 }

@@ -2,7 +2,8 @@ import { copyFileSync, existsSync, mkdtempSync, readFileSync, readdirSync, write
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { builtCli, dubito, ensureBuiltCli, root } from './built-cli';
+import { projectRoot as root } from '../support/built-once';
+import { builtCli, dubito, ensureBuiltCli } from './built-cli';
 
 beforeAll(ensureBuiltCli);
 

@@ -16,6 +16,10 @@ describe('newDocument: the starting point of a new budget', () => {
     expect(d.inputs.map((q) => q.symbol)).toEqual(['x1', 'x2']);
   });
 
+  it('runs the Monte Carlo method with the trials a budget file without them gets, 10⁶', () => {
+    expect(newDocument('abc123').monteCarlo?.trials).toBe(1_000_000);
+  });
+
   it('gives each new budget a seed of its own', () => {
     expect(newDocument().monteCarlo?.seed).not.toBe(newDocument().monteCarlo?.seed);
   });

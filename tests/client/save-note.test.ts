@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { NOTE_MAX_LENGTH, noteProblem, noteToSave } from '../../src/features/editor/save-note';
+import { VERSION_NOTE_MAX_LENGTH } from '../../shared/api/version-note';
+import { noteProblem, noteToSave } from '../../src/features/editor/save-note';
 
 describe('the change note of the save dialog', () => {
   it('is required after the first version, blank counting as none', () => {
@@ -15,7 +16,7 @@ describe('the change note of the save dialog', () => {
   });
 
   it('is refused beyond the length the server keeps', () => {
-    expect(noteProblem('x'.repeat(NOTE_MAX_LENGTH), false)).toBeNull();
-    expect(noteProblem('x'.repeat(NOTE_MAX_LENGTH + 1), true)).toMatch(/under 2000 characters/);
+    expect(noteProblem('x'.repeat(VERSION_NOTE_MAX_LENGTH), false)).toBeNull();
+    expect(noteProblem('x'.repeat(VERSION_NOTE_MAX_LENGTH + 1), true)).toMatch(/2000 characters or fewer/);
   });
 });

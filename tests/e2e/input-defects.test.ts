@@ -145,9 +145,15 @@ describe('input defects: pasted readings, undo, version status, read-only text',
     await countIs(ratio.getByRole('list', { name: 'Observations' }).getByRole('listitem'), 5);
 
     // no form control in the budget's sections: the keyboard goes from one action to the next
-    for (const name of ['Measurand', 'Model', /^Input quantities/, 'Constants', 'Correlations']) {
+    for (const name of ['Measurand', 'Model', /^Input quantities/, 'Constants', 'Correlations', 'Monte Carlo method']) {
       await countIs(page.getByRole('region', { name }).locator('input, textarea, select'), 0);
     }
+    // the Monte Carlo settings are the budget's, as text; a run here reproduces the stored one
+    const mc = page.getByRole('region', { name: 'Monte Carlo method' });
+    await containsText(definition(mc, 'Trials M'), /^100\s000$/);
+    await hasTexts(definition(mc, 'Seed'), ['kestrel-r10k']);
+    await shows(mc.getByRole('button', { name: 'Run Monte Carlo' }));
+    await shot(mc, 'read-only-monte-carlo');
     await shot(page, 'read-only');
 
     // constants and correlations of a budget the auditor reads are table cells

@@ -1,15 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { countIs, shows } from './support/page-expect';
+import { countIs, hasTexts, shows } from './support/page-expect';
 import { useBrowserSession } from './support/session';
 
 /*
  * The lists the server pages and sorts, in Chromium against the built client and the demo lab:
  * a header click asks the server for another order and says so in aria-sort and the address,
- * the Columns menu hides a column, filters narrow the users. Screenshots go to
+ * the Columns menu hides a column, the search box narrows the budgets and the users as typed. Screenshots go to
  * tests/.artifacts/screenshots.
  */
 
-const { app, pageAs, shot } = useBrowserSession('lists');
+const { app, pageAs, shot, checkAccessibility } = useBrowserSession('lists');
 
 describe('lists sorted and paged by the server', () => {
   it('sorts the budgets by title on the server, marks the sorted column, and hides a column', async () => {
@@ -30,6 +30,44 @@ describe('lists sorted and paged by the server', () => {
     await page.getByRole('checkbox', { name: 'Owner' }).uncheck();
     await countIs(table.getByRole('columnheader', { name: 'Owner' }), 0);
     await shot(page, 'budgets-by-title');
+  }, 120_000);
+
+  it('searches the budget titles as typed, and Clear filters or the Budgets link empties the search', async () => {
+    const page = await pageAs('admin@dubito.example');
+    await page.goto(`${app.baseUrl}/budgets`);
+    const table = page.getByRole('table', { name: /Budgets, sorted by/ });
+    const titles = table.locator('tbody tr td:first-child');
+    await shows(table);
+    const all = (await titles.allInnerTexts()).map((t) => t.trim());
+    const box = page.getByLabel('Search titles');
+    // typed key by key: the space between the words stays in the box while the address holds the trimmed text
+    await box.pressSequentially('resistor ');
+    await page.waitForURL(/q=resistor(&|$)/);
+    expect(await box.inputValue()).toBe('resistor ');
+    await box.pressSequentially('kf');
+    await page.waitForURL(/q=resistor\+kf(&|$)/);
+    expect(await box.inputValue()).toBe('resistor kf');
+    const found = await page.evaluate(async () => ((await (await fetch('/api/budgets?q=resistor%20kf')).json()) as { title: string }[]).map((b) => b.title));
+    expect(found.length).toBeGreaterThan(0);
+    expect(found.length).toBeLessThan(all.length);
+    await hasTexts(titles, found);
+    await shot(page, 'budgets-searched');
+
+    await page.getByRole('button', { name: 'Clear filters' }).click();
+    await expect.poll(() => box.inputValue()).toBe('');
+    expect(new URL(page.url()).search).toBe('');
+    await hasTexts(titles, all);
+    expect(await page.getByRole('button', { name: 'Clear filters' }).isDisabled()).toBe(true);
+
+    await box.fill('gauge');
+    await page.waitForURL(/q=gauge/);
+    const gauges = await page.evaluate(async () => ((await (await fetch('/api/budgets?q=gauge')).json()) as { title: string }[]).map((b) => b.title));
+    expect(gauges.length).toBeGreaterThan(0);
+    await hasTexts(titles, gauges);
+    await checkAccessibility(page, 'the budgets searched for gauge');
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Budgets' }).click();
+    await expect.poll(() => box.inputValue()).toBe('');
+    await hasTexts(titles, all);
   }, 120_000);
 
   it('filters the users by name on the server and sorts them by e-mail', async () => {

@@ -1,4 +1,3 @@
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -15,7 +14,7 @@ import { shapeKurtosis } from '../../shared/distributions/kurtosis';
 import { compileModel } from '../../shared/model/compile-model';
 import type { Distribution } from '../../shared/budget/schema';
 import { budget, N, R } from '../support/budget-builder';
-import { builtCli, ensureBuiltCli } from '../cli/built-cli';
+import { dubito, ensureBuiltCli } from '../cli/built-cli';
 
 const gumOnly = { monteCarlo: false } as const;
 const t975 = (nu: number) => stdlibTQuantile(0.975, nu);
@@ -142,12 +141,11 @@ describe('only constants in a budget: refused, never an internal error', () => {
   });
 
   it('the CLI exits 2 with the message', () => {
-    const root = join(__dirname, '..', '..');
     const dir = mkdtempSync(join(tmpdir(), 'dubito-constants-'));
     const file = join(dir, 'budget.json');
     writeFileSync(file, JSON.stringify(budget('Y = a', { a: { kind: 'constant', value: 1 } as Distribution })));
     ensureBuiltCli();
-    const r = spawnSync(process.execPath, [builtCli, 'compute', file], { cwd: root, encoding: 'utf8' });
+    const r = dubito('compute', file);
     expect(r.status).toBe(2);
     expect(r.stderr).toContain('inputs: no input of the model has an uncertainty');
     expect(r.stderr).not.toContain('internal error');

@@ -13,7 +13,7 @@ import { formatBudgetTable } from '../../cli/budget-table';
 import { renderReportPdf } from '../../server/reports/report-pdf';
 import { BudgetWithContributions } from '../../src/budget/components/BudgetTable';
 import { ResultCard } from '../../src/features/editor/components/ResultCard';
-import { Comparison, Verdict } from '../../src/features/monte-carlo/components/MonteCarloPanel';
+import { MonteCarloComparison, ValidationVerdict } from '../../src/budget/components/MonteCarloComparison';
 import { ReportDocument } from '../../src/features/report/components/ReportDocument';
 
 /*
@@ -120,7 +120,9 @@ async function renderings(): Promise<Record<string, string>> {
   });
   const report = renderToString(createElement(ReportDocument, { model, facts, evidence: [], renderBudgetTable: (m) => createElement(BudgetWithContributions, { model: m }) }));
   const card = renderToString(createElement(ResultCard, { model, stale: false, move: null, problemsCount: 0, onSelect: () => {} }));
-  const panel = renderToString(createElement('div', null, createElement(Comparison, { view: model.monteCarlo!, unit: model.measurand.unit.text }), createElement(Verdict, { view: model.validation })));
+  const panel = renderToString(
+    createElement('div', null, createElement(MonteCarloComparison, { view: model.monteCarlo!, unit: model.measurand.unit.text }), createElement(ValidationVerdict, { view: model.validation })),
+  );
   return { pdf: await pdfText(pdf), cli: formatBudgetTable(document, result), report: htmlText(report), card: htmlText(card), panel: htmlText(panel) };
 }
 

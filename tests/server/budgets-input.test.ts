@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { VERSION_NOTE_MAX_LENGTH } from '../../shared/api/version-note';
 import { PDF, PNG } from './fixtures';
 import { sampleDocument, startTestServer, type TestServer } from './helpers';
 
@@ -103,6 +104,12 @@ describe('bad input on every route: a clear 4xx and nothing written', () => {
       ['save without baseVersion', () => m.put(`/api/budgets/${id}`).send({ document: sampleDocument() }), 400, 'baseVersion'],
       ['save on a stale base', () => m.put(`/api/budgets/${id}`).send({ baseVersion: 1, document: sampleDocument() }), 409],
       ['save an invalid document', () => m.put(`/api/budgets/${id}`).send({ baseVersion: cur, document: { ...sampleDocument(), inputs: [] } }), 422, 'inputs'],
+      [
+        'save with a note longer than the dialog allows',
+        () => m.put(`/api/budgets/${id}`).send({ baseVersion: cur, document: sampleDocument(), note: 'x'.repeat(VERSION_NOTE_MAX_LENGTH + 1) }),
+        400,
+        'note',
+      ],
       ['save a missing budget', () => m.put('/api/budgets/99999').send({ baseVersion: 1, document: sampleDocument() }), 404],
       ['template flag not boolean', () => admin.patch(`/api/budgets/${id}`).send({ isTemplate: 'yes' }), 400, 'isTemplate'],
       ['version zero', () => m.get(`/api/budgets/${id}/versions/0`), 400, 'n'],

@@ -1,44 +1,10 @@
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
-import { readdirSync, rmSync, statSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { spawn, type ChildProcess } from 'node:child_process';
+import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
+import { ensureBuilt } from '../support/built-once';
+import { freePort } from '../support/free-port';
 import { tempDir } from './helpers';
-
-const root = join(__dirname, '..', '..');
-const builtStart = join(root, 'server', 'dist', 'start.js');
-
-function newestSource(dir: string): number {
-  let newest = 0;
-  for (const e of readdirSync(dir, { withFileTypes: true })) {
-    if (e.name === 'dist' || e.name === 'node_modules') continue;
-    const path = join(dir, e.name);
-    newest = Math.max(newest, e.isDirectory() ? newestSource(path) : statSync(path).mtimeMs);
-  }
-  return newest;
-}
-
-/** Builds server/dist/ (as `npm run build:server` does) when it is missing or older than the server's and the engine's sources. */
-function ensureBuiltServer(): void {
-  let built = 0;
-  try {
-    built = statSync(builtStart).mtimeMs;
-  } catch {
-    // not built yet
-  }
-  if (built > Math.max(newestSource(join(root, 'server')), newestSource(join(root, 'shared')))) return;
-  const r = spawnSync(process.execPath, [join(root, 'server', 'build.mjs')], { cwd: root, encoding: 'utf8' });
-  if (r.status !== 0) throw new Error(`building the server failed: ${r.stderr}`);
-}
-
-/** A port nobody listens on right now. */
-async function freePort(): Promise<number> {
-  const probe = createServer();
-  await new Promise<void>((resolve) => probe.listen(0, '127.0.0.1', resolve));
-  const { port } = probe.address() as { port: number };
-  await new Promise<void>((resolve) => probe.close(() => resolve()));
-  return port;
-}
 
 const data = tempDir();
 let child: ChildProcess | null = null;
@@ -49,7 +15,7 @@ afterAll(() => {
 
 describe('the server built once to JavaScript (npm start)', () => {
   it('starts on plain node, answers /api/health and loads the engine in its built worker threads', { timeout: 120_000 }, async () => {
-    ensureBuiltServer();
+    const builtStart = ensureBuilt('server', 'start.js');
     const port = await freePort();
     // No NODE_OPTIONS: nothing may bring a TypeScript loader in.
     const { NODE_OPTIONS: _, ...env } = process.env;

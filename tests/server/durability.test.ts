@@ -1,12 +1,12 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { documentSha256 } from '../../server/budgets/canonical';
+import { freePort } from '../support/free-port';
 import { ORIGIN, PASSWORD, sampleDocument, tempDir } from './helpers';
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -18,17 +18,6 @@ afterAll(() => {
   for (const c of children) if (c.exitCode === null && c.signalCode === null) c.kill('SIGKILL');
   rmSync(dir, { recursive: true, force: true });
 });
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const port = (srv.address() as { port: number }).port;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 /** Starts `server/main.ts` in its own process through tsx and waits until it listens. */
 async function startServer(port: number): Promise<ChildProcess> {

@@ -163,6 +163,8 @@ export function ErrorNote({ title = 'Something went wrong', heading, children }:
 /** A modal built on <dialog>: focus is trapped and Escape closes it. */
 export function Modal({ open, onClose, title, children, wide }: { open: boolean; onClose(): void; title: string; children: ReactNode; wide?: boolean }) {
   const ref = useRef<HTMLDialogElement>(null);
+  // one id per dialog: a page may hold several (closed ones stay mounted), and each is named by its own title
+  const titleId = useId();
   useEffect(() => {
     const d = ref.current;
     if (!d) return;
@@ -177,12 +179,12 @@ export function Modal({ open, onClose, title, children, wide }: { open: boolean;
         e.preventDefault();
         onClose();
       }}
-      aria-labelledby="modal-title"
+      aria-labelledby={titleId}
       className={`m-auto w-full ${wide ? 'max-w-3xl' : 'max-w-lg'} rounded-lg border border-stone-300 bg-white p-0 text-stone-900 shadow-xl backdrop:bg-stone-900/40`}
     >
       {open ? (
         <div className="flex flex-col gap-4 p-5">
-          <h2 id="modal-title" className="text-lg font-semibold">
+          <h2 id={titleId} className="text-lg font-semibold">
             {title}
           </h2>
           {children}

@@ -1,6 +1,7 @@
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type RowData, type SortingState, type Updater, type VisibilityState } from '@tanstack/react-table';
 import { useEffect, useState, type HTMLAttributes, type ReactNode } from 'react';
-import { Button } from './controls';
+import type { SearchText } from '../search-params';
+import { Button, Field, TextInput } from './controls';
 import { Pager } from './pager';
 
 declare module '@tanstack/react-table' {
@@ -201,4 +202,9 @@ export function ClearFilters({ disabled, onClear }: { disabled: boolean; onClear
       </Button>
     </div>
   );
+}
+
+/** A list's search box, showing and sending the text of `useSearchText`. */
+export function SearchField({ label, placeholder, search }: { label: string; placeholder?: string; search: SearchText }) {
+  return <Field label={label}>{(p) => <TextInput {...p} type="search" placeholder={placeholder} value={search.text} onChange={(e) => search.onChange(e.target.value)} />}</Field>;
 }

@@ -1,3 +1,4 @@
+import { DEFAULTS } from '../../../shared/budget/limits';
 import type { BudgetDocument, InputQuantity } from '../../../shared/budget/schema';
 import type { StoredDraft } from './draft-storage';
 import type { Problem } from './live';
@@ -8,7 +9,7 @@ import type { Problem } from './live';
  * next input to add, and which problems have no field of their own to sit by.
  */
 
-/** The starting document of a new budget: two inputs and a model that adds them, with a seed of its own. */
+/** The starting document of a new budget: two inputs and a model that adds them, the budget file's default trials and a seed of its own. */
 export function newDocument(seedSuffix: string = Math.random().toString(36).slice(2, 8)): BudgetDocument {
   return {
     format: 'dubito-budget/1',
@@ -20,7 +21,7 @@ export function newDocument(seedSuffix: string = Math.random().toString(36).slic
       { symbol: 'x2', description: 'second input quantity', distribution: { kind: 'rectangular', value: 0, halfWidth: 0.01 } },
     ],
     coverageProbability: 0.95,
-    monteCarlo: { trials: 200000, seed: `dubito-${seedSuffix}` },
+    monteCarlo: { trials: DEFAULTS.trials, seed: `${DEFAULTS.seed}-${seedSuffix}` },
   };
 }
 

@@ -1,5 +1,4 @@
-/** The longest change note the server keeps with a version. */
-export const NOTE_MAX_LENGTH = 2000;
+import { VERSION_NOTE_MAX_LENGTH } from '../../../shared/api/version-note';
 
 /**
  * What is wrong with the change note of the save dialog, or null: it is
@@ -8,7 +7,7 @@ export const NOTE_MAX_LENGTH = 2000;
  */
 export function noteProblem(note: string, isNew: boolean): string | null {
   if (!isNew && note.trim() === '') return 'Say in a few words what changed; the note goes into the version history.';
-  if (note.length > NOTE_MAX_LENGTH) return `Keep the note under ${NOTE_MAX_LENGTH} characters.`;
+  if (note.length > VERSION_NOTE_MAX_LENGTH) return `Keep the note to ${VERSION_NOTE_MAX_LENGTH} characters or fewer.`;
   return null;
 }
 

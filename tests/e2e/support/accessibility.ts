@@ -17,10 +17,12 @@ interface Violation {
   nodes: { target: string[]; summary: string }[];
 }
 
-/** The page has stopped loading what it shows: no spinner turns and no finite animation is under way. */
+/** The page has stopped loading what it shows: no spinner turns, no list is being fetched again and no finite animation is under way. */
 async function settled(page: Page): Promise<void> {
   await page.waitForLoadState('load');
   await page.locator('.animate-spin').first().waitFor({ state: 'detached' });
+  // a list fetched again is shown faded (aria-busy) until its rows arrive
+  await page.locator('[aria-busy="true"]').first().waitFor({ state: 'detached' });
   // A colour caught half-way through a fade would be judged on a mix of two colours.
   await page.evaluate(() =>
     Promise.all(

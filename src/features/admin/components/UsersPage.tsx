@@ -6,9 +6,9 @@ import type { UserAccount } from '../../../../shared/api/accounts';
 import { inviteBody, patchUserBody, USER_SORTS, type InviteInput, type UserPatch, type UserSort } from '../../../../shared/api/user-admin';
 import { ROLES, type Role } from '../../../../shared/policy/policy';
 import { ApiError, errorMessage } from '../../../app/http';
-import { useListParams } from '../../../app/search-params';
+import { SORT_ORDERS, useListParams, useSearchText } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, FormDialog, Select, Spinner, SubmitButton, TextArea, TextInput } from '../../../app/ui/controls';
-import { ClearFilters, DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
+import { ClearFilters, DataTable, SearchField, useKeepPageInRange } from '../../../app/ui/data-table';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { useToast } from '../../../app/ui/toasts';
 import { useInvite, useUpdateUser, useUsers } from '../api/admin';
@@ -255,20 +255,16 @@ function userColumns(meId: number, ask: (u: UserAccount, change: PendingChange) 
 }
 
 export function UsersPage({ meId }: { meId: number }) {
-  const { params, set, clear } = useListParams();
-  const [text, setText] = useState(params.get('q') ?? '');
-  const roleParam = params.get('role');
-  const role = (ROLES as readonly string[]).includes(roleParam ?? '') ? (roleParam as Role) : undefined;
-  const sortParam = params.get('sort');
-  const sort: UserSort = (USER_SORTS as readonly string[]).includes(sortParam ?? '') ? (sortParam as UserSort) : 'created';
-  const order = params.get('dir') === 'desc' ? 'desc' : 'asc';
-  const page = Math.max(1, Number(params.get('page') ?? '1') || 1);
-  const q = params.get('q') ?? undefined;
-  const users = useUsers({ q, role }, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, sort, order });
+  const list = useListParams();
+  const { set, clear, filtered, page } = list;
+  const search = useSearchText(list);
+  const role = list.oneOf<Role | ''>('role', ROLES, '') || undefined;
+  const sort = list.oneOf<UserSort>('sort', USER_SORTS, 'created');
+  const order = list.oneOf('dir', SORT_ORDERS, 'asc');
+  const users = useUsers({ q: search.query, role }, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, sort, order });
   useKeepPageInRange(page, users.data?.total, PAGE_SIZE, (n) => set({ page: String(n) }));
   const [pending, setPending] = useState<{ u: UserAccount; change: PendingChange } | null>(null);
   const columns = useMemo(() => userColumns(meId, (u, change) => setPending({ u, change })), [meId]);
-  const filtered = !!(q || role);
   return (
     <div className="mx-auto flex max-w-6xl flex-col gap-4 px-6 py-6">
       <div>
@@ -282,19 +278,7 @@ export function UsersPage({ meId }: { meId: number }) {
         className="grid grid-cols-1 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-[2fr_1fr_auto]"
         onSubmit={(e) => e.preventDefault()}
       >
-        <Field label="Search names and addresses">
-          {(p) => (
-            <TextInput
-              {...p}
-              type="search"
-              value={text}
-              onChange={(e) => {
-                setText(e.target.value);
-                set({ q: e.target.value.trim() || undefined });
-              }}
-            />
-          )}
-        </Field>
+        <SearchField label="Search names and addresses" search={search} />
         <Field label="Role">
           {(p) => (
             <Select {...p} value={role ?? ''} onChange={(e) => set({ role: e.target.value || undefined })}>
@@ -307,13 +291,7 @@ export function UsersPage({ meId }: { meId: number }) {
             </Select>
           )}
         </Field>
-        <ClearFilters
-          disabled={!filtered}
-          onClear={() => {
-            setText('');
-            clear();
-          }}
-        />
+        <ClearFilters disabled={!filtered} onClear={clear} />
       </form>
       {users.isPending ? (
         <Spinner label="Loading users" />

@@ -3,9 +3,9 @@ import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
 import type { AuditEvent } from '../../../../shared/api/audit';
 import { errorMessage } from '../../../app/http';
-import { useListParams } from '../../../app/search-params';
-import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
-import { DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
+import { SORT_ORDERS, useListParams } from '../../../app/search-params';
+import { EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
+import { ClearFilters, DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
 import { formatDateTime } from '../../../app/ui/numbers';
 import type { AuditFilter } from '../../../budget/query-keys';
 import { AUDIT_ACTIONS, auditCsvUrl, useAudit, useAuditActors, useAuditBudgets } from '../api/audit';
@@ -68,19 +68,17 @@ function fromLocalInput(text: string): number | undefined {
 }
 
 export function AuditPage() {
-  const { params, set, clear } = useListParams();
+  const list = useListParams();
+  const { params, set, clear, filtered, page } = list;
   const num = (k: string) => (params.get(k) ? Number(params.get(k)) || undefined : undefined);
   const filter: AuditFilter = { budget: num('budget'), actor: num('actor'), action: params.get('action') ?? undefined, from: num('from'), to: num('to') };
-  const page = Math.max(1, num('page') ?? 1);
-  const order = params.get('order') === 'asc' ? 'asc' : 'desc';
+  const order = list.oneOf('order', SORT_ORDERS, 'desc');
   const audit = useAudit(filter, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, order });
   useKeepPageInRange(page, audit.data?.total, PAGE_SIZE, (n) => set({ page: String(n) }));
   const actors = useAuditActors();
   const budgets = useAuditBudgets();
   const columns = useMemo(() => auditColumns(new Map((budgets.data ?? []).map((b) => [b.id, b.title]))), [budgets.data]);
   const rangeError = filter.from !== undefined && filter.to !== undefined && filter.from > filter.to ? 'The end of the range is before its start.' : null;
-
-  const filtered = [...params.keys()].some((k) => k !== 'page' && k !== 'order');
 
   return (
     <div className="mx-auto flex max-w-7xl flex-col gap-4 px-6 py-6">
@@ -145,11 +143,7 @@ export function AuditPage() {
         <Field label="To" error={rangeError}>
           {(p) => <TextInput {...p} type="datetime-local" value={toLocalInput(filter.to)} onChange={(e) => set({ to: fromLocalInput(e.target.value)?.toString() })} />}
         </Field>
-        <div className="flex items-end">
-          <Button variant="ghost" disabled={!filtered} onClick={clear}>
-            Clear filters
-          </Button>
-        </div>
+        <ClearFilters disabled={!filtered} onClear={clear} />
       </form>
 
       {audit.isPending ? (

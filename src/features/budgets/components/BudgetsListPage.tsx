@@ -1,12 +1,12 @@
 import type { ColumnDef } from '@tanstack/react-table';
-import { useDeferredValue, useRef, useState } from 'react';
+import { useRef } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { BUDGET_SORTS, type BudgetListItem, type BudgetSort } from '../../../../shared/api/budgets';
 import { can, type BudgetStatus, type Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
-import { useListParams } from '../../../app/search-params';
-import { Button, EmptyState, ErrorNote, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
-import { ClearFilters, DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
+import { SORT_ORDERS, useListParams, useSearchText } from '../../../app/search-params';
+import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
+import { ClearFilters, DataTable, SearchField, useKeepPageInRange } from '../../../app/ui/data-table';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { useToast } from '../../../app/ui/toasts';
 import { StatusBadge, statusLabel, type DisplayStatus } from '../../../budget/components/StatusBadge';
@@ -45,22 +45,20 @@ const COLUMNS: ColumnDef<BudgetListItem, unknown>[] = [
 ];
 
 export function BudgetsListPage({ role }: { role: Role }) {
-  const { params, set, clear } = useListParams();
+  const list = useListParams();
+  const { params, set, clear, filtered, page } = list;
+  const search = useSearchText(list);
   const status = (params.get('status') ?? '') as DisplayStatus | '';
   const owner = Number(params.get('owner') ?? '') || undefined;
-  const [text, setText] = useState(params.get('q') ?? '');
-  const q = useDeferredValue(text.trim());
-  const sortParam = params.get('sort') as BudgetSort | null;
-  const sort: BudgetSort = sortParam && (BUDGET_SORTS as readonly string[]).includes(sortParam) ? sortParam : 'updated';
-  const dir = params.get('dir') === 'asc' ? 'asc' : 'desc';
-  const page = Math.max(1, Number(params.get('page') ?? '1') || 1);
+  const sort = list.oneOf<BudgetSort>('sort', BUDGET_SORTS, 'updated');
+  const dir = list.oneOf('dir', SORT_ORDERS, 'desc');
 
   // a returned budget is a draft the reviewer sent back: the server tells them apart
   const serverStatus: BudgetStatus | undefined = status === 'returned' ? 'draft' : status || undefined;
   const returned = status === 'returned' ? true : status === 'draft' ? false : undefined;
-  const filter = { status: serverStatus, returned, owner, q: q || undefined };
-  const list = useBudgetList(filter, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, sort, order: dir });
-  useKeepPageInRange(page, list.data?.total, PAGE_SIZE, (n) => set({ page: String(n) }));
+  const filter = { status: serverStatus, returned, owner, q: search.query };
+  const budgets = useBudgetList(filter, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, sort, order: dir });
+  useKeepPageInRange(page, budgets.data?.total, PAGE_SIZE, (n) => set({ page: String(n) }));
   const owners = useBudgetOwners();
 
   const navigate = useNavigate();
@@ -68,7 +66,6 @@ export function BudgetsListPage({ role }: { role: Role }) {
   const importBudget = useImportBudget();
   const fileRef = useRef<HTMLInputElement>(null);
   const canCreate = can(role, 'budget.create');
-  const filtered = !!(status || owner || q);
 
   return (
     <div className="mx-auto flex max-w-6xl flex-col gap-4 px-6 py-6">
@@ -110,20 +107,7 @@ export function BudgetsListPage({ role }: { role: Role }) {
       </div>
 
       <form role="search" className="grid grid-cols-1 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-[2fr_1fr_1fr_auto]" onSubmit={(e) => e.preventDefault()}>
-        <Field label="Search titles">
-          {(p) => (
-            <TextInput
-              {...p}
-              type="search"
-              placeholder="e.g. gauge block"
-              value={text}
-              onChange={(e) => {
-                setText(e.target.value);
-                set({ q: e.target.value.trim() || undefined });
-              }}
-            />
-          )}
-        </Field>
+        <SearchField label="Search titles" placeholder="e.g. gauge block" search={search} />
         <Field label="Status">
           {(p) => (
             <Select {...p} value={status} onChange={(e) => set({ status: e.target.value || undefined })}>
@@ -148,29 +132,23 @@ export function BudgetsListPage({ role }: { role: Role }) {
             </Select>
           )}
         </Field>
-        <ClearFilters
-          disabled={!filtered}
-          onClear={() => {
-            setText('');
-            clear();
-          }}
-        />
+        <ClearFilters disabled={!filtered} onClear={clear} />
       </form>
 
-      {list.isPending ? (
+      {budgets.isPending ? (
         <Spinner label="Loading budgets" />
-      ) : list.isError ? (
-        <ErrorNote title="The budgets could not be loaded">{errorMessage(list.error)}</ErrorNote>
+      ) : budgets.isError ? (
+        <ErrorNote title="The budgets could not be loaded">{errorMessage(budgets.error)}</ErrorNote>
       ) : (
         <DataTable
           id="budgets"
           caption={`Budgets, sorted by ${SORT_WORDS[sort]} (${dir === 'asc' ? 'ascending' : 'descending'})`}
-          data={list.data.rows}
+          data={budgets.data.rows}
           columns={COLUMNS}
           getRowId={(b) => String(b.id)}
-          busy={list.isPlaceholderData}
+          busy={budgets.isPlaceholderData}
           sorting={{ sort, order: dir, onSort: (key, order) => set({ sort: key, dir: order }) }}
-          paging={{ page, pageSize: PAGE_SIZE, total: list.data.total, onPage: (n) => set({ page: String(n) }) }}
+          paging={{ page, pageSize: PAGE_SIZE, total: budgets.data.total, onPage: (n) => set({ page: String(n) }) }}
           rowProps={() => ({ className: 'border-b border-stone-100 last:border-0 hover:bg-stone-50' })}
           empty={
             filtered ? (

@@ -164,7 +164,6 @@ export function Editor({
 
         {renderMonteCarlo({
           document: live.valid,
-          gum: live.result?.gum ?? null,
           measurand: { symbol: doc.measurand.symbol, unit: live.result?.measurand.unit ?? doc.measurand.unit },
           stored: start && !dirty ? { result: start.result, label: `stored with version ${start.version}` } : null,
           settings: doc.monteCarlo,

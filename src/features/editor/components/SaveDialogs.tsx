@@ -6,7 +6,8 @@ import { errorMessage } from '../../../app/http';
 import { Button, ErrorNote, Field, FormDialog, Modal, Spinner, TextArea } from '../../../app/ui/controls';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { versionQuery as budgetVersionQuery, versionListQuery as editorVersionsQuery } from '../../../budget/queries';
-import { NOTE_MAX_LENGTH, noteProblem, noteToSave } from '../save-note';
+import { VERSION_NOTE_MAX_LENGTH } from '../../../../shared/api/version-note';
+import { noteProblem, noteToSave } from '../save-note';
 
 export function SaveDialog({ open, onClose, onSave, saving, isNew, error }: { open: boolean; onClose(): void; onSave(note: string): void; saving: boolean; isNew: boolean; error: string | null }) {
   const [note, setNote] = useState('');
@@ -27,7 +28,7 @@ export function SaveDialog({ open, onClose, onSave, saving, isNew, error }: { op
       pending={saving}
     >
       <Field label="Change note" error={tried ? problem : null} hint={isNew ? 'Optional for the first version.' : 'e.g. “new certificate for the reference, U from 30 nm to 25 nm”'}>
-        {(p) => <TextArea {...p} rows={3} value={note} onChange={(e) => setNote(e.target.value)} autoFocus maxLength={NOTE_MAX_LENGTH} />}
+        {(p) => <TextArea {...p} rows={3} value={note} onChange={(e) => setNote(e.target.value)} autoFocus maxLength={VERSION_NOTE_MAX_LENGTH} />}
       </Field>
       <p className="text-xs text-stone-600">The server computes the saved version again (GUM and Monte Carlo) and stores the result with it.</p>
       {error ? (

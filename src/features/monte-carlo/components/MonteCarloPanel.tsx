@@ -1,11 +1,12 @@
-import { lazy, Suspense, useMemo, useState } from 'react';
+import { lazy, Suspense, useMemo } from 'react';
 import { duration } from '../../../../shared/presentation/figures';
-import { presentMonteCarlo, type MonteCarloView } from '../../../../shared/presentation/result-model';
-import type { VerdictView } from '../../../../shared/presentation/verdict';
+import { presentMonteCarlo } from '../../../../shared/presentation/result-model';
 import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Button, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatCount } from '../../../app/ui/numbers';
+import { ReadOnlyField, ReadOnlyList } from '../../../app/ui/read-only';
 import { formatUnit } from '../../../app/ui/units';
+import { MonteCarloComparison, ValidationVerdict } from '../../../budget/components/MonteCarloComparison';
 import { DEFAULTS } from '../../../../shared/budget/limits';
 import { useComputeLimits } from '../api/compute-limits';
 import { useMonteCarloRun } from '../api/use-monte-carlo';
@@ -15,76 +16,16 @@ const HistogramPlot = lazy(() => import('../../../budget/components/HistogramPlo
 const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000, 5_000_000];
 
 const seconds = (ms: number): string => duration(ms).text;
+const trialsText = (t: number | 'adaptive'): string => (t === 'adaptive' ? 'adaptive (JCGM 101 7.9)' : formatCount(t));
 
-/** The clause 8 comparison in words, from the result model. */
-export function Verdict({ view }: { view: VerdictView | null }) {
-  if (!view) return null;
-  const tone =
-    view.tone === 'good'
-      ? 'border-accent-600 bg-accent-50 text-accent-700'
-      : view.tone === 'warning'
-        ? 'border-caution-500 bg-caution-50 text-caution-700'
-        : 'border-stone-300 bg-white text-stone-800';
-  return (
-    <p className={`rounded-md border px-3 py-2 text-sm ${tone}`} data-testid="mc-verdict">
-      <span className="font-semibold">
-        {view.tone === 'good' ? '✓ ' : view.tone === 'warning' ? '⚠ ' : ''}
-        {view.headline}
-      </span>{' '}
-      {view.detail.text}
-    </p>
-  );
-}
-
-/** GUM and Monte Carlo figures side by side, at one decimal place (from the result model). */
-export function Comparison({ view, unit }: { view: MonteCarloView; unit: string }) {
-  return (
-    <table className="w-full text-sm" data-testid="mc-comparison">
-      <caption className="sr-only">GUM and Monte Carlo results side by side</caption>
-      <thead className="text-xs text-stone-700">
-        <tr>
-          <th className="py-1 text-left font-normal text-stone-600">{unit ? `values in ${unit}` : 'dimensionless values'}</th>
-          <th className="py-1 text-right font-semibold">GUM</th>
-          <th className="py-1 text-right font-semibold">Monte Carlo</th>
-        </tr>
-      </thead>
-      <tbody className="num">
-        {view.rows.map((r) => (
-          <tr key={r.label} className="border-t border-stone-100">
-            <th scope="row" className="py-1 text-left font-sans font-normal text-stone-700">
-              {r.label}
-            </th>
-            <td className={`py-1 text-right ${r.gum ? '' : 'text-stone-500'}`}>{r.gum ? r.gum.text : '—'}</td>
-            <td className="py-1 text-right">{r.monteCarlo.text}</td>
-          </tr>
-        ))}
-      </tbody>
-      {view.stability ? (
-        <tfoot>
-          <tr>
-            <td colSpan={3} className="pt-1 text-xs text-stone-600">
-              {view.stability}
-            </td>
-          </tr>
-        </tfoot>
-      ) : null}
-    </table>
-  );
-}
-
-export function MonteCarloPanel({ document, gum, measurand, stored, settings, onSettings, readOnly }: MonteCarloSlotProps) {
+export function MonteCarloPanel({ document, measurand, stored, settings, onSettings, readOnly }: MonteCarloSlotProps) {
   const { state, run, cancel } = useMonteCarloRun();
   // A run in the browser uses the server's cap, so the run a save stores is the run seen here (JCGM 101:2008 7.2).
   const limits = useComputeLimits();
   const cap = limits.data?.trialsCap ?? null;
-  const [localTrials, setLocalTrials] = useState<number | 'adaptive'>(() => {
-    const t = settings?.trials;
-    return t === 'adaptive' ? 'adaptive' : typeof t === 'number' ? t : DEFAULTS.trials;
-  });
-  const [localSeed, setLocalSeed] = useState(() => String(settings?.seed ?? DEFAULTS.seed));
   // Unset in the budget, trials and seed are the defaults a save uses too.
-  const trials = readOnly ? localTrials : settings?.trials === 'adaptive' ? 'adaptive' : typeof settings?.trials === 'number' ? settings.trials : DEFAULTS.trials;
-  const seed = readOnly ? localSeed : String(settings?.seed ?? DEFAULTS.seed);
+  const trials: number | 'adaptive' = settings?.trials ?? DEFAULTS.trials;
+  const seed = String(settings?.seed ?? DEFAULTS.seed);
   const overCap = cap !== null && typeof trials === 'number' && trials > cap;
   const unit = formatUnit(measurand.unit);
 
@@ -97,14 +38,8 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
   const elapsed = running ? performance.now() - state.startedAt : 0;
   const left = running && state.done > 0 ? (elapsed / state.done) * (state.total - state.done) : null;
 
-  const setTrials = (t: number | 'adaptive') => {
-    setLocalTrials(t);
-    if (!readOnly) onSettings({ ...(settings ?? {}), trials: t });
-  };
-  const setSeed = (s: string) => {
-    setLocalSeed(s);
-    if (!readOnly) onSettings({ ...(settings ?? {}), seed: s });
-  };
+  const setTrials = (t: number | 'adaptive') => onSettings({ ...(settings ?? {}), trials: t });
+  const setSeed = (text: string) => onSettings({ ...(settings ?? {}), seed: text });
   const choices = typeof trials === 'number' && !TRIAL_CHOICES.includes(trials) ? [...TRIAL_CHOICES, trials].sort((a, b) => a - b) : TRIAL_CHOICES;
 
   return (
@@ -116,22 +51,36 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
         <p className="text-xs text-stone-600">Propagation of distributions (JCGM 101:2008), run in the background of this page; the same seed and trials give the same numbers.</p>
       </div>
       <div className="grid items-end gap-3 md:grid-cols-[12rem_1fr_auto]">
-        <Field label="Trials M">
-          {(p) => (
-            <Select {...p} value={String(trials)} disabled={running} onChange={(e) => setTrials(e.target.value === 'adaptive' ? 'adaptive' : Number(e.target.value))}>
-              {choices.map((t) => (
-                <option key={t} value={t} disabled={cap !== null && t > cap}>
-                  {formatCount(t)}
-                  {cap !== null && t > cap ? ' (above the server cap)' : ''}
-                </option>
-              ))}
-              <option value="adaptive">adaptive (JCGM 101 7.9)</option>
-            </Select>
-          )}
-        </Field>
-        <Field label="Seed" hint="Any text; keep it to reproduce a run.">
-          {(p) => <TextInput {...p} className="num" value={seed} disabled={running} onChange={(e) => setSeed(e.target.value)} />}
-        </Field>
+        {readOnly ? (
+          // a reader runs the budget's own trials and seed, which reproduce the stored run
+          <ReadOnlyList className="md:col-span-2 md:grid-cols-[12rem_1fr]" label="Monte Carlo settings">
+            <ReadOnlyField label="Trials M" numeric note={overCap ? `a run uses the server's cap of ${formatCount(cap)}` : undefined}>
+              {trialsText(trials)}
+            </ReadOnlyField>
+            <ReadOnlyField label="Seed" numeric>
+              {seed}
+            </ReadOnlyField>
+          </ReadOnlyList>
+        ) : (
+          <>
+            <Field label="Trials M">
+              {(p) => (
+                <Select {...p} value={String(trials)} disabled={running} onChange={(e) => setTrials(e.target.value === 'adaptive' ? 'adaptive' : Number(e.target.value))}>
+                  {choices.map((t) => (
+                    <option key={t} value={t} disabled={cap !== null && t > cap}>
+                      {formatCount(t)}
+                      {cap !== null && t > cap ? ' (above the server cap)' : ''}
+                    </option>
+                  ))}
+                  <option value="adaptive">{trialsText('adaptive')}</option>
+                </Select>
+              )}
+            </Field>
+            <Field label="Seed" hint="Any text; keep it to reproduce a run.">
+              {(p) => <TextInput {...p} className="num" value={seed} disabled={running} onChange={(e) => setSeed(e.target.value)} />}
+            </Field>
+          </>
+        )}
         <div className="flex gap-2">
           {running ? (
             <Button variant="danger" onClick={cancel}>
@@ -151,16 +100,18 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
       </div>
 
       {cap !== null ? (
-        <p className="mt-2 text-xs text-stone-600">
-          A saved version stores at most <span className="num">{formatCount(cap)}</span> trials, computed on the server with this seed: the browser runs with the same cap, so the stored result is the
-          one seen here.
-          {overCap ? (
-            <span className="text-caution-700">
-              {' '}
-              These settings ask for <span className="num">{formatCount(trials as number)}</span>; the run and the save use <span className="num">{formatCount(cap)}</span>.
-            </span>
-          ) : null}
-        </p>
+        readOnly ? null : (
+          <p className="mt-2 text-xs text-stone-600">
+            A saved version stores at most <span className="num">{formatCount(cap)}</span> trials, computed on the server with this seed: the browser runs with the same cap, so the stored result is
+            the one seen here.
+            {overCap ? (
+              <span className="text-caution-700">
+                {' '}
+                These settings ask for <span className="num">{formatCount(trials as number)}</span>; the run and the save use <span className="num">{formatCount(cap)}</span>.
+              </span>
+            ) : null}
+          </p>
+        )
       ) : limits.isError ? (
         <p role="alert" className="mt-2 text-xs text-caution-700">
           The server's trials cap could not be read, so a run here might differ from the stored one; reload the page to try again.
@@ -197,7 +148,6 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
         <div className="mt-4 flex flex-col gap-3">
           <p className="text-xs text-stone-600">
             <span className="num">{figures?.monteCarlo?.heading}</span>, seed <span className="num rounded bg-white px-1 text-stone-800">{mc.seed}</span> — {shown.label}
-            {gum && shown === stored ? '' : ''}
           </p>
           <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             <div className="rounded-md border border-stone-200 bg-white p-2">
@@ -218,8 +168,8 @@ export function MonteCarloPanel({ document, gum, measurand, stored, settings, on
               </Suspense>
             </div>
             <div className="flex flex-col gap-3">
-              {figures?.monteCarlo ? <Comparison view={figures.monteCarlo} unit={figures.unit.text} /> : null}
-              <Verdict view={figures?.validation ?? null} />
+              {figures?.monteCarlo ? <MonteCarloComparison view={figures.monteCarlo} unit={figures.unit.text} /> : null}
+              <ValidationVerdict view={figures?.validation ?? null} />
             </div>
           </div>
         </div>

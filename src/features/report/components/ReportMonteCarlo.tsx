@@ -1,6 +1,7 @@
 import type { HistogramBins } from '../../../../shared/budget/result';
 import { atDecimalPlace } from '../../../../shared/presentation/figures';
 import type { ResultModel } from '../../../../shared/presentation/result-model';
+import { MonteCarloComparison, ValidationVerdict } from '../../../budget/components/MonteCarloComparison';
 
 /** A print-friendly histogram: bars of the Monte Carlo values, both coverage intervals marked. */
 function Histogram({ h, gum, mc, unit, place }: { h: HistogramBins; gum: [number, number]; mc: [number, number]; unit: string; place: number }) {
@@ -54,32 +55,11 @@ export function ReportMonteCarlo({ model: m, histogram }: { model: ResultModel; 
       <h2 id="rep-mc" className="mb-1 text-base font-semibold">
         4 Monte Carlo propagation of distributions (JCGM 101:2008)
       </h2>
-      <table className="w-full text-sm" data-testid="report-monte-carlo">
-        <caption className="sr-only">GUM and Monte Carlo figures side by side</caption>
-        <thead className="text-xs">
-          <tr className="border-b border-stone-300">
-            <th className="py-1 text-left font-normal text-stone-600">{unit.text ? `values in ${unit.text}` : 'dimensionless values'}</th>
-            <th className="py-1 text-right font-semibold">GUM</th>
-            <th className="py-1 text-right font-semibold">Monte Carlo ({mc.heading})</th>
-          </tr>
-        </thead>
-        <tbody className="num">
-          {mc.rows.map((r) => (
-            <tr key={r.label} className="border-b border-stone-100">
-              <th scope="row" className="py-0.5 text-left font-sans font-normal text-stone-700">
-                {r.label}
-              </th>
-              <td className="py-0.5 text-right">{r.gum ? r.gum.text : '—'}</td>
-              <td className="py-0.5 text-right">{r.monteCarlo.text}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      {mc.stability ? <p className="mt-1 text-xs text-stone-700">{mc.stability}</p> : null}
+      <MonteCarloComparison view={mc} unit={unit.text} heading={`Monte Carlo (${mc.heading})`} dense />
       {m.validation ? (
-        <p className={`mt-2 text-sm ${m.validation.tone === 'warning' ? 'text-caution-700' : 'text-stone-800'}`} data-testid="report-verdict">
-          <span className="font-semibold">{m.validation.headline}</span> {m.validation.detail.text}
-        </p>
+        <div className="mt-2">
+          <ValidationVerdict view={m.validation} />
+        </div>
       ) : null}
       {histogram ? <Histogram h={histogram.bins} gum={histogram.gum} mc={histogram.mc} unit={unit.text} place={mc.place} /> : null}
     </section>

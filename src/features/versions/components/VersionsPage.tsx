@@ -4,7 +4,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import type { BudgetView, VersionMeta } from '../../../../shared/api/budgets';
 import type { Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
-import { useListParams } from '../../../app/search-params';
+import { SORT_ORDERS, useListParams } from '../../../app/search-params';
 import { Breadcrumb } from '../../../app/ui/breadcrumb';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { DataTable, useKeepPageInRange } from '../../../app/ui/data-table';
@@ -104,9 +104,9 @@ function versionColumns(budgetId: number, b: BudgetView | undefined): ColumnDef<
 }
 
 export function VersionsPage({ budgetId }: { me: { id: number; role: Role }; budgetId: number }) {
-  const { params, set } = useListParams();
-  const order = params.get('order') === 'asc' ? 'asc' : 'desc';
-  const page = Math.max(1, Number(params.get('page') ?? '1') || 1);
+  const list = useListParams();
+  const { set, page } = list;
+  const order = list.oneOf('order', SORT_ORDERS, 'desc');
   const versions = useVersionPage(budgetId, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, order });
   useKeepPageInRange(page, versions.data?.total, PAGE_SIZE, (n) => set({ page: String(n) }));
   const budget = useBudgetHeader(budgetId);
