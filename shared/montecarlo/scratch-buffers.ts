@@ -1,6 +1,7 @@
 /**
  * Typed arrays kept from one Monte Carlo run to the next on this thread,
- * one per named use (the input columns of a block): a fresh array costs page
+ * one per named use (the input columns of a block, the model values, the
+ * buffers of the interval search and its sorts): a fresh array costs page
  * faults and zeroing when first written and garbage collection when dropped;
  * a kept one costs neither. Arrays above
  * KEPT_BYTES are not kept, so a 10⁷-trial run leaves no large buffer behind.
@@ -25,4 +26,16 @@ function keptBuffer(use: string, bytes: number): ArrayBuffer | null {
 export function scratchFloat64(use: string, length: number): Float64Array {
   const buffer = keptBuffer(use, 8 * length);
   return buffer ? new Float64Array(buffer, 0, length) : new Float64Array(length);
+}
+
+/** An Int32Array of `length` for `use`, as scratchFloat64. */
+export function scratchInt32(use: string, length: number): Int32Array {
+  const buffer = keptBuffer(use, 4 * length);
+  return buffer ? new Int32Array(buffer, 0, length) : new Int32Array(length);
+}
+
+/** A Uint32Array of `length` for `use`, as scratchFloat64. */
+export function scratchUint32(use: string, length: number): Uint32Array {
+  const buffer = keptBuffer(use, 4 * length);
+  return buffer ? new Uint32Array(buffer, 0, length) : new Uint32Array(length);
 }

@@ -1,3 +1,5 @@
+import { scratchFloat64, scratchInt32, scratchUint32 } from './scratch-buffers';
+
 /*
  * Ascending sort of doubles without comparison sorting, whose mispredicted
  * branches make it several times slower on random model values: a bucket
@@ -28,7 +30,7 @@ const CROWDED = 48;
  * of n buckets; values are counted, scattered in bucket order into a buffer,
  * and each bucket is finished by insertion sort. Falls back to
  * radixSortFloat64 when a bucket holds more than 48 values. Cost: O(n) time for
- * smooth densities, 12·n bytes of buffers.
+ * smooth densities, 12·n bytes of buffers (kept from call to call, see scratch-buffers).
  */
 export function sortFloat64(values: Float64Array): void {
   const n = values.length;
@@ -49,7 +51,7 @@ export function sortFloat64(values: Float64Array): void {
     return;
   }
   // (y − min)·scale may reach n at the maximum: one extra bucket.
-  const starts = new Int32Array(n + 2);
+  const starts = scratchInt32('sort:starts', n + 2).fill(0);
   for (let i = 0; i < n; i++) starts[(((values[i] - min) * scale) | 0) + 1]++;
   let crowded = 0;
   for (let b = 1; b <= n + 1; b++) {
@@ -60,8 +62,9 @@ export function sortFloat64(values: Float64Array): void {
     radixSortFloat64(values);
     return;
   }
-  const sorted = new Float64Array(n);
-  const next = starts.slice(0, n + 1);
+  const sorted = scratchFloat64('sort:sorted', n);
+  const next = scratchInt32('sort:next', n + 1);
+  next.set(starts.subarray(0, n + 1));
   for (let i = 0; i < n; i++) {
     const y = values[i];
     sorted[next[((y - min) * scale) | 0]++] = y;
@@ -87,7 +90,7 @@ export function sortFloat64(values: Float64Array): void {
  * 64-bit key that orders like the number: a positive value gets its sign bit
  * set, a negative value has all bits inverted. Passes whose digit is the same
  * for every key (e.g. sign and exponent of values in a narrow range) are skipped.
- * Cost: O(n) time, 16·n bytes of buffers.
+ * Cost: O(n) time, 16·n bytes of buffers (kept from call to call).
  */
 export function radixSortFloat64(values: Float64Array): void {
   const n = values.length;
@@ -98,10 +101,10 @@ export function radixSortFloat64(values: Float64Array): void {
   const words = new Uint32Array(values.buffer, values.byteOffset, 2 * n);
   const L = LITTLE_ENDIAN ? 0 : 1;
   const H = 1 - L;
-  let hi = new Uint32Array(n);
-  let lo = new Uint32Array(n);
-  let hiNext = new Uint32Array(n);
-  let loNext = new Uint32Array(n);
+  let hi = scratchUint32('radix:hi', n);
+  let lo = scratchUint32('radix:lo', n);
+  let hiNext = scratchUint32('radix:hi-next', n);
+  let loNext = scratchUint32('radix:lo-next', n);
   for (let i = 0; i < n; i++) {
     const h = words[2 * i + H];
     const negative = h >> 31; // −1 for a negative value, else 0
