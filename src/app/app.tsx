@@ -1,5 +1,5 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { lazy, Suspense, useEffect, type ComponentType } from 'react';
+import { createElement, lazy, Suspense, useEffect, type ComponentProps, type ComponentType } from 'react';
 import { createBrowserRouter, Navigate, RouterProvider, useParams, useSearchParams, type RouteObject } from 'react-router-dom';
 import { meQuery } from '../budget/queries';
 import { ApiError } from './http';
@@ -7,27 +7,33 @@ import { PageLoading, RouteError } from './route-loading';
 import { useSignedInUser } from './routes/signed-in-user';
 import { ToastProvider } from './ui/toasts';
 
+// React.lazy's own bound; a page's props stay checked through ComponentProps of its own type.
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type AnyComponent = ComponentType<any>;
+
 /** Fetches a lazy module's code ahead of its first render; a failure shows when it renders. */
-type Preload = () => void;
+type Preload = () => Promise<unknown>;
 
 /**
  * A page loaded with its own chunk the first time its route is opened, so the
  * sign-in page carries none of the editor, the engine or the chart library.
- * `preload` fetches that chunk ahead (see fetchAhead).
+ * `preload` fetches that chunk ahead (see fetchAhead). Once the chunk is here the
+ * page renders at once: React.lazy suspends on its first render even then, and
+ * React keeps a loading state on screen for a few hundred milliseconds once shown.
  */
-function lazyPage<M, K extends keyof M>(load: () => Promise<M>, name: K) {
-  // React.lazy's own bound is ComponentType<any>; the page's props stay checked through M[K].
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
-  const page = lazy(async () => ({ default: (await load())[name] as M[K] & ComponentType<any> }));
-  const preload: Preload = () => void load().catch(() => {});
-  return Object.assign(page, { preload });
+function lazyPage<M extends Record<K, AnyComponent>, K extends PropertyKey>(load: () => Promise<M>, name: K) {
+  let loaded: AnyComponent | undefined;
+  const fetchPage = () => load().then((m) => (loaded = m[name]));
+  const Lazy = lazy(async () => ({ default: await fetchPage() }));
+  function Page(props: ComponentProps<M[K]>) {
+    return createElement(loaded ?? Lazy, props);
+  }
+  const preload: Preload = () => fetchPage().catch(() => {});
+  return Object.assign(Page, { preload });
 }
 
 /** The same for a module whose default export is the page (`src/app/routes/`). */
-function lazyRoute<M extends { default: ComponentType }>(load: () => Promise<M>) {
-  const preload: Preload = () => void load().catch(() => {});
-  return Object.assign(lazy(load), { preload });
-}
+const lazyRoute = <M extends { default: ComponentType }>(load: () => Promise<M>) => lazyPage(load, 'default');
 
 const SignInPage = lazyPage(() => import('../features/auth/components/SignInPage'), 'SignInPage');
 const ForgotPasswordPage = lazyPage(() => import('../features/auth/components/PasswordPages'), 'ForgotPasswordPage');
@@ -69,10 +75,10 @@ function BudgetsRoute() {
   // Opening a budget is what the list is for: fetch the editor's chunk once the browser is idle, so that click is instant.
   useEffect(() => {
     if (typeof requestIdleCallback === 'function') {
-      const handle = requestIdleCallback(EditorRoute.preload);
+      const handle = requestIdleCallback(() => void EditorRoute.preload());
       return () => cancelIdleCallback(handle);
     }
-    EditorRoute.preload();
+    void EditorRoute.preload();
   }, []);
   return (
     <>
@@ -167,12 +173,19 @@ const router = createBrowserRouter([
  * Fetches who is signed in and the code of every route the first URL matches (the signed-in
  * frame and the page) at once, as soon as this module runs, instead of one after another as
  * each renders: frame, then the sign-in check, then the page's chunk, then its data.
+ * Resolves when that code is here (a chunk that fails shows its error when it renders).
  */
-function fetchAhead(): void {
+function fetchAhead(): Promise<unknown> {
   void queryClient.prefetchQuery(meQuery());
-  for (const match of router.state.matches) (match.route.handle as RouteHandle | undefined)?.preload.forEach((preload) => preload());
+  return Promise.all(router.state.matches.flatMap((match) => (match.route.handle as RouteHandle | undefined)?.preload.map((preload) => preload()) ?? []));
 }
-fetchAhead();
+
+/**
+ * The first page's code has arrived: rendering then shows the page at once, never its
+ * loading state first (React holds a loading state on screen for a few hundred
+ * milliseconds once shown, so showing one would make the page arrive later).
+ */
+export const firstPageReady = fetchAhead();
 
 export function App() {
   return (

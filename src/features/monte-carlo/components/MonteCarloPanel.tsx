@@ -4,6 +4,7 @@ import { presentMonteCarlo } from '../../../../shared/presentation/result-model'
 import type { MonteCarloSlotProps } from '../../../app/slots';
 import { Button, Field, Select, Spinner, TextInput } from '../../../app/ui/controls';
 import { formatCount } from '../../../app/ui/numbers';
+import { WhenNearView } from '../../../app/ui/near-view';
 import { ReadOnlyField, ReadOnlyList } from '../../../app/ui/read-only';
 import { formatUnit } from '../../../app/ui/units';
 import { MonteCarloComparison, ValidationVerdict } from '../../../budget/components/MonteCarloComparison';
@@ -12,6 +13,13 @@ import { useComputeLimits } from '../api/compute-limits';
 import { useMonteCarloRun } from '../api/use-monte-carlo';
 
 const HistogramPlot = lazy(() => import('../../../budget/components/HistogramPlot'));
+const chartLoading = (
+  <div className="flex h-[300px] items-center justify-center">
+    <Spinner label="Loading the chart" />
+  </div>
+);
+/** The chart's place while it is far below the viewport: its size, nothing to announce. */
+const chartPlace = <div className="h-[300px]" />;
 
 const TRIAL_CHOICES = [10_000, 100_000, 200_000, 1_000_000, 2_000_000, 5_000_000];
 
@@ -151,21 +159,17 @@ export function MonteCarloPanel({ document, measurand, stored, settings, onSetti
           </p>
           <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             <div className="rounded-md border border-stone-200 bg-white p-2">
-              <Suspense
-                fallback={
-                  <div className="flex h-[300px] items-center justify-center">
-                    <Spinner label="Loading the chart" />
-                  </div>
-                }
-              >
-                <HistogramPlot
-                  histogram={mc.histogram}
-                  trials={mc.trials}
-                  gum={{ estimate: shown.result.gum.estimate, standardUncertainty: shown.result.gum.standardUncertainty, interval: shown.result.gum.interval }}
-                  mcInterval={mc.interval}
-                  axisTitle={`${measurand.symbol}${unit ? ` / ${unit}` : ''}`}
-                />
-              </Suspense>
+              <WhenNearView placeholder={chartPlace}>
+                <Suspense fallback={chartLoading}>
+                  <HistogramPlot
+                    histogram={mc.histogram}
+                    trials={mc.trials}
+                    gum={{ estimate: shown.result.gum.estimate, standardUncertainty: shown.result.gum.standardUncertainty, interval: shown.result.gum.interval }}
+                    mcInterval={mc.interval}
+                    axisTitle={`${measurand.symbol}${unit ? ` / ${unit}` : ''}`}
+                  />
+                </Suspense>
+              </WhenNearView>
             </div>
             <div className="flex flex-col gap-3">
               {figures?.monteCarlo ? <MonteCarloComparison view={figures.monteCarlo} unit={figures.unit.text} /> : null}
