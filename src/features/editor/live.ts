@@ -46,10 +46,10 @@ interface Job {
 
 /**
  * Recomputes the GUM result on every edit in a Web Worker (deferred, so
- * typing stays fluid) and tracks how U moved with the last edit. Until the
- * worker answers, a draft identical to the stored version shows the stored
- * result; a recompute past LIVE_TIME_LIMIT_MS is stopped and reported as a
- * problem of the draft.
+ * typing stays fluid) and tracks how U moved with the last edit. A draft
+ * identical to the stored version shows the stored result and asks the worker
+ * nothing (the worker starts with the first edit); a recompute past
+ * LIVE_TIME_LIMIT_MS is stopped and reported as a problem of the draft.
  */
 export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDocument; result: BudgetResult } | null) {
   const deferred = useDeferredValue(doc);
@@ -106,7 +106,14 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
     if (d) send(d);
   };
 
-  useEffect(() => send(deferred), [deferred, send]);
+  // eslint-disable-next-line react-hooks/exhaustive-deps -- only the stored document decides the text, not the rest of the stored version
+  const storedText = useMemo(() => (stored ? JSON.stringify(stored.document) : null), [stored?.document]);
+  const isStored = useMemo(() => storedText !== null && JSON.stringify(deferred) === storedText, [deferred, storedText]);
+
+  // The stored version's own result stands for its document: the worker starts with the first edit, not while the page loads.
+  useEffect(() => {
+    if (!isStored) send(deferred);
+  }, [deferred, isStored, send]);
   useEffect(
     () => () => {
       if (job.current) clearTimeout(job.current.timer);
@@ -117,10 +124,6 @@ export function useLiveResult(doc: BudgetDocument, stored?: { document: BudgetDo
     },
     [],
   );
-
-  // eslint-disable-next-line react-hooks/exhaustive-deps -- only the stored document decides the text, not the rest of the stored version
-  const storedText = useMemo(() => (stored ? JSON.stringify(stored.document) : null), [stored?.document]);
-  const isStored = useMemo(() => storedText !== null && JSON.stringify(deferred) === storedText, [deferred, storedText]);
 
   const current = computed?.doc === deferred ? computed.outcome : null;
   const wasStopped = stopped?.doc === deferred ? stopped.seconds : null;
