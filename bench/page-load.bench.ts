@@ -17,14 +17,14 @@ import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { DEMO_PASSWORD } from '../server/demo-seed';
 import { freePort, median, startBuiltServer, verdict } from './support';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const CHROMIUM = '/usr/bin/chromium';
 const RUNS = Number(process.env.BENCH_PAGE_RUNS ?? 7);
 const TARGET_MS = 500;
-const DEMO_PASSWORD = 'dubito-demo';
 
 /**
  * Resolves with the page's own clock (ms since navigation began) at the first frame in which the
@@ -59,14 +59,17 @@ const PAGES: { name: string; path: string; signedIn: boolean; ready: string }[] 
   },
 ];
 
+/** Signs the context's browser in as the demo metrologist (its cookie then goes with every page of the context). */
+async function signInAsMetrologist(context: BrowserContext, base: string): Promise<void> {
+  const login = await context.request.post(`${base}/api/auth/login`, { data: { email: 'metrologist@dubito.example', password: DEMO_PASSWORD }, headers: { origin: base } });
+  if (!login.ok()) throw new Error(`demo sign-in failed: ${login.status()}`);
+}
+
 /** The page opened in a fresh context (cold: nothing cached), then again in the same one (warm: code from the browser's cache). */
 async function openTwice(browser: Browser, base: string, path: string, signedIn: boolean, ready: string): Promise<{ cold: number; warm: number }> {
   const context = await browser.newContext();
   try {
-    if (signedIn) {
-      const login = await context.request.post(`${base}/api/auth/login`, { data: { email: 'metrologist@dubito.example', password: DEMO_PASSWORD }, headers: { origin: base } });
-      if (!login.ok()) throw new Error(`demo sign-in failed: ${login.status()}`);
-    }
+    if (signedIn) await signInAsMetrologist(context, base);
     const open = async () => {
       const page = await context.newPage();
       await page.goto(`${base}${path}`, { waitUntil: 'commit' });
@@ -95,7 +98,7 @@ if (!existsSync(CHROMIUM)) {
     // A budget of the demo lab with a stored result.
     const list = await (async () => {
       const context = await browser!.newContext();
-      await context.request.post(`${base}/api/auth/login`, { data: { email: 'metrologist@dubito.example', password: DEMO_PASSWORD }, headers: { origin: base } });
+      await signInAsMetrologist(context, base);
       const rows = (await (await context.request.get(`${base}/api/budgets`, { headers: { origin: base } })).json()) as { id: number }[];
       await context.close();
       return rows;

@@ -20,12 +20,14 @@ export function findPython(): string | null {
   return null;
 }
 
-/** A TCP port on the loopback interface that nothing listens on. */
+/** A loopback port nobody listens on right now, for a server started in a process of its own (benchmarks and tests). */
 export function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = createServer().listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const { port } = probe.address() as { port: number };
+      probe.close(() => resolve(port));
     });
   });
 }

@@ -5,7 +5,8 @@ import type { Role } from '../shared/policy/policy';
 import type { Services } from './app';
 import type { SessionUser } from './http/request-user';
 
-const DEMO_PASSWORD = 'dubito-demo';
+/** The password of every demo account (the sign-in page says so). */
+export const DEMO_PASSWORD = 'dubito-demo';
 
 /** The fictional Kestrel Fen Metrology Laboratory. */
 const PEOPLE: { role: Role; name: string }[] = [

@@ -3,7 +3,7 @@ import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { ensureBuilt } from '../support/built-once';
-import { freePort } from '../support/free-port';
+import { freePort } from '../../bench/support';
 import { tempDir } from './helpers';
 
 const data = tempDir();

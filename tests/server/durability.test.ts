@@ -6,7 +6,7 @@ import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { documentSha256 } from '../../server/budgets/canonical';
-import { freePort } from '../support/free-port';
+import { freePort } from '../../bench/support';
 import { ORIGIN, PASSWORD, sampleDocument, tempDir } from './helpers';
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
