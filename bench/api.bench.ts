@@ -1,7 +1,12 @@
 /*
  * API benchmark on loopback (not a test): reads of GET /api/budgets/:id and
- * PUT saves, 50 connections each, printing requests/s and p99 latency, and
- * the targets with PASS/MISS (never an error exit for a MISS).
+ * PUT saves, printing requests/s and latencies, and the targets with PASS/MISS
+ * (never an error exit for a MISS). Reads are measured twice: as many as 50
+ * connections get through when each sends its next request on the last answer
+ * (the capacity, with autocannon), and at a constant 1 000 requests a second
+ * over at most 50 connections, each latency counted from the moment its
+ * request was due (bench/constant-rate.ts): the target "≥ 1 000 reads/s at
+ * p99 < 50 ms" is judged on the first for the rate and the second for p99.
  * The server runs in its own process, as `npm start` runs it (server/dist/start.js,
  * built by `npm run build:server` first), on a fresh
  * database in a temporary folder, so the load generator does not share its
@@ -17,6 +22,7 @@ import autocannon from 'autocannon';
 import { createApp } from '../server/app';
 import { computeBudget } from '../shared/compute/compute-budget';
 import type { BudgetDocument } from '../shared/budget/schema';
+import { constantRate, type ConstantRateResult } from './constant-rate';
 import { freePort, median, startBuiltServer, verdict } from './support';
 
 interface Result {
@@ -38,6 +44,7 @@ const dbFile = join(dir, 'bench.sqlite');
 const seconds = Number(process.env.BENCH_SECONDS ?? 10);
 const rounds = Math.max(1, Number(process.env.BENCH_ROUNDS ?? 3));
 const connections = 50;
+const targetRate = 1000;
 // Saves: as many at once as the server admits (DUBITO_COMPUTE_JOBS_PER_USER 2 each, within DUBITO_COMPUTE_QUEUE 8),
 // so the figure is the rate of accepted saves, not of refusals.
 const saveUsers = 4;
@@ -134,6 +141,15 @@ try {
     reads.push((await autocannon({ url: `${base}/api/budgets/${id}`, connections, duration: seconds, headers: { cookie } })) as Result);
     report(`GET /api/budgets/:id  #${i + 1}`, reads[i]);
   }
+  const steady: ConstantRateResult[] = [];
+  for (let i = 0; i < rounds; i++) {
+    steady.push(await constantRate({ url: `${base}/api/budgets/${id}`, rate: targetRate, seconds, connections, headers: { cookie } }));
+    const r = steady[i];
+    console.log(
+      `${`GET at ${targetRate}/s  #${i + 1}`.padEnd(28)} ${r.achieved.toFixed(0).padStart(6)} req/s   p50 ${r.p50.toFixed(1).padStart(4)} ms   p99 ${r.p99.toFixed(1).padStart(5)} ms` +
+        `   max ${r.max.toFixed(0)} ms   (${r.ok} 2xx, ${r.other} other, ${r.errors} errors)`,
+    );
+  }
 
   // Saves: a request always takes a budget nobody is saving and its latest version, so none is refused as stale.
   const baseVersion = new Map<number, number>(saveIds.map((b) => [b, 1]));
@@ -166,7 +182,9 @@ try {
   report('PUT /api/budgets/:id', saves);
 
   const readRate = median(reads.map(rate));
-  const readP99 = median(reads.map((r) => r.latency.p99));
+  const capacityP99 = median(reads.map((r) => r.latency.p99));
+  const steadyP99 = median(steady.map((r) => r.p99));
+  const steadyAnswered = steady.every((r) => r.other === 0 && r.errors === 0);
   const share = rate(saves) / engine.perSecond;
   console.log(
     `\nThe engine alone: ${engine.ms.toFixed(1)} ms a save (median of 21, ${trialsCap.toLocaleString('en')} trials at most) on ${workers} worker thread(s): ${engine.perSecond.toFixed(0)} saves/s`,
@@ -175,7 +193,8 @@ try {
   console.log('| target | measured | verdict |');
   console.log('| --- | --- | --- |');
   console.log(`| reads ≥ 1 000 req/s | ${readRate.toFixed(0)} req/s | ${verdict(readRate >= 1000)} |`);
-  console.log(`| reads p99 < 50 ms | ${readP99} ms | ${verdict(readP99 < 50)} |`);
+  console.log(`| reads p99 < 50 ms at ${targetRate} req/s (all answered 2xx) | ${steadyP99.toFixed(1)} ms | ${verdict(steadyP99 < 50 && steadyAnswered)} |`);
+  console.log(`| (for comparison, not a target) p99 with ${connections} connections at capacity | ${capacityP99} ms | — |`);
   // The bench's own criterion: the worker shares two cores with the server's main thread and autocannon, so a
   // save rate near the engine's own rate (three quarters or more) leaves the database with no visible share.
   console.log(`| saves limited by the engine (≥ 0.8 × its own rate) | ${rate(saves).toFixed(0)} / ${engine.perSecond.toFixed(0)} saves/s = ${share.toFixed(2)} | ${verdict(share >= 0.8)} |`);
