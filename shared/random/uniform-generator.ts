@@ -29,7 +29,6 @@ export class UniformGenerator {
    * exactly as `fillRaw` does, and stores them back before any other call.
    */
   readonly state = new Int32Array(4);
-  private readonly single = new Float64Array(1);
 
   constructor(seed: string | number) {
     this.seed = String(seed);
@@ -49,10 +48,33 @@ export class UniformGenerator {
     return new UniformGenerator(`${this.seed}\u0000${String(label)}`);
   }
 
-  /** One uniform in (0, 1). */
+  /** One uniform in (0, 1): the next number `fill` would give (two raw outputs, redrawn on 0). */
   next(): number {
-    this.fill(this.single, 1);
-    return this.single[0];
+    for (;;) {
+      const hi = this.nextWord();
+      const k = unsigned53(hi, this.nextWord());
+      if (k !== 0) return k * TWO_POW_MINUS_53;
+    }
+  }
+
+  /** One raw 32-bit output (signed), the next word `fillRaw` would give; small enough to be inlined in rare paths. */
+  nextWord(): number {
+    const state = this.state;
+    const s0 = state[0];
+    let s1 = state[1];
+    let s2 = state[2];
+    let s3 = state[3];
+    const t = s1 << 9;
+    const r = Math.imul(s1, 5);
+    const w = Math.imul((r << 7) | (r >>> 25), 9);
+    s2 ^= s0;
+    s3 ^= s1;
+    s1 ^= s2;
+    state[0] = s0 ^ s3;
+    state[1] = s1;
+    state[2] = s2 ^ t;
+    state[3] = (s3 << 11) | (s3 >>> 21);
+    return w;
   }
 
   /**

@@ -15,7 +15,9 @@ import type { UniformGenerator } from './uniform-generator';
  * The tables are built at module load with +, −, ×, ÷ and √ only (exp and log
  * below are series in those operations), which IEEE 754 rounds the same way
  * on every machine, so a seed gives the same numbers everywhere. The wedge
- * test and the tail use the same functions.
+ * test and the tail use the same functions (the wedge test lets Math.exp
+ * settle the cases far enough from the line that both must agree:
+ * isBelowExp).
  */
 
 const LAYERS = 256;
@@ -110,7 +112,6 @@ const ROUND = 4096;
 /** Output index and the word a of each attempt of a round that the rare path finishes (at most one per attempt). */
 const PENDING = new Int32Array(ROUND);
 const PENDING_A = new Int32Array(ROUND);
-const single = new Int32Array(1);
 
 /** x = u·X[i] of the attempt from word a: layer i = a mod 2⁸, u = (⌊a/2⁹⌋ + ½)·2⁻²³ (bits 9–31), before the sign. */
 function attemptValue(a: number): number {
@@ -137,14 +138,45 @@ function tailDraw(rng: UniformGenerator): number {
  */
 function finishAttempt(rng: UniformGenerator, layer: number, x: number): number {
   if (layer === 0) return tailDraw(rng);
-  return F[layer] + rng.next() * (F[layer + 1] - F[layer]) < exp(-0.5 * x * x) ? x : NaN;
+  return isBelowExp(F[layer] + rng.next() * (F[layer + 1] - F[layer]), -0.5 * x * x) ? x : NaN;
+}
+
+/**
+ * Relative margin within which the platform's Math.exp and exp() above may
+ * disagree: both err by a few units in the last place (2.2·10⁻¹⁶ each), so
+ * 10⁻¹² leaves a factor of a thousand. Checked at module load.
+ */
+const EXP_MARGIN = 1e-12;
+
+/** Whether Math.exp agrees with exp() within a tenth of the margin on the wedge's range (−x²/2 for 0 < x < R). */
+const PLATFORM_EXP_AGREES = (() => {
+  for (let i = 0; i <= 256; i++) {
+    const t = (-0.5 * R * R * i) / 256;
+    const e = exp(t);
+    if (!(Math.abs(Math.exp(t) - e) <= (EXP_MARGIN / 10) * e)) return false;
+  }
+  return true;
+})();
+
+/**
+ * y < exp(t), decided as exp() decides it on every machine. Math.exp (a few
+ * nanoseconds) settles it whenever y lies outside exp(t)·(1 ± 10⁻¹²), where
+ * both functions must give the same answer; only inside that band (almost
+ * never) is the series evaluated. Without the check passing, always the series.
+ */
+function isBelowExp(y: number, t: number): boolean {
+  if (PLATFORM_EXP_AGREES) {
+    const quick = Math.exp(t);
+    if (y < quick * (1 - EXP_MARGIN)) return true;
+    if (y > quick * (1 + EXP_MARGIN)) return false;
+  }
+  return y < exp(t);
 }
 
 /** A complete signed N(0, 1) draw, attempt after attempt (replaces an attempt the wedge rejected). */
 function freshDraw(rng: UniformGenerator): number {
   for (;;) {
-    rng.fillRaw(single, 1);
-    const a = single[0];
+    const a = rng.nextWord();
     const layer = a & 255;
     let x = attemptValue(a);
     if (x >= X[layer + 1]) x = finishAttempt(rng, layer, x);
