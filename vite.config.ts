@@ -40,8 +40,30 @@ function precompress(): Plugin {
   };
 }
 
+/** The font files every page's first paint uses: the Latin text face and the Latin regular of the figures. */
+const FIRST_PAINT_FONTS = [/^assets\/inter-latin-wght-normal-[\w-]+\.woff2$/, /^assets\/jetbrains-mono-latin-400-normal-[\w-]+\.woff2$/];
+
+/**
+ * Preloads the fonts of the first paint from `index.html`: named only in the stylesheet, they were
+ * asked for once the page's text was laid out, so the first frames were set in the fallback face
+ * and laid out again when the font arrived.
+ */
+function preloadFirstPaintFonts(): Plugin {
+  return {
+    name: 'dubito-preload-fonts',
+    apply: 'build',
+    transformIndexHtml: {
+      order: 'post',
+      handler: (_html, { bundle }) =>
+        Object.keys(bundle ?? {})
+          .filter((file) => FIRST_PAINT_FONTS.some((font) => font.test(file)))
+          .map((file) => ({ tag: 'link', attrs: { rel: 'preload', href: `/${file}`, as: 'font', type: 'font/woff2', crossorigin: '' }, injectTo: 'head' as const })),
+    },
+  };
+}
+
 export default defineConfig({
-  plugins: [react(), tailwindcss(), precompress()],
+  plugins: [react(), tailwindcss(), precompress(), preloadFirstPaintFonts()],
   worker: { format: 'es' },
   optimizeDeps: { include: ['mathjs', 'plotly.js-basic-dist-min', 'react-plotly.js/factory'] },
   // Same cross-origin isolation as the server, so the Monte Carlo worker can share its stop flag.
