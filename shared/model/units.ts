@@ -1,5 +1,24 @@
-import { create, createUnitDependencies, unitDependencies, type MathJsInstance, type Unit } from 'mathjs';
+import { create, createUnitDependencies, UnitDependencies, unitDependencies, type MathJsInstance, type Unit } from 'mathjs';
+import {
+  absDependencies,
+  addScalarDependencies,
+  divideScalarDependencies,
+  equalDependencies,
+  fixDependencies,
+  formatDependencies,
+  isNumericDependencies,
+  multiplyScalarDependencies,
+  numberDependencies,
+  powDependencies,
+  roundDependencies,
+  subtractScalarDependencies,
+} from 'mathjs/number';
 import { MINUS } from '../format/signs';
+
+// mathjs exports this factory map (its number-only subtractScalar) but its types leave it out.
+declare module 'mathjs' {
+  const subtractScalarDependencies: FactoryFunctionMap;
+}
 
 /**
  * The unit system of budgets: mathjs units with the changes a budget needs
@@ -31,16 +50,45 @@ export function withBudgetUnits(math: MathJsInstance): MathJsInstance {
   return math;
 }
 
+/**
+ * The Unit class on number arithmetic: the arithmetic a Unit is made with comes
+ * from the number-only factories (`mathjs/number`), as in `math.ts`, since a
+ * unit read here is always of the number 1. Made with mathjs's own, the
+ * arithmetic would carry the BigNumber, fraction, complex and matrix signatures,
+ * whose making was most of the 50–70 ms the first unit read took on a page
+ * (the editor's budget table reads units before its first paint).
+ */
+const unitOnNumbers = {
+  ...UnitDependencies,
+  absDependencies,
+  addScalarDependencies,
+  divideScalarDependencies,
+  equalDependencies,
+  fixDependencies,
+  formatDependencies,
+  isNumericDependencies,
+  multiplyScalarDependencies,
+  numberDependencies,
+  powDependencies,
+  roundDependencies,
+  subtractScalarDependencies,
+};
+
 let instance: MathJsInstance | undefined;
 /**
- * The mathjs instance that parses the units of budgets, made on first use (it
- * takes a noticeable time); only unit code may use it. It holds units alone,
- * without expression evaluation: reading a unit is all the pages need, and
- * evaluation would bring most of mathjs into them (`result-unit.ts` makes
- * its own instance that evaluates).
+ * The mathjs instance that parses the units of budgets, made on first use; only
+ * unit code may use it. It holds units alone, on number arithmetic, without
+ * expression evaluation: reading a unit is all the pages need, and evaluation
+ * would bring most of mathjs into them (`result-unit.ts` makes its own
+ * instance that evaluates).
  */
 function unitMath(): MathJsInstance {
-  instance ??= withBudgetUnits(create({ unitDependencies, createUnitDependencies }));
+  instance ??= withBudgetUnits(
+    create({
+      unitDependencies: { ...unitDependencies, UnitDependencies: unitOnNumbers },
+      createUnitDependencies: { ...createUnitDependencies, UnitDependencies: unitOnNumbers },
+    }),
+  );
   return instance;
 }
 

@@ -1,7 +1,8 @@
+import { create, createUnitDependencies, unitDependencies } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import { BudgetError } from '../../shared/budget/budget-error';
 import { computeBudget } from '../../shared/compute/compute-budget';
-import { describeDimension, parseUnit } from '../../shared/model/units';
+import { describeDimension, parseUnit, toMathUnit, withBudgetUnits } from '../../shared/model/units';
 import { budget, N } from '../support/budget-builder';
 
 const gum = (doc: ReturnType<typeof budget>) => computeBudget(doc, { monteCarlo: false }).gum;
@@ -255,5 +256,36 @@ describe('the temperature rule (°C and °F without offset; scales never mixed)'
     const f = computeBudget(budget('tf = t1 + t2\nY = tf - t2', { t1: [N(68, 0.01), 'degF'], t2: [N(1, 0.01), 'degF'] }), { monteCarlo: false });
     expect(f.gum.intermediates[0]).toMatchObject({ unit: 'degF' });
     expect(f.gum.intermediates[0].value).toBeCloseTo(69, 12);
+  });
+});
+
+describe('the unit system on number arithmetic', () => {
+  // The parsing instance makes its Unit class from mathjs's number-only arithmetic (it is faster to make); every unit must read as
+  // with mathjs's own arithmetic: the same SI factor, the same exponent of every base dimension, the same units, the same refusals.
+  const shipped = withBudgetUnits(create({ unitDependencies, createUnitDependencies }));
+  const UNITS = [
+    ...['1/degC', 'V', 'degC', 'g/mL', 'kg/m^3', 'mg', 'mm', 'nm', 'uL', 'uV'], // the units of the examples
+    ...['µm', 'kΩ', 'mΩ', 'uohm', 'degF', '%', 'ppm', 'ppb', 'rpm', 'lx', 'klx', 'lm', 'dB', 'mol/L', 'mmol/mL', 'J/(mol K)', 'Pa', 'hPa', 'bar', 'mmHg', 'psi'],
+    ...['m²', 'kg·m⁻³', 'N×m', 'µs⁻¹', 'm·s^−2', 'm^0.5', 'Hz^-0.5', 'ppm/K', '%/K', 'ppm/degC', 'mm/degC', 'um/m', 'kWh', 'eV', 'inch', 'deg', 'rad/s', 'mol/(kg s)', 'cd', 'bit', 'kB', 'lbm', 'gal'],
+  ];
+  it.each(UNITS)('reads %s as mathjs with its full arithmetic does', (text) => {
+    const lean = toMathUnit(text);
+    const full = toMathUnit(text, shipped);
+    expect(lean.value).toBe(full.value);
+    expect(lean.dimensions).toEqual(full.dimensions);
+    expect(lean.units.map((u) => [u.unit.name, u.power])).toEqual(full.units.map((u) => [u.unit.name, u.power]));
+    expect(lean.toString()).toBe(full.toString());
+  });
+  it.each(['blorbs', 'pH', 'ppt', 'dBm', 'm +', '%RH'])('refuses %s as mathjs with its full arithmetic does', (text) => {
+    const why = (read: () => unknown) => {
+      try {
+        read();
+      } catch (e) {
+        return (e as Error).message;
+      }
+      return 'read';
+    };
+    expect(why(() => toMathUnit(text))).toBe(why(() => toMathUnit(text, shipped)));
+    expect(why(() => toMathUnit(text))).not.toBe('read');
   });
 });

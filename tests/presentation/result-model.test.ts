@@ -62,6 +62,19 @@ describe('the result model', () => {
     expect(m.budget.dominant.text).toBe('u(t_a) contributes 52 % of the variance u_c².');
   });
 
+  it('ranks equal shares by their symbols, whatever the order of the inputs', () => {
+    // y = a + b + c with u(a) = u(b) = u(c): each a third of the variance (closed form)
+    const tied = validateBudget({
+      format: 'dubito-budget/1',
+      title: 'Three equal terms',
+      measurand: { symbol: 'y', unit: 'mm' },
+      model: 'y = x_b + x_c + x_a',
+      inputs: ['x_c', 'x_a', 'x_b'].map((symbol) => ({ symbol, unit: 'mm', distribution: { kind: 'normal', value: 1, u: 0.1 } })),
+    });
+    const m = presentResult(tied, computeBudget(tied, { monteCarlo: false }));
+    expect(m.budget.ranked.map((t) => `${t.symbol} ${t.share.text}`)).toEqual(['x_a 33 %', 'x_b 33 %', 'x_c 33 %']);
+  });
+
   it('gives each quantity the model defines its value in the budget’s own unit', () => {
     const m = presentResult(document, result);
     expect(modelValues(m)).toEqual({ t_mean: '20.008 °C', dT: '8.0 mK' });

@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import type { ResultModel } from '../../../../shared/presentation/result-model';
+import { AfterFirstRender } from '../../../app/ui/after-first-render';
 import { ErrorNote } from '../../../app/ui/controls';
 import type { Problem } from '../live';
 import { BudgetTable, ContributionsChart } from '../../../budget/components/BudgetTable';
@@ -34,7 +35,10 @@ export function BudgetSection({
         {model ? (
           <div className="grid gap-3 2xl:grid-cols-[minmax(0,1fr)_300px]">
             <BudgetTable model={model} selected={selected} onSelect={onSelect} adornment={adornment} />
-            <ContributionsChart model={model} selected={selected} onSelect={onSelect} />
+            {/* below the table, out of the first screen: drawn just after the page's first render */}
+            <AfterFirstRender>
+              <ContributionsChart model={model} selected={selected} onSelect={onSelect} />
+            </AfterFirstRender>
           </div>
         ) : (
           <p className="text-sm text-stone-600">The table appears as soon as the budget has no problems. Each problem is shown beside its field.</p>

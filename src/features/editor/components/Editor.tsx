@@ -3,6 +3,7 @@ import type { BudgetView, VersionMeta } from '../../../../shared/api/budgets';
 import { can } from '../../../../shared/policy/policy';
 import { presentResult } from '../../../../shared/presentation/result-model';
 import type { MonteCarloSlotProps } from '../../../app/slots';
+import { AfterFirstRender } from '../../../app/ui/after-first-render';
 import { useToast } from '../../../app/ui/toasts';
 import { editorAccess, type Editor as EditorUser } from '../access';
 import { generalProblems, modelProblem } from '../draft';
@@ -162,14 +163,17 @@ export function Editor({
 
         <BudgetSection model={model} generalProblems={generalProblems(live.problems)} selected={selectedSymbol} onSelect={selectInput} adornment={slotProps ? slots.renderRowAdornment : undefined} />
 
-        {renderMonteCarlo({
-          document: live.valid,
-          measurand: { symbol: doc.measurand.symbol, unit: live.result?.measurand.unit ?? doc.measurand.unit },
-          stored: start && !dirty ? { result: start.result, label: `stored with version ${start.version}` } : null,
-          settings: doc.monteCarlo,
-          onSettings: (monteCarlo) => setDoc((d) => ({ ...d, monteCarlo })),
-          readOnly,
-        })}
+        {/* the last section, far below the first screen: rendered just after the page's first render */}
+        <AfterFirstRender>
+          {renderMonteCarlo({
+            document: live.valid,
+            measurand: { symbol: doc.measurand.symbol, unit: live.result?.measurand.unit ?? doc.measurand.unit },
+            stored: start && !dirty ? { result: start.result, label: `stored with version ${start.version}` } : null,
+            settings: doc.monteCarlo,
+            onSettings: (monteCarlo) => setDoc((d) => ({ ...d, monteCarlo })),
+            readOnly,
+          })}
+        </AfterFirstRender>
       </div>
 
       <aside className="flex flex-col gap-3 lg:sticky lg:top-16 lg:max-h-[calc(100vh-5rem)] lg:self-start lg:overflow-y-auto" aria-label="Result and explanations">
