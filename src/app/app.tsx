@@ -2,6 +2,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { createElement, lazy, Suspense, useEffect, type ComponentProps, type ComponentType } from 'react';
 import { createBrowserRouter, Navigate, RouterProvider, useParams, useSearchParams, type Params, type RouteObject } from 'react-router-dom';
 import { budgetQuery, meQuery, versionQuery } from '../budget/queries';
+import { budgetListRequest } from '../features/budgets/api/list-request';
 import { ApiError } from './http';
 import { PageLoading, RouteError } from './route-loading';
 import { useSignedInUser } from './routes/signed-in-user';
@@ -74,6 +75,9 @@ const budgetAhead: Preload = ({ id, n }) => {
   if (!Number.isInteger(budgetId)) return Promise.resolve();
   return Promise.all([queryClient.prefetchQuery(budgetQuery(budgetId)), n === undefined ? null : queryClient.prefetchQuery(versionQuery(budgetId, Number(n)))]);
 };
+
+/** The page of the budget list the address asks for, fetched with the list's code (as `budgetAhead`). */
+const budgetListAhead: Preload = () => queryClient.prefetchQuery(budgetListRequest(new URLSearchParams(window.location.search)).query);
 
 /** A page outside the shell (sign-in, passwords), with its own wait while its chunk loads. */
 function publicPage(path: string, element: React.ReactNode, preload: Preload): RouteObject {
@@ -162,7 +166,7 @@ const router = createBrowserRouter([
         errorElement: <RouteError />,
         children: [
           { index: true, element: <Navigate to="/budgets" replace /> },
-          { path: 'budgets', element: <BudgetsRoute />, ...ahead(ReviewQueue.preload, BudgetsListPage.preload) },
+          { path: 'budgets', element: <BudgetsRoute />, ...ahead(budgetListAhead, ReviewQueue.preload, BudgetsListPage.preload) },
           guarded('budgets/new', 'budget.create', <EditorRoute />, EditorRoute.preload),
           { path: 'budgets/:id', element: <EditorRoute />, ...ahead(budgetAhead, EditorRoute.preload) },
           { path: 'budgets/:id/versions', element: <VersionsRoute />, ...ahead(VersionsPage.preload) },

@@ -1,8 +1,8 @@
 import { useDeferredValue, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
+import { pageOf, paramOneOf } from './list-address';
 
-/** The two directions of a sorted list, as the address and the server's sort query write them. */
-export const SORT_ORDERS = ['asc', 'desc'] as const;
+export { SORT_ORDERS } from './list-address';
 
 /** Address parameters that order or page a list; every other one narrows it. */
 const NOT_FILTERS = new Set(['page', 'sort', 'dir', 'order']);
@@ -26,13 +26,8 @@ export function useListParams() {
   };
   const clear = () => setParams(new URLSearchParams(), { replace: true });
   const filtered = [...params.keys()].some((k) => !NOT_FILTERS.has(k));
-  /** From 1; a page past the last is the list's to correct (`useKeepPageInRange`). */
-  const page = Math.max(1, Number(params.get('page') ?? '1') || 1);
-  /** The parameter when it is one of `choices` (a sort column, an order), else `fallback`: an old or edited link still shows a list. */
-  const oneOf = <T extends string>(key: string, choices: readonly T[], fallback: T): T => {
-    const v = params.get(key);
-    return v !== null && (choices as readonly string[]).includes(v) ? (v as T) : fallback;
-  };
+  const page = pageOf(params);
+  const oneOf = <T extends string>(key: string, choices: readonly T[], fallback: T): T => paramOneOf(params, key, choices, fallback);
   return { params, set, clear, filtered, page, oneOf };
 }
 

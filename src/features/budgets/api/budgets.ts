@@ -1,13 +1,12 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../app/http';
-import type { BudgetListItem, BudgetSort, CreatedBudget } from '../../../../shared/api/budgets';
+import type { BudgetListItem, CreatedBudget } from '../../../../shared/api/budgets';
 import { afterVersionStored } from '../../../budget/invalidate';
 import { budgetIndexQuery, budgetListQuery } from '../../../budget/queries';
-import type { BudgetListFilter, PageRequest } from '../../../budget/query-keys';
 
-/** One page of the list, filtered and sorted by the server. */
-export function useBudgetList(f: BudgetListFilter, page: PageRequest<BudgetSort>) {
-  return useQuery(budgetListQuery(f, page));
+/** One page of the list, filtered and sorted by the server, as the address asks (`budgetListRequest`). */
+export function useBudgetList(query: ReturnType<typeof budgetListQuery>) {
+  return useQuery(query);
 }
 
 function ownersOf(budgets: BudgetListItem[]): [number, string][] {

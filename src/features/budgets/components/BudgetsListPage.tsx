@@ -1,18 +1,18 @@
 import type { ColumnDef } from '@tanstack/react-table';
 import { useRef } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { BUDGET_SORTS, type BudgetListItem, type BudgetSort } from '../../../../shared/api/budgets';
-import { can, type BudgetStatus, type Role } from '../../../../shared/policy/policy';
+import type { BudgetListItem, BudgetSort } from '../../../../shared/api/budgets';
+import { can, type Role } from '../../../../shared/policy/policy';
 import { errorMessage } from '../../../app/http';
-import { SORT_ORDERS, useListParams, useSearchText } from '../../../app/search-params';
+import { useListParams, useSearchText } from '../../../app/search-params';
 import { Button, EmptyState, ErrorNote, Field, Select, Spinner } from '../../../app/ui/controls';
 import { ClearFilters, DataTable, SearchField, useKeepPageInRange } from '../../../app/ui/data-table';
 import { formatDateTime } from '../../../app/ui/numbers';
 import { useToast } from '../../../app/ui/toasts';
-import { StatusBadge, statusLabel, type DisplayStatus } from '../../../budget/components/StatusBadge';
+import { StatusBadge, statusLabel } from '../../../budget/components/StatusBadge';
 import { useBudgetList, useBudgetOwners, useImportBudget } from '../api/budgets';
+import { BUDGET_PAGE_SIZE as PAGE_SIZE, budgetListRequest } from '../api/list-request';
 
-const PAGE_SIZE = 12;
 const SORT_WORDS: Record<BudgetSort, string> = { title: 'title', status: 'status', owner: 'owner', version: 'version', updated: 'last change' };
 
 const COLUMNS: ColumnDef<BudgetListItem, unknown>[] = [
@@ -46,18 +46,10 @@ const COLUMNS: ColumnDef<BudgetListItem, unknown>[] = [
 
 export function BudgetsListPage({ role }: { role: Role }) {
   const list = useListParams();
-  const { params, set, clear, filtered, page } = list;
+  const { params, set, clear, filtered } = list;
   const search = useSearchText(list);
-  const status = (params.get('status') ?? '') as DisplayStatus | '';
-  const owner = Number(params.get('owner') ?? '') || undefined;
-  const sort = list.oneOf<BudgetSort>('sort', BUDGET_SORTS, 'updated');
-  const dir = list.oneOf('dir', SORT_ORDERS, 'desc');
-
-  // a returned budget is a draft the reviewer sent back: the server tells them apart
-  const serverStatus: BudgetStatus | undefined = status === 'returned' ? 'draft' : status || undefined;
-  const returned = status === 'returned' ? true : status === 'draft' ? false : undefined;
-  const filter = { status: serverStatus, returned, owner, q: search.query };
-  const budgets = useBudgetList(filter, { limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE, sort, order: dir });
+  const { status, owner, sort, dir, page, query } = budgetListRequest(params, search.query);
+  const budgets = useBudgetList(query);
   useKeepPageInRange(page, budgets.data?.total, PAGE_SIZE, (n) => set({ page: String(n) }));
   const owners = useBudgetOwners();
 
