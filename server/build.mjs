@@ -4,7 +4,10 @@
  * with no TypeScript loader: ESM bundles of the start-up script, the compute
  * worker thread and the engine module the worker loads, with shared code in
  * chunks beside them and source maps. Packages stay in node_modules (a native
- * database driver, font and PDF data read from their own folders). Files the
+ * database driver, font and PDF data read from their own folders), except
+ * mathjs: bundled, it keeps only the factories each thread uses, where loading
+ * the package would load its whole ES module graph (some 1 000 modules, tens of
+ * MB of live heap on the main thread, which only reads units). Files the
  * server reads beside its code are copied next to the bundles.
  */
 import { build } from 'esbuild';
@@ -13,6 +16,21 @@ import { fileURLToPath } from 'node:url';
 
 const here = (path) => fileURLToPath(new URL(path, import.meta.url));
 const outdir = here('./dist');
+
+/**
+ * Every package stays external but mathjs. A bare import from a file inside node_modules can only
+ * come from mathjs's own files (nothing else there is bundled), so mathjs's dependencies
+ * (typed-function, fraction.js, …) are bundled with it.
+ */
+const externalPackagesButMathjs = {
+  name: 'external-packages-but-mathjs',
+  setup(b) {
+    b.onResolve({ filter: /^[^./]/ }, (args) => {
+      const bundled = args.path === 'mathjs' || args.path.startsWith('mathjs/') || /[\\/]node_modules[\\/]/.test(args.importer);
+      return bundled ? undefined : { path: args.path, external: true };
+    });
+  },
+};
 
 rmSync(outdir, { recursive: true, force: true });
 await build({
@@ -28,7 +46,7 @@ await build({
   format: 'esm',
   platform: 'node',
   target: 'node20',
-  packages: 'external',
+  plugins: [externalPackagesButMathjs],
   sourcemap: true,
   logLevel: 'warning',
 });
