@@ -109,8 +109,17 @@ export async function constantRate(opts: { url: string; rate: number; seconds: n
   const finished = new Promise<void>((resolve) => (resolveAll = resolve));
 
   const pool: Connection[] = [];
+  // Connections are taken in turn, so none stays idle long enough for the server's keep-alive timeout to close it under a request.
+  let turn = 0;
   const dispatch = (due: number) => {
-    const free = pool.find((c) => c.idle);
+    let free: Connection | undefined;
+    for (let k = 0; k < pool.length && !free; k++) {
+      const c = pool[(turn + k) % pool.length];
+      if (c.idle) {
+        free = c;
+        turn = (turn + k + 1) % pool.length;
+      }
+    }
     if (free) free.send(due);
     else if (pool.every((c) => c.closed)) queueMicrotask(() => done(due, 0)); // no connection left: counted as an error
     else waiting.push(due);
