@@ -6,7 +6,7 @@
  * (the capacity, with autocannon), and at a constant 1 000 requests a second
  * over at most 50 connections, each latency counted from the moment its
  * request was due (bench/constant-rate.ts): the target "≥ 1 000 reads/s at
- * p99 < 50 ms" is judged on the first for the rate and the second for p99.
+ * p99 < 50 ms" is judged on the first for the rate, and p99 on both.
  * The server runs in its own process, as `npm start` runs it (server/dist/start.js,
  * built by `npm run build:server` first), on a fresh
  * database in a temporary folder, so the load generator does not share its
@@ -194,7 +194,7 @@ try {
   console.log('| --- | --- | --- |');
   console.log(`| reads ≥ 1 000 req/s | ${readRate.toFixed(0)} req/s | ${verdict(readRate >= 1000)} |`);
   console.log(`| reads p99 < 50 ms at ${targetRate} req/s (all answered 2xx) | ${steadyP99.toFixed(1)} ms | ${verdict(steadyP99 < 50 && steadyAnswered)} |`);
-  console.log(`| (for comparison, not a target) p99 with ${connections} connections at capacity | ${capacityP99} ms | — |`);
+  console.log(`| reads p99 < 50 ms with ${connections} connections at capacity | ${capacityP99} ms | ${verdict(capacityP99 < 50)} |`);
   // The bench's own criterion: the worker shares two cores with the server's main thread and autocannon, so a
   // save rate near the engine's own rate (three quarters or more) leaves the database with no visible share.
   console.log(`| saves limited by the engine (≥ 0.8 × its own rate) | ${rate(saves).toFixed(0)} / ${engine.perSecond.toFixed(0)} saves/s = ${share.toFixed(2)} | ${verdict(share >= 0.8)} |`);
