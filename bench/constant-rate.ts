@@ -121,7 +121,8 @@ export async function constantRate(opts: { url: string; rate: number; seconds: n
       }
     }
     if (free) free.send(due);
-    else if (pool.every((c) => c.closed)) queueMicrotask(() => done(due, 0)); // no connection left: counted as an error
+    else if (pool.every((c) => c.closed))
+      queueMicrotask(() => done(due, 0)); // no connection left: counted as an error
     else waiting.push(due);
   };
   const done = (due: number, status: number) => {

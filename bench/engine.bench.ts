@@ -222,9 +222,7 @@ function main() {
   console.log('| ---------- | --------: | -------: |');
   // numpy's figures: medians over the rounds, as Dubito's are over all its runs.
   const npTimes = rounds.flatMap(({ np: n }) => ('seconds' in n ? [n.seconds] : []));
-  const npSeconds = npTimes.length
-    ? (Object.fromEntries(Object.keys(npTimes[0]).map((k) => [k, median(npTimes.map((t) => t[k as keyof typeof t]))])) as (typeof npTimes)[number])
-    : null;
+  const npSeconds = npTimes.length ? (Object.fromEntries(Object.keys(npTimes[0]).map((k) => [k, median(npTimes.map((t) => t[k as keyof typeof t]))])) as (typeof npTimes)[number]) : null;
   console.log(`| compile    | ${fmt(compileMs).padStart(9)} | ${'—'.padStart(8)} |`);
   for (const p of PHASES) {
     console.log(`| ${p.padEnd(10)} | ${fmt(million.phases[p]).padStart(9)} | ${(npSeconds ? fmt(npSeconds[p] * 1000) : '—').padStart(8)} |`);
@@ -270,9 +268,7 @@ function main() {
     const ratio = median(ratios);
     const cpuRatio = median(cpuRatios);
     const each = (xs: number[]) => xs.map((x) => fmt(x, 3)).join(', ');
-    console.log(
-      `| computeBudget MCM 10⁶ ≤ 0.4 × numpy (everything computeBudget does; median of the rounds ${each(ratios)}) | ${fmt(ratio, 3)} | ${verdict(ratio <= 0.4)} |`,
-    );
+    console.log(`| computeBudget MCM 10⁶ ≤ 0.4 × numpy (everything computeBudget does; median of the rounds ${each(ratios)}) | ${fmt(ratio, 3)} | ${verdict(ratio <= 0.4)} |`);
     console.log(`| (the same, CPU time; rounds ${each(cpuRatios)}) | ${fmt(cpuRatio, 3)} | ${verdict(cpuRatio <= 0.4)} |`);
   }
   console.log(`| 10⁷ trials, memory well under 1 GB (< 512 MiB rss) | ${fmt(mib(ten.peakRss), 0)} MiB | ${verdict(ten.peakRss < 512 * 2 ** 20)} |`);
