@@ -1,10 +1,11 @@
 /*
  * Command-line benchmark (npm run bench, after the engine's): whole processes,
- * start-up included, of the built command line (`node cli/dist/dubito.js`,
- * built by `npm run build:cli`).
+ * start-up included, of the installed command (`cli/bin/dubito`, which starts
+ * from the snapshot `npm run build:cli` made), the plain build beside it.
  *   1. `dubito compute` on the JCGM 101:2008 9.3 mass model at 10⁶ trials
- *      against `python3 bench/mass_numpy.py` (interpreter start, numpy import
- *      and its runs), alternating, median of RUNS each: target ≤ 1.0 ×;
+ *      against `python3 bench/mass_numpy.py --runs 1 --no-warm-up` (interpreter
+ *      start, numpy import and one computation of the model, as the command
+ *      makes one), alternating, median of RUNS each: target ≤ 1.0 ×;
  *   2. `dubito --help` (start-up without the engine);
  *   3. a batch of 100 copies of the 9.3 budget with their own seeds, `--jobs 2`:
  *      target ≤ 100 × one budget's computation + one start-up, where the
@@ -17,14 +18,15 @@
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { availableParallelism, tmpdir } from 'node:os';
+import { availableParallelism, machine, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { findPython, median, verdict } from './support';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..');
-const cli = join(root, 'cli', 'dist', 'dubito.js');
+const bin = join(root, 'cli', 'bin', 'dubito');
+const plainBuild = join(root, 'cli', 'dist', 'dubito.js');
 const massFile = join(root, 'tests', 'reference-budgets', 'jcgm101-9.3-mass-calibration.json');
 const RUNS = Number(process.env.BENCH_RUNS ?? 7);
 const BATCH_RUNS = Number(process.env.BENCH_BATCH_RUNS ?? 3);
@@ -63,35 +65,43 @@ const medianOf = (xs: Timed[]): Timed => ({ wall: median(xs.map((x) => x.wall)),
 const cpuText = (t: Timed) => (t.cpu === null ? '' : `, CPU ${s(t.cpu)}`);
 
 function main(): void {
-  if (!existsSync(cli)) throw new Error('cli/dist/dubito.js is missing: run npm run build:cli');
+  if (!existsSync(plainBuild)) throw new Error('cli/dist/dubito.js is missing: run npm run build:cli');
   console.log(`Dubito command-line benchmark — Node ${process.version}, ${availableParallelism()} cores, whole processes, median of ${RUNS} runs (batch: ${BATCH_RUNS})\n`);
 
   const python = findPython();
   const dubitoRuns: Timed[] = [];
+  const plainRuns: Timed[] = [];
   const numpyRuns: Timed[] = [];
   const helpRuns: Timed[] = [];
   const startRuns: Timed[] = [];
-  timed(process.execPath, [cli, 'compute', massFile]); // the file system cache, as numpy gets below
+  const numpy = [join(here, 'mass_numpy.py'), '--runs', '1', '--no-warm-up'];
+  timed(bin, ['compute', massFile]); // the file system cache, as numpy gets below
+  timed(process.execPath, [plainBuild, 'compute', massFile]);
   for (let i = 0; i < RUNS; i++) {
-    dubitoRuns.push(timed(process.execPath, [cli, 'compute', massFile]));
-    if (python) numpyRuns.push(timed(python, [join(here, 'mass_numpy.py')]));
-    helpRuns.push(timed(process.execPath, [cli, '--help']));
-    startRuns.push(timed(process.execPath, [cli, 'compute', massFile, '--no-monte-carlo']));
+    dubitoRuns.push(timed(bin, ['compute', massFile]));
+    if (python) numpyRuns.push(timed(python, numpy));
+    plainRuns.push(timed(process.execPath, [plainBuild, 'compute', massFile]));
+    helpRuns.push(timed(bin, ['--help']));
+    startRuns.push(timed(bin, ['compute', massFile, '--no-monte-carlo']));
   }
   const one = medianOf(dubitoRuns);
+  const plain = medianOf(plainRuns);
   const help = medianOf(helpRuns);
   const start = medianOf(startRuns);
-  console.log(`dubito compute, JCGM 101 9.3 at 10⁶ trials: ${s(one.wall)}${cpuText(one)}`);
+  const blob = `dubito-${process.version}-${machine()}.blob`;
+  const from = existsSync(join(root, 'cli', 'dist', blob)) ? `from the snapshot cli/dist/${blob}` : 'no snapshot for this node: the plain build';
+  console.log(`dubito compute (cli/bin/dubito, ${from}), JCGM 101 9.3 at 10⁶ trials: ${s(one.wall)}${cpuText(one)}`);
+  console.log(`  the plain build without the snapshot (node cli/dist/dubito.js), for reference: ${s(plain.wall)}${cpuText(plain)}`);
   if (python) {
     const np = medianOf(numpyRuns);
     const ratio = one.wall / np.wall;
-    console.log(`python3 bench/mass_numpy.py (start, numpy import, a warm-up and 5 runs of the model): ${s(np.wall)}${cpuText(np)}`);
+    console.log(`python3 bench/mass_numpy.py --runs 1 --no-warm-up (start, numpy import, one computation of the model): ${s(np.wall)}${cpuText(np)}`);
     const cpuRatio = one.cpu !== null && np.cpu !== null ? `; CPU ${(one.cpu / np.cpu).toFixed(2)} ×` : '';
     console.log(`  Dubito / numpy, whole process: ${ratio.toFixed(2)} × (target ≤ 1.0 ×) ${verdict(ratio <= 1.0)}${cpuRatio}`);
   } else {
     console.log('python3 with numpy not found: the numpy comparison is skipped');
   }
-  console.log(`dubito --help (start-up, no engine): ${s(help.wall)}${cpuText(help)}`);
+  console.log(`dubito --help (start-up alone): ${s(help.wall)}${cpuText(help)}`);
   console.log(`dubito compute --no-monte-carlo (start-up with the engine, the model compiled, GUM): ${s(start.wall)}${cpuText(start)}`);
 
   // the batch: 100 copies of the 9.3 budget, each with its own seed
@@ -101,7 +111,7 @@ function main(): void {
     const doc = JSON.parse(readFileSync(massFile, 'utf8'));
     for (let i = 0; i < BATCH; i++) writeFileSync(join(dir, `mass-${String(i).padStart(3, '0')}.json`), JSON.stringify({ ...doc, monteCarlo: { ...doc.monteCarlo, seed: `bench-${i}` } }));
     const batchRuns: Timed[] = [];
-    for (let i = 0; i < BATCH_RUNS; i++) batchRuns.push(timed(process.execPath, [cli, 'compute', join(dir, '*.json'), '--jobs', String(jobs), '--format', 'jsonl']));
+    for (let i = 0; i < BATCH_RUNS; i++) batchRuns.push(timed(bin, ['compute', join(dir, '*.json'), '--jobs', String(jobs), '--format', 'jsonl']));
     const batch = medianOf(batchRuns);
     const computation = Math.max(one.wall - start.wall, 0);
     const target = BATCH * computation + start.wall;

@@ -4,7 +4,7 @@ model, sort, probabilistically symmetric and shortest 95 % intervals (7.7),
 mean and standard deviation (7.6), a 100-bin histogram.
 
 Prints one JSON object: median seconds per phase and in total over --runs
-runs after one warm-up, and the last run's results.
+runs after one warm-up (none with --no-warm-up), and the last run's results.
 """
 
 import argparse
@@ -62,9 +62,11 @@ def main() -> None:
     parser = argparse.ArgumentParser()
     parser.add_argument("--trials", type=int, default=1_000_000)
     parser.add_argument("--runs", type=int, default=7)
+    parser.add_argument("--no-warm-up", dest="warm_up", action="store_false", help="as a script run once would: no run before the timed ones")
     args = parser.parse_args()
     rng = np.random.default_rng(20080901)
-    run(args.trials, rng)  # warm-up
+    if args.warm_up:
+        run(args.trials, rng)
     samples = []
     result = {}
     for _ in range(args.runs):

@@ -1,13 +1,20 @@
 /**
  * Builds the command line once into cli/dist/ (npm run build:cli, run by
- * `prepare` and `npm run build`): one ESM bundle per entry (the command line
- * and its worker thread) with the engine in a shared chunk, source maps, and
- * the `#!/usr/bin/env node` line, so `dubito` starts on plain node with no
- * TypeScript loader. Code loaded by `await import()` (the engine, the table)
- * stays in chunks of its own, read only when needed.
+ * `prepare` and `npm run build`), with source maps, so `dubito` starts on plain
+ * node with no TypeScript loader:
+ * - the plain build: one ESM bundle per entry (the command line and its worker
+ *   thread) with the engine in a shared chunk and the `#!/usr/bin/env node`
+ *   line; code loaded by `await import()` (the engine, the table) stays in
+ *   chunks of its own, read only when needed;
+ * - the start-up snapshot `dubito-<node version>-<machine>.blob` (see
+ *   cli/snapshot.ts), made by this very node from a CommonJS bundle, which is
+ *   what `node --build-snapshot` runs. cli/bin/dubito starts from it when the
+ *   node at hand is the one it was built by, and from the plain build otherwise.
  */
 import { build } from 'esbuild';
+import { spawnSync } from 'node:child_process';
 import { chmodSync, rmSync } from 'node:fs';
+import { machine } from 'node:os';
 import { fileURLToPath } from 'node:url';
 
 const here = (path) => fileURLToPath(new URL(path, import.meta.url));
@@ -28,3 +35,19 @@ await build({
   logLevel: 'warning',
 });
 chmodSync(`${outdir}/dubito.js`, 0o755);
+
+await build({
+  entryPoints: { snapshot: here('./snapshot.ts') },
+  outdir,
+  outExtension: { '.js': '.cjs' },
+  bundle: true,
+  format: 'cjs',
+  platform: 'node',
+  target: 'node20',
+  sourcemap: true,
+  logLevel: 'warning',
+});
+// the name the shell finds without starting node: `node --version` and `uname -m`
+const blob = `${outdir}/dubito-${process.version}-${machine()}.blob`;
+const made = spawnSync(process.execPath, ['--snapshot-blob', blob, '--build-snapshot', `${outdir}/snapshot.cjs`, here('../examples')], { encoding: 'utf8' });
+if (made.status !== 0) throw new Error(`building the start-up snapshot failed:\n${made.stderr}`);

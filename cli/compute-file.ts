@@ -35,6 +35,11 @@ export function computeFile(file: string, options: RunOptions): FileOutcome {
     const why = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
     return { file, error: { code: 'file_unreadable', message: `cannot read ${file}: ${why}`, field: null } };
   }
+  return computeText(file, text, options);
+}
+
+/** Validates and computes the text of the budget file `file`; never throws. */
+export function computeText(file: string, text: string, options: RunOptions): FileOutcome {
   try {
     const document = parseBudgetFile(text);
     const result = computeBudget(document, options);

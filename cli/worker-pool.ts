@@ -2,15 +2,14 @@ import { Worker } from 'node:worker_threads';
 import type { FileOutcome, RunOptions } from './compute-file';
 
 /**
- * Computes `files` on `jobs` worker threads (`batch-worker.js` beside the
- * built command line), handing each worker the next file as soon as it is
+ * Computes `files` on `jobs` worker threads running `script` (the built
+ * `batch-worker.js`), handing each worker the next file as soon as it is
  * free. `onOutcome` receives every file's outcome with its index, in the
  * order they finish. A worker that dies (out of memory, a crash) costs only
  * the file it was computing, which is reported as an internal error; a new
  * worker takes over the rest.
  */
-export function computeOnWorkers(files: readonly string[], jobs: number, options: RunOptions, onOutcome: (index: number, outcome: FileOutcome) => void): Promise<void> {
-  const script = new URL('./batch-worker.js', import.meta.url);
+export function computeOnWorkers(script: URL, files: readonly string[], jobs: number, options: RunOptions, onOutcome: (index: number, outcome: FileOutcome) => void): Promise<void> {
   let next = 0;
   let running = 0;
   return new Promise((resolve) => {

@@ -1,9 +1,10 @@
-import { copyFileSync, existsSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, cpSync, existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { projectRoot as root } from '../support/built-once';
-import { builtCli, dubito, ensureBuiltCli } from './built-cli';
+import { binDubito, builtCli, dubito, ensureBuiltCli, plainDubito, snapshotBlob } from './built-cli';
 
 beforeAll(ensureBuiltCli);
 
@@ -304,5 +305,46 @@ describe('dubito --help', () => {
     const atStart = [...loaded].map((f) => readFileSync(join(dist, f), 'utf8')).join('\n');
     expect(atStart).not.toMatch(/shared\/compute\/compute-budget\.ts|node_modules\/mathjs|node_modules\/zod/);
     expect(readFileSync(builtCli, 'utf8')).toMatch(/^#!\/usr\/bin\/env node\n/);
+  });
+});
+
+describe('the installed command and its start-up snapshot', () => {
+  it('starts from the snapshot built with this node', () => {
+    expect(existsSync(snapshotBlob)).toBe(true);
+    // the shell's trace shows the command it runs in the end
+    const r = spawnSync('sh', ['-x', binDubito, '--help'], { cwd: root, encoding: 'utf8' });
+    expect(r.status).toBe(0);
+    expect(r.stderr).toContain(`exec node --snapshot-blob ${root}/cli/bin/../dist/${basename(snapshotBlob)} -- --help`);
+    expect(r.stdout).toMatch(/^usage: dubito compute/);
+  });
+
+  it('gives the same output, byte for byte, as the plain build: every example, a table, a batch on two threads, a refusal', () => {
+    const runs: string[][] = [
+      ...examples.map((f) => ['compute', join('examples', f), '--trials', '20000']),
+      ['compute', 'tests/reference-budgets/jcgm101-9.3-mass-calibration.json'],
+      ['compute', 'examples/thermometer-pt100.json', '--format', 'table'],
+      ['compute', 'examples/*.json', '--trials', '5000', '--jobs', String(Math.min(2, availableParallelism()))],
+      ['compute', 'examples/*.json', 'missing.json', '--no-monte-carlo'],
+    ];
+    for (const args of runs) {
+      const fromSnapshot = dubito(...args);
+      const plain = plainDubito(...args);
+      expect(fromSnapshot, args.join(' ')).toEqual(plain);
+    }
+    expect(plainDubito('compute', 'missing.json').status).toBe(2);
+  });
+
+  it('runs the plain build where no snapshot was built for the node at hand', () => {
+    const copy = mkdtempSync(join(tmpdir(), 'dubito-bin-'));
+    try {
+      cpSync(join(root, 'cli', 'bin'), join(copy, 'bin'), { recursive: true });
+      cpSync(join(root, 'cli', 'dist'), join(copy, 'dist'), { recursive: true, filter: (f) => !f.endsWith('.blob') });
+      const r = spawnSync('sh', ['-x', join(copy, 'bin', 'dubito'), 'compute', 'examples/dc-voltage-10v.json', '--no-monte-carlo'], { cwd: root, encoding: 'utf8' });
+      expect(r.status).toBe(0);
+      expect(r.stderr).toContain(`exec node ${copy}/bin/../dist/dubito.js compute`);
+      expect(JSON.parse(r.stdout)).toEqual(JSON.parse(plainDubito('compute', 'examples/dc-voltage-10v.json', '--no-monte-carlo').stdout));
+    } finally {
+      rmSync(copy, { recursive: true, force: true });
+    }
   });
 });
