@@ -143,6 +143,11 @@ async function run({ files, options, sink, outputs, jobs }: Plan, modules: Comma
   if (outputs) for (const dir of new Set(outputs.map((o) => dirname(o)))) mkdirSync(dir, { recursive: true });
   const progress = process.stderr.isTTY && files.length > 1;
   let status = 0;
+  // The reader has gone (`dubito compute … | head`): stop there, quietly, with the status so far.
+  process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+    if (e.code !== 'EPIPE') throw e;
+    process.exit(status);
+  });
   let done = 0;
   // outcomes are written in the order the files were given, whatever order the workers finish in
   const waiting = new Map<number, FileOutcome>();

@@ -1,4 +1,4 @@
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { copyFileSync, cpSync, existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { basename, join } from 'node:path';
@@ -280,6 +280,23 @@ describe('dubito compute on many budgets', () => {
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/^# examples\/dc-voltage-10v\.json\n/);
     expect(r.stdout).toContain('\n# examples/pipette-100ul.json\n');
+  });
+});
+
+describe('dubito compute into a pipe closed early', () => {
+  it('stops quietly, with the status so far, when the reader goes away (`dubito compute … | head`)', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'dubito-pipe-'));
+    // more lines than a pipe holds, so the command is still writing when the reader leaves
+    const text = readFileSync(join(root, 'examples', 'thermometer-pt100.json'), 'utf8');
+    for (let i = 0; i < 120; i++) writeFileSync(join(dir, `probe-${String(i).padStart(3, '0')}.json`), text);
+    const child = spawn(binDubito, ['compute', join(dir, '*.json'), '--no-monte-carlo'], { cwd: root });
+    let stderr = '';
+    child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
+    child.stdout.once('data', () => child.stdout.destroy());
+    const status = await new Promise<number | null>((resolve) => child.on('close', (code) => resolve(code)));
+    rmSync(dir, { recursive: true, force: true });
+    expect(stderr).toBe('');
+    expect(status).toBe(0);
   });
 });
 
