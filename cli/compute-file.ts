@@ -32,7 +32,8 @@ export function computeFile(file: string, options: RunOptions): FileOutcome {
   try {
     text = readFileSync(file, 'utf8');
   } catch (e) {
-    const why = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
+    const code = (e as NodeJS.ErrnoException).code;
+    const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? `a folder, not a file (its budgets: ${file.replace(/\/+$/, '')}/*.json)` : (e as Error).message;
     return { file, error: { code: 'file_unreadable', message: `cannot read ${file}: ${why}`, field: null } };
   }
   return computeText(file, text, options);

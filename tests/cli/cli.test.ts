@@ -94,6 +94,7 @@ describe('dubito compute', () => {
   const refusals: [string, string[], RegExp][] = [
     ['a file that is not JSON', [tempFile('{ "format": ')], /not a JSON document/],
     ['a missing file', ['/nonexistent/budget.json'], /cannot read .*no such file/],
+    ['a folder', ['examples'], /cannot read examples: a folder, not a file \(its budgets: examples\/\*\.json\)/],
     [
       'a bad field',
       [tempFile(JSON.stringify({ format: 'dubito-budget/1', title: 't', measurand: { symbol: 'Y' }, model: 'Y = a', inputs: [{ symbol: 'a', distribution: { kind: 'normal', value: 1, u: -1 } }] }))],
