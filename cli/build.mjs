@@ -52,5 +52,7 @@ const blob = `${outdir}/dubito-${process.version}-${machine()}.blob`;
 const made = spawnSync(process.execPath, ['--snapshot-blob', blob, '--build-snapshot', `${outdir}/snapshot.cjs`, here('../examples')], { encoding: 'utf8' });
 // Without a snapshot the command still works (cli/bin/dubito runs the plain build), so a node that cannot make one
 // must not fail the install; the tests check that the snapshot is there.
-if (made.status !== 0) rmSync(blob, { force: true });
-if (made.status !== 0) console.warn(`cli/build.mjs: no start-up snapshot made, dubito will start from the plain build:\n${made.stderr}`);
+if (made.status !== 0) {
+  rmSync(blob, { force: true });
+  console.warn(`cli/build.mjs: no start-up snapshot made, dubito will start from the plain build:\n${made.stderr}`);
+}
