@@ -18,9 +18,10 @@
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { availableParallelism, machine, tmpdir } from 'node:os';
+import { availableParallelism, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { snapshotBlobName } from '../cli/snapshot-blob.mjs';
 import { findPython, median, verdict } from './support';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -88,7 +89,7 @@ function main(): void {
   const plain = medianOf(plainRuns);
   const help = medianOf(helpRuns);
   const start = medianOf(startRuns);
-  const blob = `dubito-${process.version}-${machine()}.blob`;
+  const blob = snapshotBlobName();
   const from = existsSync(join(root, 'cli', 'dist', blob)) ? `from the snapshot cli/dist/${blob}` : 'no snapshot for this node: the plain build';
   console.log(`dubito compute (cli/bin/dubito, ${from}), JCGM 101 9.3 at 10⁶ trials: ${s(one.wall)}${cpuText(one)}`);
   console.log(`  the plain build without the snapshot (node cli/dist/dubito.js), for reference: ${s(plain.wall)}${cpuText(plain)}`);

@@ -14,8 +14,8 @@
 import { build } from 'esbuild';
 import { spawnSync } from 'node:child_process';
 import { chmodSync, rmSync } from 'node:fs';
-import { machine } from 'node:os';
 import { fileURLToPath } from 'node:url';
+import { snapshotBlobName } from './snapshot-blob.mjs';
 
 const here = (path) => fileURLToPath(new URL(path, import.meta.url));
 const outdir = here('./dist');
@@ -47,8 +47,7 @@ await build({
   sourcemap: true,
   logLevel: 'warning',
 });
-// the name the shell finds without starting node: `node --version` and `uname -m`
-const blob = `${outdir}/dubito-${process.version}-${machine()}.blob`;
+const blob = `${outdir}/${snapshotBlobName()}`;
 const made = spawnSync(process.execPath, ['--snapshot-blob', blob, '--build-snapshot', `${outdir}/snapshot.cjs`, here('../examples')], { encoding: 'utf8' });
 // Without a snapshot the command still works (cli/bin/dubito runs the plain build), so a node that cannot make one
 // must not fail the install; the tests check that the snapshot is there.

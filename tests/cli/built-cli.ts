@@ -1,6 +1,6 @@
 import { spawnSync } from 'node:child_process';
-import { machine } from 'node:os';
 import { join } from 'node:path';
+import { snapshotBlobName } from '../../cli/snapshot-blob.mjs';
 import { ensureBuilt, projectRoot } from '../support/built-once';
 
 /** The `dubito` command as installed (package.json "bin"). */
@@ -8,7 +8,7 @@ export const binDubito = join(projectRoot, 'cli', 'bin', 'dubito');
 /** The plain build, which the command runs when no start-up snapshot was built for the node at hand. */
 export const builtCli = join(projectRoot, 'cli', 'dist', 'dubito.js');
 /** The start-up snapshot `npm run build:cli` makes with this node. */
-export const snapshotBlob = join(projectRoot, 'cli', 'dist', `dubito-${process.version}-${machine()}.blob`);
+export const snapshotBlob = join(projectRoot, 'cli', 'dist', snapshotBlobName());
 
 /** Builds cli/dist/ when it is missing or older than the sources of the command line and the engine. */
 export function ensureBuiltCli(): void {

@@ -290,14 +290,17 @@ describe('dubito compute into a pipe closed early', () => {
     // more lines than a pipe holds, so the command is still writing when the reader leaves
     const text = readFileSync(join(root, 'examples', 'thermometer-pt100.json'), 'utf8');
     for (let i = 0; i < 120; i++) writeFileSync(join(dir, `probe-${String(i).padStart(3, '0')}.json`), text);
-    const child = spawn(binDubito, ['compute', join(dir, '*.json'), '--no-monte-carlo'], { cwd: root });
-    let stderr = '';
-    child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
-    child.stdout.once('data', () => child.stdout.destroy());
-    const status = await new Promise<number | null>((resolve) => child.on('close', (code) => resolve(code)));
-    rmSync(dir, { recursive: true, force: true });
-    expect(stderr).toBe('');
-    expect(status).toBe(0);
+    try {
+      const child = spawn(binDubito, ['compute', join(dir, '*.json'), '--no-monte-carlo'], { cwd: root });
+      let stderr = '';
+      child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
+      child.stdout.once('data', () => child.stdout.destroy());
+      const status = await new Promise<number | null>((resolve) => child.on('close', (code) => resolve(code)));
+      expect(stderr).toBe('');
+      expect(status).toBe(0);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
 

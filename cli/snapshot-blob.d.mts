@@ -1,0 +1,2 @@
+/** See snapshot-blob.mjs. */
+export declare const snapshotBlobName: () => string;
